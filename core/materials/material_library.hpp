@@ -1,0 +1,47 @@
+#pragma once
+// The built-in dispersion library and lookup by the names layout files use.
+//
+// Names: a family name gives its default set ("BBO" → "BBO:Kato1986"); a specific set is
+// "FAMILY:SET" ("BBO:Eimerl1987"). User-defined materials are added by id. The library is a
+// value: adding a material returns a new library, the built-in one never changes.
+
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "materials/material.hpp"
+
+namespace rv {
+
+class MaterialLibrary {
+public:
+    // The published sets listed in the README (Materials), each with its source.
+    static const MaterialLibrary& builtin();
+
+    // The material a file's name refers to, or nullptr.
+    const Material* find(std::string_view name) const;
+
+    // A copy of this library with one more material (its name must not be taken yet).
+    MaterialLibrary with(Material material) const;
+
+    // Every name find() accepts (sets and family aliases), sorted, for messages.
+    std::vector<std::string> names() const;
+
+    const std::vector<Material>& materials() const { return materials_; }
+
+private:
+    struct Alias {
+        std::string family, default_set;
+    };
+    std::vector<Material> materials_;
+    std::vector<Alias> aliases_;
+};
+
+// A user-defined isotropic material given in the SCHOTT Sellmeier form
+// n² − 1 = Σ B_i λ²/(λ² − C_i), λ in µm, C_i in µm².
+Material user_sellmeier_material(std::string id, std::vector<double> b,
+                                 std::vector<double> c_um2, double min_wavelength_nm,
+                                 double max_wavelength_nm, std::string source);
+
+}  // namespace rv

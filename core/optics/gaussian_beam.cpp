@@ -1,0 +1,65 @@
+#include "optics/gaussian_beam.hpp"
+
+#include <cmath>
+#include <limits>
+
+#include "units/constants.hpp"
+
+namespace rv {
+
+namespace {
+// M² λ0 / (π n), in mm: the "effective local wavelength over π" that links q to the radius.
+double effective_lambda_over_pi_mm(const GaussianBeam& beam) {
+    return beam.m2 * nm_to_mm(beam.wavelength_nm) / (kPi * beam.index);
+}
+}  // namespace
+
+GaussianBeam beam_from_waist(double waist_um, double distance_to_waist_mm, double wavelength_nm,
+                             double index, double m2) {
+    GaussianBeam beam{{0.0, 0.0}, wavelength_nm, index, m2};
+    const double w0_mm = um_to_mm(waist_um);
+    const double z_r_mm = w0_mm * w0_mm / effective_lambda_over_pi_mm(beam);
+    beam.q_mm = {-distance_to_waist_mm, z_r_mm};
+    return beam;
+}
+
+GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m, double index_after) {
+    GaussianBeam out = beam;
+    out.q_mm = (m(0, 0) * beam.q_mm + m(0, 1)) / (m(1, 0) * beam.q_mm + m(1, 1));
+    out.index = index_after;
+    return out;
+}
+
+GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m) {
+    return propagate(beam, m, beam.index);
+}
+
+double radius_um(const GaussianBeam& beam) {
+    // Im(1/q) = −M² λ0 / (π n W²)
+    const double im_inv_q = std::imag(1.0 / beam.q_mm);
+    return mm_to_um(std::sqrt(-effective_lambda_over_pi_mm(beam) / im_inv_q));
+}
+
+double waist_radius_um(const GaussianBeam& beam) {
+    return mm_to_um(std::sqrt(effective_lambda_over_pi_mm(beam) * rayleigh_range_mm(beam)));
+}
+
+double distance_to_waist_mm(const GaussianBeam& beam) { return -std::real(beam.q_mm); }
+
+double rayleigh_range_mm(const GaussianBeam& beam) { return std::imag(beam.q_mm); }
+
+double wavefront_radius_mm(const GaussianBeam& beam) {
+    const double re_inv_q = std::real(1.0 / beam.q_mm);
+    if (re_inv_q == 0.0) return std::numeric_limits<double>::infinity();
+    return 1.0 / re_inv_q;
+}
+
+double gouy_phase_rad(const GaussianBeam& beam) {
+    return std::atan2(std::real(beam.q_mm), std::imag(beam.q_mm));
+}
+
+double divergence_rad(const GaussianBeam& beam) {
+    return effective_lambda_over_pi_mm(beam) / um_to_mm(waist_radius_um(beam));
+}
+
+}  // namespace rv
