@@ -25,7 +25,14 @@ GaussianBeam beam_from_waist(double waist_um, double distance_to_waist_mm, doubl
 
 GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m, double index_after) {
     GaussianBeam out = beam;
-    out.q_mm = (m(0, 0) * beam.q_mm + m(0, 1)) / (m(1, 0) * beam.q_mm + m(1, 1));
+    // (A q + B)/(C q + D), dividing by multiplying with the conjugate: q never lies on the real
+    // axis (Im q = z_R > 0), so the inf/NaN care of std::complex's division (__divdc3) is not
+    // needed, and this is the hot loop of tracing and solving.
+    const std::complex<double> num = m(0, 0) * beam.q_mm + m(0, 1);
+    const std::complex<double> den = m(1, 0) * beam.q_mm + m(1, 1);
+    const double den_norm = std::norm(den);
+    out.q_mm = {(num.real() * den.real() + num.imag() * den.imag()) / den_norm,
+                (num.imag() * den.real() - num.real() * den.imag()) / den_norm};
     out.index = index_after;
     return out;
 }
