@@ -1,0 +1,29 @@
+#pragma once
+// A located problem in an input: what a user sees when a file or a value is wrong.
+// Rendered as "FILE: error: /elements/3/focal_length_mm: must be non-zero (got 0)", or with
+// "FILE:LINE:COLUMN: error: ..." for syntax errors, where the pointer is unknown.
+
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace rv {
+
+struct Diagnostic {
+    enum class Severity { Error, Warning };
+    Severity severity = Severity::Error;
+    std::string pointer;  // JSON pointer of the offending value ("" for the whole document)
+    int line = 0;         // 1-based; 0 when not known
+    int column = 0;
+    std::string message;  // one plain sentence: what was expected, what was found
+    bool operator==(const Diagnostic&) const = default;
+};
+
+using Diagnostics = std::vector<Diagnostic>;
+
+bool has_errors(const Diagnostics& diagnostics);
+
+// "FILE: error: POINTER: MESSAGE" (or "FILE:LINE:COL: error: MESSAGE").
+std::string format_diagnostic(const Diagnostic& d, std::string_view file);
+
+}  // namespace rv

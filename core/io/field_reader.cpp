@@ -1,0 +1,274 @@
+#include "io/field_reader.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <sstream>
+
+#include "io/closest_name.hpp"
+
+namespace rv {
+
+namespace {
+
+std::string number_text(double v) {
+    std::ostringstream s;
+    s.precision(15);
+    s << v;
+    return s.str();
+}
+
+std::string quoted_list(const std::vector<std::string>& options) {
+    std::string out;
+    for (size_t i = 0; i < options.size(); ++i) {
+        if (i) out += i + 1 == options.size() ? " or " : ", ";
+        out += "\"" + options[i] + "\"";
+    }
+    return out;
+}
+
+// A short rendering of a found value for messages: strings quoted, long ones cut.
+std::string found_text(const nlohmann::json& v) {
+    std::string s = v.dump();
+    if (s.size() > 40) s = s.substr(0, 37) + "...";
+    return describe_json_type(v) + " (" + s + ")";
+}
+
+}  // namespace
+
+NumberRule positive() {
+    return [](double v) { return v > 0 ? std::string() : "must be positive"; };
+}
+NumberRule non_zero() {
+    return [](double v) { return v != 0 ? std::string() : "must be non-zero"; };
+}
+NumberRule at_least(double minimum) {
+    return [minimum](double v) {
+        return v >= minimum ? std::string() : "must be at least " + number_text(minimum);
+    };
+}
+NumberRule between(double minimum, double maximum) {
+    return [minimum, maximum](double v) {
+        return v >= minimum && v <= maximum
+                   ? std::string()
+                   : "must be between " + number_text(minimum) + " and " + number_text(maximum);
+    };
+}
+
+std::string child_pointer(const std::string& parent, const std::string& key) {
+    std::string escaped;
+    for (char c : key) {
+        if (c == '~') escaped += "~0";
+        else if (c == '/') escaped += "~1";
+        else escaped += c;
+    }
+    return parent + "/" + escaped;
+}
+
+std::string child_pointer(const std::string& parent, size_t index) {
+    return parent + "/" + std::to_string(index);
+}
+
+std::string describe_json_type(const nlohmann::json& value) {
+    switch (value.type()) {
+        case nlohmann::json::value_t::null: return "null";
+        case nlohmann::json::value_t::boolean: return "a boolean";
+        case nlohmann::json::value_t::string: return "a string";
+        case nlohmann::json::value_t::array: return "an array";
+        case nlohmann::json::value_t::object: return "an object";
+        case nlohmann::json::value_t::number_integer:
+        case nlohmann::json::value_t::number_unsigned:
+        case nlohmann::json::value_t::number_float: return "a number";
+        default: return "an unsupported value";
+    }
+}
+
+FieldReader::FieldReader(const nlohmann::json& object, std::string pointer, std::string what,
+                         Diagnostics& out)
+    : object_(object), pointer_(std::move(pointer)), what_(std::move(what)), out_(out) {}
+
+bool FieldReader::has(const std::string& key) const {
+    return object_.is_object() && object_.contains(key);
+}
+
+void FieldReader::error(const std::string& key, const std::string& message) {
+    out_.push_back({Diagnostic::Severity::Error, key.empty() ? pointer_ : pointer(key), 0, 0,
+                    message});
+}
+
+const nlohmann::json* FieldReader::get(const std::string& key, Need need,
+                                       nlohmann::json::value_t want, const char* want_text) {
+    if (!has(key)) {
+        if (need == Need::Required)
+            out_.push_back({Diagnostic::Severity::Error, pointer_, 0, 0,
+                            "missing \"" + key + "\", required for " + what_});
+        return nullptr;
+    }
+    const nlohmann::json& v = object_.at(key);
+    const bool number_wanted = want == nlohmann::json::value_t::number_float;
+    if (number_wanted ? !v.is_number() : v.type() != want) {
+        error(key, std::string("expected ") + want_text + ", found " + found_text(v));
+        return nullptr;
+    }
+    return &v;
+}
+
+std::optional<double> FieldReader::check_number(const nlohmann::json& v, const std::string& ptr,
+                                                const NumberRule& rule) {
+    const double x = v.get<double>();
+    if (!std::isfinite(x)) {
+        out_.push_back({Diagnostic::Severity::Error, ptr, 0, 0,
+                        "expected a finite number, found " + v.dump()});
+        return std::nullopt;
+    }
+    if (rule) {
+        const std::string broken = rule(x);
+        if (!broken.empty()) {
+            out_.push_back({Diagnostic::Severity::Error, ptr, 0, 0,
+                            broken + " (got " + number_text(x) + ")"});
+            return std::nullopt;
+        }
+    }
+    return x;
+}
+
+std::optional<double> FieldReader::number(const std::string& key, Need need,
+                                          const NumberRule& rule) {
+    const nlohmann::json* v = get(key, need, nlohmann::json::value_t::number_float, "a number");
+    if (!v) return std::nullopt;
+    return check_number(*v, pointer(key), rule);
+}
+
+std::optional<std::string> FieldReader::string(const std::string& key, Need need) {
+    const nlohmann::json* v = get(key, need, nlohmann::json::value_t::string, "a string");
+    if (!v) return std::nullopt;
+    std::string s = v->get<std::string>();
+    if (s.empty()) {
+        error(key, "must not be empty");
+        return std::nullopt;
+    }
+    return s;
+}
+
+std::optional<std::string> FieldReader::choice(const std::string& key, Need need,
+                                               const std::vector<std::string>& options) {
+    const nlohmann::json* v = get(key, need, nlohmann::json::value_t::string, "a string");
+    if (!v) return std::nullopt;
+    const std::string s = v->get<std::string>();
+    if (std::find(options.begin(), options.end(), s) != options.end()) return s;
+    error(key, "expected " + quoted_list(options) + ", found \"" + s + "\"");
+    return std::nullopt;
+}
+
+std::optional<std::vector<double>> FieldReader::numbers(const std::string& key, Need need,
+                                                        const NumberRule& rule) {
+    const nlohmann::json* v = get(key, need, nlohmann::json::value_t::array, "an array of numbers");
+    if (!v) return std::nullopt;
+    std::vector<double> out;
+    bool ok = true;
+    for (size_t i = 0; i < v->size(); ++i) {
+        const nlohmann::json& item = (*v)[i];
+        const std::string ptr = child_pointer(pointer(key), i);
+        if (!item.is_number()) {
+            out_.push_back({Diagnostic::Severity::Error, ptr, 0, 0,
+                            "expected a number, found " + found_text(item)});
+            ok = false;
+            continue;
+        }
+        const std::optional<double> x = check_number(item, ptr, rule);
+        if (x) out.push_back(*x);
+        else ok = false;
+    }
+    if (!ok) return std::nullopt;
+    return out;
+}
+
+std::optional<Vec2> FieldReader::point(const std::string& key, Need need) {
+    if (has(key) && (!object_.at(key).is_array() || object_.at(key).size() != 2)) {
+        error(key, "expected [x, y] in mm, found " + found_text(object_.at(key)));
+        return std::nullopt;
+    }
+    const std::optional<std::vector<double>> xy = numbers(key, need);
+    if (!xy) return std::nullopt;
+    return Vec2((*xy)[0], (*xy)[1]);
+}
+
+std::optional<PlanePair> FieldReader::plane_pair(const std::string& key, Need need,
+                                                 const NumberRule& rule) {
+    if (has(key) && object_.at(key).is_array()) {
+        if (object_.at(key).size() != 2) {
+                error(key, "expected one number or [tangential, sagittal], found " +
+                           found_text(object_.at(key)));
+            return std::nullopt;
+        }
+        const std::optional<std::vector<double>> ts = numbers(key, need, rule);
+        if (!ts) return std::nullopt;
+        return PlanePair{(*ts)[0], (*ts)[1]};
+    }
+    const nlohmann::json* v =
+        get(key, need, nlohmann::json::value_t::number_float, "one number or [tangential, sagittal]");
+    if (!v) return std::nullopt;
+    const std::optional<double> x = check_number(*v, pointer(key), rule);
+    if (!x) return std::nullopt;
+    return PlanePair{*x, *x};
+}
+
+std::optional<std::pair<double, double>> FieldReader::interval(const std::string& key, Need need) {
+    if (has(key) && (!object_.at(key).is_array() || object_.at(key).size() != 2)) {
+        error(key, "expected [min, max], found " + found_text(object_.at(key)));
+        return std::nullopt;
+    }
+    const std::optional<std::vector<double>> v = numbers(key, need);
+    if (!v) return std::nullopt;
+    if (!((*v)[0] < (*v)[1])) {
+        error(key, "expected [min, max] with min < max, found [" + number_text((*v)[0]) + ", " +
+                       number_text((*v)[1]) + "]");
+        return std::nullopt;
+    }
+    return std::make_pair((*v)[0], (*v)[1]);
+}
+
+std::optional<std::vector<std::string>> FieldReader::strings(const std::string& key, Need need) {
+    const nlohmann::json* v = get(key, need, nlohmann::json::value_t::array, "an array of strings");
+    if (!v) return std::nullopt;
+    std::vector<std::string> out;
+    bool ok = true;
+    for (size_t i = 0; i < v->size(); ++i) {
+        if (!(*v)[i].is_string()) {
+            out_.push_back({Diagnostic::Severity::Error, child_pointer(pointer(key), i), 0, 0,
+                            "expected a string, found " + found_text((*v)[i])});
+            ok = false;
+        } else {
+            out.push_back((*v)[i].get<std::string>());
+        }
+    }
+    if (!ok) return std::nullopt;
+    return out;
+}
+
+const nlohmann::json* FieldReader::object(const std::string& key, Need need) {
+    return get(key, need, nlohmann::json::value_t::object, "an object");
+}
+
+const nlohmann::json* FieldReader::array(const std::string& key, Need need) {
+    return get(key, need, nlohmann::json::value_t::array, "an array");
+}
+
+void FieldReader::forbid_together(const std::string& key, const std::string& other) {
+    if (has(key) && has(other)) error(key, "not allowed together with \"" + other + "\"");
+}
+
+void FieldReader::finish(const std::vector<std::string>& known_keys) {
+    if (!object_.is_object()) return;
+    for (const auto& item : object_.items()) {
+        const std::string& key = item.key();
+        if (std::find(known_keys.begin(), known_keys.end(), key) != known_keys.end()) continue;
+        std::string message = "unknown key for " + what_;
+        if (const std::optional<std::string> near = closest_name(key, known_keys))
+            message += "; did you mean \"" + *near + "\"?";
+        else
+            message += "; expected one of " + quoted_list(known_keys);
+        error(key, message);
+    }
+}
+
+}  // namespace rv

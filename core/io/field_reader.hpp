@@ -1,0 +1,80 @@
+#pragma once
+// Reads the keys of one JSON object with located diagnostics; finish() reports the keys that
+// are not among the known ones, with the closest known key suggested. Values that are missing or wrong give a diagnostic and nullopt; the
+// caller carries on, so that one pass reports every problem.
+
+#include <functional>
+#include <nlohmann/json.hpp>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "io/diagnostic.hpp"
+#include "layout/layout.hpp"
+
+namespace rv {
+
+enum class Need { Required, Optional };
+
+// A rule a number must obey: returns "" when it does, else what it must be ("must be positive").
+using NumberRule = std::function<std::string(double)>;
+NumberRule positive();
+NumberRule non_zero();
+NumberRule at_least(double minimum);
+NumberRule between(double minimum, double maximum);
+
+// JSON pointer of a child ("/elements/3" + "focal_length_mm"), with ~ and / escaped.
+std::string child_pointer(const std::string& parent, const std::string& key);
+std::string child_pointer(const std::string& parent, size_t index);
+
+// "a string", "an array", … for messages.
+std::string describe_json_type(const nlohmann::json& value);
+
+class FieldReader {
+public:
+    // `what` names the object in messages ("a lens", "a beam", "the table").
+    FieldReader(const nlohmann::json& object, std::string pointer, std::string what,
+                Diagnostics& out);
+
+    bool has(const std::string& key) const;
+    const nlohmann::json& object_at(const std::string& key) const { return object_.at(key); }
+    std::string pointer(const std::string& key) const { return child_pointer(pointer_, key); }
+
+    std::optional<double> number(const std::string& key, Need need, const NumberRule& rule = {});
+    std::optional<std::string> string(const std::string& key, Need need);
+    std::optional<std::string> choice(const std::string& key, Need need,
+                                      const std::vector<std::string>& options);
+    std::optional<Vec2> point(const std::string& key, Need need);
+    // A number or a [tangential, sagittal] pair.
+    std::optional<PlanePair> plane_pair(const std::string& key, Need need,
+                                        const NumberRule& rule = {});
+    // [min, max] with min < max.
+    std::optional<std::pair<double, double>> interval(const std::string& key, Need need);
+    std::optional<std::vector<double>> numbers(const std::string& key, Need need,
+                                               const NumberRule& rule = {});
+    std::optional<std::vector<std::string>> strings(const std::string& key, Need need);
+    // A nested object or array, marked used; nullptr when absent or of the wrong type.
+    const nlohmann::json* object(const std::string& key, Need need);
+    const nlohmann::json* array(const std::string& key, Need need);
+
+    // An error located at a key of this object.
+    void error(const std::string& key, const std::string& message);
+    // Reports a key that must not stand beside another ("not allowed together with …").
+    void forbid_together(const std::string& key, const std::string& other);
+
+    // Unknown keys, each with the closest known key when one is close.
+    void finish(const std::vector<std::string>& known_keys);
+
+private:
+    const nlohmann::json* get(const std::string& key, Need need, nlohmann::json::value_t want,
+                              const char* want_text);
+    std::optional<double> check_number(const nlohmann::json& v, const std::string& ptr,
+                                       const NumberRule& rule);
+
+    const nlohmann::json& object_;
+    std::string pointer_;
+    std::string what_;
+    Diagnostics& out_;
+};
+
+}  // namespace rv

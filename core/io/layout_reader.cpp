@@ -1,0 +1,536 @@
+#include "io/layout_reader.hpp"
+
+#include <cmath>
+#include <fstream>
+#include <limits>
+#include <map>
+#include <sstream>
+
+#include "io/closest_name.hpp"
+#include "io/field_reader.hpp"
+#include "layout/lens_shape.hpp"
+#include "materials/dispersion.hpp"
+
+namespace rv {
+
+namespace {
+
+using nlohmann::json;
+using Keys = std::vector<std::string>;
+
+const Keys kCommonKeys = {"id", "type", "at_mm", "normal_deg", "aperture_mm"};
+
+Keys with_common(const Keys& own) {
+    Keys k = kCommonKeys;
+    k.insert(k.end(), own.begin(), own.end());
+    return k;
+}
+
+const Keys kElementTypes = {"lens",  "mirror",  "dichroic", "plate", "retroreflector",
+                            "stage", "crystal", "target",   "dump"};
+
+class Reader {
+public:
+    explicit Reader(Diagnostics& out) : out_(out) {}
+
+    std::optional<Layout> read(const json& doc);
+
+private:
+    void read_table(const json& v, Layout& layout);
+    void read_materials(const json& v, Layout& layout);
+    void read_beam(const json& v, const std::string& ptr, Layout& layout);
+    void read_element(const json& v, const std::string& ptr, Layout& layout);
+    std::optional<ElementKind> read_kind(const std::string& type, FieldReader& f,
+                                         const std::string& ptr);
+    std::optional<Lens> read_lens(FieldReader& f);
+    std::optional<std::string> material_name(FieldReader& f, const std::string& key);
+    void check_references(const json& doc, Layout& layout);
+
+    void error(const std::string& pointer, const std::string& message) {
+        out_.push_back({Diagnostic::Severity::Error, pointer, 0, 0, message});
+    }
+
+    Diagnostics& out_;
+    MaterialLibrary library_ = MaterialLibrary::builtin();
+    std::map<std::string, std::string> element_pointers_;  // id → pointer of its "id"
+};
+
+std::optional<Layout> Reader::read(const json& doc) {
+    if (!doc.is_object()) {
+        error("", "expected a layout object, found " + describe_json_type(doc));
+        return std::nullopt;
+    }
+    FieldReader root(doc, "", "a layout", out_);
+    if (const auto format = root.string("format", Need::Required); format &&
+                                                                   *format != "rendezvous-layout")
+        root.error("format", "expected \"rendezvous-layout\", found \"" + *format + "\"");
+    if (const auto version = root.number("version", Need::Required); version && *version != 1.0) {
+        std::ostringstream s;
+        s << "unsupported version " << *version << "; this program reads version 1";
+        root.error("version", s.str());
+    }
+    Layout layout;
+    layout.name = root.string("name", Need::Optional).value_or("");
+    if (const json* t = root.object("table", Need::Optional)) read_table(*t, layout);
+    if (const json* m = root.array("materials", Need::Optional)) read_materials(*m, layout);
+    if (const json* beams = root.array("beams", Need::Required)) {
+        if (beams->empty() || beams->size() > 2)
+            root.error("beams", "expected one or two beams, found " + std::to_string(beams->size()));
+        for (size_t i = 0; i < beams->size(); ++i)
+            read_beam((*beams)[i], child_pointer("/beams", i), layout);
+    }
+    if (const json* elements = root.array("elements", Need::Required))
+        for (size_t i = 0; i < elements->size(); ++i)
+            read_element((*elements)[i], child_pointer("/elements", i), layout);
+    layout.target = root.string("target", Need::Required).value_or("");
+    if (const json* goals = root.object("goals", Need::Optional)) {
+        FieldReader g(*goals, "/goals", "the goals", out_);
+        if (const json* w = g.object("waist_um", Need::Optional)) {
+            for (const auto& item : w->items()) {
+                FieldReader wr(*w, "/goals/waist_um", "the waist goals", out_);
+                if (const auto v = wr.number(item.key(), Need::Required, positive()))
+                    layout.goals.waist_um.emplace_back(item.key(), *v);
+            }
+        }
+        g.finish({"waist_um"});
+    }
+    root.finish({"format", "version", "name", "table", "materials", "beams", "elements", "target",
+                 "goals"});
+    check_references(doc, layout);
+    if (has_errors(out_)) return std::nullopt;
+    return layout;
+}
+
+void Reader::read_table(const json& v, Layout& layout) {
+    FieldReader f(v, "/table", "the table", out_);
+    if (f.has("size_mm")) {
+        if (const auto size = f.numbers("size_mm", Need::Required, positive())) {
+            if (size->size() != 2) f.error("size_mm", "expected [width, height] in mm");
+            else layout.table.width_mm = (*size)[0], layout.table.height_mm = (*size)[1];
+        }
+    }
+    if (const auto grid = f.number("grid_mm", Need::Optional)) {
+        if (*grid != 25.0 && *grid != 25.4) {
+            std::ostringstream s;
+            s << "expected 25 (metric) or 25.4 (imperial), found " << *grid;
+            f.error("grid_mm", s.str());
+        } else {
+            layout.table.grid_mm = *grid;
+        }
+    }
+    f.finish({"size_mm", "grid_mm"});
+}
+
+void Reader::read_materials(const json& v, Layout& layout) {
+    for (size_t i = 0; i < v.size(); ++i) {
+        const std::string ptr = child_pointer("/materials", i);
+        FieldReader f(v[i], ptr, "a user material", out_);
+        if (!v[i].is_object()) {
+            error(ptr, "expected a material object, found " + describe_json_type(v[i]));
+            continue;
+        }
+        UserMaterial m;
+        const auto id = f.string("id", Need::Required);
+        const auto range = f.interval("range_nm", Need::Required);
+        std::optional<std::vector<double>> b, c;
+        if (const json* s = f.object("sellmeier", Need::Required)) {
+            FieldReader sf(*s, ptr + "/sellmeier", "Sellmeier coefficients", out_);
+            b = sf.numbers("b", Need::Required);
+            c = sf.numbers("c_um2", Need::Required);
+            if (b && c && (b->size() != c->size() || b->empty())) {
+                sf.error("c_um2", "expected as many C as B coefficients (" +
+                                      std::to_string(b->size()) + "), found " +
+                                      std::to_string(c->size()));
+                c.reset();
+            }
+            sf.finish({"b", "c_um2"});
+        }
+        m.source = f.string("source", Need::Optional).value_or("");
+        f.finish({"id", "sellmeier", "range_nm", "source"});
+        if (range && range->first <= 0) {
+            f.error("range_nm", "wavelengths must be positive");
+            continue;
+        }
+        if (!id || !range || !b || !c) continue;
+        if (library_.find(*id)) {
+            f.error("id", "\"" + *id + "\" is already a material name");
+            continue;
+        }
+        m.id = *id;
+        m.b = *b;
+        m.c_um2 = *c;
+        m.min_wavelength_nm = range->first;
+        m.max_wavelength_nm = range->second;
+        library_ = library_.with(user_sellmeier_material(m.id, m.b, m.c_um2, m.min_wavelength_nm,
+                                                         m.max_wavelength_nm, m.source));
+        layout.materials.push_back(std::move(m));
+    }
+}
+
+void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
+    if (!v.is_object()) {
+        error(ptr, "expected a beam object, found " + describe_json_type(v));
+        return;
+    }
+    FieldReader f(v, ptr, "a beam", out_);
+    BeamSource b;
+    b.id = f.string("id", Need::Required).value_or("");
+    b.wavelength_nm = f.number("wavelength_nm", Need::Required, positive()).value_or(0);
+    b.start_mm = f.point("start_mm", Need::Required).value_or(Vec2(0, 0));
+    b.direction_deg = f.number("direction_deg", Need::Required).value_or(0);
+    b.waist_um = f.plane_pair("waist_um", Need::Required, positive()).value_or(PlanePair{});
+    b.waist_at_mm = f.plane_pair("waist_at_mm", Need::Optional).value_or(PlanePair{});
+    b.m2 = f.plane_pair("m2", Need::Optional, at_least(1.0)).value_or(PlanePair{1, 1});
+    b.pulse_fwhm_fs = f.number("pulse_fwhm_fs", Need::Optional, positive()).value_or(0);
+    b.emit_time_fs = f.number("emit_time_fs", Need::Optional).value_or(0);
+    b.power_mw = f.number("power_mw", Need::Optional, positive()).value_or(0);
+    const auto pol = f.choice("polarization", Need::Optional,
+                              {"horizontal", "vertical", "linear", "circular-left", "circular-right"});
+    using K = Polarization::Kind;
+    if (pol) {
+        b.polarization.kind = *pol == "vertical"        ? K::Vertical
+                              : *pol == "linear"        ? K::Linear
+                              : *pol == "circular-left" ? K::CircularLeft
+                              : *pol == "circular-right" ? K::CircularRight
+                                                        : K::Horizontal;
+    }
+    if (b.polarization.kind == K::Linear)
+        b.polarization.angle_deg = f.number("polarization_angle_deg", Need::Required).value_or(0);
+    else if (f.has("polarization_angle_deg"))
+        f.error("polarization_angle_deg", "only allowed with \"polarization\": \"linear\"");
+    f.finish({"id", "wavelength_nm", "start_mm", "direction_deg", "waist_um", "waist_at_mm", "m2",
+              "pulse_fwhm_fs", "emit_time_fs", "polarization", "polarization_angle_deg",
+              "power_mw"});
+    if (!b.id.empty()) {
+        if (element_pointers_.count(b.id))
+            error(ptr + "/id", "duplicate id \"" + b.id + "\" (first used at " +
+                                   element_pointers_[b.id] + ")");
+        else
+            element_pointers_[b.id] = ptr + "/id";
+    }
+    layout.beams.push_back(std::move(b));
+}
+
+std::optional<std::string> Reader::material_name(FieldReader& f, const std::string& key) {
+    const auto name = f.string(key, Need::Required);
+    if (!name) return std::nullopt;
+    if (library_.find(*name)) return name;
+    std::string message = "unknown material \"" + *name + "\"";
+    if (const auto near = closest_name(*name, library_.names()))
+        message += "; did you mean \"" + *near + "\"?";
+    f.error(key, message);
+    return std::nullopt;
+}
+
+std::optional<Lens> Reader::read_lens(FieldReader& f) {
+    const bool thick = f.has("center_thickness_mm") || f.has("front_radius_mm") ||
+                       f.has("back_radius_mm") || f.has("shape");
+    if (!thick) {
+        const auto focal = f.number("focal_length_mm", Need::Required, non_zero());
+        if (!f.has("glass")) {
+            if (f.has("design_wavelength_nm"))
+                f.error("design_wavelength_nm", "needs \"glass\" (an ideal lens has no dispersion)");
+            return focal ? std::optional<Lens>(Lens{IdealLens{*focal}}) : std::nullopt;
+        }
+        const auto glass = material_name(f, "glass");
+        const double design = f.number("design_wavelength_nm", Need::Optional, positive()).value_or(587.6);
+        if (!focal || !glass) return std::nullopt;
+        return Lens{ThinChromaticLens{*focal, *glass, design}};
+    }
+    ThickLens t;
+    const auto glass = material_name(f, "glass");
+    const auto thickness = f.number("center_thickness_mm", Need::Required, positive());
+    t.design_wavelength_nm = f.number("design_wavelength_nm", Need::Optional, positive()).value_or(587.6);
+    constexpr double flat = std::numeric_limits<double>::infinity();
+    if (f.has("shape")) {
+        f.forbid_together("front_radius_mm", "shape");
+        f.forbid_together("back_radius_mm", "shape");
+        const auto shape = f.choice("shape", Need::Required, lens_shape_names());
+        const auto focal = f.number("focal_length_mm", Need::Required, non_zero());
+        if (!glass || !thickness || !shape || !focal) return std::nullopt;
+        const double n = sample_index(*library_.find(*glass), t.design_wavelength_nm).index;
+        std::string why;
+        const auto radii = radii_for_shape(*shape, *focal, *thickness, n, &why);
+        if (!radii) {
+            f.error("focal_length_mm", "no " + *shape + " lens has this focal length: " + why);
+            return std::nullopt;
+        }
+        t.front_radius_mm = radii->front_radius_mm;
+        t.back_radius_mm = radii->back_radius_mm;
+        t.shape = *shape;
+        t.focal_length_mm = *focal;
+    } else {
+        if (f.has("focal_length_mm"))
+            f.error("focal_length_mm", "not allowed with radii (the radii set the focal length)");
+        if (f.has("design_wavelength_nm"))
+            f.error("design_wavelength_nm", "only used with \"shape\"");
+        const auto r1 = f.number("front_radius_mm", Need::Optional, non_zero());
+        const auto r2 = f.number("back_radius_mm", Need::Optional, non_zero());
+        if (!f.has("front_radius_mm") && !f.has("back_radius_mm"))
+            f.error("", "a thick lens needs \"front_radius_mm\", \"back_radius_mm\" or \"shape\"");
+        if (!glass || !thickness || (f.has("front_radius_mm") && !r1) ||
+            (f.has("back_radius_mm") && !r2))
+            return std::nullopt;
+        t.front_radius_mm = r1.value_or(flat);
+        t.back_radius_mm = r2.value_or(flat);
+    }
+    t.glass = *glass;
+    t.center_thickness_mm = *thickness;
+    return Lens{t};
+}
+
+std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReader& f,
+                                             const std::string& ptr) {
+    if (type == "lens") {
+        f.finish(with_common({"focal_length_mm", "glass", "design_wavelength_nm",
+                              "center_thickness_mm", "front_radius_mm", "back_radius_mm", "shape"}));
+        if (auto lens = read_lens(f)) return *lens;
+        return std::nullopt;
+    }
+    if (type == "mirror") {
+        Mirror m;
+        m.radius_of_curvature_mm = f.number("radius_of_curvature_mm", Need::Optional, non_zero());
+        m.aim_at = f.string("aim_at", Need::Optional);
+        f.forbid_together("normal_deg", "aim_at");
+        f.finish(with_common({"radius_of_curvature_mm", "aim_at"}));
+        return m;
+    }
+    if (type == "dichroic") {
+        Dichroic d;
+        d.edge_nm = f.number("edge_nm", Need::Required, positive()).value_or(0);
+        d.reflects_shorter = f.choice("reflects", Need::Required, {"shorter", "longer"})
+                                 .value_or("shorter") == "shorter";
+        if (const json* s = f.object("substrate", Need::Required)) {
+            FieldReader sf(*s, ptr + "/substrate", "a dichroic substrate", out_);
+            d.substrate.material = material_name(sf, "glass").value_or("");
+            d.substrate.thickness_mm = sf.number("thickness_mm", Need::Required, positive()).value_or(0);
+            sf.finish({"glass", "thickness_mm"});
+        }
+        f.finish(with_common({"edge_nm", "reflects", "substrate"}));
+        return d;
+    }
+    if (type == "plate") {
+        Plate p;
+        const auto role = f.choice("role", Need::Optional,
+                                   {"window", "half-wave", "quarter-wave", "polarizing-cube"});
+        using R = Plate::Role;
+        p.role = !role ? R::Window
+                 : *role == "half-wave"       ? R::HalfWave
+                 : *role == "quarter-wave"    ? R::QuarterWave
+                 : *role == "polarizing-cube" ? R::PolarizingCube
+                                              : R::Window;
+        p.slab.material = material_name(f, "material").value_or("");
+        p.slab.thickness_mm = f.number("thickness_mm", Need::Required, positive()).value_or(0);
+        p.fast_axis_deg = f.number("fast_axis_deg", Need::Optional).value_or(0);
+        f.finish(with_common({"role", "material", "thickness_mm", "fast_axis_deg"}));
+        return p;
+    }
+    if (type == "retroreflector") {
+        f.finish(kCommonKeys);
+        return Retroreflector{};
+    }
+    if (type == "stage") {
+        Stage s;
+        s.carries = f.strings("carries", Need::Required).value_or(std::vector<std::string>{});
+        if (f.has("carries") && f.object_at("carries").is_array() && f.object_at("carries").empty())
+            f.error("carries", "expected at least one element id");
+        s.axis_deg = f.number("axis_deg", Need::Required).value_or(0);
+        s.position_mm = f.number("position_mm", Need::Optional).value_or(0);
+        if (const auto travel = f.interval("travel_mm", Need::Required)) {
+            s.travel_min_mm = travel->first;
+            s.travel_max_mm = travel->second;
+            if (s.position_mm < s.travel_min_mm || s.position_mm > s.travel_max_mm) {
+                std::ostringstream m;
+                m << "must lie within the travel [" << s.travel_min_mm << ", " << s.travel_max_mm
+                  << "] (got " << s.position_mm << ")";
+                f.error("position_mm", m.str());
+            }
+        }
+        for (const char* key : {"at_mm", "normal_deg", "aperture_mm"})
+            if (f.has(key)) f.error(key, "a stage has no position of its own; it moves what it carries");
+        f.finish({"id", "type", "carries", "axis_deg", "position_mm", "travel_mm", "at_mm",
+                  "normal_deg", "aperture_mm"});
+        return s;
+    }
+    if (type == "crystal") {
+        Crystal c;
+        c.material = material_name(f, "material").value_or("");
+        c.length_mm = f.number("length_mm", Need::Required, positive()).value_or(0);
+        c.cut_deg = f.number("cut_deg", Need::Required, between(0, 90)).value_or(0);
+        c.phase_matching = f.choice("phase_matching", Need::Required, {"type-I", "type-II"})
+                                   .value_or("type-I") == "type-II"
+                               ? Crystal::PhaseMatching::TypeII
+                               : Crystal::PhaseMatching::TypeI;
+        c.optic_axis_horizontal =
+            f.choice("optic_axis", Need::Optional, {"horizontal", "vertical"}).value_or("vertical") ==
+            "horizontal";
+        f.finish(with_common({"material", "length_mm", "cut_deg", "phase_matching", "optic_axis"}));
+        return c;
+    }
+    if (type == "target") {
+        f.finish(kCommonKeys);
+        return Target{};
+    }
+    f.finish(kCommonKeys);
+    return Dump{};
+}
+
+void Reader::read_element(const json& v, const std::string& ptr, Layout& layout) {
+    if (!v.is_object()) {
+        error(ptr, "expected an element object, found " + describe_json_type(v));
+        return;
+    }
+    FieldReader f(v, ptr, "an element", out_);
+    const auto type = f.string("type", Need::Required);
+    if (!type) return;
+    if (std::find(kElementTypes.begin(), kElementTypes.end(), *type) == kElementTypes.end()) {
+        std::string message = "unknown element type \"" + *type + "\"";
+        if (const auto near = closest_name(*type, kElementTypes))
+            message += "; did you mean \"" + *near + "\"?";
+        else
+            message += "; expected one of lens, mirror, dichroic, plate, retroreflector, stage, "
+                       "crystal, target, dump";
+        f.error("type", message);
+        return;
+    }
+    FieldReader typed(v, ptr, "a " + *type, out_);
+    Element e;
+    e.id = typed.string("id", Need::Required).value_or("");
+    if (*type != "stage") {
+        e.at_mm = typed.point("at_mm", Need::Required).value_or(Vec2(0, 0));
+        e.normal_deg = typed.number("normal_deg", Need::Optional).value_or(0);
+        e.aperture_mm = typed.number("aperture_mm", Need::Optional, positive()).value_or(kDefaultAperture_mm);
+    }
+    std::optional<ElementKind> kind = read_kind(*type, typed, ptr);
+    if (!e.id.empty()) {
+        if (element_pointers_.count(e.id))
+            error(ptr + "/id", "duplicate id \"" + e.id + "\" (first used at " +
+                                   element_pointers_[e.id] + ")");
+        else
+            element_pointers_[e.id] = ptr + "/id";
+    }
+    if (!kind) return;
+    e.kind = std::move(*kind);
+    layout.elements.push_back(std::move(e));
+}
+
+void Reader::check_references(const json& doc, Layout& layout) {
+    // Pointers by element index in the file (elements that failed to read are absent from
+    // layout.elements, so walk the document for the positions).
+    std::map<std::string, size_t> index_of;
+    if (doc.contains("elements") && doc["elements"].is_array()) {
+        const json& arr = doc["elements"];
+        for (size_t i = 0; i < arr.size(); ++i)
+            if (arr[i].is_object() && arr[i].contains("id") && arr[i]["id"].is_string())
+                index_of.emplace(arr[i]["id"].get<std::string>(), i);
+    }
+    auto pointer_of = [&](const std::string& id, const std::string& key) {
+        return child_pointer(child_pointer("/elements", index_of[id]), key);
+    };
+    auto is_element = [&](const std::string& id) { return layout.find(id) != nullptr; };
+    std::map<std::string, std::string> carried_by;
+    for (const Element& e : layout.elements) {
+        if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->aim_at) {
+            if (!index_of.count(*m->aim_at))
+                error(pointer_of(e.id, "aim_at"), "no element has id \"" + *m->aim_at + "\"");
+            else if (*m->aim_at == e.id)
+                error(pointer_of(e.id, "aim_at"), "a mirror cannot aim at itself");
+        }
+        if (const auto* s = std::get_if<Stage>(&e.kind)) {
+            for (size_t i = 0; i < s->carries.size(); ++i) {
+                const std::string& c = s->carries[i];
+                const std::string ptr = child_pointer(pointer_of(e.id, "carries"), i);
+                if (c == e.id) {
+                    error(ptr, "a stage cannot carry itself");
+                } else if (!index_of.count(c)) {
+                    error(ptr, "no element has id \"" + c + "\"");
+                } else if (is_element(c) && std::holds_alternative<Stage>(layout.find(c)->kind)) {
+                    error(ptr, "a stage cannot carry another stage (\"" + c + "\")");
+                } else if (carried_by.count(c)) {
+                    error(ptr, "\"" + c + "\" is already carried by stage \"" + carried_by[c] + "\"");
+                } else {
+                    carried_by[c] = e.id;
+                }
+            }
+        }
+    }
+    if (!layout.target.empty()) {
+        if (!index_of.count(layout.target)) {
+            error("/target", "no element has id \"" + layout.target + "\"");
+        } else if (const Element* t = layout.find(layout.target);
+                   t && !std::holds_alternative<Crystal>(t->kind) &&
+                   !std::holds_alternative<Target>(t->kind)) {
+            error("/target", "expected the id of a crystal or a target, found the " +
+                                 std::string(type_name(t->kind)) + " \"" + layout.target + "\"");
+        }
+    }
+    for (const auto& [beam, waist] : layout.goals.waist_um) {
+        (void)waist;
+        bool found = false;
+        for (const BeamSource& b : layout.beams) found = found || b.id == beam;
+        if (!found) error(child_pointer("/goals/waist_um", beam), "no beam has id \"" + beam + "\"");
+    }
+}
+
+// "[json.exception.parse_error.101] parse error at line 3, column 5: syntax error while
+// parsing object - unexpected '}'; expected string literal" → the part after the location.
+std::string syntax_message(const std::string& what) {
+    const size_t at = what.find(": ", what.find("column"));
+    std::string m = at == std::string::npos ? what : what.substr(at + 2);
+    const size_t dash = m.find(" - ");
+    if (dash != std::string::npos) m = m.substr(0, m.find(" while parsing")) + ": " + m.substr(dash + 3);
+    return m;
+}
+
+void line_and_column(std::string_view text, size_t byte, int& line, int& column) {
+    line = 1;
+    column = 1;
+    const size_t end = std::min(byte > 0 ? byte - 1 : 0, text.size());
+    for (size_t i = 0; i < end; ++i) {
+        if (text[i] == '\n') {
+            ++line;
+            column = 1;
+        } else {
+            ++column;
+        }
+    }
+}
+
+}  // namespace
+
+LayoutReadResult read_layout(std::string_view text) {
+    LayoutReadResult result;
+    json doc;
+    try {
+        doc = json::parse(text.begin(), text.end(), nullptr, true, false);
+    } catch (const json::parse_error& e) {
+        Diagnostic d{Diagnostic::Severity::Error, "", 0, 0, syntax_message(e.what())};
+        line_and_column(text, e.byte, d.line, d.column);
+        result.diagnostics.push_back(d);
+        return result;
+    }
+    Reader reader(result.diagnostics);
+    result.layout = reader.read(doc);
+    return result;
+}
+
+LayoutReadResult read_layout_file(const std::filesystem::path& path) {
+    std::ifstream in(path, std::ios::binary);
+    if (!in) {
+        return {std::nullopt,
+                {{Diagnostic::Severity::Error, "", 0, 0, "cannot open the file for reading"}}};
+    }
+    std::ostringstream buffer;
+    buffer << in.rdbuf();
+    return read_layout(buffer.str());
+}
+
+MaterialLibrary material_library_for(const Layout& layout) {
+    MaterialLibrary lib = MaterialLibrary::builtin();
+    for (const UserMaterial& m : layout.materials)
+        lib = lib.with(user_sellmeier_material(m.id, m.b, m.c_um2, m.min_wavelength_nm,
+                                               m.max_wavelength_nm, m.source));
+    return lib;
+}
+
+}  // namespace rv

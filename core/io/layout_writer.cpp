@@ -1,0 +1,205 @@
+#include "io/layout_writer.hpp"
+
+#include <cmath>
+#include <nlohmann/json.hpp>
+
+#include "io/atomic_file.hpp"
+
+namespace rv {
+
+namespace {
+
+using ojson = nlohmann::ordered_json;
+
+ojson num(double v) {
+    if (v == std::floor(v) && std::abs(v) < 1e15) return static_cast<long long>(v);
+    return v;
+}
+ojson pair(double a, double b) { return ojson::array({num(a), num(b)}); }
+ojson point(const Vec2& p) { return pair(p.x(), p.y()); }
+ojson plane_pair(const PlanePair& p) {
+    return p.round() ? num(p.tangential) : pair(p.tangential, p.sagittal);
+}
+
+ojson beam_json(const BeamSource& b) {
+    ojson j;
+    j["id"] = b.id;
+    j["wavelength_nm"] = num(b.wavelength_nm);
+    j["start_mm"] = point(b.start_mm);
+    j["direction_deg"] = num(b.direction_deg);
+    j["waist_um"] = plane_pair(b.waist_um);
+    if (!(b.waist_at_mm == PlanePair{})) j["waist_at_mm"] = plane_pair(b.waist_at_mm);
+    if (!(b.m2 == PlanePair{1, 1})) j["m2"] = plane_pair(b.m2);
+    if (b.pulse_fwhm_fs > 0) j["pulse_fwhm_fs"] = num(b.pulse_fwhm_fs);
+    if (b.emit_time_fs != 0) j["emit_time_fs"] = num(b.emit_time_fs);
+    using K = Polarization::Kind;
+    switch (b.polarization.kind) {
+        case K::Horizontal: break;
+        case K::Vertical: j["polarization"] = "vertical"; break;
+        case K::Linear:
+            j["polarization"] = "linear";
+            j["polarization_angle_deg"] = num(b.polarization.angle_deg);
+            break;
+        case K::CircularLeft: j["polarization"] = "circular-left"; break;
+        case K::CircularRight: j["polarization"] = "circular-right"; break;
+    }
+    if (b.power_mw > 0) j["power_mw"] = num(b.power_mw);
+    return j;
+}
+
+struct KindWriter {
+    ojson& j;
+    void operator()(const Lens& lens) const {
+        if (const auto* ideal = std::get_if<IdealLens>(&lens.model)) {
+            j["focal_length_mm"] = num(ideal->focal_length_mm);
+        } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens.model)) {
+            j["focal_length_mm"] = num(thin->focal_length_mm);
+            j["glass"] = thin->glass;
+            if (thin->design_wavelength_nm != 587.6)
+                j["design_wavelength_nm"] = num(thin->design_wavelength_nm);
+        } else {
+            const auto& t = std::get<ThickLens>(lens.model);
+            if (!t.shape.empty()) {
+                j["shape"] = t.shape;
+                j["focal_length_mm"] = num(t.focal_length_mm);
+            } else {
+                if (std::isfinite(t.front_radius_mm)) j["front_radius_mm"] = num(t.front_radius_mm);
+                if (std::isfinite(t.back_radius_mm)) j["back_radius_mm"] = num(t.back_radius_mm);
+            }
+            j["center_thickness_mm"] = num(t.center_thickness_mm);
+            j["glass"] = t.glass;
+            if (!t.shape.empty() && t.design_wavelength_nm != 587.6)
+                j["design_wavelength_nm"] = num(t.design_wavelength_nm);
+        }
+    }
+    void operator()(const Mirror& m) const {
+        if (m.radius_of_curvature_mm) j["radius_of_curvature_mm"] = num(*m.radius_of_curvature_mm);
+        if (m.aim_at) j["aim_at"] = *m.aim_at;
+    }
+    void operator()(const Dichroic& d) const {
+        j["edge_nm"] = num(d.edge_nm);
+        j["reflects"] = d.reflects_shorter ? "shorter" : "longer";
+        j["substrate"] = {{"glass", d.substrate.material},
+                          {"thickness_mm", num(d.substrate.thickness_mm)}};
+    }
+    void operator()(const Plate& p) const {
+        using R = Plate::Role;
+        if (p.role != R::Window)
+            j["role"] = p.role == R::HalfWave      ? "half-wave"
+                        : p.role == R::QuarterWave ? "quarter-wave"
+                                                   : "polarizing-cube";
+        j["material"] = p.slab.material;
+        j["thickness_mm"] = num(p.slab.thickness_mm);
+        if (p.fast_axis_deg != 0) j["fast_axis_deg"] = num(p.fast_axis_deg);
+    }
+    void operator()(const Retroreflector&) const {}
+    void operator()(const Stage& s) const {
+        j["carries"] = s.carries;
+        j["axis_deg"] = num(s.axis_deg);
+        if (s.position_mm != 0) j["position_mm"] = num(s.position_mm);
+        j["travel_mm"] = pair(s.travel_min_mm, s.travel_max_mm);
+    }
+    void operator()(const Crystal& c) const {
+        j["material"] = c.material;
+        j["length_mm"] = num(c.length_mm);
+        j["cut_deg"] = num(c.cut_deg);
+        j["phase_matching"] = c.phase_matching == Crystal::PhaseMatching::TypeII ? "type-II" : "type-I";
+        if (c.optic_axis_horizontal) j["optic_axis"] = "horizontal";
+    }
+    void operator()(const Target&) const {}
+    void operator()(const Dump&) const {}
+};
+
+ojson element_json(const Element& e) {
+    ojson j;
+    j["id"] = e.id;
+    j["type"] = type_name(e.kind);
+    if (!std::holds_alternative<Stage>(e.kind)) {
+        j["at_mm"] = point(e.at_mm);
+        const auto* mirror = std::get_if<Mirror>(&e.kind);
+        if (e.normal_deg != 0 && !(mirror && mirror->aim_at)) j["normal_deg"] = num(e.normal_deg);
+        if (e.aperture_mm != kDefaultAperture_mm) j["aperture_mm"] = num(e.aperture_mm);
+    }
+    std::visit(KindWriter{j}, e.kind);
+    return j;
+}
+
+// Inline JSON with a space after ':' and ',' (nlohmann's compact dump has none).
+std::string inline_text(const ojson& v) {
+    if (v.is_object()) {
+        std::string s = "{";
+        bool first = true;
+        for (const auto& item : v.items()) {
+            s += (first ? "" : ", ") + ojson(item.key()).dump() + ": " + inline_text(item.value());
+            first = false;
+        }
+        return s + "}";
+    }
+    if (v.is_array()) {
+        std::string s = "[";
+        for (size_t i = 0; i < v.size(); ++i) s += (i ? ", " : "") + inline_text(v[i]);
+        return s + "]";
+    }
+    return v.dump();
+}
+
+}  // namespace
+
+std::string write_layout(const Layout& layout) {
+    ojson root;
+    root["format"] = "rendezvous-layout";
+    root["version"] = 1;
+    if (!layout.name.empty()) root["name"] = layout.name;
+    root["table"] = {{"size_mm", pair(layout.table.width_mm, layout.table.height_mm)},
+                     {"grid_mm", num(layout.table.grid_mm)}};
+    if (!layout.materials.empty()) {
+        ojson materials = ojson::array();
+        for (const UserMaterial& m : layout.materials) {
+            ojson j;
+            j["id"] = m.id;
+            ojson b = ojson::array(), c = ojson::array();
+            for (double x : m.b) b.push_back(num(x));
+            for (double x : m.c_um2) c.push_back(num(x));
+            j["sellmeier"] = {{"b", b}, {"c_um2", c}};
+            j["range_nm"] = pair(m.min_wavelength_nm, m.max_wavelength_nm);
+            if (!m.source.empty()) j["source"] = m.source;
+            materials.push_back(j);
+        }
+        root["materials"] = materials;
+    }
+    ojson beams = ojson::array();
+    for (const BeamSource& b : layout.beams) beams.push_back(beam_json(b));
+    root["beams"] = beams;
+    ojson elements = ojson::array();
+    for (const Element& e : layout.elements) elements.push_back(element_json(e));
+    root["elements"] = elements;
+    root["target"] = layout.target;
+    if (!layout.goals.waist_um.empty()) {
+        ojson w = ojson::object();
+        for (const auto& [id, v] : layout.goals.waist_um) w[id] = num(v);
+        root["goals"] = {{"waist_um", w}};
+    }
+
+    std::string out = "{\n";
+    size_t i = 0;
+    for (const auto& item : root.items()) {
+        out += "  " + ojson(item.key()).dump() + ": ";
+        const ojson& v = item.value();
+        if (v.is_array() && !v.empty() && v[0].is_object()) {
+            out += "[\n";
+            for (size_t k = 0; k < v.size(); ++k)
+                out += "    " + inline_text(v[k]) + (k + 1 < v.size() ? ",\n" : "\n");
+            out += "  ]";
+        } else {
+            out += inline_text(v);
+        }
+        out += ++i < root.size() ? ",\n" : "\n";
+    }
+    return out + "}\n";
+}
+
+void save_layout(const Layout& layout, const std::filesystem::path& path) {
+    write_file_atomically(path, write_layout(layout));
+}
+
+}  // namespace rv

@@ -1,0 +1,193 @@
+#pragma once
+// The table layout: an immutable value read from a layout file (format "rendezvous-layout",
+// version 1). Units as in the file: mm, nm, µm, fs, degrees; angles counter-clockwise from +x
+// in the table plane (x right, y up, top view).
+//
+// Geometry conventions (design.md, "Layout format"):
+// * at_mm is an element's reference point, normal_deg the direction of its surface normal
+//   (for a lens or target: its axis, either sign). The aperture is a segment of aperture_mm
+//   centred on at_mm, perpendicular to the normal.
+// * Mirror: reflects from either side; radius_of_curvature_mm > 0 is concave towards the side
+//   its normal points to. aim_at replaces normal_deg by the normal that sends the incoming
+//   chief ray to that element's at_mm.
+// * Dichroic: at_mm on the coated face, the normal points out of it; the substrate lies behind.
+// * Slabs (plate, crystal) are centred on at_mm and extend ±thickness/2 along the normal.
+// * An element carried by a stage sits at at_mm + position_mm·(cos axis_deg, sin axis_deg).
+// * Thick lens: the front face (R1) is the one on the −normal side, met first by light that
+//   travels along +normal; light travelling the other way meets the faces in reverse.
+
+#include <Eigen/Core>
+#include <optional>
+#include <string>
+#include <variant>
+#include <vector>
+
+namespace rv {
+
+using Vec2 = Eigen::Vector2d;
+
+inline constexpr double kDefaultAperture_mm = 25.4;
+
+// Per-plane value given in a file as one number or as [tangential, sagittal].
+struct PlanePair {
+    double tangential = 0.0, sagittal = 0.0;
+    bool operator==(const PlanePair&) const = default;
+    bool round() const { return tangential == sagittal; }
+};
+
+struct Polarization {
+    enum class Kind { Horizontal, Vertical, Linear, CircularLeft, CircularRight };
+    Kind kind = Kind::Horizontal;
+    double angle_deg = 0.0;  // for Linear: angle from the table plane
+    bool operator==(const Polarization&) const = default;
+};
+
+struct BeamSource {
+    std::string id;
+    double wavelength_nm = 0.0;
+    Vec2 start_mm{0, 0};
+    double direction_deg = 0.0;
+    PlanePair waist_um;           // second-moment waist radius
+    PlanePair waist_at_mm;        // waist position along the beam from start, + downstream
+    PlanePair m2{1.0, 1.0};
+    double pulse_fwhm_fs = 0.0;   // 0: not given (no temporal overlap)
+    double emit_time_fs = 0.0;
+    Polarization polarization;
+    double power_mw = 0.0;        // 0: not given
+    bool operator==(const BeamSource&) const = default;
+};
+
+// ---- elements -------------------------------------------------------------------------
+
+struct IdealLens {  // thin, no dispersion
+    double focal_length_mm = 0.0;
+    bool operator==(const IdealLens&) const = default;
+};
+struct ThinChromaticLens {  // thin, focal length given at a design wavelength for a glass
+    double focal_length_mm = 0.0;
+    std::string glass;
+    double design_wavelength_nm = 587.6;
+    bool operator==(const ThinChromaticLens&) const = default;
+};
+struct ThickLens {  // singlet from radii (or a named shape solved at the design wavelength)
+    double front_radius_mm = 0.0;  // R1; infinity = flat
+    double back_radius_mm = 0.0;   // R2
+    double center_thickness_mm = 0.0;
+    std::string glass;
+    std::string shape;             // "" when given by radii; else the named shape it came from
+    double focal_length_mm = 0.0;  // with a named shape: the focal length asked for
+    double design_wavelength_nm = 587.6;
+    bool operator==(const ThickLens&) const = default;
+};
+struct Lens {
+    std::variant<IdealLens, ThinChromaticLens, ThickLens> model;
+    bool operator==(const Lens&) const = default;
+};
+
+struct Mirror {
+    std::optional<double> radius_of_curvature_mm;  // absent: flat
+    std::optional<std::string> aim_at;             // element id; replaces normal_deg
+    bool operator==(const Mirror&) const = default;
+};
+
+struct Slab {  // a plate of a material
+    std::string material;
+    double thickness_mm = 0.0;
+    bool operator==(const Slab&) const = default;
+};
+
+struct Dichroic {
+    double edge_nm = 0.0;
+    bool reflects_shorter = true;  // "reflects": "shorter" | "longer"
+    Slab substrate;
+    bool operator==(const Dichroic&) const = default;
+};
+
+struct Plate {
+    enum class Role { Window, HalfWave, QuarterWave, PolarizingCube };
+    Role role = Role::Window;
+    Slab slab;
+    double fast_axis_deg = 0.0;  // wave plates
+    bool operator==(const Plate&) const = default;
+};
+
+struct Retroreflector {
+    bool operator==(const Retroreflector&) const = default;
+};
+
+struct Stage {
+    std::vector<std::string> carries;
+    double axis_deg = 0.0;
+    double position_mm = 0.0;
+    double travel_min_mm = 0.0, travel_max_mm = 0.0;
+    bool operator==(const Stage&) const = default;
+};
+
+struct Crystal {
+    enum class PhaseMatching { TypeI, TypeII };
+    std::string material;
+    double length_mm = 0.0;
+    double cut_deg = 0.0;  // angle between the optic axis and the face normal
+    PhaseMatching phase_matching = PhaseMatching::TypeI;
+    // The plane that holds the optic axis and the face normal: "horizontal" = the table plane
+    // (horizontally polarized light is extraordinary), "vertical" (it is ordinary).
+    bool optic_axis_horizontal = false;
+    bool operator==(const Crystal&) const = default;
+};
+
+struct Target {
+    bool operator==(const Target&) const = default;
+};
+struct Dump {
+    bool operator==(const Dump&) const = default;
+};
+
+using ElementKind = std::variant<Lens, Mirror, Dichroic, Plate, Retroreflector, Stage, Crystal,
+                                 Target, Dump>;
+
+struct Element {
+    std::string id;
+    Vec2 at_mm{0, 0};
+    double normal_deg = 0.0;
+    double aperture_mm = kDefaultAperture_mm;
+    ElementKind kind;
+    bool operator==(const Element&) const = default;
+};
+
+// The file's type name of an element kind ("lens", "mirror", …).
+const char* type_name(const ElementKind& kind);
+
+struct UserMaterial {  // SCHOTT-form Sellmeier: n² − 1 = Σ B λ²/(λ² − C), λ in µm, C in µm²
+    std::string id;
+    std::vector<double> b;
+    std::vector<double> c_um2;
+    double min_wavelength_nm = 0.0, max_wavelength_nm = 0.0;
+    std::string source;
+    bool operator==(const UserMaterial&) const = default;
+};
+
+struct Table {
+    double width_mm = 900.0, height_mm = 600.0;
+    double grid_mm = 25.0;  // 25 (metric M6) or 25.4 (imperial 1/4-20)
+    bool operator==(const Table&) const = default;
+};
+
+struct Goals {
+    std::vector<std::pair<std::string, double>> waist_um;  // beam id → wanted waist radius
+    bool operator==(const Goals&) const = default;
+};
+
+struct Layout {
+    std::string name;
+    Table table;
+    std::vector<UserMaterial> materials;
+    std::vector<BeamSource> beams;
+    std::vector<Element> elements;
+    std::string target;  // element id
+    Goals goals;
+    bool operator==(const Layout&) const = default;
+
+    const Element* find(const std::string& id) const;
+};
+
+}  // namespace rv
