@@ -7,7 +7,8 @@
 // * at_mm is an element's reference point, normal_deg the direction of its surface normal
 //   (for a lens or target: its axis, either sign). The aperture is a segment of aperture_mm
 //   centred on at_mm, perpendicular to the normal.
-// * Mirror: reflects from either side; radius_of_curvature_mm > 0 is concave towards the side
+// * Mirror: reflects from the side its normal points to (light arriving from behind is a
+//   finding); radius_of_curvature_mm > 0 is concave towards the side
 //   its normal points to. aim_at replaces normal_deg by the normal that sends the incoming
 //   chief ray to that element's at_mm.
 // * Dichroic: at_mm on the coated face, the normal points out of it; the substrate lies behind.

@@ -1,0 +1,79 @@
+#pragma once
+// What a chief-ray trace returns: the straight segments a beam runs along, the element
+// surfaces it meets in order, and the findings (misses, leaving the table, total internal
+// reflection, …) as data. Positions in mm in the table plane; directions are unit vectors.
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "layout/layout.hpp"
+#include "materials/material.hpp"
+
+namespace rv {
+
+enum class Interaction {
+    ThinLens,      // deflected by −h/f (ideal or chromatic thin lens, or a thick singlet)
+    Reflect,       // mirror or dichroic reflection (flat or curved)
+    Refract,       // a face of a slab (plate, crystal, dichroic substrate): Snell's law
+    Retroreflect,  // returned antiparallel, mirrored across the retroreflector's axis
+    TargetPlane,   // crossed a target plane or a crystal's centre plane
+    Absorb,        // stopped in a dump
+};
+
+// Which surface of an element was met.
+enum class Face { Only, Front, Back, Centre };
+
+struct TraceHit {
+    size_t element = 0;  // index into Layout::elements
+    Interaction interaction = Interaction::TargetPlane;
+    Face face = Face::Only;
+    Vec2 point_mm{0, 0};
+    Vec2 direction_in{1, 0}, direction_out{1, 0};
+    double s_mm = 0;          // geometric path length from the beam's start to this hit
+    double aoi_rad = 0;       // angle between the incoming ray and the surface normal
+    double height_mm = 0;     // signed distance of the hit from the element's centre line
+    double half_aperture_mm = 0;
+    double index_before = 1, index_after = 1;  // phase index either side (1 in air)
+    // A thick singlet is met as one plane; its glass counts for timing here: the centre
+    // thickness and the glass's absolute group index (0 and 1 for every other hit).
+    double lumped_glass_mm = 0;
+    double lumped_group_index = 1;
+};
+
+struct TraceSegment {
+    Vec2 from_mm{0, 0}, to_mm{0, 0};
+    double length_mm = 0;
+    std::optional<size_t> inside;  // the slab element the segment runs in; none = air
+    double index = 1.0;            // phase index for the Gaussian beam (air: 1, see design.md)
+    double group_index = 1.0;      // absolute group index for timing (air: Ciddor 1996)
+};
+
+struct Finding {
+    enum class Kind {
+        MissedOptic,            // an aimed-at optic not reached; amount = mm beyond its aperture
+        LeftTable,              // the ray left the table; where = the edge crossing
+        TotalInternalReflection,
+        HitBackOfOptic,         // a mirror or retroreflector met from behind
+        LeftThroughEdge,        // left a slab through its side
+        NoTarget,               // the layout's target was never crossed
+        TooManyHits,
+        MaterialOutOfRange,     // a wavelength outside a material's fitted range
+        Clipping,               // set by propagation: power lost at an aperture above threshold
+    };
+    Kind kind;
+    std::string element;  // element id, "" when none
+    Vec2 where_mm{0, 0};
+    double amount = 0;    // mm for misses, a fraction for clipping
+    std::string message;  // one plain sentence
+};
+
+struct Path {
+    size_t beam = 0;  // index into Layout::beams
+    std::vector<TraceSegment> segments;  // segment i ends at hits[i]; one more may run to an exit
+    std::vector<TraceHit> hits;
+    std::vector<Finding> findings;
+    std::optional<size_t> target_hit;  // index into hits where the layout's target was crossed
+};
+
+}  // namespace rv

@@ -1,0 +1,131 @@
+#include "trace/propagate.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <sstream>
+
+#include "materials/dispersion.hpp"
+#include "optics/thick_lens.hpp"
+#include "trace/trace.hpp"
+#include "units/constants.hpp"
+
+namespace rv {
+
+namespace {
+
+RayMatrix hit_matrix(const Layout& layout, const MaterialLibrary& library, const TraceHit& hit,
+                     double wavelength_nm, Plane plane) {
+    const Element& e = layout.elements[hit.element];
+    switch (hit.interaction) {
+        case Interaction::ThinLens: {
+            const Lens& lens = std::get<Lens>(e.kind);
+            if (const auto* t = std::get_if<ThickLens>(&lens.model)) {
+                const double n = sample_index(*library.find(t->glass), wavelength_nm).index;
+                const Vec2 normal(std::cos(deg_to_rad(e.normal_deg)), std::sin(deg_to_rad(e.normal_deg)));
+                ThickSinglet shape{t->front_radius_mm, t->back_radius_mm, t->center_thickness_mm};
+                if (hit.direction_in.dot(normal) < 0)  // met from the back: faces reversed
+                    shape = {-t->back_radius_mm, -t->front_radius_mm, t->center_thickness_mm};
+                const RayMatrix half_back = free_space(-t->center_thickness_mm / 2);
+                return half_back * thick_singlet_matrix(shape, n) * half_back;
+            }
+            return thin_lens(lens_focal_length_mm(lens, library, wavelength_nm));
+        }
+        case Interaction::Reflect:
+            if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->radius_of_curvature_mm)
+                return spherical_mirror(*m->radius_of_curvature_mm, hit.aoi_rad, plane);
+            return RayMatrix::Identity();
+        case Interaction::Refract:
+            return tilted_interface(hit.index_before, hit.index_after, hit.aoi_rad, plane);
+        default:
+            return RayMatrix::Identity();
+    }
+}
+
+double clipped_fraction(const TraceHit& hit, double w_t_um, double w_s_um) {
+    if (hit.interaction == Interaction::TargetPlane || hit.interaction == Interaction::Absorb)
+        return 0;
+    const double a_mm = std::max(0.0, hit.half_aperture_mm - std::abs(hit.height_mm));
+    const double at = a_mm * std::cos(hit.aoi_rad) * 1e3 / w_t_um;
+    const double as = a_mm * 1e3 / w_s_um;
+    return std::exp(-2.0 * std::min(at * at, as * as));
+}
+
+}  // namespace
+
+Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, const Path& path,
+                       const PropagationOptions& options) {
+    const BeamSource& src = layout.beams[path.beam];
+    Caustic out;
+    out.beam = path.beam;
+    GaussianBeam t = beam_from_waist(src.waist_um.tangential, src.waist_at_mm.tangential,
+                                     src.wavelength_nm, 1.0, src.m2.tangential);
+    GaussianBeam s = beam_from_waist(src.waist_um.sagittal, src.waist_at_mm.sagittal,
+                                     src.wavelength_nm, 1.0, src.m2.sagittal);
+    double s0 = 0;
+    const double target_s = path.target_hit ? path.hits[*path.target_hit].s_mm : -1;
+
+    // Samples along one segment starting at s0 with the beams (bt, bs) at its start.
+    auto sample_segment = [&](const GaussianBeam& bt, const GaussianBeam& bs, double length) {
+        const int n = std::clamp(static_cast<int>(length / options.envelope_step_mm), 1, 400);
+        for (int i = 0; i <= n; ++i) {
+            const double z = length * i / n;
+            out.envelope.push_back({s0 + z, radius_um(propagate(bt, free_space(z))),
+                                    radius_um(propagate(bs, free_space(z)))});
+        }
+    };
+
+    for (size_t i = 0; i < path.segments.size(); ++i) {
+        const TraceSegment& seg = path.segments[i];
+        t.index = seg.index;
+        s.index = seg.index;
+        sample_segment(t, s, seg.length_mm);
+        t = propagate(t, free_space(seg.length_mm));
+        s = propagate(s, free_space(seg.length_mm));
+        s0 += seg.length_mm;
+        if (i >= path.hits.size()) break;  // the trailing segment to the table edge
+        const TraceHit& hit = path.hits[i];
+        BeamAtHit at{hit.s_mm, radius_um(t), radius_um(s), 0};
+        at.clipped_fraction = clipped_fraction(hit, at.radius_tangential_um, at.radius_sagittal_um);
+        if (at.clipped_fraction > options.clipping_warning_fraction) {
+            std::ostringstream m;
+            m.precision(3);
+            m << "clipped at " << layout.elements[hit.element].id << ": " << at.clipped_fraction * 100
+              << " % of the power falls outside its aperture";
+            out.findings.push_back({Finding::Kind::Clipping, layout.elements[hit.element].id,
+                                    hit.point_mm, at.clipped_fraction, m.str()});
+        }
+        out.at_hits.push_back(at);
+        if (path.target_hit && *path.target_hit == i) {
+            out.reaches_target = true;
+            out.target_tangential = t;
+            out.target_sagittal = s;
+        }
+        t = propagate(t, hit_matrix(layout, library, hit, src.wavelength_nm, Plane::Tangential),
+                      hit.index_after);
+        s = propagate(s, hit_matrix(layout, library, hit, src.wavelength_nm, Plane::Sagittal),
+                      hit.index_after);
+    }
+
+    // Denser samples around the target: ±3 Rayleigh ranges, from the target state, kept
+    // between the hits either side of it (beyond them other matrices apply).
+    if (out.reaches_target) {
+        const size_t k_target = *path.target_hit;
+        const double zr = std::min(rayleigh_range_mm(out.target_tangential),
+                                   rayleigh_range_mm(out.target_sagittal));
+        const double lo = std::max(-3 * zr, (k_target > 0 ? path.hits[k_target - 1].s_mm : 0.0) - target_s);
+        const double hi = std::min(3 * zr, k_target + 1 < path.hits.size()
+                                               ? path.hits[k_target + 1].s_mm - target_s : 3 * zr);
+        const int n = options.samples_near_target;
+        for (int k = 0; k < n; ++k) {
+            const double z = lo + (hi - lo) * k / (n - 1);
+            out.envelope.push_back({target_s + z,
+                                    radius_um(propagate(out.target_tangential, free_space(z))),
+                                    radius_um(propagate(out.target_sagittal, free_space(z)))});
+        }
+        std::stable_sort(out.envelope.begin(), out.envelope.end(),
+                         [](const EnvelopeSample& a, const EnvelopeSample& b) { return a.s_mm < b.s_mm; });
+    }
+    return out;
+}
+
+}  // namespace rv

@@ -1,0 +1,56 @@
+#pragma once
+// Gaussian beams carried along a traced path, tangential and sagittal planes separately.
+//
+// Model: the beam starts from its source's waist (per plane, M² per plane) and runs through
+// free space of each segment's length, then through the matrix of each hit:
+//   thin lens [1 0; −1/f 1] at the beam's wavelength; thick singlet S2·T(t)·S1 at the glass's
+//   index, taken about its plane as T(−t/2)·M·T(−t/2) because the trace meets it as one plane
+//   (faces reversed for light travelling against its normal); curved mirror with
+//   f_t = R cos θ/2, f_s = R/(2 cos θ) at the traced angle of incidence; each slab face the
+//   tilted-interface matrix at the traced angle (so a tilted plate comes out of its two faces);
+//   flat mirrors, dichroic reflections, retroreflectors and target planes the identity.
+// Actual-angle convention (optics/abcd.hpp); inside a medium q carries its index, so the
+// Rayleigh range in a crystal is the one in the crystal.
+// Clipping: at each hit the aperture seen by the beam is a circle of radius a = aperture/2,
+// shrunk by the chief ray's offset h from the centre and projected by cos θ in the tangential
+// plane; the power outside it is estimated as exp(−2 a_eff²/w²) for the plane where that is
+// largest (the circular-aperture formula, an upper bound for the offset beam).
+
+#include <vector>
+
+#include "layout/layout.hpp"
+#include "materials/material_library.hpp"
+#include "optics/gaussian_beam.hpp"
+#include "trace/path.hpp"
+
+namespace rv {
+
+struct BeamAtHit {
+    double s_mm = 0;
+    double radius_tangential_um = 0, radius_sagittal_um = 0;  // arriving at the hit
+    double clipped_fraction = 0;                              // 0 where not applicable
+};
+
+struct EnvelopeSample {
+    double s_mm, radius_tangential_um, radius_sagittal_um;
+};
+
+struct Caustic {
+    size_t beam = 0;
+    std::vector<BeamAtHit> at_hits;  // one per Path::hits entry
+    bool reaches_target = false;
+    GaussianBeam target_tangential{}, target_sagittal{};  // at the target plane
+    std::vector<EnvelopeSample> envelope;                // sorted by s, denser near the target
+    std::vector<Finding> findings;                       // clipping above the threshold
+};
+
+struct PropagationOptions {
+    double clipping_warning_fraction = 0.01;  // warn when more than 1 % is cut off
+    double envelope_step_mm = 5.0;            // sample spacing away from the target
+    int samples_near_target = 201;            // over ±3 Rayleigh ranges around the target
+};
+
+Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, const Path& path,
+                       const PropagationOptions& options = {});
+
+}  // namespace rv

@@ -1,0 +1,485 @@
+#include "trace/trace.hpp"
+
+#include <cmath>
+#include <limits>
+#include <sstream>
+
+#include "materials/birefringence.hpp"
+#include "materials/dispersion.hpp"
+#include "optics/thick_lens.hpp"
+#include "units/constants.hpp"
+
+namespace rv {
+
+namespace {
+
+constexpr double kEps_mm = 1e-9;
+constexpr double kInf = std::numeric_limits<double>::infinity();
+
+Vec2 unit_at(double angle_deg) {
+    const double a = deg_to_rad(angle_deg);
+    return {std::cos(a), std::sin(a)};
+}
+Vec2 perpendicular(const Vec2& v) { return {-v.y(), v.x()}; }
+
+std::string mm_text(double v) {
+    std::ostringstream s;
+    s.setf(std::ios::fixed);
+    s.precision(2);
+    s << v;
+    return s.str();
+}
+std::string point_text(const Vec2& p) { return "(" + mm_text(p.x()) + ", " + mm_text(p.y()) + ") mm"; }
+
+// Where every element sits once stages have moved it, and how it is turned.
+struct Placed {
+    Vec2 at{0, 0};
+    Vec2 normal{1, 0};
+    double half_aperture = 0;
+    bool traced = true;       // false for stages (no surface)
+    bool aim_pending = false; // an aim_at mirror not reached yet
+    std::optional<size_t> aim_target;
+};
+
+std::vector<Placed> place(const Layout& layout) {
+    std::vector<Placed> placed(layout.elements.size());
+    for (size_t i = 0; i < layout.elements.size(); ++i) {
+        const Element& e = layout.elements[i];
+        placed[i] = {e.at_mm, unit_at(e.normal_deg), e.aperture_mm / 2.0,
+                     !std::holds_alternative<Stage>(e.kind), false, std::nullopt};
+    }
+    auto index_of = [&](const std::string& id) -> std::optional<size_t> {
+        for (size_t i = 0; i < layout.elements.size(); ++i)
+            if (layout.elements[i].id == id) return i;
+        return std::nullopt;
+    };
+    for (const Element& e : layout.elements) {
+        if (const auto* s = std::get_if<Stage>(&e.kind))
+            for (const std::string& id : s->carries)
+                if (auto i = index_of(id)) placed[*i].at += s->position_mm * unit_at(s->axis_deg);
+    }
+    for (size_t i = 0; i < layout.elements.size(); ++i) {
+        if (const auto* m = std::get_if<Mirror>(&layout.elements[i].kind); m && m->aim_at) {
+            placed[i].aim_target = index_of(*m->aim_at);
+            placed[i].aim_pending = placed[i].aim_target.has_value();
+        }
+    }
+    return placed;
+}
+
+// A surface of an element: a segment through `centre` perpendicular to `normal`.
+struct Surface {
+    Face face;
+    Vec2 centre;
+    Vec2 normal;
+};
+
+double slab_thickness(const ElementKind& kind) {
+    if (const auto* p = std::get_if<Plate>(&kind)) return p->slab.thickness_mm;
+    if (const auto* c = std::get_if<Crystal>(&kind)) return c->length_mm;
+    if (const auto* d = std::get_if<Dichroic>(&kind)) return d->substrate.thickness_mm;
+    return 0;
+}
+
+bool is_slab(const ElementKind& k) {
+    return std::holds_alternative<Plate>(k) || std::holds_alternative<Crystal>(k) ||
+           std::holds_alternative<Dichroic>(k);
+}
+
+// The surfaces of a placed element. Plates and crystals: faces at ±t/2 along the normal
+// (Front on the +normal side), crystals also their centre plane; dichroics: the coated face at
+// at_mm (Front) and the back face t behind it.
+int surfaces_of(const ElementKind& kind, const Placed& p, Surface out[3]) {
+    if (const auto* d = std::get_if<Dichroic>(&kind)) {
+        out[0] = {Face::Front, p.at, p.normal};
+        out[1] = {Face::Back, p.at - d->substrate.thickness_mm * p.normal, p.normal};
+        return 2;
+    }
+    if (std::holds_alternative<Plate>(kind) || std::holds_alternative<Crystal>(kind)) {
+        const double half = slab_thickness(kind) / 2.0;
+        out[0] = {Face::Front, p.at + half * p.normal, p.normal};
+        out[1] = {Face::Back, p.at - half * p.normal, p.normal};
+        if (std::holds_alternative<Crystal>(kind)) {
+            out[2] = {Face::Centre, p.at, p.normal};
+            return 3;
+        }
+        return 2;
+    }
+    out[0] = {Face::Only, p.at, p.normal};
+    return 1;
+}
+
+// Distance along the ray to the surface's line, and the signed height of the crossing.
+bool cross_line(const Vec2& p, const Vec2& d, const Surface& s, double& dist, double& height) {
+    const double dn = d.dot(s.normal);
+    if (std::abs(dn) < 1e-12) return false;
+    dist = (s.centre - p).dot(s.normal) / dn;
+    height = (p + dist * d - s.centre).dot(perpendicular(s.normal));
+    return true;
+}
+
+// Snell's law in vector form; nullopt on total internal reflection.
+std::optional<Vec2> refract(const Vec2& d, const Vec2& surface_normal, double n1, double n2) {
+    const Vec2 m = d.dot(surface_normal) < 0 ? surface_normal : Vec2(-surface_normal);
+    const double cos_i = -m.dot(d);
+    const double r = n1 / n2;
+    const double sin2_t = r * r * (1.0 - cos_i * cos_i);
+    if (sin2_t > 1.0) return std::nullopt;
+    const double cos_t = std::sqrt(1.0 - sin2_t);
+    return Vec2(r * d + (r * cos_i - cos_t) * m).normalized();
+}
+
+Vec2 reflect(const Vec2& d, const Vec2& n) { return d - 2.0 * d.dot(n) * n; }
+
+struct Medium {
+    double index = 1.0, group_index = 1.0;
+};
+
+class BeamTracer {
+public:
+    BeamTracer(const Layout& layout, const MaterialLibrary& library, std::vector<Placed>& placed,
+               size_t beam)
+        : layout_(layout), library_(library), placed_(placed), beam_(layout.beams[beam]) {
+        path_.beam = beam;
+        const Material* air = library.find("air");
+        air_group_index_ = sample_index(*air, beam_.wavelength_nm).group_index;
+        for (size_t i = 0; i < layout.elements.size(); ++i)
+            if (layout.elements[i].id == layout.target) target_ = i;
+    }
+
+    Path run();
+
+private:
+    struct Candidate {
+        size_t element;
+        Surface surface;
+        double dist, height;
+    };
+    std::optional<Candidate> nearest(const Vec2& p, const Vec2& d, double max_dist) const;
+    double table_exit(const Vec2& p, const Vec2& d) const;
+    Medium slab_medium(size_t element, const Vec2& direction_inside) const;
+    void note_material(size_t element, const Material& m);
+    void finding(Finding::Kind kind, size_t element, const Vec2& where, double amount,
+                 std::string message) {
+        path_.findings.push_back({kind, element < layout_.elements.size()
+                                            ? layout_.elements[element].id : std::string(),
+                                  where, amount, std::move(message)});
+    }
+    const std::string& id(size_t e) const { return layout_.elements[e].id; }
+    void check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element);
+
+    const Layout& layout_;
+    const MaterialLibrary& library_;
+    std::vector<Placed>& placed_;
+    const BeamSource& beam_;
+    Path path_;
+    double air_group_index_ = 1.0;
+    std::optional<size_t> target_;
+    std::optional<size_t> inside_;
+    std::optional<std::pair<size_t, Face>> last_surface_;
+    std::optional<size_t> expect_;  // the element an aim_at mirror sent the ray to
+    std::vector<size_t> out_of_range_noted_;
+};
+
+std::optional<BeamTracer::Candidate> BeamTracer::nearest(const Vec2& p, const Vec2& d,
+                                                         double max_dist) const {
+    std::optional<Candidate> best;
+    for (size_t i = 0; i < layout_.elements.size(); ++i) {
+        if (!placed_[i].traced) continue;
+        if (inside_ && *inside_ != i) continue;  // inside a slab only its own faces count
+        Placed pl = placed_[i];
+        if (pl.aim_pending) {
+            // Provisional orientation: the one that would send this ray, arriving at the
+            // centre, to the aimed-at element's centre.
+            const Vec2 to_target = (placed_[*pl.aim_target].at - pl.at).normalized();
+            pl.normal = (to_target - d).normalized();
+        }
+        Surface s[3];
+        const int n = surfaces_of(layout_.elements[i].kind, pl, s);
+        for (int k = 0; k < n; ++k) {
+            if (last_surface_ && last_surface_->first == i && last_surface_->second == s[k].face)
+                continue;
+            double dist = 0, height = 0;
+            if (!cross_line(p, d, s[k], dist, height)) continue;
+            if (dist <= kEps_mm || dist > max_dist) continue;
+            if (!inside_ && std::abs(height) > pl.half_aperture) continue;
+            if (!best || dist < best->dist) best = Candidate{i, s[k], dist, height};
+        }
+    }
+    return best;
+}
+
+double BeamTracer::table_exit(const Vec2& p, const Vec2& d) const {
+    const double w = layout_.table.width_mm, h = layout_.table.height_mm;
+    if (p.x() < 0 || p.x() > w || p.y() < 0 || p.y() > h) return 0;
+    double s = kInf;
+    if (d.x() > 0) s = std::min(s, (w - p.x()) / d.x());
+    if (d.x() < 0) s = std::min(s, -p.x() / d.x());
+    if (d.y() > 0) s = std::min(s, (h - p.y()) / d.y());
+    if (d.y() < 0) s = std::min(s, -p.y() / d.y());
+    return s;
+}
+
+void BeamTracer::note_material(size_t element, const Material& m) {
+    if (covers(m, beam_.wavelength_nm)) return;
+    for (size_t e : out_of_range_noted_)
+        if (e == element) return;
+    out_of_range_noted_.push_back(element);
+    std::ostringstream s;
+    s << beam_.wavelength_nm << " nm lies outside the range of " << m.name << " ("
+      << m.min_wavelength_nm << "–" << m.max_wavelength_nm << " nm); its index is extrapolated";
+    finding(Finding::Kind::MaterialOutOfRange, element, placed_[element].at, 0, s.str());
+}
+
+// Phase and group index of the beam inside a slab, for a ray running along direction_inside.
+Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) const {
+    const ElementKind& kind = layout_.elements[element].kind;
+    const std::string& name = std::holds_alternative<Plate>(kind)
+                                  ? std::get<Plate>(kind).slab.material
+                              : std::holds_alternative<Dichroic>(kind)
+                                  ? std::get<Dichroic>(kind).substrate.material
+                                  : std::get<Crystal>(kind).material;
+    const Material& m = *library_.find(name);
+    const double nm = beam_.wavelength_nm;
+    if (const auto* c = std::get_if<Crystal>(&kind); c && m.symmetry == Symmetry::Uniaxial) {
+        // Extraordinary when the polarization lies in the plane of the optic axis and k.
+        using K = Polarization::Kind;
+        const bool horizontal = beam_.polarization.kind == K::Horizontal ||
+                                (beam_.polarization.kind == K::Linear &&
+                                 std::abs(std::cos(deg_to_rad(beam_.polarization.angle_deg))) >=
+                                     std::sqrt(0.5));
+        const bool vertical = beam_.polarization.kind == K::Vertical ||
+                              (beam_.polarization.kind == K::Linear && !horizontal);
+        const bool extraordinary = c->optic_axis_horizontal ? horizontal : vertical;
+        if (!extraordinary) {
+            const IndexSample o = sample_index(m, nm, Axis::Ordinary);
+            return {o.index, o.group_index};
+        }
+        // Internal angle of the ray to the face normal, in the table plane.
+        const Vec2& n = placed_[element].normal;
+        const double inside = std::atan2(dir.dot(perpendicular(n)), dir.dot(n));
+        const double cut = deg_to_rad(c->cut_deg);
+        const double to_axis = c->optic_axis_horizontal
+                                   ? std::abs(inside) < kPi / 2 ? inside - cut : inside + cut
+                                   : std::acos(std::cos(inside) * std::cos(cut));
+        const IndexSample e = extraordinary_index(m, nm, to_axis);
+        return {e.index, e.group_index};
+    }
+    const IndexSample rel = sample_index(m, nm, Axis::X);
+    const IndexSample abs = absolute_index(m, *library_.find("air"), nm, Axis::X);
+    return {rel.index, abs.group_index};
+}
+
+void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element) {
+    if (!expect_) return;
+    const size_t want = *expect_;
+    expect_.reset();
+    if (next_element && *next_element == want) return;
+    Surface s[3];
+    surfaces_of(layout_.elements[want].kind, placed_[want], s);
+    double dist = 0, height = 0;
+    if (cross_line(p, d, s[0], dist, height) && dist > 0) {
+        const double beyond = std::abs(height) - placed_[want].half_aperture;
+        finding(Finding::Kind::MissedOptic, want, p + dist * d, beyond,
+                "misses " + id(want) + " by " + mm_text(beyond) + " mm (crosses its plane " +
+                    mm_text(std::abs(height)) + " mm from its centre)");
+    } else {
+        finding(Finding::Kind::MissedOptic, want, placed_[want].at, 0,
+                "never reaches " + id(want) + ", which the previous mirror aims at");
+    }
+}
+
+Path BeamTracer::run() {
+    Vec2 p = beam_.start_mm;
+    Vec2 d = unit_at(beam_.direction_deg);
+    double s_total = 0;
+    Medium medium{1.0, air_group_index_};
+    const double wavelength = beam_.wavelength_nm;
+
+    for (size_t count = 0;; ++count) {
+        if (count >= kMaxHitsPerBeam) {
+            finding(Finding::Kind::TooManyHits, SIZE_MAX, p, 0,
+                    "stopped after " + std::to_string(kMaxHitsPerBeam) + " hits");
+            break;
+        }
+        const double exit = inside_ ? kInf : table_exit(p, d);
+        const std::optional<Candidate> c = nearest(p, d, exit);
+        if (!c) {
+            if (inside_) {
+                finding(Finding::Kind::LeftThroughEdge, *inside_, p, 0,
+                        "leaves " + id(*inside_) + " through its edge");
+                break;
+            }
+            check_aim(p, d, std::nullopt);
+            const Vec2 q = p + exit * d;
+            path_.segments.push_back({p, q, exit, std::nullopt, 1.0, air_group_index_});
+            finding(Finding::Kind::LeftTable, SIZE_MAX, q, 0, "leaves the table at " + point_text(q));
+            break;
+        }
+        if (inside_ && std::abs(c->height) > placed_[*inside_].half_aperture) {
+            finding(Finding::Kind::LeftThroughEdge, *inside_, p + c->dist * d, 0,
+                    "leaves " + id(*inside_) + " through its edge");
+            break;
+        }
+        check_aim(p, d, c->element);
+        const Vec2 h = p + c->dist * d;
+        path_.segments.push_back({p, h, c->dist, inside_, medium.index, medium.group_index});
+        s_total += c->dist;
+        const size_t e = c->element;
+        const ElementKind& kind = layout_.elements[e].kind;
+        Placed& pl = placed_[e];
+        if (pl.aim_pending) {  // the first beam to reach an aim_at mirror fixes its orientation
+            pl.normal = c->surface.normal;
+            pl.aim_pending = false;
+        }
+        const Vec2 n = c->surface.normal;
+        TraceHit hit;
+        hit.element = e;
+        hit.face = c->surface.face;
+        hit.point_mm = h;
+        hit.direction_in = d;
+        hit.s_mm = s_total;
+        hit.aoi_rad = std::acos(std::min(1.0, std::abs(d.dot(n))));
+        hit.height_mm = c->height;
+        hit.half_aperture_mm = pl.half_aperture;
+        hit.index_before = medium.index;
+        last_surface_ = std::make_pair(e, c->surface.face);
+        bool stop = false;
+
+        if (const auto* lens = std::get_if<Lens>(&kind)) {
+            hit.interaction = Interaction::ThinLens;
+            const double f = lens_focal_length_mm(*lens, library_, wavelength);
+            const Vec2 t = perpendicular(n);
+            const double along = d.dot(n);
+            const double slope = d.dot(t) / std::abs(along) - c->height / f;
+            d = (std::copysign(1.0, along) * n + slope * t).normalized();
+            if (const auto* thick = std::get_if<ThickLens>(&lens->model)) {
+                const Material& g = *library_.find(thick->glass);
+                note_material(e, g);
+                hit.lumped_glass_mm = thick->center_thickness_mm;
+                hit.lumped_group_index = absolute_index(g, *library_.find("air"), wavelength).group_index;
+            } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
+                note_material(e, *library_.find(thin->glass));
+            }
+        } else if (const auto* mirror = std::get_if<Mirror>(&kind)) {
+            if (d.dot(n) >= 0) {
+                finding(Finding::Kind::HitBackOfOptic, e, h, 0, "meets the back of mirror " + id(e));
+                stop = true;
+            } else {
+                hit.interaction = Interaction::Reflect;
+                Vec2 local = n;
+                if (mirror->radius_of_curvature_mm)
+                    local = (n - (c->height / *mirror->radius_of_curvature_mm) * perpendicular(n)).normalized();
+                d = reflect(d, local);
+                if (mirror->aim_at) expect_ = pl.aim_target;
+            }
+        } else if (std::holds_alternative<Retroreflector>(kind)) {
+            if (d.dot(n) >= 0) {
+                finding(Finding::Kind::HitBackOfOptic, e, h, 0,
+                        "meets the back of retroreflector " + id(e));
+                stop = true;
+            } else {
+                hit.interaction = Interaction::Retroreflect;
+                d = -d;
+                p = pl.at - c->height * perpendicular(n);  // mirrored across the axis
+                hit.direction_out = d;
+                hit.index_after = medium.index;
+                path_.hits.push_back(hit);
+                continue;
+            }
+        } else if (std::holds_alternative<Target>(kind)) {
+            hit.interaction = Interaction::TargetPlane;
+        } else if (std::holds_alternative<Dump>(kind)) {
+            hit.interaction = Interaction::Absorb;
+            stop = true;
+        } else if (is_slab(kind)) {
+            const auto* dichroic = std::get_if<Dichroic>(&kind);
+            const bool reflects_here =
+                dichroic && c->surface.face == Face::Front &&
+                (dichroic->reflects_shorter ? wavelength < dichroic->edge_nm
+                                            : wavelength > dichroic->edge_nm);
+            const bool coming_from_front = d.dot(n) < 0;
+            if (c->surface.face == Face::Centre) {
+                hit.interaction = Interaction::TargetPlane;
+            } else if (reflects_here && (inside_.has_value() != coming_from_front)) {
+                // Coated face: reflected from outside (front) or inside (from the substrate).
+                hit.interaction = Interaction::Reflect;
+                d = reflect(d, n);
+            } else {
+                hit.interaction = Interaction::Refract;
+                const bool entering = !inside_.has_value();
+                Medium next{1.0, air_group_index_};
+                std::optional<Vec2> out;
+                if (entering) {
+                    // Guess the medium from the straight-on index, refine the direction for an
+                    // index that depends on it (extraordinary wave): a few fixed-point steps.
+                    next = slab_medium(e, d);
+                    for (int it = 0; it < 4; ++it) {
+                        out = refract(d, n, 1.0, next.index);
+                        if (!out) break;
+                        next = slab_medium(e, *out);
+                    }
+                    out = refract(d, n, 1.0, next.index);
+                } else {
+                    out = refract(d, n, medium.index, 1.0);
+                }
+                if (!out) {
+                    finding(Finding::Kind::TotalInternalReflection, e, h, 0,
+                            "total internal reflection in " + id(e));
+                    stop = true;
+                } else {
+                    d = *out;
+                    medium = next;
+                    if (entering) {
+                        inside_ = e;
+                        const std::string& name =
+                            dichroic ? dichroic->substrate.material
+                            : std::holds_alternative<Plate>(kind) ? std::get<Plate>(kind).slab.material
+                                                                  : std::get<Crystal>(kind).material;
+                        note_material(e, *library_.find(name));
+                    } else {
+                        inside_.reset();
+                    }
+                }
+            }
+        }
+        hit.direction_out = d;
+        hit.index_after = medium.index;
+        path_.hits.push_back(hit);
+        if (target_ && e == *target_ && hit.interaction == Interaction::TargetPlane &&
+            !path_.target_hit)
+            path_.target_hit = path_.hits.size() - 1;
+        if (stop) break;
+        p = h;
+    }
+    if (!path_.target_hit)
+        finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p, 0,
+                "never reaches the target " + layout_.target);
+    return path_;
+}
+
+}  // namespace
+
+double lens_focal_length_mm(const Lens& lens, const MaterialLibrary& library, double nm) {
+    if (const auto* ideal = std::get_if<IdealLens>(&lens.model)) return ideal->focal_length_mm;
+    if (const auto* thin = std::get_if<ThinChromaticLens>(&lens.model)) {
+        const Material& g = *library.find(thin->glass);
+        return chromatic_focal_length_mm(thin->focal_length_mm,
+                                         sample_index(g, thin->design_wavelength_nm).index,
+                                         sample_index(g, nm).index);
+    }
+    const auto& t = std::get<ThickLens>(lens.model);
+    const double n = sample_index(*library.find(t.glass), nm).index;
+    return thick_lens_properties({t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm}, n)
+        .effective_focal_length_mm;
+}
+
+std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library) {
+    std::vector<Placed> placed = place(layout);
+    std::vector<Path> paths;
+    for (size_t b = 0; b < layout.beams.size(); ++b)
+        paths.push_back(BeamTracer(layout, library, placed, b).run());
+    return paths;
+}
+
+}  // namespace rv

@@ -1,0 +1,39 @@
+#pragma once
+// The 2-D chief-ray trace: each beam from its start through whatever element plane it meets
+// first within that element's aperture, in any order, until it is absorbed, leaves the table
+// or something stops it. A pure function of the layout.
+//
+// Model (table plane, mm; see layout/layout.hpp for the geometry of each element):
+// * Thin lenses and thick singlets deflect the ray paraxially by −h/f at their plane, h the
+//   signed height of the crossing from the lens axis, f the focal length at the beam's
+//   wavelength (a thick singlet's EFL).
+// * Mirrors reflect about the local normal; a curved mirror's local normal is tilted by −h/R.
+//   Dichroics reflect one side of their edge at the coated face; the other colour is refracted
+//   through the substrate (Snell's law at both faces), which gives its lateral shift and glass
+//   path. Plates and crystals are slabs refracted at both faces; in a uniaxial crystal the
+//   extraordinary index follows the ray's angle to the optic axis.
+// * A retroreflector returns the ray antiparallel, mirrored across its axis (apex plane fold).
+// * Elements carried by a stage are moved by its position along its axis.
+// * A mirror with aim_at is oriented when the first beam (in file order) reaches it, so that
+//   a ray arriving at its centre would be sent to the aimed-at element's centre.
+// Refractive indices of glasses are the catalogue values relative to air (air is n = 1 for
+// geometry, design.md); group indices are absolute (air by Ciddor 1996).
+
+#include <vector>
+
+#include "layout/layout.hpp"
+#include "materials/material_library.hpp"
+#include "trace/path.hpp"
+
+namespace rv {
+
+inline constexpr size_t kMaxHitsPerBeam = 64;
+
+// One path per beam, in the layout's order.
+std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library);
+
+// The focal length of a lens at a wavelength (ideal: as given; chromatic thin: scaled by the
+// glass's dispersion; thick: its EFL), mm.
+double lens_focal_length_mm(const Lens& lens, const MaterialLibrary& library, double wavelength_nm);
+
+}  // namespace rv
