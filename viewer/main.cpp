@@ -1,26 +1,53 @@
-// rendezvous: command-line front end (the interactive window arrives with the viewer issue).
+// rendezvous: the command line (the interactive window arrives with the viewer issue).
 // Exit status: 0 success, 2 bad input or bad command line.
 #include <CLI/CLI.hpp>
 #include <iostream>
 
-#include "cli/report_command.hpp"
+#include "cli/commands.hpp"
 
 int main(int argc, char** argv) {
     CLI::App app{"Rendezvous: plan two-colour beam combining (focus, size, timing, phase matching).",
                  "rendezvous"};
     app.set_version_flag("--version", std::string("rendezvous ") + RENDEZVOUS_VERSION);
     app.require_subcommand(0, 1);
-    app.footer("Example:\n  rendezvous report --demo");
+    app.footer("Examples:\n  rendezvous report --demo\n  rendezvous report layouts/sfg-bbo.json --json\n"
+               "  rendezvous check my-table.json");
 
     rv::cli::ReportOptions report;
     CLI::App* report_cmd = app.add_subcommand(
-        "report", "Report where and how the two colours focus.\n"
-                  "Example: rendezvous report --demo --json");
-    report_cmd->add_flag("--demo", report.demo, "use the demo built into the program");
+        "report", "Report each beam at the target and how far apart the two are.\n"
+                  "Example: rendezvous report layouts/sfg-bbo.json --json");
+    report_cmd->add_option("layout", report.layout, "layout file (JSON)");
+    report_cmd->add_flag("--demo", report.demo, "use the SFG demo built into the program");
     report_cmd->add_flag("--json", report.json, "print one JSON object instead of text");
+
+    std::string check_layout;
+    CLI::App* check_cmd = app.add_subcommand(
+        "check", "Read and trace a layout; list every error and finding (exit 2 on errors).\n"
+                 "Example: rendezvous check layouts/pump-probe.json");
+    check_cmd->add_option("layout", check_layout, "layout file (JSON)")->required();
+
+    rv::cli::FormatOptions format;
+    CLI::App* format_cmd = app.add_subcommand(
+        "format", "Rewrite a layout in canonical form.\n"
+                  "Example: rendezvous format mine.json --in-place");
+    format_cmd->add_option("layout", format.layout, "layout file (JSON)")->required();
+    format_cmd->add_option("-o,--output", format.output, "write here (atomically) instead of stdout");
+    format_cmd->add_flag("--in-place", format.in_place, "replace the layout file (atomically)");
+
+    rv::cli::TraceOptions trace;
+    CLI::App* trace_cmd = app.add_subcommand(
+        "trace", "List every hit of every beam with the beam radius there.\n"
+                 "Example: rendezvous trace layouts/sfg-bbo.json");
+    trace_cmd->add_option("layout", trace.layout, "layout file (JSON)")->required();
+    trace_cmd->add_flag("--json", trace.json, "print one JSON object instead of text");
 
     try {
         app.parse(argc, argv);
+        if (*report_cmd && report.demo == !report.layout.empty())
+            throw CLI::ValidationError("report", "give either a layout file or --demo");
+        if (*format_cmd && format.in_place && !format.output.empty())
+            throw CLI::ValidationError("format", "--in-place and --output exclude each other");
     } catch (const CLI::CallForHelp& e) {
         return app.exit(e);
     } catch (const CLI::CallForAllHelp& e) {
@@ -32,6 +59,9 @@ int main(int argc, char** argv) {
         return 2;
     }
     if (*report_cmd) return rv::cli::run_report(report, std::cout, std::cerr);
+    if (*check_cmd) return rv::cli::run_check(check_layout, std::cout, std::cerr);
+    if (*format_cmd) return rv::cli::run_format(format, std::cout, std::cerr);
+    if (*trace_cmd) return rv::cli::run_trace(trace, std::cout, std::cerr);
     std::cout << app.help();
     return 0;
 }

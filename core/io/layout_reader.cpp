@@ -1,5 +1,6 @@
 #include "io/layout_reader.hpp"
 
+#include <cctype>
 #include <cmath>
 #include <fstream>
 #include <limits>
@@ -482,10 +483,30 @@ std::string syntax_message(const std::string& what) {
     return m;
 }
 
+// nlohmann's byte count points at the last character read, the end of the offending token;
+// step back to the token's first character so the column points where the reader looks.
+size_t token_start(std::string_view text, size_t byte) {
+    size_t i = std::min(byte > 0 ? byte - 1 : 0, text.size());
+    if (i >= text.size() || i == 0) return i;
+    if (text[i] == '"') {
+        size_t j = i;
+        while (j > 0) {
+            --j;
+            if (text[j] == '"' && (j == 0 || text[j - 1] != '\\')) return j;
+        }
+        return i;
+    }
+    auto in_literal = [](char c) {
+        return std::isalnum(static_cast<unsigned char>(c)) || c == '.' || c == '-' || c == '+';
+    };
+    while (i > 0 && in_literal(text[i]) && in_literal(text[i - 1])) --i;
+    return i;
+}
+
 void line_and_column(std::string_view text, size_t byte, int& line, int& column) {
     line = 1;
     column = 1;
-    const size_t end = std::min(byte > 0 ? byte - 1 : 0, text.size());
+    const size_t end = token_start(text, byte);
     for (size_t i = 0; i < end; ++i) {
         if (text[i] == '\n') {
             ++line;

@@ -50,6 +50,44 @@ double clipped_fraction(const TraceHit& hit, double w_t_um, double w_s_um) {
     return std::exp(-2.0 * std::min(at * at, as * as));
 }
 
+bool has_power(const Layout& layout, const TraceHit& hit) {
+    if (hit.interaction == Interaction::ThinLens) return true;
+    if (hit.interaction != Interaction::Reflect) return false;
+    const auto* m = std::get_if<Mirror>(&layout.elements[hit.element].kind);
+    return m && m->radius_of_curvature_mm;
+}
+
+// Signed path distance from hit k (the target plane, identity matrix) to the real waist.
+double locate_waist_mm(const Layout& layout, const MaterialLibrary& library, const Path& path,
+                       size_t k, GaussianBeam q, double wavelength_nm, Plane plane) {
+    const GaussianBeam at_target = q;
+    double d = distance_to_waist_mm(q);
+    double travelled = 0;
+    if (d >= 0) {
+        for (size_t i = k; i + 1 < path.hits.size(); ++i) {
+            const double gap = path.hits[i + 1].s_mm - path.hits[i].s_mm;
+            if (d <= gap || has_power(layout, path.hits[i + 1])) break;
+            q = propagate(q, free_space(gap));
+            q = propagate(q, hit_matrix(layout, library, path.hits[i + 1], wavelength_nm, plane),
+                          path.hits[i + 1].index_after);
+            travelled += gap;
+            d = distance_to_waist_mm(q);
+        }
+        return travelled + d;
+    }
+    q = at_target;
+    for (size_t i = k; i > 0; --i) {
+        const double gap = path.hits[i].s_mm - path.hits[i - 1].s_mm;
+        if (-d <= gap || has_power(layout, path.hits[i - 1])) break;
+        q = propagate(q, free_space(-gap));  // now just after hit i − 1: undo its matrix
+        q = propagate(q, hit_matrix(layout, library, path.hits[i - 1], wavelength_nm, plane).inverse(),
+                      path.hits[i - 1].index_before);
+        travelled += gap;
+        d = distance_to_waist_mm(q);
+    }
+    return d - travelled;
+}
+
 }  // namespace
 
 Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, const Path& path,
@@ -104,6 +142,14 @@ Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, con
                       hit.index_after);
         s = propagate(s, hit_matrix(layout, library, hit, src.wavelength_nm, Plane::Sagittal),
                       hit.index_after);
+    }
+
+    if (out.reaches_target) {
+        const size_t k = *path.target_hit;
+        out.target_waist_offset_tangential_mm = locate_waist_mm(
+            layout, library, path, k, out.target_tangential, src.wavelength_nm, Plane::Tangential);
+        out.target_waist_offset_sagittal_mm = locate_waist_mm(
+            layout, library, path, k, out.target_sagittal, src.wavelength_nm, Plane::Sagittal);
     }
 
     // Denser samples around the target: ±3 Rayleigh ranges, from the target state, kept

@@ -11,6 +11,7 @@
 //   flat mirrors, dichroic reflections, retroreflectors and target planes the identity.
 // Actual-angle convention (optics/abcd.hpp); inside a medium q carries its index, so the
 // Rayleigh range in a crystal is the one in the crystal.
+// Waist location: see Caustic::target_waist_offset_*.
 // Clipping: at each hit the aperture seen by the beam is a circle of radius a = aperture/2,
 // shrunk by the chief ray's offset h from the centre and projected by cos θ in the tangential
 // plane; the power outside it is estimated as exp(−2 a_eff²/w²) for the plane where that is
@@ -40,6 +41,11 @@ struct Caustic {
     std::vector<BeamAtHit> at_hits;  // one per Path::hits entry
     bool reaches_target = false;
     GaussianBeam target_tangential{}, target_sagittal{};  // at the target plane
+    // Where the waist really forms, as a signed path length from the target plane (+ =
+    // downstream), following the beam through plane interfaces (a waist beyond a crystal's exit
+    // face forms in the air after it). The search stops at an element with optical power; then
+    // the waist of the medium at the target is given (virtual).
+    double target_waist_offset_tangential_mm = 0, target_waist_offset_sagittal_mm = 0;
     std::vector<EnvelopeSample> envelope;                // sorted by s, denser near the target
     std::vector<Finding> findings;                       // clipping above the threshold
 };

@@ -201,7 +201,7 @@ std::optional<BeamTracer::Candidate> BeamTracer::nearest(const Vec2& p, const Ve
                 continue;
             double dist = 0, height = 0;
             if (!cross_line(p, d, s[k], dist, height)) continue;
-            if (dist <= kEps_mm || dist > max_dist) continue;
+            if (dist <= kEps_mm || dist > max_dist + 1e-6) continue;  // on the edge counts
             if (!inside_ && std::abs(height) > pl.half_aperture) continue;
             if (!best || dist < best->dist) best = Candidate{i, s[k], dist, height};
         }

@@ -1,0 +1,47 @@
+#include "analysis/target_summary.hpp"
+
+#include <cmath>
+
+#include "analysis/timing.hpp"
+#include "units/constants.hpp"
+
+namespace rv {
+
+namespace {
+PlaneAtTarget plane(const GaussianBeam& b) {
+    return {radius_um(b), waist_radius_um(b), distance_to_waist_mm(b), rayleigh_range_mm(b)};
+}
+}  // namespace
+
+BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic) {
+    BeamAtTarget out;
+    if (!path.target_hit || !caustic.reaches_target) return out;
+    const TraceHit& hit = path.hits[*path.target_hit];
+    out.reached = true;
+    out.path_mm = hit.s_mm;
+    out.arrival_fs = arrival_time_fs(layout, path, *path.target_hit);
+    out.tangential = plane(caustic.target_tangential);
+    out.sagittal = plane(caustic.target_sagittal);
+    out.tangential.waist_offset_mm = caustic.target_waist_offset_tangential_mm;
+    out.sagittal.waist_offset_mm = caustic.target_waist_offset_sagittal_mm;
+    out.hit_mm = hit.point_mm;
+    out.direction = hit.direction_in;
+    out.index = hit.index_before;
+    return out;
+}
+
+Mismatch mismatch_at_target(const BeamAtTarget& a, const BeamAtTarget& b) {
+    Mismatch m;
+    m.waist_offset_tangential_mm = b.tangential.waist_offset_mm - a.tangential.waist_offset_mm;
+    m.waist_offset_sagittal_mm = b.sagittal.waist_offset_mm - a.sagittal.waist_offset_mm;
+    m.waist_offset_mm = (m.waist_offset_tangential_mm + m.waist_offset_sagittal_mm) / 2;
+    m.waist_ratio = (b.tangential.waist_um + b.sagittal.waist_um) /
+                    (a.tangential.waist_um + a.sagittal.waist_um);
+    m.lateral_um = mm_to_um((b.hit_mm - a.hit_mm).norm());
+    const double cross = a.direction.x() * b.direction.y() - a.direction.y() * b.direction.x();
+    m.angle_mrad = 1e3 * std::atan2(std::abs(cross), a.direction.dot(b.direction));
+    m.delay_fs = a.arrival_fs - b.arrival_fs;
+    return m;
+}
+
+}  // namespace rv

@@ -1,0 +1,49 @@
+#pragma once
+// Each beam at the layout's target, and how the two beams differ there.
+//
+// Per plane: the beam radius at the target plane, the waist radius, the waist position minus
+// the target centre (+ = downstream, a path length to where the waist really forms, see
+// Caustic), and the Rayleigh range in the medium at the target.
+// Mismatch (second beam relative to the first): waist offsets subtracted per plane (reported:
+// the mean of the two planes), waist ratio (mean radius of beam 2 / beam 1), lateral offset of
+// the chief-ray crossings in the target plane, angle between the chief rays, and the delay
+// (arrival of the first beam minus the second).
+
+#include <optional>
+#include <vector>
+
+#include "layout/layout.hpp"
+#include "trace/path.hpp"
+#include "trace/propagate.hpp"
+
+namespace rv {
+
+struct PlaneAtTarget {
+    double radius_um = 0, waist_um = 0, waist_offset_mm = 0, rayleigh_mm = 0;
+};
+
+struct BeamAtTarget {
+    bool reached = false;
+    double path_mm = 0;       // geometric path from the start to the target plane
+    double arrival_fs = 0;    // emission time + group delay to the target centre
+    PlaneAtTarget tangential, sagittal;
+    Vec2 hit_mm{0, 0};        // chief-ray crossing of the target plane
+    Vec2 direction{1, 0};
+    double index = 1;         // phase index of the medium at the target
+};
+
+BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic);
+
+struct Mismatch {
+    double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;
+    double waist_offset_mm = 0;  // mean of the two planes
+    double waist_ratio = 1;      // mean waist of beam 2 over beam 1
+    double lateral_um = 0;       // distance between the chief-ray crossings
+    double angle_mrad = 0;       // angle between the chief rays
+    double delay_fs = 0;         // arrival of beam 1 minus beam 2
+};
+
+// Both beams must have reached the target.
+Mismatch mismatch_at_target(const BeamAtTarget& first, const BeamAtTarget& second);
+
+}  // namespace rv

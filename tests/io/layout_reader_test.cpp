@@ -1,0 +1,91 @@
+// Reading layout files: every kind of bad input gets its exact located message.
+#include "io/layout_reader.hpp"
+
+#include <filesystem>
+
+#include "support/tolerance.hpp"
+
+namespace {
+const std::filesystem::path kBad = std::filesystem::path(RV_SOURCE_DIR) / "tests/layouts/bad";
+
+std::vector<std::string> messages(const std::string& fixture) {
+    const rv::LayoutReadResult r = rv::read_layout_file(kBad / fixture);
+    std::vector<std::string> out;
+    for (const rv::Diagnostic& d : r.diagnostics) out.push_back(rv::format_diagnostic(d, fixture));
+    CHECK_FALSE(r.layout.has_value());
+    return out;
+}
+}  // namespace
+
+TEST_CASE("each bad fixture gets its exact message", "[reader]") {
+    struct Case { const char* file; std::vector<std::string> expected; };
+    const Case cases[] = {
+        {"syntax-error.json", {"syntax-error.json:5:16: error: syntax error: unexpected string literal; expected '}'"}},
+        {"empty.json", {"empty.json:1:1: error: syntax error: unexpected end of input; expected '[', '{', or a literal"}},
+        {"not-an-object.json", {"not-an-object.json: error: expected a layout object, found an array"}},
+        {"missing-key.json", {"missing-key.json: error: /beams/0: missing \"waist_um\", required for a beam"}},
+        {"wrong-type.json", {"wrong-type.json: error: /beams/0/wavelength_nm: expected a number, found a string (\"1064\")"}},
+        {"unknown-key.json", {"unknown-key.json: error: /elements/0/focal_lenght_mm: unknown key for a lens; did you mean \"focal_length_mm\"?",
+                              "unknown-key.json: error: /elements/0: missing \"focal_length_mm\", required for a lens"}},
+        {"unknown-type.json", {"unknown-type.json: error: /elements/0/type: unknown element type \"lense\"; did you mean \"lens\"?"}},
+        {"zero-focal-length.json", {"zero-focal-length.json: error: /elements/0/focal_length_mm: must be non-zero (got 0)"}},
+        {"negative-aperture.json", {"negative-aperture.json: error: /elements/1/aperture_mm: must be positive (got -5)"}},
+        {"m2-below-one.json", {"m2-below-one.json: error: /beams/0/m2/1: must be at least 1 (got 0.9)"}},
+        {"duplicate-id.json", {"duplicate-id.json: error: /elements/1/id: duplicate id \"L\" (first used at /elements/0/id)",
+                               "duplicate-id.json: error: /target: no element has id \"T\""}},
+        {"aim-at-missing.json", {"aim-at-missing.json: error: /elements/1/aim_at: no element has id \"M9\""}},
+        {"aim-and-normal.json", {"aim-and-normal.json: error: /elements/1/normal_deg: not allowed together with \"aim_at\""}},
+        {"stage-carries-itself.json", {"stage-carries-itself.json: error: /elements/2/carries/0: a stage cannot carry itself"}},
+        {"stage-carries-stage.json", {"stage-carries-stage.json: error: /elements/2/carries/0: a stage cannot carry another stage (\"S2\")"}},
+        {"stage-outside-travel.json", {"stage-outside-travel.json: error: /elements/2/position_mm: must lie within the travel [0, 25] (got 30)"}},
+        {"target-missing.json", {"target-missing.json: error: /target: no element has id \"X\""}},
+        {"target-not-a-target.json", {"target-not-a-target.json: error: /target: expected the id of a crystal or a target, found the lens \"L\""}},
+        {"unknown-material.json", {"unknown-material.json: error: /elements/0/glass: unknown material \"N-BK8\"; did you mean \"N-BK7\"?"}},
+        {"unsupported-version.json", {"unsupported-version.json: error: /version: unsupported version 2; this program reads version 1"}},
+        {"wrong-format.json", {"wrong-format.json: error: /format: expected \"rendezvous-layout\", found \"some-other-layout\""}},
+        {"bad-grid.json", {"bad-grid.json: error: /table/grid_mm: expected 25 (metric) or 25.4 (imperial), found 24"}},
+        {"angle-without-linear.json", {"angle-without-linear.json: error: /beams/0/polarization_angle_deg: only allowed with \"polarization\": \"linear\""}},
+        {"shape-and-radius.json", {"shape-and-radius.json: error: /elements/0/front_radius_mm: not allowed together with \"shape\""}},
+        {"no-beams.json", {"no-beams.json: error: /beams: expected one or two beams, found 0"}},
+        {"point-not-pair.json", {"point-not-pair.json: error: /elements/1/at_mm: expected [x, y] in mm, found an array ([200])"}},
+        {"convex-negative-f.json", {"convex-negative-f.json: error: /elements/0/focal_length_mm: no plano-convex lens has this focal length: a convex shape needs a positive focal length"}},
+        // Every problem of a file in one pass.
+        {"three-errors.json", {"three-errors.json: error: /beams/0/wavelength_nm: must be positive (got -1)",
+                               "three-errors.json: error: /elements/0/apperture_mm: unknown key for a lens; did you mean \"aperture_mm\"?",
+                               "three-errors.json: error: /target: no element has id \"nowhere\""}},
+    };
+    size_t fixtures = 0;
+    for (const auto& entry : std::filesystem::directory_iterator(kBad)) fixtures += entry.path().extension() == ".json";
+    // Every fixture in the folder has its expectation here.
+    CHECK(fixtures == std::size(cases));
+    for (const Case& c : cases) {
+        CAPTURE(c.file);
+        CHECK(messages(c.file) == c.expected);
+    }
+}
+
+TEST_CASE("an unreadable file is one diagnostic", "[reader]") {
+    const rv::LayoutReadResult r = rv::read_layout_file("/nonexistent/folder/layout.json");
+    REQUIRE(r.diagnostics.size() == 1);
+    CHECK(rv::format_diagnostic(r.diagnostics[0], "layout.json") ==
+          "layout.json: error: cannot open the file for reading");
+}
+
+TEST_CASE("a thick lens from a named shape gets radii from the lensmaker equation", "[reader]") {
+    // Lensmaker (Hecht §6.2): a convex-plano singlet has f = R1/(n − 1) for any thickness; a
+    // symmetric biconvex R = (n − 1) f [1 + √(1 − t/(n f))]. N-BK7 n_d = 1.5168 (SCHOTT).
+    const rv::LayoutReadResult r = rv::read_layout(R"({"format": "rendezvous-layout", "version": 1,
+      "beams": [{"id": "b", "wavelength_nm": 587.56, "start_mm": [0, 0], "direction_deg": 0, "waist_um": 500}],
+      "elements": [{"id": "A", "type": "lens", "at_mm": [10, 0], "shape": "convex-plano", "focal_length_mm": 100, "center_thickness_mm": 4, "glass": "N-BK7"},
+                   {"id": "B", "type": "lens", "at_mm": [20, 0], "shape": "biconvex", "focal_length_mm": 50, "center_thickness_mm": 6, "glass": "N-BK7"},
+                   {"id": "T", "type": "target", "at_mm": [30, 0]}],
+      "target": "T"})");
+    REQUIRE(r.layout);
+    const auto& a = std::get<rv::ThickLens>(std::get<rv::Lens>(r.layout->elements[0].kind).model);
+    const auto& b = std::get<rv::ThickLens>(std::get<rv::Lens>(r.layout->elements[1].kind).model);
+    CHECK_THAT(a.front_radius_mm, rv::test::near(100 * 0.5168, 5e-3));
+    CHECK(std::isinf(a.back_radius_mm));
+    const double n = 1.5168;
+    CHECK_THAT(b.front_radius_mm, rv::test::near((n - 1) * 50 * (1 + std::sqrt(1 - 6 / (n * 50))), 5e-3));
+    CHECK_THAT(b.back_radius_mm, rv::test::near(-b.front_radius_mm, 1e-12));
+}

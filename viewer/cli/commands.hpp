@@ -1,0 +1,31 @@
+#pragma once
+// The sub-commands of `rendezvous`. Each returns the process exit status:
+// 0 success, 2 bad input (a message on stderr, nothing written), 3 a --check verdict failed.
+#include <iosfwd>
+#include <string>
+
+namespace rv::cli {
+
+struct ReportOptions {
+    std::string layout;  // a path, or empty with demo
+    bool demo = false;
+    bool json = false;
+};
+int run_report(const ReportOptions& options, std::ostream& out, std::ostream& err);
+
+int run_check(const std::string& layout, std::ostream& out, std::ostream& err);
+
+struct FormatOptions {
+    std::string layout;
+    std::string output;  // "" = standard output
+    bool in_place = false;
+};
+int run_format(const FormatOptions& options, std::ostream& out, std::ostream& err);
+
+struct TraceOptions {
+    std::string layout;
+    bool json = false;
+};
+int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err);
+
+}  // namespace rv::cli
