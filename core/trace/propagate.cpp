@@ -104,6 +104,7 @@ Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, con
 
     // Samples along one segment starting at s0 with the beams (bt, bs) at its start.
     auto sample_segment = [&](const GaussianBeam& bt, const GaussianBeam& bs, double length) {
+        if (!options.sample_envelope) return;
         const int n = std::clamp(static_cast<int>(length / options.envelope_step_mm), 1, 400);
         for (int i = 0; i <= n; ++i) {
             const double z = length * i / n;
@@ -154,7 +155,7 @@ Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, con
 
     // Denser samples around the target: ±3 Rayleigh ranges, from the target state, kept
     // between the hits either side of it (beyond them other matrices apply).
-    if (out.reaches_target) {
+    if (out.reaches_target && options.sample_envelope) {
         const size_t k_target = *path.target_hit;
         const double zr = std::min(rayleigh_range_mm(out.target_tangential),
                                    rayleigh_range_mm(out.target_sagittal));

@@ -54,6 +54,7 @@ struct PropagationOptions {
     double clipping_warning_fraction = 0.01;  // warn when more than 1 % is cut off
     double envelope_step_mm = 5.0;            // sample spacing away from the target
     int samples_near_target = 201;            // over ±3 Rayleigh ranges around the target
+    bool sample_envelope = true;              // off for solvers: only the numbers at hits
 };
 
 Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, const Path& path,

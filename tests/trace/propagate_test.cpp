@@ -133,3 +133,28 @@ TEST_CASE("the envelope is sampled along the path and densely near the target", 
     for (const rv::EnvelopeSample& e : t.caustic.envelope) near_target += std::abs(e.s_mm - 600) < 3 * 3.3258;
     CHECK(near_target >= 100);
 }
+
+TEST_CASE("two colours through one N-BK7 lens focus apart by the chromatic shift", "[propagate][chromatic]") {
+    // physics.md §1.5 (computed there): a thin N-BK7 lens with f(1064) = 100 mm (so
+    // f(587.6) = 100·(n(1064) − 1)/(n_d − 1)); collimated beams, w0 = 1.000 mm at the lens:
+    // 1064 nm → waist at 99.8854 mm, 33.8488 µm, z_R 3.3829 mm;
+    // 532 nm → f 97.5287 mm, waist at 97.5021 mm, 16.5133 µm, z_R 1.6103 mm.
+    const rv::MaterialLibrary& lib = rv::MaterialLibrary::builtin();
+    const double n1064 = rv::sample_index(*lib.find("N-BK7"), 1064).index;
+    const double n_d = rv::sample_index(*lib.find("N-BK7"), 587.6).index;
+    const double f_design = 100 * (n1064 - 1) / (n_d - 1);
+    const std::string lens = R"({"id": "L", "type": "lens", "at_mm": [100, 500], "glass": "N-BK7", "focal_length_mm": )" +
+                             std::to_string(f_design) + "}";
+    struct Row { double nm, waist_at, waist_um, zr; };
+    for (const Row& r : {Row{1064, 99.8854, 33.8488, 3.3829}, Row{532, 97.5021, 16.5133, 1.6103}}) {
+        CAPTURE(r.nm);
+        const Traced t = run(layout_json(
+            R"({"id": "b", "wavelength_nm": )" + std::to_string(r.nm) +
+                R"(, "start_mm": [0, 500], "direction_deg": 0, "waist_um": 1000, "waist_at_mm": 100})",
+            lens + R"(, {"id": "T", "type": "target", "at_mm": [200, 500]})", "T"));
+        REQUIRE(t.caustic.reaches_target);
+        CHECK_THAT(100 + t.caustic.target_waist_offset_tangential_mm, near(r.waist_at, 2e-4));
+        CHECK_THAT(rv::waist_radius_um(t.caustic.target_tangential), near(r.waist_um, 1e-3));
+        CHECK_THAT(rv::rayleigh_range_mm(t.caustic.target_tangential), near(r.zr, 1e-4));
+    }
+}
