@@ -10,7 +10,8 @@ int main(int argc, char** argv) {
                  "rendezvous"};
     app.set_version_flag("--version", std::string("rendezvous ") + RENDEZVOUS_VERSION);
     app.require_subcommand(0, 1);
-    app.footer("Examples:\n  rendezvous report --demo\n  rendezvous report layouts/sfg-bbo.json --json\n"
+    app.footer("Exit status: 0 success, 2 bad input, 3 the verdict is not met (report --check).\n"
+               "Examples:\n  rendezvous report --demo\n  rendezvous report layouts/sfg-bbo.json --json\n"
                "  rendezvous check my-table.json");
 
     rv::cli::ReportOptions report;
@@ -20,6 +21,8 @@ int main(int argc, char** argv) {
     report_cmd->add_option("layout", report.layout, "layout file (JSON)");
     report_cmd->add_flag("--demo", report.demo, "use the SFG demo built into the program");
     report_cmd->add_flag("--json", report.json, "print one JSON object instead of text");
+    report_cmd->add_flag("--markdown", report.markdown, "print Markdown for a lab notebook");
+    report_cmd->add_flag("--check", report.check, "exit with status 3 when the verdict is not met");
 
     std::string check_layout;
     CLI::App* check_cmd = app.add_subcommand(
@@ -42,8 +45,18 @@ int main(int argc, char** argv) {
     trace_cmd->add_option("layout", trace.layout, "layout file (JSON)")->required();
     trace_cmd->add_flag("--json", trace.json, "print one JSON object instead of text");
 
+    std::string caustic_layout;
+    bool caustic_csv = false;
+    CLI::App* caustic_cmd = app.add_subcommand(
+        "caustic", "Print the sampled beam radius along each path (both planes).\n"
+                   "Example: rendezvous caustic layouts/sfg-bbo.json --csv > caustic.csv");
+    caustic_cmd->add_option("layout", caustic_layout, "layout file (JSON)")->required();
+    caustic_cmd->add_flag("--csv", caustic_csv, "CSV output (the only format so far)")->required();
+
     try {
         app.parse(argc, argv);
+        if (*report_cmd && report.json && report.markdown)
+            throw CLI::ValidationError("report", "--json and --markdown exclude each other");
         if (*report_cmd && report.demo == !report.layout.empty())
             throw CLI::ValidationError("report", "give either a layout file or --demo");
         if (*format_cmd && format.in_place && !format.output.empty())
@@ -62,6 +75,7 @@ int main(int argc, char** argv) {
     if (*check_cmd) return rv::cli::run_check(check_layout, std::cout, std::cerr);
     if (*format_cmd) return rv::cli::run_format(format, std::cout, std::cerr);
     if (*trace_cmd) return rv::cli::run_trace(trace, std::cout, std::cerr);
+    if (*caustic_cmd) return rv::cli::run_caustic(caustic_layout, std::cout, std::cerr);
     std::cout << app.help();
     return 0;
 }

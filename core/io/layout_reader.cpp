@@ -93,7 +93,19 @@ std::optional<Layout> Reader::read(const json& doc) {
                     layout.goals.waist_um.emplace_back(item.key(), *v);
             }
         }
-        g.finish({"waist_um"});
+        if (const json* v = g.object("verdict", Need::Optional)) {
+            FieldReader vr(*v, "/goals/verdict", "the verdict thresholds", out_);
+            VerdictThresholds& t = layout.goals.verdict;
+            t.max_waist_offset_rayleigh = vr.number("max_waist_offset_rayleigh", Need::Optional, positive()).value_or(t.max_waist_offset_rayleigh);
+            t.max_waist_ratio = vr.number("max_waist_ratio", Need::Optional, at_least(1.0)).value_or(t.max_waist_ratio);
+            t.max_lateral_offset_radius = vr.number("max_lateral_offset_radius", Need::Optional, positive()).value_or(t.max_lateral_offset_radius);
+            t.max_delay_xcorr = vr.number("max_delay_xcorr", Need::Optional, positive()).value_or(t.max_delay_xcorr);
+            t.min_phase_factor = vr.number("min_phase_factor", Need::Optional, between(0, 1)).value_or(t.min_phase_factor);
+            t.max_goal_waist_error = vr.number("max_goal_waist_error", Need::Optional, positive()).value_or(t.max_goal_waist_error);
+            vr.finish({"max_waist_offset_rayleigh", "max_waist_ratio", "max_lateral_offset_radius",
+                       "max_delay_xcorr", "min_phase_factor", "max_goal_waist_error"});
+        }
+        g.finish({"waist_um", "verdict"});
     }
     root.finish({"format", "version", "name", "table", "materials", "beams", "elements", "target",
                  "goals"});
@@ -347,10 +359,11 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
                 f.error("position_mm", m.str());
             }
         }
+        s.measured_zero_mm = f.number("measured_zero_mm", Need::Optional);
         for (const char* key : {"at_mm", "normal_deg", "aperture_mm"})
             if (f.has(key)) f.error(key, "a stage has no position of its own; it moves what it carries");
-        f.finish({"id", "type", "carries", "axis_deg", "position_mm", "travel_mm", "at_mm",
-                  "normal_deg", "aperture_mm"});
+        f.finish({"id", "type", "carries", "axis_deg", "position_mm", "travel_mm",
+                  "measured_zero_mm", "at_mm", "normal_deg", "aperture_mm"});
         return s;
     }
     if (type == "crystal") {

@@ -98,6 +98,7 @@ struct KindWriter {
         j["axis_deg"] = num(s.axis_deg);
         if (s.position_mm != 0) j["position_mm"] = num(s.position_mm);
         j["travel_mm"] = pair(s.travel_min_mm, s.travel_max_mm);
+        if (s.measured_zero_mm) j["measured_zero_mm"] = num(*s.measured_zero_mm);
     }
     void operator()(const Crystal& c) const {
         j["material"] = c.material;
@@ -174,11 +175,23 @@ std::string write_layout(const Layout& layout) {
     for (const Element& e : layout.elements) elements.push_back(element_json(e));
     root["elements"] = elements;
     root["target"] = layout.target;
+    ojson goals = ojson::object();
     if (!layout.goals.waist_um.empty()) {
         ojson w = ojson::object();
         for (const auto& [id, v] : layout.goals.waist_um) w[id] = num(v);
-        root["goals"] = {{"waist_um", w}};
+        goals["waist_um"] = w;
     }
+    const VerdictThresholds& t = layout.goals.verdict;
+    const VerdictThresholds d;
+    ojson v = ojson::object();
+    if (t.max_waist_offset_rayleigh != d.max_waist_offset_rayleigh) v["max_waist_offset_rayleigh"] = num(t.max_waist_offset_rayleigh);
+    if (t.max_waist_ratio != d.max_waist_ratio) v["max_waist_ratio"] = num(t.max_waist_ratio);
+    if (t.max_lateral_offset_radius != d.max_lateral_offset_radius) v["max_lateral_offset_radius"] = num(t.max_lateral_offset_radius);
+    if (t.max_delay_xcorr != d.max_delay_xcorr) v["max_delay_xcorr"] = num(t.max_delay_xcorr);
+    if (t.min_phase_factor != d.min_phase_factor) v["min_phase_factor"] = num(t.min_phase_factor);
+    if (t.max_goal_waist_error != d.max_goal_waist_error) v["max_goal_waist_error"] = num(t.max_goal_waist_error);
+    if (!v.empty()) goals["verdict"] = v;
+    if (!goals.empty()) root["goals"] = goals;
 
     std::string out = "{\n";
     size_t i = 0;

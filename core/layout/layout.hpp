@@ -121,6 +121,7 @@ struct Stage {
     double axis_deg = 0.0;
     double position_mm = 0.0;
     double travel_min_mm = 0.0, travel_max_mm = 0.0;
+    std::optional<double> measured_zero_mm;  // a stage reading where the pulses were found to overlap
     bool operator==(const Stage&) const = default;
 };
 
@@ -173,8 +174,20 @@ struct Table {
     bool operator==(const Table&) const = default;
 };
 
+// When the report calls space, time and phase "met" (goals.verdict in the file).
+struct VerdictThresholds {
+    double max_waist_offset_rayleigh = 0.3;  // |waist separation| / shorter Rayleigh range
+    double max_waist_ratio = 1.2;            // larger / smaller waist radius
+    double max_lateral_offset_radius = 0.23; // lateral offset / √(w1² + w2²) (90 % overlap)
+    double max_delay_xcorr = 0.2;            // |delay| / cross-correlation FWHM (90 % overlap)
+    double min_phase_factor = 0.9;           // sinc²(ΔkL/2) with the crystal as it is
+    double max_goal_waist_error = 0.1;       // |waist − goal| / goal
+    bool operator==(const VerdictThresholds&) const = default;
+};
+
 struct Goals {
     std::vector<std::pair<std::string, double>> waist_um;  // beam id → wanted waist radius
+    VerdictThresholds verdict;
     bool operator==(const Goals&) const = default;
 };
 

@@ -124,8 +124,8 @@ TEST_CASE("delta k vanishes at the phase-matching angle and not elsewhere", "[ph
 }
 
 TEST_CASE("LBO type-I SHG of 1064 nm in the XY plane", "[phase-matching][lbo]") {
-    // Non-critical-plane angle φ ≈ 11.4° at θ = 90° (Dmitriev et al. handbook; from memory),
-    // with the Chen 1989 / Hanson & Dick 1991 set.
+    // φ ≈ 11.6° at θ = 90° at room temperature (handbooks and vendor sheets quote 11.4–11.8°;
+    // from memory), with the Chen 1989 / Hanson & Dick 1991 set (computed here: 11.76°).
     const double phi = pm_deg("LBO", 1064, 1064);
-    CHECK_THAT(phi, near(11.4, 0.4));
+    CHECK_THAT(phi, near(11.6, 0.3));
 }

@@ -10,6 +10,8 @@ struct ReportOptions {
     std::string layout;  // a path, or empty with demo
     bool demo = false;
     bool json = false;
+    bool markdown = false;
+    bool check = false;  // exit 3 when the verdict is not met in space, time and phase
 };
 int run_report(const ReportOptions& options, std::ostream& out, std::ostream& err);
 
@@ -27,5 +29,8 @@ struct TraceOptions {
     bool json = false;
 };
 int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err);
+
+// The sampled beam radius along each path, as CSV: beam,s_mm,radius_tangential_um,radius_sagittal_um
+int run_caustic(const std::string& layout, std::ostream& out, std::ostream& err);
 
 }  // namespace rv::cli

@@ -1,65 +1,65 @@
-// rendezvous report: each beam at the target and how far apart the two are.
+// rendezvous report: the verdict, each beam at the target, mismatch, delay, overlap, phase
+// matching, focusing, findings and safety; as text, JSON or Markdown.
 #include <cmath>
 #include <cstdio>
 #include <nlohmann/json.hpp>
 #include <ostream>
 
-#include "analysis/target_summary.hpp"
+#include "analysis/report.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "cli/safety_notice.hpp"
 #include "io/layout_reader.hpp"
-#include "trace/propagate.hpp"
-#include "trace/trace.hpp"
 
 namespace rv::cli {
 
 namespace {
 
-struct Computed {
-    std::vector<Path> paths;
-    std::vector<Caustic> caustics;
-    std::vector<BeamAtTarget> at_target;
-};
-
-Computed compute(const Layout& layout) {
-    const MaterialLibrary library = material_library_for(layout);
-    Computed c;
-    c.paths = trace_layout(layout, library);
-    for (const Path& p : c.paths) {
-        c.caustics.push_back(propagate_path(layout, library, p));
-        c.at_target.push_back(beam_at_target(layout, p, c.caustics.back()));
-    }
-    return c;
-}
+using nlohmann::json;
 
 std::string fmt(const char* format, double v) {
-    char buf[64];
+    char buf[96];
     std::snprintf(buf, sizeof buf, format, v);
     return buf;
 }
 
-nlohmann::json planes(double t, double s) { return {{"tangential", t}, {"sagittal", s}}; }
+json planes(double t, double s) { return {{"tangential", t}, {"sagittal", s}}; }
+json optional_number(const std::optional<double>& v) { return v ? json(*v) : json(nullptr); }
+json verdict_json(const VerdictLine& l) {
+    return {{"met", l.met}, {"summary", l.summary}, {"action", l.action}};
+}
 
-nlohmann::json to_json(const Layout& layout, const Computed& c) {
-    nlohmann::json beams = nlohmann::json::object();
-    nlohmann::json warnings = nlohmann::json::array();
-    for (size_t b = 0; b < layout.beams.size(); ++b) {
-        const BeamSource& src = layout.beams[b];
-        const BeamAtTarget& t = c.at_target[b];
-        nlohmann::json elements = nlohmann::json::array();
-        for (size_t i = 0; i < c.paths[b].hits.size(); ++i) {
-            const TraceHit& h = c.paths[b].hits[i];
-            const BeamAtHit& w = c.caustics[b].at_hits[i];
-            elements.push_back({{"id", layout.elements[h.element].id},
-                                {"s_mm", h.s_mm},
+json phase_json(const PhaseMatchingReport& p) {
+    json gvm = json::array();
+    for (const GroupVelocityMismatch& g : p.gvm)
+        gvm.push_back({{"between", g.between}, {"fs_per_mm", g.fs_per_mm}, {"walk_apart_mm", optional_number(g.walk_apart_mm)}});
+    return {{"process", p.process}, {"type", p.type}, {"output_nm", p.output_nm},
+            {"phase_matchable", p.phase_matchable}, {"theta_pm_deg", p.theta_pm_deg},
+            {"theta_now_deg", p.theta_now_deg}, {"incidence_now_deg", p.incidence_now_deg},
+            {"incidence_needed_deg", p.incidence_needed_deg}, {"rotate_by_deg", p.rotate_by_deg},
+            {"rotation_axis", p.rotation_axis}, {"delta_k_l", p.delta_k_l}, {"sinc2_now", p.sinc2_now},
+            {"walkoff_mrad", p.walkoff_mrad},
+            {"angular_acceptance_mrad", {{"internal_fwhm", p.angular_acceptance_internal_mrad},
+                                         {"external_fwhm", p.angular_acceptance_external_mrad}}},
+            {"spectral_acceptance_fwhm_nm", p.spectral_acceptance_nm}, {"gvm", gvm},
+            {"polarizations_suit", p.polarizations_suit}, {"polarization_note", p.polarization_note}};
+}
+
+json to_json(const Layout& layout, const RendezvousReport& r) {
+    json beams = json::object();
+    for (const ReportBeam& b : r.beams) {
+        json elements = json::array();
+        for (size_t i = 0; i < b.path.hits.size(); ++i) {
+            const TraceHit& h = b.path.hits[i];
+            const BeamAtHit& w = b.caustic.at_hits[i];
+            elements.push_back({{"id", layout.elements[h.element].id}, {"s_mm", h.s_mm},
                                 {"radius_um", planes(w.radius_tangential_um, w.radius_sagittal_um)},
                                 {"clipping", w.clipped_fraction}});
         }
-        nlohmann::json beam = {{"wavelength_nm", src.wavelength_nm},
-                               {"reaches_target", t.reached},
-                               {"elements", elements}};
-        if (t.reached) {
+        json beam = {{"wavelength_nm", b.wavelength_nm}, {"reaches_target", b.at_target.reached},
+                     {"elements", elements}, {"unconverted_light", b.unconverted_end}};
+        if (b.at_target.reached) {
+            const BeamAtTarget& t = b.at_target;
             beam["path_mm"] = t.path_mm;
             beam["arrival_fs"] = t.arrival_fs;
             beam["target"] = {
@@ -67,83 +67,192 @@ nlohmann::json to_json(const Layout& layout, const Computed& c) {
                 {"waist_um", planes(t.tangential.waist_um, t.sagittal.waist_um)},
                 {"waist_offset_mm", planes(t.tangential.waist_offset_mm, t.sagittal.waist_offset_mm)},
                 {"rayleigh_mm", planes(t.tangential.rayleigh_mm, t.sagittal.rayleigh_mm)},
+                {"confocal_mm", planes(b.confocal_tangential_mm, b.confocal_sagittal_mm)},
                 {"hit_mm", {t.hit_mm.x(), t.hit_mm.y()}},
+                {"angle_deg", b.crossing_angle_deg},
                 {"index", t.index}};
         }
-        beams[src.id] = beam;
-        auto add = [&](const Finding& f) {
-            warnings.push_back({{"code", f.kind == Finding::Kind::Clipping ? "clipping" : "trace"},
-                                {"message", src.id + ": " + f.message},
-                                {"element", f.element}});
-        };
-        for (const Finding& f : c.paths[b].findings) add(f);
-        for (const Finding& f : c.caustics[b].findings) add(f);
+        beams[b.id] = beam;
     }
-    nlohmann::json out = {{"layout", layout.name}, {"target", layout.target}, {"beams", beams}};
-    if (c.at_target.size() >= 2 && c.at_target[0].reached && c.at_target[1].reached) {
-        const Mismatch m = mismatch_at_target(c.at_target[0], c.at_target[1]);
+    json out = {{"layout", r.layout_name}, {"target", r.target},
+                {"verdict", {{"space", verdict_json(r.verdict.space)}, {"time", verdict_json(r.verdict.time)},
+                             {"phase", verdict_json(r.verdict.phase)}}},
+                {"beams", beams}};
+    if (r.mismatch) {
+        const Mismatch& m = *r.mismatch;
         out["mismatch"] = {{"waist_offset_mm", m.waist_offset_mm},
-                           {"waist_offset_planes_mm", planes(m.waist_offset_tangential_mm,
-                                                             m.waist_offset_sagittal_mm)},
-                           {"waist_ratio", m.waist_ratio},
-                           {"lateral_um", m.lateral_um},
-                           {"angle_mrad", m.angle_mrad},
-                           {"delay_fs", m.delay_fs}};
+                           {"waist_offset_planes_mm", planes(m.waist_offset_tangential_mm, m.waist_offset_sagittal_mm)},
+                           {"waist_ratio", m.waist_ratio}, {"confocal_ratio", optional_number(r.confocal_ratio)},
+                           {"lateral_um", m.lateral_um}, {"angle_mrad", m.angle_mrad}, {"delay_fs", m.delay_fs}};
     }
+    if (r.overlap)
+        out["overlap"] = {{"spatial", r.overlap->spatial}, {"spatial_along_crystal", r.overlap->spatial_along_crystal},
+                          {"temporal", optional_number(r.overlap->temporal)}, {"combined", r.overlap->combined}};
+    if (r.stage) {
+        const StageReport& s = *r.stage;
+        out["stage"] = {{"id", s.id}, {"beam", s.beam}, {"position_mm", s.position_mm},
+                        {"zero_delay_mm", s.zero_delay_mm}, {"zero_in_travel", s.zero_in_travel},
+                        {"move_mm", s.move_mm}, {"delay_per_mm_fs", s.delay_per_mm_fs},
+                        {"measured_zero_mm", optional_number(s.measured_zero_mm)},
+                        {"emission_offset_fs", optional_number(s.emission_offset_fs)}};
+    }
+    if (!r.phase_matching.empty()) {
+        out["phase_matching"] = phase_json(r.phase_matching.front());
+        json all = json::array();
+        for (const PhaseMatchingReport& p : r.phase_matching) all.push_back(phase_json(p));
+        out["phase_matching"]["processes"] = all;
+    }
+    json focusing = json::array();
+    for (const FocusingReport& f : r.focusing)
+        focusing.push_back({{"beam", f.beam}, {"xi", f.xi}, {"h_m", f.h_m}, {"sigma_m", f.sigma_m},
+                            {"walkoff_parameter", f.walkoff_parameter}});
+    out["focusing"] = focusing;
+    json warnings = json::array();
+    for (const ReportWarning& w : r.warnings)
+        warnings.push_back({{"code", w.code}, {"message", w.message}, {"element", w.element}});
     out["warnings"] = warnings;
+    json unconverted = json::array();
+    for (const ReportBeam& b : r.beams) unconverted.push_back(b.id + ": " + b.unconverted_end);
+    out["safety"] = {{"invisible", r.invisible}, {"unconverted", unconverted},
+                     {"cautions", safety_cautions()}};
     return out;
 }
 
-void print_text(const Layout& layout, const Computed& c, std::ostream& out) {
-    out << "Rendezvous report: " << layout.name << "\n";
-    out << "Target: " << layout.target << "\n\n";
-    out << "  beam      wavelength  path      arrival      radius     waist      waist offset  Rayleigh\n"
-        << "            nm          mm        ps           µm (t/s)   µm (t/s)   mm (t/s)      mm (t/s)\n";
-    for (size_t b = 0; b < layout.beams.size(); ++b) {
-        const BeamAtTarget& t = c.at_target[b];
+const char* mark(const VerdictLine& l) { return l.met ? "met" : "NOT MET"; }
+
+void print_text(const RendezvousReport& r, std::ostream& out) {
+    out << "Rendezvous report: " << r.layout_name << "\nTarget: " << r.target << "\n\n";
+    out << "Verdict\n";
+    for (const auto& [name, line] : {std::pair{"space", &r.verdict.space}, std::pair{"time", &r.verdict.time},
+                                     std::pair{"phase", &r.verdict.phase}}) {
+        out << "  " << name << (std::string(7 - std::string(name).size(), ' ')) << mark(*line) << "  "
+            << line->summary << "\n";
+        if (!line->action.empty()) out << "         -> " << line->action << "\n";
+    }
+    out << "\nAt the target (t = tangential, in the table plane; s = sagittal)\n"
+        << "  beam       λ nm     path mm   arrival ps   radius µm t/s   waist µm t/s    waist offset mm t/s  Rayleigh mm t/s\n";
+    for (const ReportBeam& b : r.beams) {
+        const BeamAtTarget& t = b.at_target;
         char line[320];
-        if (!t.reached) {
-            std::snprintf(line, sizeof line, "  %-9s %-11.1f does not reach the target\n",
-                          layout.beams[b].id.c_str(), layout.beams[b].wavelength_nm);
-        } else {
+        if (!t.reached)
+            std::snprintf(line, sizeof line, "  %-10s %-8.1f does not reach the target\n", b.id.c_str(), b.wavelength_nm);
+        else
             std::snprintf(line, sizeof line,
-                          "  %-9s %-11.1f %-9.2f %-12.4f %5.1f/%-5.1f %5.2f/%-5.2f %6.3f/%-6.3f %6.3f/%.3f\n",
-                          layout.beams[b].id.c_str(), layout.beams[b].wavelength_nm, t.path_mm,
-                          t.arrival_fs * 1e-3, t.tangential.radius_um, t.sagittal.radius_um,
-                          t.tangential.waist_um, t.sagittal.waist_um, t.tangential.waist_offset_mm,
-                          t.sagittal.waist_offset_mm, t.tangential.rayleigh_mm, t.sagittal.rayleigh_mm);
-        }
+                          "  %-10s %-8.1f %-9.2f %-12.4f %6.1f/%-8.1f %6.2f/%-8.2f %+7.3f/%-+12.3f %6.3f/%.3f\n",
+                          b.id.c_str(), b.wavelength_nm, t.path_mm, t.arrival_fs * 1e-3, t.tangential.radius_um,
+                          t.sagittal.radius_um, t.tangential.waist_um, t.sagittal.waist_um,
+                          t.tangential.waist_offset_mm, t.sagittal.waist_offset_mm, t.tangential.rayleigh_mm,
+                          t.sagittal.rayleigh_mm);
         out << line;
     }
-    if (c.at_target.size() >= 2 && c.at_target[0].reached && c.at_target[1].reached) {
-        const Mismatch m = mismatch_at_target(c.at_target[0], c.at_target[1]);
-        const std::string& a = layout.beams[0].id;
-        const std::string& b = layout.beams[1].id;
-        const double shorter = std::min({c.at_target[0].tangential.rayleigh_mm,
-                                         c.at_target[0].sagittal.rayleigh_mm,
-                                         c.at_target[1].tangential.rayleigh_mm,
-                                         c.at_target[1].sagittal.rayleigh_mm});
-        out << "\nMismatch (" << b << " relative to " << a << "):\n"
-            << "  waist offset      " << fmt("%+.3f", m.waist_offset_mm) << " mm = "
-            << fmt("%.2f", std::abs(m.waist_offset_mm) / shorter) << " of the shorter Rayleigh range\n"
-            << "  waist ratio       " << fmt("%.3f", m.waist_ratio) << "\n"
-            << "  lateral offset    " << fmt("%.1f", m.lateral_um) << " µm\n"
-            << "  angle             " << fmt("%.3f", m.angle_mrad) << " mrad\n"
-            << "  delay (" << a << " − " << b << ")  " << fmt("%+.1f", m.delay_fs) << " fs\n";
+    if (r.mismatch) {
+        const Mismatch& m = *r.mismatch;
+        out << "\nMismatch (" << r.beams[1].id << " relative to " << r.beams[0].id << ")\n"
+            << "  waist offset " << fmt("%+.3f", m.waist_offset_mm) << " mm, waist ratio " << fmt("%.3f", m.waist_ratio)
+            << ", confocal ratio " << fmt("%.3f", r.confocal_ratio.value_or(0)) << ", lateral "
+            << fmt("%.1f", m.lateral_um) << " µm, angle " << fmt("%.3f", m.angle_mrad) << " mrad\n"
+            << "  delay (" << r.beams[0].id << " − " << r.beams[1].id << ") " << fmt("%+.1f", m.delay_fs) << " fs\n";
     }
-    bool any = false;
-    for (size_t b = 0; b < layout.beams.size(); ++b) {
-        auto print = [&](const Finding& f) {
-            if (!any) out << "\nFindings:\n";
-            any = true;
-            out << "  " << layout.beams[b].id << ": " << f.message << "\n";
-        };
-        for (const Finding& f : c.paths[b].findings) print(f);
-        for (const Finding& f : c.caustics[b].findings) print(f);
+    if (r.overlap) {
+        out << "\nOverlap  spatial " << fmt("%.3f", r.overlap->spatial) << "  along the crystal "
+            << fmt("%.3f", r.overlap->spatial_along_crystal) << "  temporal "
+            << (r.overlap->temporal ? fmt("%.3f", *r.overlap->temporal) : std::string("n/a")) << "  combined "
+            << fmt("%.3f", r.overlap->combined) << "\n";
     }
-    out << "\nRadii are second-moment (1/e² for M² = 1) radii; t = tangential (table plane),\n"
-           "s = sagittal. Waist offset: waist position minus the target centre, + downstream.\n\n"
-        << safety_notice_text();
+    if (r.stage) {
+        const StageReport& s = *r.stage;
+        out << "\nStage " << s.id << " (in the " << s.beam << " arm): at " << fmt("%.3f", s.position_mm)
+            << " mm; zero delay at " << fmt("%.3f", s.zero_delay_mm) << " mm (" << (s.zero_in_travel ? "inside" : "OUTSIDE")
+            << " its travel), move " << fmt("%+.3f", s.move_mm) << " mm; " << fmt("%.2f", s.delay_per_mm_fs)
+            << " fs per mm\n";
+        if (s.measured_zero_mm)
+            out << "  measured zero at " << fmt("%.3f", *s.measured_zero_mm) << " mm: the model puts "
+                << fmt("%+.1f", *s.emission_offset_fs) << " fs of delay there (an emission offset it does not know)\n";
+    }
+    for (const PhaseMatchingReport& p : r.phase_matching) {
+        out << "\nPhase matching: " << p.process << " → " << fmt("%.2f", p.output_nm) << " nm, " << p.type << "\n";
+        if (!p.phase_matchable) {
+            out << "  no phase matching; Δk·L now " << fmt("%.1f", p.delta_k_l) << " rad\n";
+            continue;
+        }
+        out << "  θ_pm " << fmt("%.3f", p.theta_pm_deg) << "° (internal), now " << fmt("%.3f", p.theta_now_deg)
+            << "°; Δk·L " << fmt("%.2f", p.delta_k_l) << " rad, sinc² " << fmt("%.3f", p.sinc2_now) << "\n"
+            << "  external angle now " << fmt("%+.3f", p.incidence_now_deg) << "°, needed " << fmt("%+.3f", p.incidence_needed_deg)
+            << "°: rotate by " << fmt("%+.3f", p.rotate_by_deg) << "° about the " << p.rotation_axis << "\n"
+            << "  walk-off " << fmt("%.1f", p.walkoff_mrad) << " mrad; acceptance (FWHM) "
+            << fmt("%.2f", p.angular_acceptance_internal_mrad) << " mrad internal, " << fmt("%.2f", p.angular_acceptance_external_mrad)
+            << " mrad external, " << fmt("%.2f", p.spectral_acceptance_nm) << " nm\n";
+        for (const GroupVelocityMismatch& g : p.gvm)
+            out << "  GVM " << g.between << " " << fmt("%+.1f", g.fs_per_mm) << " fs/mm"
+                << (g.walk_apart_mm ? ", pulses walk apart in " + fmt("%.2f", *g.walk_apart_mm) + " mm" : std::string()) << "\n";
+        out << "  polarization: " << (p.polarizations_suit ? "suits" : "DOES NOT SUIT") << " — " << p.polarization_note << "\n";
+    }
+    if (!r.focusing.empty()) {
+        out << "\nFocusing (Boyd–Kleinman, no walk-off; optimum ξ = 2.84)\n";
+        for (const FocusingReport& f : r.focusing)
+            out << "  " << f.beam << ": ξ = L/b = " << fmt("%.3f", f.xi) << ", h_m = " << fmt("%.3f", f.h_m)
+                << ", walk-off parameter B = " << fmt("%.2f", f.walkoff_parameter) << "\n";
+        if (r.confocal_ratio) out << "  confocal parameters b1/b2 = " << fmt("%.3f", *r.confocal_ratio) << " (1 = matched)\n";
+    }
+    if (!r.warnings.empty()) {
+        out << "\nFindings\n";
+        for (const ReportWarning& w : r.warnings) out << "  [" << w.code << "] " << w.message << "\n";
+    }
+    out << "\nSafety\n";
+    for (const std::string& s : r.invisible) out << "  invisible: " << s << "\n";
+    for (const ReportBeam& b : r.beams) out << "  after the target, " << b.id << ": " << b.unconverted_end << "\n";
+    out << "\n" << safety_notice_text();
+}
+
+void print_markdown(const RendezvousReport& r, std::ostream& out) {
+    out << "# Rendezvous report: " << r.layout_name << "\n\nTarget: `" << r.target << "`\n\n## Verdict\n\n"
+        << "| | state | numbers | action |\n|---|---|---|---|\n";
+    for (const auto& [name, line] : {std::pair{"space", &r.verdict.space}, std::pair{"time", &r.verdict.time},
+                                     std::pair{"phase", &r.verdict.phase}})
+        out << "| " << name << " | " << mark(*line) << " | " << line->summary << " | " << line->action << " |\n";
+    out << "\n## At the target\n\n| beam | λ (nm) | path (mm) | arrival (ps) | waist t/s (µm) | waist offset t/s (mm) | Rayleigh t/s (mm) |\n"
+        << "|---|---|---|---|---|---|---|\n";
+    for (const ReportBeam& b : r.beams) {
+        const BeamAtTarget& t = b.at_target;
+        if (!t.reached) {
+            out << "| " << b.id << " | " << fmt("%.1f", b.wavelength_nm) << " | does not reach the target | | | | |\n";
+            continue;
+        }
+        out << "| " << b.id << " | " << fmt("%.1f", b.wavelength_nm) << " | " << fmt("%.2f", t.path_mm) << " | "
+            << fmt("%.4f", t.arrival_fs * 1e-3) << " | " << fmt("%.2f", t.tangential.waist_um) << " / "
+            << fmt("%.2f", t.sagittal.waist_um) << " | " << fmt("%+.3f", t.tangential.waist_offset_mm) << " / "
+            << fmt("%+.3f", t.sagittal.waist_offset_mm) << " | " << fmt("%.3f", t.tangential.rayleigh_mm) << " / "
+            << fmt("%.3f", t.sagittal.rayleigh_mm) << " |\n";
+    }
+    if (r.mismatch)
+        out << "\nDelay (" << r.beams[0].id << " − " << r.beams[1].id << "): " << fmt("%+.1f", r.mismatch->delay_fs)
+            << " fs. Lateral offset " << fmt("%.1f", r.mismatch->lateral_um) << " µm, angle "
+            << fmt("%.3f", r.mismatch->angle_mrad) << " mrad.\n";
+    if (r.overlap)
+        out << "\nOverlap: spatial " << fmt("%.3f", r.overlap->spatial) << ", along the crystal "
+            << fmt("%.3f", r.overlap->spatial_along_crystal) << ", temporal "
+            << (r.overlap->temporal ? fmt("%.3f", *r.overlap->temporal) : std::string("n/a")) << ", combined "
+            << fmt("%.3f", r.overlap->combined) << ".\n";
+    if (r.stage)
+        out << "\nStage `" << r.stage->id << "`: zero delay at " << fmt("%.3f", r.stage->zero_delay_mm) << " mm (now "
+            << fmt("%.3f", r.stage->position_mm) << " mm, " << (r.stage->zero_in_travel ? "inside" : "outside") << " the travel).\n";
+    if (!r.phase_matching.empty()) {
+        out << "\n## Phase matching\n\n| process | output (nm) | type | θ_pm (°) | θ now (°) | rotate by (°, external) | sinc² now | walk-off (mrad) |\n"
+            << "|---|---|---|---|---|---|---|---|\n";
+        for (const PhaseMatchingReport& p : r.phase_matching)
+            out << "| " << p.process << " | " << fmt("%.2f", p.output_nm) << " | " << p.type << " | "
+                << (p.phase_matchable ? fmt("%.3f", p.theta_pm_deg) : std::string("none")) << " | "
+                << fmt("%.3f", p.theta_now_deg) << " | " << fmt("%+.3f", p.rotate_by_deg) << " | "
+                << fmt("%.3f", p.sinc2_now) << " | " << fmt("%.1f", p.walkoff_mrad) << " |\n";
+    }
+    if (!r.warnings.empty()) {
+        out << "\n## Findings\n\n";
+        for (const ReportWarning& w : r.warnings) out << "- `" << w.code << "` " << w.message << "\n";
+    }
+    out << "\n## Safety\n\n";
+    for (const std::string& s : r.invisible) out << "- Invisible: " << s << "\n";
+    for (const ReportBeam& b : r.beams) out << "- After the target, " << b.id << ": " << b.unconverted_end << "\n";
+    for (const std::string& c : safety_cautions()) out << "- " << c << "\n";
 }
 
 }  // namespace
@@ -156,11 +265,11 @@ int run_report(const ReportOptions& options, std::ostream& out, std::ostream& er
         layout = load_layout(options.layout, err);
         if (!layout) return 2;
     }
-    const Computed c = compute(*layout);
-    if (options.json)
-        out << to_json(*layout, c).dump(2) << "\n";
-    else
-        print_text(*layout, c, out);
+    const RendezvousReport r = build_report(*layout, material_library_for(*layout));
+    if (options.json) out << to_json(*layout, r).dump(2) << "\n";
+    else if (options.markdown) print_markdown(r, out);
+    else print_text(r, out);
+    if (options.check && !(r.verdict.space.met && r.verdict.time.met && r.verdict.phase.met)) return 3;
     return 0;
 }
 

@@ -2,17 +2,27 @@
 
 namespace rv::cli {
 
+const std::vector<std::string>& safety_cautions() {
+    static const std::vector<std::string> cautions = {
+        "Planning aid only: this program computes no exposure limits, hazard zones or eyewear "
+        "densities. Follow your local rules and your laser safety officer; see IEC 60825-1 and "
+        "ANSI Z136.1. Class 3B and 4 work needs authorisation.",
+        "Near-infrared beams (700–1400 nm) are invisible and reach the retina; the blink reflex "
+        "does not protect. Check them with an IR card or viewer, never by eye.",
+        "Eyewear must have adequate optical density at every wavelength present, the generated "
+        "second-harmonic and sum-frequency light included.",
+        "Align at the lowest practical power; most injuries happen during alignment.",
+        "Terminate unconverted light, dichroic leaks and surface reflections in beam dumps; keep "
+        "beams horizontal and below eye level.",
+        "Tight foci reach damaging intensities on crystal and lens surfaces.",
+    };
+    return cautions;
+}
+
 std::string safety_notice_text() {
-    return "Laser safety (planning aid only; this program computes no exposure limits):\n"
-           "  - Follow your local rules and your laser safety officer; see IEC 60825-1 and\n"
-           "    ANSI Z136.1. Class 3B and 4 work needs authorisation.\n"
-           "  - Near-IR beams (e.g. 780 nm, 1030 nm) are invisible and reach the retina: check\n"
-           "    them with an IR card or viewer, never by eye; the blink reflex does not protect.\n"
-           "  - Eyewear must have adequate optical density at every wavelength present, the\n"
-           "    generated second-harmonic and sum-frequency light included.\n"
-           "  - Align at the lowest practical power; terminate unconverted light, dichroic\n"
-           "    leaks and surface reflections in beam dumps; keep beams below eye level.\n"
-           "  - Tight foci reach damaging intensities on crystal and lens surfaces.\n";
+    std::string text = "Laser safety\n";
+    for (const std::string& c : safety_cautions()) text += "  - " + c + "\n";
+    return text;
 }
 
 }  // namespace rv::cli

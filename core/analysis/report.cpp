@@ -1,0 +1,421 @@
+#include "analysis/report.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "materials/dispersion.hpp"
+#include "nonlinear/boyd_kleinman.hpp"
+#include "nonlinear/overlap.hpp"
+#include "nonlinear/phase_matching.hpp"
+#include "trace/trace.hpp"
+#include "units/constants.hpp"
+
+namespace rv {
+
+namespace {
+
+std::string fmt(const char* format, double a) {
+    char buf[96];
+    std::snprintf(buf, sizeof buf, format, a);
+    return buf;
+}
+
+Vec2 unit_at(double deg) { return {std::cos(deg_to_rad(deg)), std::sin(deg_to_rad(deg))}; }
+Vec2 perpendicular(const Vec2& v) { return {-v.y(), v.x()}; }
+
+const char* finding_code(Finding::Kind k) {
+    switch (k) {
+        case Finding::Kind::MissedOptic: return "missed-optic";
+        case Finding::Kind::LeftTable: return "left-table";
+        case Finding::Kind::TotalInternalReflection: return "total-internal-reflection";
+        case Finding::Kind::HitBackOfOptic: return "back-of-optic";
+        case Finding::Kind::LeftThroughEdge: return "left-through-edge";
+        case Finding::Kind::NoTarget: return "no-target";
+        case Finding::Kind::TooManyHits: return "too-many-hits";
+        case Finding::Kind::MaterialOutOfRange: return "material-range";
+        case Finding::Kind::Clipping: return "clipping";
+    }
+    return "finding";
+}
+
+std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary& library,
+                                    bool envelope) {
+    PropagationOptions options;
+    options.sample_envelope = envelope;
+    std::vector<ReportBeam> beams;
+    for (const Path& p : trace_layout(layout, library)) {
+        ReportBeam b;
+        b.id = layout.beams[p.beam].id;
+        b.wavelength_nm = layout.beams[p.beam].wavelength_nm;
+        b.path = p;
+        b.caustic = propagate_path(layout, library, p, options);
+        b.at_target = beam_at_target(layout, p, b.caustic);
+        b.confocal_tangential_mm = 2 * b.at_target.tangential.rayleigh_mm;
+        b.confocal_sagittal_mm = 2 * b.at_target.sagittal.rayleigh_mm;
+        if (p.target_hit) b.crossing_angle_deg = rad_to_deg(p.hits[*p.target_hit].aoi_rad);
+        // Where the light goes after the target.
+        b.unconverted_end = "stops after the target";
+        if (!p.hits.empty() && p.hits.back().interaction == Interaction::Absorb)
+            b.unconverted_end = "absorbed in dump " + layout.elements[p.hits.back().element].id;
+        for (const Finding& f : p.findings)
+            if (f.kind != Finding::Kind::MaterialOutOfRange && f.kind != Finding::Kind::NoTarget &&
+                f.kind != Finding::Kind::MissedOptic)
+                b.unconverted_end = f.message;
+        beams.push_back(std::move(b));
+    }
+    return beams;
+}
+
+double delay_of(const std::vector<ReportBeam>& b) {
+    return b[0].at_target.arrival_fs - b[1].at_target.arrival_fs;
+}
+
+// The fraction of a beam's power in the crystal's A wave (see nonlinear/phase_matching.hpp):
+// the A wave is horizontally polarized when the optic-axis plane is vertical, and vice versa.
+double a_fraction(const BeamSource& b, const Crystal& c) {
+    using K = Polarization::Kind;
+    double horizontal = 0.5;
+    if (b.polarization.kind == K::Horizontal) horizontal = 1;
+    if (b.polarization.kind == K::Vertical) horizontal = 0;
+    if (b.polarization.kind == K::Linear)
+        horizontal = std::pow(std::cos(deg_to_rad(b.polarization.angle_deg)), 2);
+    return c.optic_axis_horizontal ? 1 - horizontal : horizontal;
+}
+
+std::optional<OverlapReport> overlap_of(const Layout& layout, const std::vector<ReportBeam>& b,
+                                        double delay_fs) {
+    if (b.size() < 2 || !b[0].at_target.reached || !b[1].at_target.reached) return std::nullopt;
+    const BeamAtTarget& x = b[0].at_target;
+    const BeamAtTarget& y = b[1].at_target;
+    const Vec2 across = perpendicular(x.direction);
+    const double d0_um = mm_to_um((y.hit_mm - x.hit_mm).dot(across));
+    const double tilt = std::atan2(x.direction.x() * y.direction.y() - x.direction.y() * y.direction.x(),
+                                   x.direction.dot(y.direction));
+    OverlapReport o;
+    o.spatial = transverse_overlap_1d(x.tangential.radius_um, y.tangential.radius_um, d0_um) *
+                transverse_overlap_1d(x.sagittal.radius_um, y.sagittal.radius_um, 0);
+    // Along the crystal: from its entrance to its exit face on beam 1's path.
+    const Path& p = b[0].path;
+    const size_t k = *p.target_hit;
+    double from = 0, to = 0;
+    if (k > 0 && k + 1 < p.hits.size() && p.hits[k].face == Face::Centre) {
+        from = p.hits[k - 1].s_mm - p.hits[k].s_mm;
+        to = p.hits[k + 1].s_mm - p.hits[k].s_mm;
+    }
+    const int n = from < to ? 41 : 1;
+    double sum = 0;
+    for (int i = 0; i < n; ++i) {
+        const double z = n == 1 ? 0 : from + (to - from) * i / (n - 1);
+        auto r = [z](const GaussianBeam& q) { return radius_um(propagate(q, free_space(z))); };
+        const double d = d0_um + mm_to_um(tilt * z);
+        sum += transverse_overlap_1d(r(b[0].caustic.target_tangential), r(b[1].caustic.target_tangential), d) *
+               transverse_overlap_1d(r(b[0].caustic.target_sagittal), r(b[1].caustic.target_sagittal), 0);
+    }
+    o.spatial_along_crystal = sum / n;
+    const double t1 = layout.beams[0].pulse_fwhm_fs, t2 = layout.beams[1].pulse_fwhm_fs;
+    if (t1 > 0 && t2 > 0) o.temporal = temporal_overlap(t1, t2, delay_fs);
+    o.combined = o.spatial_along_crystal * o.temporal.value_or(1.0);
+    return o;
+}
+
+std::optional<StageReport> stage_of(const Layout& layout, const MaterialLibrary& library,
+                                    const std::vector<ReportBeam>& beams) {
+    if (beams.size() < 2 || !beams[0].at_target.reached || !beams[1].at_target.reached)
+        return std::nullopt;
+    for (size_t e = 0; e < layout.elements.size(); ++e) {
+        const auto* s = std::get_if<Stage>(&layout.elements[e].kind);
+        if (!s) continue;
+        std::string beam;
+        for (const ReportBeam& b : beams)
+            for (const TraceHit& h : b.path.hits)
+                for (const std::string& c : s->carries)
+                    if (layout.elements[h.element].id == c && beam.empty()) beam = b.id;
+        if (beam.empty()) continue;
+        // The delay is linear in the stage position: evaluate it 1 mm further on.
+        Layout moved = layout;
+        std::get<Stage>(moved.elements[e].kind).position_mm += 1.0;
+        const std::vector<ReportBeam> after = trace_beams(moved, library, false);
+        if (!after[0].at_target.reached || !after[1].at_target.reached) continue;
+        StageReport r;
+        r.id = layout.elements[e].id;
+        r.beam = beam;
+        r.position_mm = s->position_mm;
+        const double delay = delay_of(beams);
+        r.delay_per_mm_fs = delay_of(after) - delay;
+        if (r.delay_per_mm_fs == 0) continue;
+        r.zero_delay_mm = s->position_mm - delay / r.delay_per_mm_fs;
+        r.zero_in_travel = r.zero_delay_mm >= s->travel_min_mm && r.zero_delay_mm <= s->travel_max_mm;
+        r.move_mm = r.zero_delay_mm - s->position_mm;
+        if (s->measured_zero_mm) {
+            r.measured_zero_mm = s->measured_zero_mm;
+            r.emission_offset_fs = delay + r.delay_per_mm_fs * (*s->measured_zero_mm - s->position_mm);
+        }
+        return r;
+    }
+    return std::nullopt;
+}
+
+MixingType mixing_type(const Crystal& c, bool shg, double a1, double a2) {
+    if (c.phase_matching == Crystal::PhaseMatching::TypeI) return MixingType::TypeI;
+    if (shg) return MixingType::TypeII_BAB;
+    return a1 >= a2 ? MixingType::TypeII_ABB : MixingType::TypeII_BAB;
+}
+
+const char* type_text(MixingType t) {
+    switch (t) {
+        case MixingType::TypeI: return "type-I (ooe)";
+        case MixingType::TypeII_ABB: return "type-II (oee)";
+        case MixingType::TypeII_BAB: return "type-II (eoe)";
+    }
+    return "";
+}
+
+PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, const Crystal& xc,
+                                      const Material& m, const std::vector<ReportBeam>& beams,
+                                      size_t i, size_t j) {
+    const bool shg = i == j;
+    const BeamSource& b1 = layout.beams[i];
+    const BeamSource& b2 = layout.beams[j];
+    const double l1 = b1.wavelength_nm, l2 = b2.wavelength_nm;
+    PhaseMatchingReport r;
+    r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
+    r.output_nm = sum_frequency_nm(l1, l2);
+    const double a1 = a_fraction(b1, xc), a2 = a_fraction(b2, xc);
+    const MixingType type = mixing_type(xc, shg, a1, a2);
+    r.type = type_text(type);
+    const WavePolarities w = polarities(type);
+    auto suits = [](Polarity need, double a) { return need == Polarity::A ? a >= 0.9 : a <= 0.1; };
+    if (shg && type != MixingType::TypeI) {
+        r.polarizations_suit = a1 >= 0.4 && a1 <= 0.6;
+        r.polarization_note = b1.id + " needs equal o and e components (linear at 45° to the axes)";
+    } else {
+        r.polarizations_suit = suits(w.wave1, a1) && suits(w.wave2, a2);
+        auto name = [](Polarity p) { return p == Polarity::A ? "o" : "e"; };
+        r.polarization_note = b1.id + " must be " + name(w.wave1) + (shg ? "" : ", " + b2.id + " " + name(w.wave2)) +
+                              " (an o wave is polarized " +
+                              (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
+    }
+    const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type);
+    const double cut = deg_to_rad(xc.cut_deg);
+    const Path& path = beams[i].path;
+    double internal = 0;  // angle of k to the face normal inside the crystal, in the table plane
+    if (path.target_hit) {
+        const Vec2 d = path.hits[*path.target_hit].direction_in;
+        const Vec2 n = unit_at(xe.normal_deg);
+        internal = std::atan2(d.dot(perpendicular(n)), std::abs(d.dot(n)));
+    }
+    const double n_a = wave_index(m, l1, Polarity::A, cut).index;
+    const double theta_now = xc.optic_axis_horizontal ? cut + internal
+                                                      : std::acos(std::cos(internal) * std::cos(cut));
+    r.theta_now_deg = rad_to_deg(theta_now);
+    r.incidence_now_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(internal), -1.0, 1.0)));
+    const double length = xc.length_mm;
+    const double dk = delta_k_per_mm(m, l1, l2, type, theta_now);
+    r.delta_k_l = dk * length;
+    const double x = r.delta_k_l / 2;
+    r.sinc2_now = x == 0 ? 1 : std::pow(std::sin(x) / x, 2);
+    if (!pm) return r;
+    r.phase_matchable = true;
+    r.theta_pm_deg = rad_to_deg(*pm);
+    if (xc.optic_axis_horizontal) {
+        r.rotation_axis = "vertical axis: a turn in the table plane, + = clockwise seen from above";
+        r.incidence_needed_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(*pm - cut), -1.0, 1.0)));
+    } else {
+        r.rotation_axis = "horizontal axis across the beam: a tilt, + = away from the optic axis";
+        const double c = std::cos(*pm) / std::cos(internal);
+        const double tilt = std::acos(std::clamp(c, -1.0, 1.0)) - cut;
+        r.incidence_now_deg = 0;  // the layout is flat: no tilt yet
+        r.incidence_needed_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(tilt), -1.0, 1.0)));
+    }
+    r.rotate_by_deg = r.incidence_needed_deg - r.incidence_now_deg;
+    r.walkoff_mrad = 1e3 * std::abs(walkoff_rad(m, r.output_nm, *pm));
+    const Acceptance acc = acceptance(m, l1, l2, type, *pm, length);
+    r.angular_acceptance_internal_mrad = acc.angular_internal_fwhm_mrad;
+    r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_a;
+    r.spectral_acceptance_nm = acc.spectral_fwhm_nm;
+    const std::string out = shg ? "SHG" : "SFG";
+    auto walk = [](double tau, double gvm) -> std::optional<double> {
+        if (tau <= 0 || gvm == 0) return std::nullopt;
+        return tau / std::abs(gvm);
+    };
+    const double g31 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 1);
+    r.gvm.push_back({out + "–" + b1.id, g31, walk(b1.pulse_fwhm_fs, g31)});
+    if (!shg) {
+        const double g32 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 2);
+        const double g12 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 1, 2);
+        r.gvm.push_back({out + "–" + b2.id, g32, walk(b2.pulse_fwhm_fs, g32)});
+        const double shorter = std::min(b1.pulse_fwhm_fs, b2.pulse_fwhm_fs);
+        r.gvm.push_back({b1.id + "–" + b2.id, g12, walk(shorter, g12)});
+    }
+    return r;
+}
+
+std::string invisible_kind(double nm) {
+    if (nm < 400) return "ultraviolet";
+    if (nm > 1400) return "infrared";
+    if (nm > 700) return "near infrared, reaches the retina";
+    return "";
+}
+
+}  // namespace
+
+RendezvousReport build_report(const Layout& layout, const MaterialLibrary& library) {
+    RendezvousReport r;
+    r.layout_name = layout.name;
+    r.target = layout.target;
+    r.beams = trace_beams(layout, library, true);
+    const Element* target = layout.find(layout.target);
+    const Crystal* crystal = target ? std::get_if<Crystal>(&target->kind) : nullptr;
+    r.target_is_crystal = crystal != nullptr;
+    if (crystal) r.crystal_length_mm = crystal->length_mm;
+    const bool both = r.beams.size() >= 2 && r.beams[0].at_target.reached && r.beams[1].at_target.reached;
+
+    for (const ReportBeam& b : r.beams) {
+        for (const Finding& f : b.path.findings) r.warnings.push_back({finding_code(f.kind), b.id + ": " + f.message, f.element});
+        for (const Finding& f : b.caustic.findings) r.warnings.push_back({finding_code(f.kind), b.id + ": " + f.message, f.element});
+        const double w0 = std::min(b.at_target.tangential.waist_um, b.at_target.sagittal.waist_um);
+        if (b.at_target.reached && w0 < 2 * nm_to_um(b.wavelength_nm))
+            r.warnings.push_back({"paraxial", b.id + ": the waist (" + fmt("%.2f", w0) + " µm) is below two wavelengths; the paraxial Gaussian model is unreliable there", layout.target});
+        if (b.unconverted_end.rfind("leaves the table", 0) == 0)
+            r.warnings.push_back({"unterminated", b.id + ": light after the target " + b.unconverted_end + "; put a beam dump in its path", ""});
+        if (const std::string kind = invisible_kind(b.wavelength_nm); !kind.empty())
+            r.invisible.push_back(fmt("%.0f nm", b.wavelength_nm) + " (" + b.id + "): " + kind);
+    }
+    if (both) {
+        r.mismatch = mismatch_at_target(r.beams[0].at_target, r.beams[1].at_target);
+        const double b1 = r.beams[0].confocal_tangential_mm + r.beams[0].confocal_sagittal_mm;
+        const double b2 = r.beams[1].confocal_tangential_mm + r.beams[1].confocal_sagittal_mm;
+        r.confocal_ratio = b1 / b2;
+        r.overlap = overlap_of(layout, r.beams, r.mismatch->delay_fs);
+        r.stage = stage_of(layout, library, r.beams);
+    }
+
+    if (crystal) {
+        const Material* m = library.find(crystal->material);
+        if (m && m->symmetry != Symmetry::Isotropic) {
+            if (r.beams.size() >= 2 && both)
+                r.phase_matching.push_back(phase_matching_of(layout, *target, *crystal, *m, r.beams, 0, 1));
+            for (size_t i = 0; i < r.beams.size(); ++i)
+                if (r.beams[i].at_target.reached)
+                    r.phase_matching.push_back(phase_matching_of(layout, *target, *crystal, *m, r.beams, i, i));
+            for (const PhaseMatchingReport& p : r.phase_matching)
+                if (const std::string kind = invisible_kind(p.output_nm); !kind.empty())
+                    r.invisible.push_back(fmt("%.1f nm", p.output_nm) + " (" + p.process + "): " + kind);
+            // Boyd–Kleinman for each beam, with the walk-off of the first process's output.
+            const double rho = r.phase_matching.empty() ? 0 : r.phase_matching.front().walkoff_mrad * 1e-3;
+            for (const ReportBeam& b : r.beams) {
+                if (!b.at_target.reached) continue;
+                const double conf = (b.confocal_tangential_mm + b.confocal_sagittal_mm) / 2;
+                const double xi = crystal->length_mm / conf;
+                const BoydKleinmanOptimum o = boyd_kleinman_optimum(xi);
+                const double k1 = 2 * kPi * b.at_target.index / nm_to_mm(b.wavelength_nm);
+                r.focusing.push_back({b.id, xi, o.h_m, o.sigma_m, walkoff_parameter(rho, crystal->length_mm, k1)});
+            }
+        }
+    }
+
+    // The verdict. Thresholds: layout.goals.verdict (README, "Verdict").
+    const VerdictThresholds& t = layout.goals.verdict;
+    Verdict& v = r.verdict;
+    std::vector<std::string> goal_misses;
+    for (const auto& [id, goal] : layout.goals.waist_um) {
+        for (const ReportBeam& b : r.beams) {
+            if (b.id != id || !b.at_target.reached) continue;
+            const double w = (b.at_target.tangential.waist_um + b.at_target.sagittal.waist_um) / 2;
+            if (std::abs(w - goal) > t.max_goal_waist_error * goal)
+                goal_misses.push_back(id + " waist " + fmt("%.1f", w) + " µm, goal " + fmt("%.1f", goal) + " µm");
+        }
+    }
+    if (both) {
+        const Mismatch& mm = *r.mismatch;
+        const ReportBeam& a = r.beams[0];
+        const ReportBeam& b = r.beams[1];
+        const double shorter = std::min({a.at_target.tangential.rayleigh_mm, a.at_target.sagittal.rayleigh_mm,
+                                         b.at_target.tangential.rayleigh_mm, b.at_target.sagittal.rayleigh_mm});
+        const double frac = std::abs(mm.waist_offset_mm) / shorter;
+        const double ratio = std::max(mm.waist_ratio, 1 / mm.waist_ratio);
+        const double wsum = std::hypot(a.at_target.tangential.radius_um, b.at_target.tangential.radius_um);
+        const double lateral = mm.lateral_um / wsum;
+        v.space.met = frac <= t.max_waist_offset_rayleigh && ratio <= t.max_waist_ratio &&
+                      lateral <= t.max_lateral_offset_radius && goal_misses.empty();
+        v.space.summary = "waists " + fmt("%.3f", std::abs(mm.waist_offset_mm)) + " mm apart = " + fmt("%.2f", frac) +
+                          " of the shorter Rayleigh range; waist ratio " + fmt("%.3f", ratio) + "; chief rays " +
+                          fmt("%.1f", mm.lateral_um) + " µm apart";
+        std::vector<std::string> acts;
+        if (frac > t.max_waist_offset_rayleigh)
+            acts.push_back("bring the waists together: " + b.id + "'s lies " + fmt("%.3f", std::abs(mm.waist_offset_mm)) +
+                           " mm " + (mm.waist_offset_mm > 0 ? "downstream" : "upstream") + " of " + a.id + "'s");
+        if (ratio > t.max_waist_ratio) acts.push_back("match the waist sizes (ratio " + fmt("%.2f", ratio) + ")");
+        if (lateral > t.max_lateral_offset_radius) acts.push_back("overlap the chief rays (" + fmt("%.1f", mm.lateral_um) + " µm apart)");
+        for (const std::string& g : goal_misses) acts.push_back(g);
+        for (size_t i = 0; i < acts.size(); ++i) v.space.action += (i ? "; " : "") + acts[i];
+    } else if (!r.beams.empty() && r.beams[0].at_target.reached && r.beams.size() == 1) {
+        const ReportBeam& a = r.beams[0];
+        const double off = (a.at_target.tangential.waist_offset_mm + a.at_target.sagittal.waist_offset_mm) / 2;
+        const double zr = std::min(a.at_target.tangential.rayleigh_mm, a.at_target.sagittal.rayleigh_mm);
+        v.space.met = std::abs(off) / zr <= t.max_waist_offset_rayleigh && goal_misses.empty();
+        v.space.summary = "waist " + fmt("%.3f", std::abs(off)) + " mm " + (off > 0 ? "after" : "before") +
+                          " the target centre = " + fmt("%.2f", std::abs(off) / zr) + " of its Rayleigh range";
+        if (!v.space.met) {
+            v.space.action = std::abs(off) / zr > t.max_waist_offset_rayleigh
+                                 ? "move the focus " + fmt("%.3f", std::abs(off)) + " mm " + (off > 0 ? "upstream" : "downstream")
+                                 : "";
+            for (const std::string& g : goal_misses) v.space.action += (v.space.action.empty() ? "" : "; ") + g;
+        }
+    } else {
+        v.space.summary = "a beam does not reach the target";
+        v.space.action = "fix the trace findings first";
+    }
+
+    if (both && r.overlap && r.overlap->temporal) {
+        const double t1 = layout.beams[0].pulse_fwhm_fs, t2 = layout.beams[1].pulse_fwhm_fs;
+        const double xcorr = std::hypot(t1, t2);
+        const double d = r.mismatch->delay_fs;
+        v.time.met = std::abs(d) <= t.max_delay_xcorr * xcorr;
+        v.time.summary = "delay " + fmt("%+.1f", d) + " fs = " + fmt("%.2f", std::abs(d) / xcorr) +
+                         " of the cross-correlation width (" + fmt("%.0f", xcorr) + " fs)";
+        if (!v.time.met) {
+            if (r.stage && r.stage->zero_in_travel)
+                v.time.action = "move stage " + r.stage->id + " by " + fmt("%+.3f", r.stage->move_mm) + " mm (to " +
+                                fmt("%.3f", r.stage->zero_delay_mm) + " mm)";
+            else {
+                const double path_mm = std::abs(d) * kSpeedOfLight_mm_per_fs / 1.00028;
+                const std::string later = d > 0 ? r.beams[1].id : r.beams[0].id;
+                v.time.action = (r.stage ? "stage " + r.stage->id + " would need " + fmt("%.3f", r.stage->zero_delay_mm) +
+                                               " mm, outside its travel; " : std::string()) +
+                                "add " + fmt("%.2f", path_mm) + " mm of air path to " + later;
+            }
+        }
+    } else if (both) {
+        v.time.met = false;
+        v.time.summary = "not evaluated: give pulse_fwhm_fs for both beams";
+    } else {
+        v.time.met = r.beams.size() == 1;
+        v.time.summary = r.beams.size() == 1 ? "one beam: no delay to match" : "a beam does not reach the target";
+    }
+
+    if (!r.phase_matching.empty()) {
+        const PhaseMatchingReport& p = r.phase_matching.front();
+        v.phase.met = p.phase_matchable && p.sinc2_now >= t.min_phase_factor && p.polarizations_suit;
+        if (!p.phase_matchable) {
+            v.phase.summary = p.process + ": no " + p.type + " phase matching in this crystal";
+            v.phase.action = "choose another crystal or type";
+        } else {
+            v.phase.summary = p.process + " " + p.type + ": θ_pm " + fmt("%.2f", p.theta_pm_deg) + "°, now " +
+                              fmt("%.2f", p.theta_now_deg) + "°, sinc² = " + fmt("%.3f", p.sinc2_now);
+            if (p.sinc2_now < t.min_phase_factor)
+                v.phase.action = "rotate the crystal by " + fmt("%+.2f", p.rotate_by_deg) + "° (external) about the " +
+                                 p.rotation_axis;
+            if (!p.polarizations_suit)
+                v.phase.action += (v.phase.action.empty() ? "" : "; ") + p.polarization_note;
+        }
+    } else {
+        v.phase.met = !r.target_is_crystal;
+        v.phase.summary = r.target_is_crystal ? "the crystal's material is isotropic or the beams miss it"
+                                              : "the target is not a crystal: no phase matching";
+    }
+    return r;
+}
+
+}  // namespace rv

@@ -1,0 +1,120 @@
+#pragma once
+// The rendezvous report: for a layout, how far the two colours are from meeting in space, in
+// time and in phase at the target, and what to change. Everything a front end prints comes
+// from here; the definitions are in the README ("The report").
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "analysis/target_summary.hpp"
+#include "layout/layout.hpp"
+#include "materials/material_library.hpp"
+#include "trace/path.hpp"
+#include "trace/propagate.hpp"
+
+namespace rv {
+
+struct ReportBeam {
+    std::string id;
+    double wavelength_nm = 0;
+    Path path;
+    Caustic caustic;
+    BeamAtTarget at_target;
+    double confocal_tangential_mm = 0, confocal_sagittal_mm = 0;  // 2 z_R in the medium
+    double crossing_angle_deg = 0;  // chief ray to the target's normal at the target plane
+    std::string unconverted_end;    // where the light goes after the target, in words
+};
+
+struct OverlapReport {
+    double spatial = 0;             // transverse intensity overlap at the target centre
+    double spatial_along_crystal = 0;  // the same averaged over the crystal length
+    std::optional<double> temporal;    // cross-correlation factor (both pulse lengths given)
+    double combined = 0;               // spatial_along_crystal × temporal (or × 1)
+};
+
+struct StageReport {
+    std::string id;
+    std::string beam;            // the beam whose path it changes
+    double position_mm = 0;
+    double delay_per_mm_fs = 0;  // d(delay)/d(position)
+    double zero_delay_mm = 0;    // position for zero delay
+    bool zero_in_travel = false;
+    double move_mm = 0;          // zero_delay − position
+    std::optional<double> measured_zero_mm;
+    std::optional<double> emission_offset_fs;  // model delay at the measured zero (see README)
+};
+
+struct GroupVelocityMismatch {
+    std::string between;     // "SFG–pump" …
+    double fs_per_mm = 0;
+    std::optional<double> walk_apart_mm;  // pulse length / |GVM|, when the pulse length is known
+};
+
+struct PhaseMatchingReport {
+    std::string process;      // "SFG of pump + signal", "SHG of pump"
+    std::string type;         // "type-I (ooe)" …
+    double output_nm = 0;
+    bool phase_matchable = false;
+    double theta_pm_deg = 0;        // internal phase-matching angle
+    double theta_now_deg = 0;       // internal angle the beams have now
+    double incidence_now_deg = 0;   // external angle of the beam to the face normal, now
+    double incidence_needed_deg = 0;
+    // Change of the external angle to make. About the vertical axis (optic axis in the table
+    // plane): + = turn the crystal clockwise seen from above, i.e. normal_deg decreases by it.
+    // About the horizontal axis (optic axis in the vertical plane): + = tilt so that the
+    // internal angle to the optic axis grows; the flat layout has no tilt, so "now" is 0.
+    double rotate_by_deg = 0;
+    std::string rotation_axis;
+    double delta_k_l = 0;           // Δk·L now (rad)
+    double sinc2_now = 0;           // sinc²(ΔkL/2) now
+    double walkoff_mrad = 0;        // of the generated (B) wave at θ_pm
+    double angular_acceptance_internal_mrad = 0;  // FWHM, internal
+    double angular_acceptance_external_mrad = 0;  // ≈ n × internal
+    double spectral_acceptance_nm = 0;            // FWHM of wave 1
+    std::vector<GroupVelocityMismatch> gvm;
+    bool polarizations_suit = false;
+    std::string polarization_note;
+};
+
+struct FocusingReport {
+    std::string beam;
+    double xi = 0, h_m = 0, sigma_m = 0;  // Boyd–Kleinman, no walk-off, focus at the centre
+    double walkoff_parameter = 0;         // B = ρ √(L k1)/2
+};
+
+struct VerdictLine {
+    bool met = false;
+    std::string summary;  // the number behind it
+    std::string action;   // what to do ("" when met)
+};
+
+struct Verdict {
+    VerdictLine space, time, phase;
+};
+
+struct ReportWarning {
+    std::string code;     // "clipping", "missed-optic", "left-table", "paraxial", …
+    std::string message;
+    std::string element;  // element id or ""
+};
+
+struct RendezvousReport {
+    std::string layout_name, target;
+    bool target_is_crystal = false;
+    double crystal_length_mm = 0;
+    std::vector<ReportBeam> beams;
+    std::optional<Mismatch> mismatch;
+    std::optional<double> confocal_ratio;  // b(beam 1)/b(beam 2), mean of the planes
+    std::optional<OverlapReport> overlap;
+    std::optional<StageReport> stage;
+    std::vector<PhaseMatchingReport> phase_matching;
+    std::vector<FocusingReport> focusing;
+    Verdict verdict;
+    std::vector<ReportWarning> warnings;
+    std::vector<std::string> invisible;  // "1030 nm (pump): near infrared" …
+};
+
+RendezvousReport build_report(const Layout& layout, const MaterialLibrary& library);
+
+}  // namespace rv
