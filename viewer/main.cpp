@@ -53,6 +53,15 @@ int main(int argc, char** argv) {
     caustic_cmd->add_option("layout", caustic_layout, "layout file (JSON)")->required();
     caustic_cmd->add_flag("--csv", caustic_csv, "CSV output (the only format so far)")->required();
 
+    rv::cli::CalibrateOptions calibrate;
+    CLI::App* calibrate_cmd = app.add_subcommand(
+        "calibrate", "Record the stage reading where the pulses were found to overlap; write a new layout\n"
+                     "whose model agrees with it, so later changes predict the new zero.\n"
+                     "Example: rendezvous calibrate sfg.json --zero 29.84 --write sfg-calibrated.json");
+    calibrate_cmd->add_option("layout", calibrate.layout, "layout file (JSON)")->required();
+    calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->required();
+    calibrate_cmd->add_option("--write", calibrate.output, "the new layout file (written atomically)")->required();
+
     try {
         app.parse(argc, argv);
         if (*report_cmd && report.json && report.markdown)
@@ -75,6 +84,7 @@ int main(int argc, char** argv) {
     if (*check_cmd) return rv::cli::run_check(check_layout, std::cout, std::cerr);
     if (*format_cmd) return rv::cli::run_format(format, std::cout, std::cerr);
     if (*trace_cmd) return rv::cli::run_trace(trace, std::cout, std::cerr);
+    if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);
     if (*caustic_cmd) return rv::cli::run_caustic(caustic_layout, std::cout, std::cerr);
     std::cout << app.help();
     return 0;

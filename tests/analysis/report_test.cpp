@@ -1,6 +1,9 @@
 // The report: its advice, applied to the layout, must give what it promises.
 #include "analysis/report.hpp"
 
+#include "analysis/calibrate.hpp"
+#include "materials/dispersion.hpp"
+
 #include <cmath>
 
 #include "support/layouts.hpp"
@@ -99,4 +102,31 @@ TEST_CASE("a waist below two wavelengths is a paraxial warning", "[report]") {
     size_t paraxial = 0;
     for (const rv::ReportWarning& w : rep.warnings) paraxial += w.code == "paraxial";
     CHECK(paraxial == 2);
+}
+
+TEST_CASE("calibrating time zero predicts the new zero after a window is added", "[report][stage]") {
+    // The lab finds overlap at a reading 0.4 mm from the model's zero; after calibration the
+    // model agrees there. Adding 2 mm of fused silica at normal incidence to the pump arm then
+    // moves the zero by the glass's extra group delay t (n_g − n_g,air)/c divided by the
+    // stage's delay per mm (physics.md §7).
+    const rv::Layout l = demo();
+    const rv::MaterialLibrary lib = rv::material_library_for(l);
+    const double model_zero = report(l).stage->zero_delay_mm;
+    const rv::CalibrationResult c = rv::calibrate_time_zero(l, lib, model_zero + 0.4);
+    const rv::RendezvousReport calibrated = report(c.layout);
+    CHECK_THAT(calibrated.stage->zero_delay_mm, near(model_zero + 0.4, 1e-6));
+    CHECK_THAT(*calibrated.stage->emission_offset_fs, near(0.0, 1e-6));
+
+    rv::Layout changed = c.layout;
+    rv::Element window;
+    window.id = "W";
+    window.at_mm = {140, 300};
+    window.kind = rv::Plate{rv::Plate::Role::Window, {"fused-silica", 2.0}, 0.0};
+    changed.elements.push_back(window);
+    const rv::RendezvousReport after = report(changed);
+    const double ng = rv::absolute_index(*lib.find("fused-silica"), *lib.find("air"), 1030).group_index;
+    const double ng_air = rv::sample_index(*lib.find("air"), 1030).group_index;
+    const double extra_fs = rv::group_delay_fs(ng - ng_air, 2.0);
+    CHECK_THAT(after.stage->zero_delay_mm - calibrated.stage->zero_delay_mm,
+               near(extra_fs / -after.stage->delay_per_mm_fs, 1e-6));
 }

@@ -30,6 +30,14 @@ struct TraceOptions {
 };
 int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err);
 
+struct CalibrateOptions {
+    std::string layout;
+    double zero_mm = 0;
+    std::string output;
+};
+// Records a measured zero-delay stage reading: writes a new layout (see analysis/calibrate.hpp).
+int run_calibrate(const CalibrateOptions& options, std::ostream& out, std::ostream& err);
+
 // The sampled beam radius along each path, as CSV: beam,s_mm,radius_tangential_um,radius_sagittal_um
 int run_caustic(const std::string& layout, std::ostream& out, std::ostream& err);
 

@@ -1,0 +1,60 @@
+"""Checks `rendezvous report LAYOUT --json` against the report contract of the design
+(shared/design.md, "Report — the stable part"): one JSON object, parsed by Python's json
+module, holding every contract key that applies to the layout (mismatch and overlap with two
+beams, stage with a stage, phase matching with a crystal target). The power and peak-intensity
+keys come with the polarization-and-power issue and are not checked yet.
+Usage: check_report_contract.py BINARY LAYOUT"""
+import json
+import subprocess
+import sys
+
+binary, layout_path = sys.argv[1], sys.argv[2]
+run = subprocess.run([binary, "report", layout_path, "--json"], capture_output=True, text=True)
+if run.returncode != 0:
+    sys.exit(f"exit status {run.returncode}: {run.stderr}")
+report = json.loads(run.stdout)
+layout = json.load(open(layout_path))
+missing = []
+
+
+def need(node, dotted):
+    for part in dotted.split("."):
+        if not isinstance(node, dict) or part not in node:
+            missing.append(dotted)
+            return None
+        node = node[part]
+    return node
+
+
+plane_keys = ["radius_um", "waist_um", "waist_offset_mm", "rayleigh_mm"]
+for beam in layout["beams"]:
+    b = need(report, "beams." + beam["id"])
+    if b is None:
+        continue
+    for key in ["wavelength_nm", "path_mm", "arrival_fs", "target.hit_mm", "elements"]:
+        need(b, key)
+    for key in plane_keys:
+        for plane in ["tangential", "sagittal"]:
+            need(b, f"target.{key}.{plane}")
+    for element in b.get("elements", []):
+        for key in ["id", "s_mm", "radius_um.tangential", "radius_um.sagittal", "clipping"]:
+            need(element, key)
+if len(layout["beams"]) == 2:
+    for key in ["waist_offset_mm", "waist_ratio", "lateral_um", "angle_mrad", "delay_fs"]:
+        need(report, "mismatch." + key)
+    for key in ["spatial", "temporal", "combined"]:
+        need(report, "overlap." + key)
+if any(e["type"] == "stage" for e in layout["elements"]) and len(layout["beams"]) == 2:
+    for key in ["id", "position_mm", "zero_delay_mm"]:
+        need(report, "stage." + key)
+target = next(e for e in layout["elements"] if e["id"] == layout["target"])
+if target["type"] == "crystal":
+    for key in ["process", "output_nm", "theta_pm_deg", "theta_now_deg", "rotate_by_deg", "walkoff_mrad"]:
+        need(report, "phase_matching." + key)
+warnings = need(report, "warnings")
+for w in warnings or []:
+    for key in ["code", "message", "element"]:
+        need(w, key)
+if missing:
+    sys.exit("missing contract keys: " + ", ".join(missing))
+print(f"{layout_path}: every contract key present")
