@@ -156,17 +156,34 @@ std::optional<StageReport> stage_of(const Layout& layout, const MaterialLibrary&
     return std::nullopt;
 }
 
-MixingType mixing_type(const Crystal& c, bool shg, double a1, double a2) {
-    if (c.phase_matching == Crystal::PhaseMatching::TypeI) return MixingType::TypeI;
-    if (shg) return MixingType::TypeII_BAB;
-    return a1 >= a2 ? MixingType::TypeII_ABB : MixingType::TypeII_BAB;
+// The crystal's type allows several polarity triples; take the first that phase-matches,
+// preferring one the beams' polarizations suit (a1, a2: fraction of each beam in the A wave).
+MixingType mixing_type(const Material& m, const Crystal& c, double l1, double l2, double a1, double a2) {
+    using M = MixingType;
+    const std::vector<M> candidates = c.phase_matching == Crystal::PhaseMatching::TypeI
+                                          ? std::vector<M>{M::TypeI, M::TypeI_BBA}
+                                          : std::vector<M>{M::TypeII_ABB, M::TypeII_BAB, M::TypeII_ABA, M::TypeII_BAA};
+    auto fits = [&](M t) {
+        const WavePolarities w = polarities(t);
+        return ((w.wave1 == Polarity::A) == (a1 >= 0.5)) && ((w.wave2 == Polarity::A) == (a2 >= 0.5));
+    };
+    std::optional<M> first;
+    for (M t : candidates) {
+        if (!phase_matching_angle_rad(m, l1, l2, t, c.principal_plane)) continue;
+        if (!first) first = t;
+        if (l1 != l2 && fits(t)) return t;
+    }
+    return first.value_or(candidates.front());
 }
 
 const char* type_text(MixingType t) {
     switch (t) {
         case MixingType::TypeI: return "type-I (ooe)";
+        case MixingType::TypeI_BBA: return "type-I (eeo)";
         case MixingType::TypeII_ABB: return "type-II (oee)";
         case MixingType::TypeII_BAB: return "type-II (eoe)";
+        case MixingType::TypeII_ABA: return "type-II (oeo)";
+        case MixingType::TypeII_BAA: return "type-II (eoo)";
     }
     return "";
 }
@@ -182,11 +199,12 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
     r.output_nm = sum_frequency_nm(l1, l2);
     const double a1 = a_fraction(b1, xc), a2 = a_fraction(b2, xc);
-    const MixingType type = mixing_type(xc, shg, a1, a2);
+    const PrincipalPlane plane = xc.principal_plane;
+    const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
     r.type = type_text(type);
     const WavePolarities w = polarities(type);
     auto suits = [](Polarity need, double a) { return need == Polarity::A ? a >= 0.9 : a <= 0.1; };
-    if (shg && type != MixingType::TypeI) {
+    if (shg && type != MixingType::TypeI && type != MixingType::TypeI_BBA) {
         r.polarizations_suit = a1 >= 0.4 && a1 <= 0.6;
         r.polarization_note = b1.id + " needs equal o and e components (linear at 45° to the axes)";
     } else {
@@ -196,7 +214,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
                               " (an o wave is polarized " +
                               (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
     }
-    const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type);
+    const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
     const double cut = deg_to_rad(xc.cut_deg);
     const Path& path = beams[i].path;
     double internal = 0;  // angle of k to the face normal inside the crystal, in the table plane
@@ -205,13 +223,13 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
         const Vec2 n = unit_at(xe.normal_deg);
         internal = std::atan2(d.dot(perpendicular(n)), std::abs(d.dot(n)));
     }
-    const double n_a = wave_index(m, l1, Polarity::A, cut).index;
+    const double n_a = wave_index(m, l1, w.wave1, cut, plane).index;
     const double theta_now = xc.optic_axis_horizontal ? cut + internal
                                                       : std::acos(std::cos(internal) * std::cos(cut));
     r.theta_now_deg = rad_to_deg(theta_now);
     r.incidence_now_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(internal), -1.0, 1.0)));
     const double length = xc.length_mm;
-    const double dk = delta_k_per_mm(m, l1, l2, type, theta_now);
+    const double dk = delta_k_per_mm(m, l1, l2, type, theta_now, plane);
     r.delta_k_l = dk * length;
     const double x = r.delta_k_l / 2;
     r.sinc2_now = x == 0 ? 1 : std::pow(std::sin(x) / x, 2);
@@ -229,8 +247,11 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
         r.incidence_needed_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(tilt), -1.0, 1.0)));
     }
     r.rotate_by_deg = r.incidence_needed_deg - r.incidence_now_deg;
-    r.walkoff_mrad = 1e3 * std::abs(walkoff_rad(m, r.output_nm, *pm));
-    const Acceptance acc = acceptance(m, l1, l2, type, *pm, length);
+    // Walk-off of the angle-dependent (B) wave: the output, or the input B wave when the
+    // output is an A wave.
+    const double b_lambda = w.wave3 == Polarity::B ? r.output_nm : (w.wave1 == Polarity::B ? l1 : l2);
+    r.walkoff_mrad = 1e3 * std::abs(walkoff_rad(m, b_lambda, *pm, plane));
+    const Acceptance acc = acceptance(m, l1, l2, type, *pm, length, plane);
     r.angular_acceptance_internal_mrad = acc.angular_internal_fwhm_mrad;
     r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_a;
     r.spectral_acceptance_nm = acc.spectral_fwhm_nm;
@@ -239,11 +260,11 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
         if (tau <= 0 || gvm == 0) return std::nullopt;
         return tau / std::abs(gvm);
     };
-    const double g31 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 1);
+    const double g31 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 1, plane);
     r.gvm.push_back({out + "–" + b1.id, g31, walk(b1.pulse_fwhm_fs, g31)});
     if (!shg) {
-        const double g32 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 2);
-        const double g12 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 1, 2);
+        const double g32 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 2, plane);
+        const double g12 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 1, 2, plane);
         r.gvm.push_back({out + "–" + b2.id, g32, walk(b2.pulse_fwhm_fs, g32)});
         const double shorter = std::min(b1.pulse_fwhm_fs, b2.pulse_fwhm_fs);
         r.gvm.push_back({b1.id + "–" + b2.id, g12, walk(shorter, g12)});

@@ -378,7 +378,16 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
         c.optic_axis_horizontal =
             f.choice("optic_axis", Need::Optional, {"horizontal", "vertical"}).value_or("vertical") ==
             "horizontal";
-        f.finish(with_common({"material", "length_mm", "cut_deg", "phase_matching", "optic_axis"}));
+        if (const auto plane = f.choice("principal_plane", Need::Optional, {"XY", "YZ", "XZ"})) {
+            c.principal_plane = *plane == "YZ" ? PrincipalPlane::YZ
+                                : *plane == "XZ" ? PrincipalPlane::XZ
+                                                 : PrincipalPlane::XY;
+            const Material* m = library_.find(c.material);
+            if (m && m->symmetry != Symmetry::Biaxial)
+                f.error("principal_plane", "only for biaxial crystals; " + m->name + " is not biaxial");
+        }
+        f.finish(with_common({"material", "length_mm", "cut_deg", "phase_matching", "optic_axis",
+                              "principal_plane"}));
         return c;
     }
     if (type == "target") {

@@ -106,6 +106,8 @@ struct KindWriter {
         j["cut_deg"] = num(c.cut_deg);
         j["phase_matching"] = c.phase_matching == Crystal::PhaseMatching::TypeII ? "type-II" : "type-I";
         if (c.optic_axis_horizontal) j["optic_axis"] = "horizontal";
+        if (c.principal_plane != PrincipalPlane::XY)
+            j["principal_plane"] = c.principal_plane == PrincipalPlane::YZ ? "YZ" : "XZ";
     }
     void operator()(const Target&) const {}
     void operator()(const Dump&) const {}

@@ -23,6 +23,8 @@
 #include <variant>
 #include <vector>
 
+#include "nonlinear/phase_matching.hpp"
+
 namespace rv {
 
 using Vec2 = Eigen::Vector2d;
@@ -134,6 +136,10 @@ struct Crystal {
     // The plane that holds the optic axis and the face normal: "horizontal" = the table plane
     // (horizontally polarized light is extraordinary), "vertical" (it is ordinary).
     bool optic_axis_horizontal = false;
+    // Biaxial crystals: the principal plane the beams travel in; cut_deg is then the angle in
+    // it (φ from X in XY, θ from Z in YZ and XZ). The plane holding the tuning angle is set on
+    // the table like a uniaxial crystal's optic-axis plane (optic_axis).
+    PrincipalPlane principal_plane = PrincipalPlane::XY;
     bool operator==(const Crystal&) const = default;
 };
 

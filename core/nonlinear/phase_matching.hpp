@@ -5,11 +5,13 @@
 // Model: in the plane of propagation one polarization sees an index that does not depend on
 // the angle ("A" wave) and the other one that does ("B" wave):
 //   1/n_B(ψ)² = cos²ψ/p² + sin²ψ/q².
-// Negative uniaxial crystal (BBO): A = ordinary (n_o), B = extraordinary, ψ = θ the angle to
-// the optic axis, p = n_o, q = n_e. Biaxial crystal in its XY principal plane (LBO, KTP):
-// A = the wave polarized along Z (n_z), B = the in-plane wave, ψ = φ the angle from X,
-// p = n_y, q = n_x. Types: type I = A + A → B ("ooe"); type II = A + B → B ("oee") or
-// B + A → B ("eoe").
+// Uniaxial crystal (BBO): A = ordinary (n_o), B = extraordinary, ψ = θ the angle to the optic
+// axis, p = n_o, q = n_e. Biaxial crystal (LBO, KTP, n_x < n_y < n_z) in a principal plane:
+//   XY: A polarized along Z (n_z), ψ = φ from X, p = n_y, q = n_x;
+//   YZ: A polarized along X (n_x), ψ = θ from Z, p = n_y, q = n_z;
+//   XZ: A polarized along Y (n_y), ψ = θ from Z, p = n_x, q = n_z.
+// A type names the polarity of waves 1, 2 and 3: type I = A + A → B ("ooe") or B + B → A
+// ("eeo"); type II = A + B → B, B + A → B, A + B → A or B + A → A.
 // Relations (Dmitriev, Gurzadyan & Nikogosyan, Handbook of Nonlinear Optical Crystals, 1999;
 // Boyd, Nonlinear Optics, 2008):
 //   phase matching n3/λ3 = n1/λ1 + n2/λ2; type I closed form
@@ -29,7 +31,9 @@ namespace rv {
 
 enum class Polarity { A, B };  // angle-independent or angle-dependent wave (see above)
 
-enum class MixingType { TypeI, TypeII_ABB, TypeII_BAB };
+enum class MixingType { TypeI, TypeI_BBA, TypeII_ABB, TypeII_BAB, TypeII_ABA, TypeII_BAA };
+
+enum class PrincipalPlane { XY, YZ, XZ };  // for biaxial crystals; uniaxial ones ignore it
 
 // The three waves' polarities for a type.
 struct WavePolarities {
@@ -44,29 +48,33 @@ struct WaveIndex {
     double index, group_index;
     bool in_valid_range;
 };
-WaveIndex wave_index(const Material& crystal, double wavelength_nm, Polarity p, double angle_rad);
+WaveIndex wave_index(const Material& crystal, double wavelength_nm, Polarity p, double angle_rad,
+                     PrincipalPlane plane = PrincipalPlane::XY);
 
 // Phase-matching angle ψ in (0, π/2), or nullopt when the type cannot phase-match.
 std::optional<double> phase_matching_angle_rad(const Material& crystal, double lambda1_nm,
-                                               double lambda2_nm, MixingType type);
+                                               double lambda2_nm, MixingType type,
+                                               PrincipalPlane plane = PrincipalPlane::XY);
 
 // Δk at angle ψ, per mm (n3/λ3 − n1/λ1 − n2/λ2, times 2π).
 double delta_k_per_mm(const Material& crystal, double lambda1_nm, double lambda2_nm,
-                      MixingType type, double angle_rad);
+                      MixingType type, double angle_rad, PrincipalPlane plane = PrincipalPlane::XY);
 
 // Spatial (Poynting) walk-off angle of a B wave at angle ψ.
-double walkoff_rad(const Material& crystal, double wavelength_nm, double angle_rad);
+double walkoff_rad(const Material& crystal, double wavelength_nm, double angle_rad,
+                   PrincipalPlane plane = PrincipalPlane::XY);
 
 struct Acceptance {
     double angular_internal_fwhm_mrad;  // for the given length
     double spectral_fwhm_nm;            // of wave 1 (SHG: the fundamental)
 };
 Acceptance acceptance(const Material& crystal, double lambda1_nm, double lambda2_nm,
-                      MixingType type, double angle_rad, double length_mm);
+                      MixingType type, double angle_rad, double length_mm,
+                      PrincipalPlane plane = PrincipalPlane::XY);
 
 // Group-velocity mismatch 1/v_g,i − 1/v_g,j in fs/mm of waves i, j ∈ {1, 2, 3} at angle ψ.
 double group_velocity_mismatch_fs_per_mm(const Material& crystal, double lambda1_nm,
                                          double lambda2_nm, MixingType type, double angle_rad,
-                                         int i, int j);
+                                         int i, int j, PrincipalPlane plane = PrincipalPlane::XY);
 
 }  // namespace rv

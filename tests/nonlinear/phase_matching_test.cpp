@@ -129,3 +129,25 @@ TEST_CASE("LBO type-I SHG of 1064 nm in the XY plane", "[phase-matching][lbo]") 
     const double phi = pm_deg("LBO", 1064, 1064);
     CHECK_THAT(phi, near(11.6, 0.3));
 }
+
+TEST_CASE("every type found in every principal plane has zero delta k", "[phase-matching][lbo]") {
+    // Method check (common practice): whatever plane and polarity triple phase-matches, Δk
+    // vanishes at the reported angle. physics.md carries no published LBO angles outside the
+    // XY plane, so these angles are checked for consistency only.
+    using M = rv::MixingType;
+    using P = rv::PrincipalPlane;
+    const rv::Material& lbo = crystal("LBO");
+    size_t found = 0;
+    for (P plane : {P::XY, P::YZ, P::XZ})
+        for (M type : {M::TypeI, M::TypeI_BBA, M::TypeII_ABB, M::TypeII_BAB, M::TypeII_ABA, M::TypeII_BAA})
+            for (double l2 : {1064.0, 800.0}) {
+                const auto a = rv::phase_matching_angle_rad(lbo, 1064, l2, type, plane);
+                if (!a) continue;
+                ++found;
+                CHECK_THAT(rv::delta_k_per_mm(lbo, 1064, l2, type, *a, plane), near(0.0, 1e-6));
+            }
+    CHECK(found >= 6);
+    // A uniaxial crystal ignores the plane: BBO's type-I angle is the same in all three.
+    CHECK_THAT(pm_deg("BBO", 1064, 1064), near(rv::rad_to_deg(*rv::phase_matching_angle_rad(
+                                                  crystal("BBO"), 1064, 1064, M::TypeI, P::YZ)), 1e-12));
+}
