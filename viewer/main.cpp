@@ -62,6 +62,24 @@ int main(int argc, char** argv) {
     calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->required();
     calibrate_cmd->add_option("--write", calibrate.output, "the new layout file (written atomically)")->required();
 
+    rv::cli::BalanceOptions balance;
+    CLI::App* balance_cmd = app.add_subcommand(
+        "balance", "Put the stage where the delay is zero; say what fixed path to add when it cannot.\n"
+                   "Example: rendezvous balance layouts/sfg-bbo.json --write sfg-balanced.json");
+    balance_cmd->add_option("layout", balance.layout, "layout file (JSON)")->required();
+    balance_cmd->add_option("--write", balance.output, "write the balanced layout here (atomically)");
+
+    rv::cli::SweepOptions sweep;
+    CLI::App* sweep_cmd = app.add_subcommand(
+        "sweep", "Vary one numeric field and print the report's figures at each value.\n"
+                 "Example: rendezvous sweep layouts/sfg-bbo.json --vary S1.position_mm --from 28 --to 32 --steps 9 --csv");
+    sweep_cmd->add_option("layout", sweep.layout, "layout file (JSON)")->required();
+    sweep_cmd->add_option("--vary", sweep.vary, "ID.FIELD, e.g. L_F.at_mm[0] or pump.waist_um")->required();
+    sweep_cmd->add_option("--from", sweep.from, "first value")->required();
+    sweep_cmd->add_option("--to", sweep.to, "last value")->required();
+    sweep_cmd->add_option("--steps", sweep.steps, "number of values (≥ 2)")->check(CLI::Range(2, 100000));
+    sweep_cmd->add_flag("--csv", sweep.csv, "comma-separated output");
+
     try {
         app.parse(argc, argv);
         if (*report_cmd && report.json && report.markdown)
@@ -84,6 +102,8 @@ int main(int argc, char** argv) {
     if (*check_cmd) return rv::cli::run_check(check_layout, std::cout, std::cerr);
     if (*format_cmd) return rv::cli::run_format(format, std::cout, std::cerr);
     if (*trace_cmd) return rv::cli::run_trace(trace, std::cout, std::cerr);
+    if (*balance_cmd) return rv::cli::run_balance(balance, std::cout, std::cerr);
+    if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);
     if (*caustic_cmd) return rv::cli::run_caustic(caustic_layout, std::cout, std::cerr);
     std::cout << app.help();

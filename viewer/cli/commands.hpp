@@ -38,6 +38,22 @@ struct CalibrateOptions {
 // Records a measured zero-delay stage reading: writes a new layout (see analysis/calibrate.hpp).
 int run_calibrate(const CalibrateOptions& options, std::ostream& out, std::ostream& err);
 
+struct BalanceOptions {
+    std::string layout;
+    std::string output;  // "" = print only
+};
+int run_balance(const BalanceOptions& options, std::ostream& out, std::ostream& err);
+
+struct SweepOptions {
+    std::string layout;
+    std::string vary;  // ID.FIELD
+    double from = 0, to = 0;
+    int steps = 11;
+    bool csv = false;
+};
+// A value the sweep cannot compute is printed as nan (a beam that misses the target).
+int run_sweep(const SweepOptions& options, std::ostream& out, std::ostream& err);
+
 // The sampled beam radius along each path, as CSV: beam,s_mm,radius_tangential_um,radius_sagittal_um
 int run_caustic(const std::string& layout, std::ostream& out, std::ostream& err);
 

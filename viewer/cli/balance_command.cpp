@@ -1,0 +1,55 @@
+// rendezvous balance: the stage position for zero delay, written to a new layout on request.
+#include <cstdio>
+#include <ostream>
+#include <stdexcept>
+
+#include "analysis/balance.hpp"
+#include "cli/commands.hpp"
+#include "cli/load.hpp"
+#include "io/layout_reader.hpp"
+#include "io/layout_writer.hpp"
+
+namespace rv::cli {
+
+int run_balance(const BalanceOptions& options, std::ostream& out, std::ostream& err) {
+    const std::optional<Layout> layout = load_layout(options.layout, err);
+    if (!layout) return 2;
+    BalanceResult b;
+    try {
+        b = balance_delay(*layout, material_library_for(*layout));
+    } catch (const std::invalid_argument& e) {
+        err << options.layout << ": error: " << e.what() << "\n";
+        return 2;
+    }
+    char line[256];
+    std::snprintf(line, sizeof line, "delay now %+.1f fs (%s − %s)\n", b.delay_before_fs,
+                  layout->beams[0].id.c_str(), layout->beams[1].id.c_str());
+    out << line;
+    if (!b.stage.empty()) {
+        std::snprintf(line, sizeof line, "stage %s: zero delay at %.4f mm (%s its travel); set to %.4f mm\n",
+                      b.stage.c_str(), b.zero_delay_mm, b.zero_in_travel ? "inside" : "outside", b.stage_set_mm);
+        out << line;
+    } else {
+        out << "no stage changes the delay\n";
+    }
+    if (!b.add_path_to.empty()) {
+        std::snprintf(line, sizeof line, "residual %+.1f fs: add %.3f mm of air path to the %s arm (or take it from the other)\n",
+                      b.residual_delay_fs, b.add_path_mm, b.add_path_to.c_str());
+        out << line;
+    } else {
+        std::snprintf(line, sizeof line, "residual %+.3f fs\n", b.residual_delay_fs);
+        out << line;
+    }
+    if (!options.output.empty()) {
+        try {
+            save_layout(b.layout, options.output);
+        } catch (const std::runtime_error& e) {
+            err << "rendezvous: error: " << e.what() << "\n";
+            return 2;
+        }
+        out << "wrote " << options.output << "\n";
+    }
+    return 0;
+}
+
+}  // namespace rv::cli
