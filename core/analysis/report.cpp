@@ -49,7 +49,7 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
         b.id = layout.beams[p.beam].id;
         b.wavelength_nm = layout.beams[p.beam].wavelength_nm;
         b.path = p;
-        b.caustic = propagate_path(layout, library, p, options);
+        b.caustic = propagate_path(layout, p, options);
         b.at_target = beam_at_target(layout, p, b.caustic);
         b.confocal_tangential_mm = 2 * b.at_target.tangential.rayleigh_mm;
         b.confocal_sagittal_mm = 2 * b.at_target.sagittal.rayleigh_mm;

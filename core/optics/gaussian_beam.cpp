@@ -42,9 +42,8 @@ GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m) {
 }
 
 double radius_um(const GaussianBeam& beam) {
-    // Im(1/q) = −M² λ0 / (π n W²)
-    const double im_inv_q = std::imag(1.0 / beam.q_mm);
-    return mm_to_um(std::sqrt(-effective_lambda_over_pi_mm(beam) / im_inv_q));
+    // Im(1/q) = −M² λ0 / (π n W²), and Im(1/q) = −Im q/|q|², so W² = (M²λ0/πn)·|q|²/Im q.
+    return mm_to_um(std::sqrt(effective_lambda_over_pi_mm(beam) * std::norm(beam.q_mm) / std::imag(beam.q_mm)));
 }
 
 double waist_radius_um(const GaussianBeam& beam) {
@@ -56,9 +55,9 @@ double distance_to_waist_mm(const GaussianBeam& beam) { return -std::real(beam.q
 double rayleigh_range_mm(const GaussianBeam& beam) { return std::imag(beam.q_mm); }
 
 double wavefront_radius_mm(const GaussianBeam& beam) {
-    const double re_inv_q = std::real(1.0 / beam.q_mm);
-    if (re_inv_q == 0.0) return std::numeric_limits<double>::infinity();
-    return 1.0 / re_inv_q;
+    // Re(1/q) = Re q/|q|²
+    if (std::real(beam.q_mm) == 0.0) return std::numeric_limits<double>::infinity();
+    return std::norm(beam.q_mm) / std::real(beam.q_mm);
 }
 
 double gouy_phase_rad(const GaussianBeam& beam) {

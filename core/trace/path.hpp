@@ -39,6 +39,10 @@ struct TraceHit {
     // thickness and the glass's absolute group index (0 and 1 for every other hit).
     double lumped_glass_mm = 0;
     double lumped_group_index = 1;
+    // Lenses: the focal length at the beam's wavelength (thick singlets: the EFL) and the
+    // glass's index there (1 for an ideal lens), so that propagation need not recompute them.
+    double focal_length_mm = 0;
+    double lens_index = 1;
 };
 
 struct TraceSegment {

@@ -4,23 +4,21 @@
 #include <cmath>
 #include <sstream>
 
-#include "materials/dispersion.hpp"
 #include "optics/thick_lens.hpp"
-#include "trace/trace.hpp"
 #include "units/constants.hpp"
 
 namespace rv {
 
 namespace {
 
-RayMatrix hit_matrix(const Layout& layout, const MaterialLibrary& library, const TraceHit& hit,
-                     double wavelength_nm, Plane plane) {
+// The matrix of one hit in one plane (lens matrices are the same in both).
+RayMatrix hit_matrix(const Layout& layout, const TraceHit& hit, Plane plane) {
     const Element& e = layout.elements[hit.element];
     switch (hit.interaction) {
         case Interaction::ThinLens: {
             const Lens& lens = std::get<Lens>(e.kind);
             if (const auto* t = std::get_if<ThickLens>(&lens.model)) {
-                const double n = sample_index(*library.find(t->glass), wavelength_nm).index;
+                const double n = hit.lens_index;
                 const Vec2 normal(std::cos(deg_to_rad(e.normal_deg)), std::sin(deg_to_rad(e.normal_deg)));
                 ThickSinglet shape{t->front_radius_mm, t->back_radius_mm, t->center_thickness_mm};
                 if (hit.direction_in.dot(normal) < 0)  // met from the back: faces reversed
@@ -28,7 +26,7 @@ RayMatrix hit_matrix(const Layout& layout, const MaterialLibrary& library, const
                 const RayMatrix half_back = free_space(-t->center_thickness_mm / 2);
                 return half_back * thick_singlet_matrix(shape, n) * half_back;
             }
-            return thin_lens(lens_focal_length_mm(lens, library, wavelength_nm));
+            return thin_lens(hit.focal_length_mm);
         }
         case Interaction::Reflect:
             if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->radius_of_curvature_mm)
@@ -58,8 +56,7 @@ bool has_power(const Layout& layout, const TraceHit& hit) {
 }
 
 // Signed path distance from hit k (the target plane, identity matrix) to the real waist.
-double locate_waist_mm(const Layout& layout, const MaterialLibrary& library, const Path& path,
-                       size_t k, GaussianBeam q, double wavelength_nm, Plane plane) {
+double locate_waist_mm(const Layout& layout, const Path& path, size_t k, GaussianBeam q, Plane plane) {
     const GaussianBeam at_target = q;
     double d = distance_to_waist_mm(q);
     double travelled = 0;
@@ -68,7 +65,7 @@ double locate_waist_mm(const Layout& layout, const MaterialLibrary& library, con
             const double gap = path.hits[i + 1].s_mm - path.hits[i].s_mm;
             if (d <= gap || has_power(layout, path.hits[i + 1])) break;
             q = propagate(q, free_space(gap));
-            q = propagate(q, hit_matrix(layout, library, path.hits[i + 1], wavelength_nm, plane),
+            q = propagate(q, hit_matrix(layout, path.hits[i + 1], plane),
                           path.hits[i + 1].index_after);
             travelled += gap;
             d = distance_to_waist_mm(q);
@@ -80,7 +77,7 @@ double locate_waist_mm(const Layout& layout, const MaterialLibrary& library, con
         const double gap = path.hits[i].s_mm - path.hits[i - 1].s_mm;
         if (-d <= gap || has_power(layout, path.hits[i - 1])) break;
         q = propagate(q, free_space(-gap));  // now just after hit i − 1: undo its matrix
-        q = propagate(q, hit_matrix(layout, library, path.hits[i - 1], wavelength_nm, plane).inverse(),
+        q = propagate(q, hit_matrix(layout, path.hits[i - 1], plane).inverse(),
                       path.hits[i - 1].index_before);
         travelled += gap;
         d = distance_to_waist_mm(q);
@@ -90,8 +87,7 @@ double locate_waist_mm(const Layout& layout, const MaterialLibrary& library, con
 
 }  // namespace
 
-Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, const Path& path,
-                       const PropagationOptions& options) {
+Caustic propagate_path(const Layout& layout, const Path& path, const PropagationOptions& options) {
     const BeamSource& src = layout.beams[path.beam];
     Caustic out;
     out.beam = path.beam;
@@ -139,18 +135,16 @@ Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, con
             out.target_tangential = t;
             out.target_sagittal = s;
         }
-        t = propagate(t, hit_matrix(layout, library, hit, src.wavelength_nm, Plane::Tangential),
-                      hit.index_after);
-        s = propagate(s, hit_matrix(layout, library, hit, src.wavelength_nm, Plane::Sagittal),
-                      hit.index_after);
+        const RayMatrix mt = hit_matrix(layout, hit, Plane::Tangential);
+        const RayMatrix ms = hit.interaction == Interaction::ThinLens ? mt : hit_matrix(layout, hit, Plane::Sagittal);
+        t = propagate(t, mt, hit.index_after);
+        s = propagate(s, ms, hit.index_after);
     }
 
     if (out.reaches_target) {
         const size_t k = *path.target_hit;
-        out.target_waist_offset_tangential_mm = locate_waist_mm(
-            layout, library, path, k, out.target_tangential, src.wavelength_nm, Plane::Tangential);
-        out.target_waist_offset_sagittal_mm = locate_waist_mm(
-            layout, library, path, k, out.target_sagittal, src.wavelength_nm, Plane::Sagittal);
+        out.target_waist_offset_tangential_mm = locate_waist_mm(layout, path, k, out.target_tangential, Plane::Tangential);
+        out.target_waist_offset_sagittal_mm = locate_waist_mm(layout, path, k, out.target_sagittal, Plane::Sagittal);
     }
 
     // Denser samples around the target: ±3 Rayleigh ranges, from the target state, kept

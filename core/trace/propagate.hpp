@@ -20,7 +20,6 @@
 #include <vector>
 
 #include "layout/layout.hpp"
-#include "materials/material_library.hpp"
 #include "optics/gaussian_beam.hpp"
 #include "trace/path.hpp"
 
@@ -57,7 +56,7 @@ struct PropagationOptions {
     bool sample_envelope = true;              // off for solvers: only the numbers at hits
 };
 
-Caustic propagate_path(const Layout& layout, const MaterialLibrary& library, const Path& path,
-                       const PropagationOptions& options = {});
+// Uses the focal lengths and indices the trace stored in each hit.
+Caustic propagate_path(const Layout& layout, const Path& path, const PropagationOptions& options = {});
 
 }  // namespace rv

@@ -31,7 +31,18 @@ std::string mm_text(double v) {
 }
 std::string point_text(const Vec2& p) { return "(" + mm_text(p.x()) + ", " + mm_text(p.y()) + ") mm"; }
 
-// Where every element sits once stages have moved it, and how it is turned.
+// A surface of an element: a segment through `centre` perpendicular to `normal`.
+struct Surface {
+    Face face = Face::Only;
+    Vec2 centre{0, 0};
+    Vec2 normal{1, 0};
+};
+
+int surfaces_of(const ElementKind& kind, const Vec2& at, const Vec2& normal, Surface out[3]);
+double slab_thickness(const ElementKind& kind);
+
+// Where every element sits once stages have moved it, how it is turned, its surfaces there
+// and its material (computed once per trace of the layout).
 struct Placed {
     Vec2 at{0, 0};
     Vec2 normal{1, 0};
@@ -39,14 +50,31 @@ struct Placed {
     bool traced = true;       // false for stages (no surface)
     bool aim_pending = false; // an aim_at mirror not reached yet
     std::optional<size_t> aim_target;
+    Surface surfaces[3];
+    int surface_count = 0;
+    double reach = 0;  // radius of a circle about `at` that holds every surface segment
+    const Material* material = nullptr;  // slab, substrate or lens glass
 };
 
-std::vector<Placed> place(const Layout& layout) {
+const std::string* material_name(const ElementKind& kind) {
+    if (const auto* p = std::get_if<Plate>(&kind)) return &p->slab.material;
+    if (const auto* d = std::get_if<Dichroic>(&kind)) return &d->substrate.material;
+    if (const auto* c = std::get_if<Crystal>(&kind)) return &c->material;
+    if (const auto* l = std::get_if<Lens>(&kind)) {
+        if (const auto* t = std::get_if<ThickLens>(&l->model)) return &t->glass;
+        if (const auto* t = std::get_if<ThinChromaticLens>(&l->model)) return &t->glass;
+    }
+    return nullptr;
+}
+
+std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library) {
     std::vector<Placed> placed(layout.elements.size());
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
-        placed[i] = {e.at_mm, unit_at(e.normal_deg), e.aperture_mm / 2.0,
-                     !std::holds_alternative<Stage>(e.kind), false, std::nullopt};
+        placed[i].at = e.at_mm;
+        placed[i].normal = unit_at(e.normal_deg);
+        placed[i].half_aperture = e.aperture_mm / 2.0;
+        placed[i].traced = !std::holds_alternative<Stage>(e.kind);
     }
     auto index_of = [&](const std::string& id) -> std::optional<size_t> {
         for (size_t i = 0; i < layout.elements.size(); ++i)
@@ -59,20 +87,17 @@ std::vector<Placed> place(const Layout& layout) {
                 if (auto i = index_of(id)) placed[*i].at += s->position_mm * unit_at(s->axis_deg);
     }
     for (size_t i = 0; i < layout.elements.size(); ++i) {
-        if (const auto* m = std::get_if<Mirror>(&layout.elements[i].kind); m && m->aim_at) {
+        const ElementKind& kind = layout.elements[i].kind;
+        if (const auto* m = std::get_if<Mirror>(&kind); m && m->aim_at) {
             placed[i].aim_target = index_of(*m->aim_at);
             placed[i].aim_pending = placed[i].aim_target.has_value();
         }
+        placed[i].surface_count = surfaces_of(kind, placed[i].at, placed[i].normal, placed[i].surfaces);
+        placed[i].reach = std::hypot(placed[i].half_aperture, slab_thickness(kind)) + 1e-6;
+        if (const std::string* name = material_name(kind)) placed[i].material = library.find(*name);
     }
     return placed;
 }
-
-// A surface of an element: a segment through `centre` perpendicular to `normal`.
-struct Surface {
-    Face face;
-    Vec2 centre;
-    Vec2 normal;
-};
 
 double slab_thickness(const ElementKind& kind) {
     if (const auto* p = std::get_if<Plate>(&kind)) return p->slab.thickness_mm;
@@ -89,23 +114,24 @@ bool is_slab(const ElementKind& k) {
 // The surfaces of a placed element. Plates and crystals: faces at ±t/2 along the normal
 // (Front on the +normal side), crystals also their centre plane; dichroics: the coated face at
 // at_mm (Front) and the back face t behind it.
-int surfaces_of(const ElementKind& kind, const Placed& p, Surface out[3]) {
+int surfaces_of(const ElementKind& kind, const Vec2& at, const Vec2& normal, Surface out[3]) {
+    if (std::holds_alternative<Stage>(kind)) return 0;
     if (const auto* d = std::get_if<Dichroic>(&kind)) {
-        out[0] = {Face::Front, p.at, p.normal};
-        out[1] = {Face::Back, p.at - d->substrate.thickness_mm * p.normal, p.normal};
+        out[0] = {Face::Front, at, normal};
+        out[1] = {Face::Back, at - d->substrate.thickness_mm * normal, normal};
         return 2;
     }
     if (std::holds_alternative<Plate>(kind) || std::holds_alternative<Crystal>(kind)) {
         const double half = slab_thickness(kind) / 2.0;
-        out[0] = {Face::Front, p.at + half * p.normal, p.normal};
-        out[1] = {Face::Back, p.at - half * p.normal, p.normal};
+        out[0] = {Face::Front, at + half * normal, normal};
+        out[1] = {Face::Back, at - half * normal, normal};
         if (std::holds_alternative<Crystal>(kind)) {
-            out[2] = {Face::Centre, p.at, p.normal};
+            out[2] = {Face::Centre, at, normal};
             return 3;
         }
         return 2;
     }
-    out[0] = {Face::Only, p.at, p.normal};
+    out[0] = {Face::Only, at, normal};
     return 1;
 }
 
@@ -133,6 +159,7 @@ Vec2 reflect(const Vec2& d, const Vec2& n) { return d - 2.0 * d.dot(n) * n; }
 
 struct Medium {
     double index = 1.0, group_index = 1.0;
+    double focal_length_mm = 0;  // lenses only
 };
 
 class BeamTracer {
@@ -141,8 +168,11 @@ public:
                size_t beam)
         : layout_(layout), library_(library), placed_(placed), beam_(layout.beams[beam]) {
         path_.beam = beam;
-        const Material* air = library.find("air");
-        air_group_index_ = sample_index(*air, beam_.wavelength_nm).group_index;
+        path_.hits.reserve(24);
+        path_.segments.reserve(24);
+        air_ = library.find("air");
+        air_group_index_ = sample_index(*air_, beam_.wavelength_nm).group_index;
+        slab_cache_.resize(layout.elements.size());
         for (size_t i = 0; i < layout.elements.size(); ++i)
             if (layout.elements[i].id == layout.target) target_ = i;
     }
@@ -157,7 +187,7 @@ private:
     };
     std::optional<Candidate> nearest(const Vec2& p, const Vec2& d, double max_dist) const;
     double table_exit(const Vec2& p, const Vec2& d) const;
-    Medium slab_medium(size_t element, const Vec2& direction_inside) const;
+    Medium slab_medium(size_t element, const Vec2& direction_inside);
     void note_material(size_t element, const Material& m);
     void finding(Finding::Kind kind, size_t element, const Vec2& where, double amount,
                  std::string message) {
@@ -172,6 +202,10 @@ private:
     const MaterialLibrary& library_;
     std::vector<Placed>& placed_;
     const BeamSource& beam_;
+    const Material* air_ = nullptr;
+    // Per element, for this beam: the medium inside a slab whose index does not depend on the
+    // direction, and a thick lens's absolute group index.
+    std::vector<std::optional<Medium>> slab_cache_;
     Path path_;
     double air_group_index_ = 1.0;
     std::optional<size_t> target_;
@@ -187,15 +221,25 @@ std::optional<BeamTracer::Candidate> BeamTracer::nearest(const Vec2& p, const Ve
     for (size_t i = 0; i < layout_.elements.size(); ++i) {
         if (!placed_[i].traced) continue;
         if (inside_ && *inside_ != i) continue;  // inside a slab only its own faces count
-        Placed pl = placed_[i];
+        const Placed& pl = placed_[i];
+        // Cheap rejection: a ray that passes the element's bounding circle, or whose circle
+        // lies behind it, cannot meet its surfaces (inside a slab the faces are unbounded).
+        if (!inside_) {
+            const Vec2 to_centre = pl.at - p;
+            const double along = to_centre.dot(d);
+            const double across = to_centre.x() * d.y() - to_centre.y() * d.x();
+            if (std::abs(across) > pl.reach || along < -pl.reach) continue;
+        }
+        Surface provisional[3];
+        const Surface* s = pl.surfaces;
+        int n = pl.surface_count;
         if (pl.aim_pending) {
             // Provisional orientation: the one that would send this ray, arriving at the
             // centre, to the aimed-at element's centre.
             const Vec2 to_target = (placed_[*pl.aim_target].at - pl.at).normalized();
-            pl.normal = (to_target - d).normalized();
+            n = surfaces_of(layout_.elements[i].kind, pl.at, (to_target - d).normalized(), provisional);
+            s = provisional;
         }
-        Surface s[3];
-        const int n = surfaces_of(layout_.elements[i].kind, pl, s);
         for (int k = 0; k < n; ++k) {
             if (last_surface_ && last_surface_->first == i && last_surface_->second == s[k].face)
                 continue;
@@ -232,14 +276,10 @@ void BeamTracer::note_material(size_t element, const Material& m) {
 }
 
 // Phase and group index of the beam inside a slab, for a ray running along direction_inside.
-Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) const {
+Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
+    if (slab_cache_[element]) return *slab_cache_[element];
     const ElementKind& kind = layout_.elements[element].kind;
-    const std::string& name = std::holds_alternative<Plate>(kind)
-                                  ? std::get<Plate>(kind).slab.material
-                              : std::holds_alternative<Dichroic>(kind)
-                                  ? std::get<Dichroic>(kind).substrate.material
-                                  : std::get<Crystal>(kind).material;
-    const Material& m = *library_.find(name);
+    const Material& m = *placed_[element].material;
     const double nm = beam_.wavelength_nm;
     if (const auto* c = std::get_if<Crystal>(&kind); c && m.symmetry == Symmetry::Uniaxial) {
         // Extraordinary when the polarization lies in the plane of the optic axis and k.
@@ -253,7 +293,8 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) const {
         const bool extraordinary = c->optic_axis_horizontal ? horizontal : vertical;
         if (!extraordinary) {
             const IndexSample o = sample_index(m, nm, Axis::Ordinary);
-            return {o.index, o.group_index};
+            slab_cache_[element] = Medium{o.index, o.group_index};
+            return *slab_cache_[element];
         }
         // Internal angle of the ray to the face normal, in the table plane.
         const Vec2& n = placed_[element].normal;
@@ -266,8 +307,9 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) const {
         return {e.index, e.group_index};
     }
     const IndexSample rel = sample_index(m, nm, Axis::X);
-    const IndexSample abs = absolute_index(m, *library_.find("air"), nm, Axis::X);
-    return {rel.index, abs.group_index};
+    const IndexSample abs = absolute_index(m, *air_, nm, Axis::X);
+    slab_cache_[element] = Medium{rel.index, abs.group_index};
+    return *slab_cache_[element];
 }
 
 void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element) {
@@ -275,10 +317,9 @@ void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> n
     const size_t want = *expect_;
     expect_.reset();
     if (next_element && *next_element == want) return;
-    Surface s[3];
-    surfaces_of(layout_.elements[want].kind, placed_[want], s);
+    const Surface& s0 = placed_[want].surfaces[0];
     double dist = 0, height = 0;
-    if (cross_line(p, d, s[0], dist, height) && dist > 0) {
+    if (placed_[want].surface_count > 0 && cross_line(p, d, s0, dist, height) && dist > 0) {
         const double beyond = std::abs(height) - placed_[want].half_aperture;
         finding(Finding::Kind::MissedOptic, want, p + dist * d, beyond,
                 "misses " + id(want) + " by " + mm_text(beyond) + " mm (crosses its plane " +
@@ -331,6 +372,7 @@ Path BeamTracer::run() {
         if (pl.aim_pending) {  // the first beam to reach an aim_at mirror fixes its orientation
             pl.normal = c->surface.normal;
             pl.aim_pending = false;
+            pl.surface_count = surfaces_of(kind, pl.at, pl.normal, pl.surfaces);
         }
         const Vec2 n = c->surface.normal;
         TraceHit hit;
@@ -348,18 +390,36 @@ Path BeamTracer::run() {
 
         if (const auto* lens = std::get_if<Lens>(&kind)) {
             hit.interaction = Interaction::ThinLens;
-            const double f = lens_focal_length_mm(*lens, library_, wavelength);
+            if (!slab_cache_[e]) {  // per beam: the glass index, its group index, the focal length
+                double n = 1, ng = 1, f = 0;
+                if (const auto* ideal = std::get_if<IdealLens>(&lens->model)) {
+                    f = ideal->focal_length_mm;
+                } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
+                    n = sample_index(*pl.material, wavelength).index;
+                    f = chromatic_focal_length_mm(thin->focal_length_mm,
+                                                  sample_index(*pl.material, thin->design_wavelength_nm).index, n);
+                } else {
+                    const auto& t = std::get<ThickLens>(lens->model);
+                    n = sample_index(*pl.material, wavelength).index;
+                    ng = absolute_index(*pl.material, *air_, wavelength).group_index;
+                    f = thick_lens_properties({t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm}, n)
+                            .effective_focal_length_mm;
+                }
+                slab_cache_[e] = Medium{n, ng, f};
+            }
+            const double f = slab_cache_[e]->focal_length_mm;
+            hit.focal_length_mm = f;
+            hit.lens_index = slab_cache_[e]->index;
             const Vec2 t = perpendicular(n);
             const double along = d.dot(n);
             const double slope = d.dot(t) / std::abs(along) - c->height / f;
             d = (std::copysign(1.0, along) * n + slope * t).normalized();
             if (const auto* thick = std::get_if<ThickLens>(&lens->model)) {
-                const Material& g = *library_.find(thick->glass);
-                note_material(e, g);
+                note_material(e, *pl.material);
                 hit.lumped_glass_mm = thick->center_thickness_mm;
-                hit.lumped_group_index = absolute_index(g, *library_.find("air"), wavelength).group_index;
-            } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
-                note_material(e, *library_.find(thin->glass));
+                hit.lumped_group_index = slab_cache_[e]->group_index;
+            } else if (std::holds_alternative<ThinChromaticLens>(lens->model)) {
+                note_material(e, *pl.material);
             }
         } else if (const auto* mirror = std::get_if<Mirror>(&kind)) {
             if (d.dot(n) >= 0) {
@@ -432,11 +492,7 @@ Path BeamTracer::run() {
                     medium = next;
                     if (entering) {
                         inside_ = e;
-                        const std::string& name =
-                            dichroic ? dichroic->substrate.material
-                            : std::holds_alternative<Plate>(kind) ? std::get<Plate>(kind).slab.material
-                                                                  : std::get<Crystal>(kind).material;
-                        note_material(e, *library_.find(name));
+                        note_material(e, *pl.material);
                     } else {
                         inside_.reset();
                     }
@@ -455,27 +511,13 @@ Path BeamTracer::run() {
     if (!path_.target_hit)
         finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p, 0,
                 "never reaches the target " + layout_.target);
-    return path_;
+    return std::move(path_);
 }
 
 }  // namespace
 
-double lens_focal_length_mm(const Lens& lens, const MaterialLibrary& library, double nm) {
-    if (const auto* ideal = std::get_if<IdealLens>(&lens.model)) return ideal->focal_length_mm;
-    if (const auto* thin = std::get_if<ThinChromaticLens>(&lens.model)) {
-        const Material& g = *library.find(thin->glass);
-        return chromatic_focal_length_mm(thin->focal_length_mm,
-                                         sample_index(g, thin->design_wavelength_nm).index,
-                                         sample_index(g, nm).index);
-    }
-    const auto& t = std::get<ThickLens>(lens.model);
-    const double n = sample_index(*library.find(t.glass), nm).index;
-    return thick_lens_properties({t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm}, n)
-        .effective_focal_length_mm;
-}
-
 std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library) {
-    std::vector<Placed> placed = place(layout);
+    std::vector<Placed> placed = place(layout, library);
     std::vector<Path> paths;
     for (size_t b = 0; b < layout.beams.size(); ++b)
         paths.push_back(BeamTracer(layout, library, placed, b).run());

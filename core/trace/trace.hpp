@@ -32,8 +32,4 @@ inline constexpr size_t kMaxHitsPerBeam = 64;
 // One path per beam, in the layout's order.
 std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library);
 
-// The focal length of a lens at a wavelength (ideal: as given; chromatic thin: scaled by the
-// glass's dispersion; thick: its EFL), mm.
-double lens_focal_length_mm(const Lens& lens, const MaterialLibrary& library, double wavelength_nm);
-
 }  // namespace rv

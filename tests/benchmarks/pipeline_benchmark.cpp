@@ -27,7 +27,7 @@ void run(benchmark::State& state, bool envelope) {
         const std::vector<rv::Path> paths = rv::trace_layout(layout, library);
         rv::BeamAtTarget at[2];
         for (size_t b = 0; b < paths.size(); ++b)
-            at[b] = rv::beam_at_target(layout, paths[b], rv::propagate_path(layout, library, paths[b], options));
+            at[b] = rv::beam_at_target(layout, paths[b], rv::propagate_path(layout, paths[b], options));
         benchmark::DoNotOptimize(rv::mismatch_at_target(at[0], at[1]));
     }
 }

@@ -25,7 +25,7 @@ Traced run(const std::string& json) {
     Traced t{layout_from(json), {}, {}};
     const rv::MaterialLibrary lib = rv::material_library_for(t.layout);
     t.path = rv::trace_layout(t.layout, lib)[0];
-    t.caustic = rv::propagate_path(t.layout, lib, t.path);
+    t.caustic = rv::propagate_path(t.layout, t.path);
     return t;
 }
 // Self 1983 (Appl. Opt. 22, 658): image distance and waist after a thin lens.

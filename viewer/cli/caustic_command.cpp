@@ -16,7 +16,7 @@ int run_caustic(const std::string& path, std::ostream& out, std::ostream& err) {
     const MaterialLibrary library = material_library_for(*layout);
     out << "beam,s_mm,radius_tangential_um,radius_sagittal_um\n";
     for (const Path& p : trace_layout(*layout, library)) {
-        const Caustic c = propagate_path(*layout, library, p);
+        const Caustic c = propagate_path(*layout, p);
         for (const EnvelopeSample& e : c.envelope) {
             char line[160];
             std::snprintf(line, sizeof line, "%s,%.6f,%.4f,%.4f\n", layout->beams[p.beam].id.c_str(), e.s_mm,

@@ -31,7 +31,7 @@ int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err)
     const MaterialLibrary library = material_library_for(*layout);
     nlohmann::json doc = nlohmann::json::object();
     for (const Path& p : trace_layout(*layout, library)) {
-        const Caustic c = propagate_path(*layout, library, p);
+        const Caustic c = propagate_path(*layout, p);
         const std::string& id = layout->beams[p.beam].id;
         nlohmann::json hits = nlohmann::json::array();
         if (!options.json) out << id << " (" << layout->beams[p.beam].wavelength_nm << " nm):\n";
