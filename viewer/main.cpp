@@ -1,6 +1,7 @@
 // rendezvous: the command line (the interactive window arrives with the viewer issue).
 // Exit status: 0 success, 2 bad input or bad command line.
 #include <CLI/CLI.hpp>
+#include <cstdio>
 #include <iostream>
 
 #include "cli/commands.hpp"
@@ -80,8 +81,33 @@ int main(int argc, char** argv) {
     sweep_cmd->add_option("--steps", sweep.steps, "number of values (≥ 2)")->check(CLI::Range(2, 100000));
     sweep_cmd->add_flag("--csv", sweep.csv, "comma-separated output");
 
+    rv::cli::RenderOptions render;
+    std::string render_size = "1600x1000";
+    CLI::App* render_cmd = app.add_subcommand(
+        "render", "Render the viewer frame to PNG with no display, or the table to SVG at true scale.\n"
+                  "Example: rendezvous render layouts/sfg-bbo.json --png sfg.png --svg sfg.svg");
+    render_cmd->add_option("layout", render.layout, "layout file (JSON)");
+    render_cmd->add_flag("--demo", render.demo, "use the SFG demo built into the program");
+    render_cmd->add_option("--png", render.png, "write the frame here as PNG (atomically)");
+    render_cmd->add_option("--svg", render.svg, "write the table here as SVG (atomically)");
+    render_cmd->add_option("--size", render_size, "frame size WxH in pixels (default 1600x1000)");
+    render_cmd->add_option("--threads", render.threads, "rasterizer threads (the image is the same)")->check(CLI::Range(1, 16));
+
     try {
         app.parse(argc, argv);
+        if (*render_cmd) {
+            if (render.demo == !render.layout.empty())
+                throw CLI::ValidationError("render", "give either a layout file or --demo");
+            if (render.png.empty() && render.svg.empty())
+                throw CLI::ValidationError("render", "give --png FILE, --svg FILE or both");
+            int w = 0, h = 0;
+            char x = 0;
+            if (std::sscanf(render_size.c_str(), "%d%c%d", &w, &x, &h) != 3 || x != 'x' || w < 64 || h < 64 ||
+                w > 8192 || h > 8192)
+                throw CLI::ValidationError("--size", "expected WxH between 64x64 and 8192x8192, got \"" + render_size + "\"");
+            render.width = w;
+            render.height = h;
+        }
         if (*report_cmd && report.json && report.markdown)
             throw CLI::ValidationError("report", "--json and --markdown exclude each other");
         if (*report_cmd && report.demo == !report.layout.empty())
@@ -102,6 +128,7 @@ int main(int argc, char** argv) {
     if (*check_cmd) return rv::cli::run_check(check_layout, std::cout, std::cerr);
     if (*format_cmd) return rv::cli::run_format(format, std::cout, std::cerr);
     if (*trace_cmd) return rv::cli::run_trace(trace, std::cout, std::cerr);
+    if (*render_cmd) return rv::cli::run_render(render, std::cout, std::cerr);
     if (*balance_cmd) return rv::cli::run_balance(balance, std::cout, std::cerr);
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);

@@ -54,6 +54,15 @@ struct SweepOptions {
 // A value the sweep cannot compute is printed as nan (a beam that misses the target).
 int run_sweep(const SweepOptions& options, std::ostream& out, std::ostream& err);
 
+struct RenderOptions {
+    std::string layout;
+    bool demo = false;
+    std::string png, svg;  // at least one
+    int width = 1600, height = 1000;
+    int threads = 1;
+};
+int run_render(const RenderOptions& options, std::ostream& out, std::ostream& err);
+
 // The sampled beam radius along each path, as CSV: beam,s_mm,radius_tangential_um,radius_sagittal_um
 int run_caustic(const std::string& layout, std::ostream& out, std::ostream& err);
 

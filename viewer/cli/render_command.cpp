@@ -1,0 +1,37 @@
+// rendezvous render: the viewer frame to PNG (CPU raster, no display) or the table to SVG.
+#include <ostream>
+#include <stdexcept>
+
+#include "analysis/report.hpp"
+#include "cli/commands.hpp"
+#include "cli/load.hpp"
+#include "io/atomic_file.hpp"
+#include "io/layout_reader.hpp"
+#include "render/headless.hpp"
+#include "render/png.hpp"
+#include "scene/svg_writer.hpp"
+
+namespace rv::cli {
+
+int run_render(const RenderOptions& o, std::ostream& out, std::ostream& err) {
+    std::optional<Layout> layout = o.demo ? std::optional<Layout>(demo_layout()) : load_layout(o.layout, err);
+    if (!layout) return 2;
+    const RendezvousReport report = build_report(*layout, material_library_for(*layout));
+    const scene::Scene scene = scene::build_scene(*layout, report);
+    try {
+        if (!o.png.empty()) {
+            render::save_png(render::render_frame(report, scene, o.width, o.height, o.threads), o.png);
+            out << "wrote " << o.png << " (" << o.width << "x" << o.height << ")\n";
+        }
+        if (!o.svg.empty()) {
+            write_file_atomically(o.svg, scene::write_svg(scene));
+            out << "wrote " << o.svg << "\n";
+        }
+    } catch (const std::runtime_error& e) {
+        err << "rendezvous: error: " << e.what() << "\n";
+        return 2;
+    }
+    return 0;
+}
+
+}  // namespace rv::cli

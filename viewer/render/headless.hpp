@@ -1,0 +1,21 @@
+#pragma once
+// Rendering the viewer frame with no display and no GL: an ImGui context of its own, the font
+// atlas as a CPU texture, two frames (ImGui sizes new windows in the first), then the CPU
+// rasterizer. Never calls glfwInit.
+#include "analysis/report.hpp"
+#include "render/cpu_rasterizer.hpp"
+#include "scene/scene.hpp"
+
+struct ImGuiIO;
+
+namespace rv::render {
+
+inline constexpr const char* kUiFontPath = "/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf";
+
+// Adds the viewer's font to the atlas (before it is built).
+void load_fonts(ImGuiIO& io);
+
+Framebuffer render_frame(const RendezvousReport& report, const scene::Scene& scene, int width, int height,
+                         int threads = 1);
+
+}  // namespace rv::render

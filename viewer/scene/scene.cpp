@@ -1,0 +1,204 @@
+#include "scene/scene.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "trace/poses.hpp"
+#include "units/constants.hpp"
+
+namespace rv::scene {
+
+namespace {
+
+Vec2 perpendicular(const Vec2& v) { return {-v.y(), v.x()}; }
+
+const Colour kOptic{70, 95, 140, 255};
+const Colour kMirror{80, 80, 92, 255};
+const Colour kText{30, 30, 40, 255};
+const Colour kMarker{210, 30, 30, 255};
+const Colour kTarget{230, 120, 0, 255};
+const Colour kStage{120, 120, 130, 255};
+
+Polyline line(std::vector<Vec2> pts, Colour c, double width, bool dashed = false) {
+    return {std::move(pts), c, width, dashed, false, false, false};
+}
+Polyline box(const Vec2& centre, const Vec2& n, double depth, double half_width, Colour fill) {
+    const Vec2 t = perpendicular(n);
+    return {{centre + depth / 2 * n + half_width * t, centre + depth / 2 * n - half_width * t,
+             centre - depth / 2 * n - half_width * t, centre - depth / 2 * n + half_width * t},
+            fill, 0.3, false, true, true, false};
+}
+Polyline circle(const Vec2& c, double r, Colour col, double width) {
+    Polyline p{{}, col, width, false, true, false, false};
+    for (int i = 0; i < 32; ++i) {
+        const double a = 2 * kPi * i / 32;
+        p.points_mm.push_back(c + r * Vec2(std::cos(a), std::sin(a)));
+    }
+    return p;
+}
+
+void add_element(Scene& s, const Element& e, const ElementPose& pose) {
+    const Vec2 at = pose.at_mm, n = pose.normal, t = perpendicular(n);
+    const double a = e.aperture_mm / 2;
+    struct Symbol {
+        Scene& s;
+        const Element& e;
+        Vec2 at, n, t;
+        double a;
+        void operator()(const Lens& l) const {
+            double f = 0;
+            if (const auto* i = std::get_if<IdealLens>(&l.model)) f = i->focal_length_mm;
+            else if (const auto* c = std::get_if<ThinChromaticLens>(&l.model)) f = c->focal_length_mm;
+            else {  // the sign of the lensmaker's 1/R1 − 1/R2
+                const ThickLens& k = std::get<ThickLens>(l.model);
+                f = 1 / k.front_radius_mm - 1 / k.back_radius_mm;
+            }
+            s.shapes.push_back(line({at + a * t, at - a * t}, kOptic, 0.8));
+            // Arrowheads: outward for a converging lens, inward for a diverging one.
+            const double h = f > 0 ? 2.5 : -2.5;
+            for (double side : {1.0, -1.0}) {
+                const Vec2 tip = at + side * a * t;
+                s.shapes.push_back(line({tip - side * h * t + 2.5 * n, tip, tip - side * h * t - 2.5 * n}, kOptic, 0.6));
+            }
+        }
+        void operator()(const Mirror& m) const {
+            s.shapes.push_back(line({at + a * t, at - a * t}, kMirror, m.radius_of_curvature_mm ? 1.6 : 1.2));
+            s.shapes.push_back(line({at + a * t - 1.5 * n, at - a * t - 1.5 * n}, kMirror, 0.4, true));
+        }
+        void operator()(const Dichroic& d) const {
+            s.shapes.push_back(box(at - d.substrate.thickness_mm / 2 * n, n, d.substrate.thickness_mm, a, {160, 205, 225, 255}));
+            s.shapes.push_back(line({at + a * t, at - a * t}, {40, 120, 160, 255}, 0.6));
+        }
+        void operator()(const Plate& p) const {
+            const Colour fill = p.role == Plate::Role::Window ? Colour{200, 220, 240, 255} : Colour{215, 200, 240, 255};
+            s.shapes.push_back(box(at, n, std::max(p.slab.thickness_mm, 1.0), a, fill));
+        }
+        void operator()(const Retroreflector&) const {
+            s.shapes.push_back(line({at + a * n + a * t, at, at + a * n - a * t}, kMirror, 1.0));
+        }
+        void operator()(const Stage&) const {}
+        void operator()(const Crystal& c) const {
+            s.shapes.push_back(box(at, n, c.length_mm, a, {250, 215, 150, 255}));
+        }
+        void operator()(const Target&) const {
+            s.shapes.push_back(line({at + a * t, at - a * t}, kTarget, 0.5, true));
+        }
+        void operator()(const Dump&) const {
+            s.shapes.push_back(box(at - 5 * n, n, 10, a, {45, 45, 50, 255}));
+        }
+    };
+    std::visit(Symbol{s, e, at, n, t, a}, e.kind);
+    if (!std::holds_alternative<Stage>(e.kind)) s.labels.push_back({at + (a + 5) * t, e.id, kText, 5});
+}
+
+// The envelope of one beam: a strip ±w(s)·exaggeration about each straight segment.
+void add_envelope(Scene& s, const ReportBeam& b, Colour colour, double exaggeration) {
+    const std::vector<EnvelopeSample>& env = b.caustic.envelope;
+    double s0 = 0;
+    size_t k = 0;
+    colour.a = 70;
+    for (const TraceSegment& seg : b.path.segments) {
+        const double s1 = s0 + seg.length_mm;
+        if (seg.length_mm <= 0) continue;
+        const Vec2 d = (seg.to_mm - seg.from_mm) / seg.length_mm, across = perpendicular(d);
+        Polyline strip{{}, colour, 0, false, false, true, false};
+        std::vector<Vec2> upper, lower;
+        while (k < env.size() && env[k].s_mm < s0 - 1e-9) ++k;
+        for (size_t j = k; j < env.size() && env[j].s_mm <= s1 + 1e-9; ++j) {
+            const Vec2 c = seg.from_mm + (env[j].s_mm - s0) * d;
+            const double half = env[j].radius_tangential_um * 1e-3 * exaggeration;
+            upper.push_back(c + half * across);
+            lower.push_back(c - half * across);
+        }
+        if (upper.size() >= 2) {
+            strip.points_mm = upper;
+            strip.points_mm.insert(strip.points_mm.end(), lower.rbegin(), lower.rend());
+            strip.closed = true;
+            strip.band = true;
+            s.shapes.push_back(std::move(strip));
+        }
+        s0 = s1;
+    }
+}
+
+std::string nm_text(double nm) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.0f nm", nm);
+    return buf;
+}
+
+}  // namespace
+
+Scene build_scene(const Layout& layout, const RendezvousReport& report, const SceneOptions& options) {
+    Scene s;
+    s.width_mm = layout.table.width_mm;
+    s.height_mm = layout.table.height_mm;
+    s.grid_mm = layout.table.grid_mm;
+    s.title = layout.name;
+    s.envelope_exaggeration = options.envelope_exaggeration;
+    if (s.envelope_exaggeration <= 0) {
+        double widest_mm = 1e-3;
+        for (const ReportBeam& b : report.beams)
+            for (const EnvelopeSample& e : b.caustic.envelope) widest_mm = std::max(widest_mm, e.radius_tangential_um * 1e-3);
+        const double want = 0.04 * std::min(s.width_mm, s.height_mm) / widest_mm;
+        s.envelope_exaggeration = 1;
+        for (double f : {1.0, 2.0, 5.0, 10.0, 20.0, 50.0, 100.0, 200.0, 500.0})
+            if (f <= want) s.envelope_exaggeration = f;
+    }
+    if (options.holes)  // the first hole half a pitch from the edge (common practice)
+        for (double x = s.grid_mm / 2; x < s.width_mm; x += s.grid_mm)
+            for (double y = s.grid_mm / 2; y < s.height_mm; y += s.grid_mm) s.holes_mm.emplace_back(x, y);
+
+    std::vector<Path> paths;
+    for (const ReportBeam& b : report.beams) paths.push_back(b.path);
+    const std::vector<ElementPose> poses = element_poses(layout, paths);
+    for (size_t i = 0; i < layout.elements.size(); ++i) {
+        const Element& e = layout.elements[i];
+        if (const auto* st = std::get_if<Stage>(&e.kind)) {
+            const Vec2 axis(std::cos(deg_to_rad(st->axis_deg)), std::sin(deg_to_rad(st->axis_deg)));
+            for (const std::string& id : st->carries)
+                for (size_t j = 0; j < layout.elements.size(); ++j)
+                    if (layout.elements[j].id == id) {
+                        const Vec2 at = poses[j].at_mm + Vec2(-axis.y(), axis.x()) * (layout.elements[j].aperture_mm / 2 + 8);
+                        s.shapes.push_back(line({at + (st->travel_min_mm - st->position_mm) * axis,
+                                                 at + (st->travel_max_mm - st->position_mm) * axis}, kStage, 0.6, true));
+                        s.labels.push_back({at + 3 * Vec2(-axis.y(), axis.x()), e.id, kStage, 4});
+                    }
+            continue;
+        }
+        add_element(s, e, poses[i]);
+    }
+    if (const Element* t = layout.find(layout.target))
+        for (size_t i = 0; i < layout.elements.size(); ++i)
+            if (&layout.elements[i] == t) s.shapes.push_back(circle(poses[i].at_mm, t->aperture_mm / 2 + 4, kTarget, 0.6));
+
+    for (const ReportBeam& b : report.beams) add_envelope(s, b, beam_style(b.wavelength_nm).colour, options.envelope_exaggeration);
+    for (const ReportBeam& b : report.beams) {
+        const BeamStyle style = beam_style(b.wavelength_nm);
+        Polyline ray{{}, style.colour, 0.7, !style.visible, false, false, false};
+        for (const TraceSegment& seg : b.path.segments) {
+            if (ray.points_mm.empty() || (ray.points_mm.back() - seg.from_mm).norm() > 1e-9) {
+                if (ray.points_mm.size() >= 2) s.shapes.push_back(ray);
+                ray.points_mm = {seg.from_mm};
+            }
+            ray.points_mm.push_back(seg.to_mm);
+        }
+        if (ray.points_mm.size() >= 2) s.shapes.push_back(ray);
+        s.legend.push_back({nm_text(b.wavelength_nm) + " " + b.id + (style.visible ? "" : " (invisible, dashed)"),
+                            style.colour, !style.visible});
+        for (const Finding& f : b.path.findings)
+            if (f.kind == Finding::Kind::LeftTable || f.kind == Finding::Kind::MissedOptic ||
+                f.kind == Finding::Kind::HitBackOfOptic || f.kind == Finding::Kind::TotalInternalReflection) {
+                s.shapes.push_back(circle(f.where_mm, 6, kMarker, 0.8));
+                s.labels.push_back({f.where_mm + Vec2(7, 7), "!", kMarker, 6});
+            }
+    }
+    for (const PhaseMatchingReport& p : report.phase_matching)
+        if (p.process.rfind("SFG", 0) == 0 || report.beams.size() == 1)
+            s.legend.push_back({nm_text(p.output_nm) + " generated (" + p.process + ")", beam_style(p.output_nm).colour,
+                                !beam_style(p.output_nm).visible});
+    return s;
+}
+
+}  // namespace rv::scene

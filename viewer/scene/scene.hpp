@@ -1,0 +1,62 @@
+#pragma once
+// What the table view shows, as plain geometry in table millimetres (x right, y up): the
+// breadboard and its holes, each element's symbol and id, each beam's chief ray and its
+// Gaussian envelope, finding markers, the target, a legend and a scale bar. Built from core
+// values only; drawn by the ImGui table view (on the CPU rasterizer) and written as SVG by the
+// same description, so the raster and the vector figure agree.
+
+#include <string>
+#include <vector>
+
+#include "analysis/report.hpp"
+#include "layout/layout.hpp"
+#include "scene/wavelength_colour.hpp"
+
+namespace rv::scene {
+
+struct Polyline {
+    std::vector<Vec2> points_mm;
+    Colour colour;
+    double width_mm = 0.5;   // stroke width on the table (scaled with the view)
+    bool dashed = false;
+    bool closed = false;
+    bool filled = false;     // a closed outline filled with `colour`
+    // A band: the first half of the points runs along one edge, the second half back along the
+    // other (an envelope); it may be concave, so it is drawn as quads between the two edges.
+    bool band = false;
+};
+
+struct Label {
+    Vec2 at_mm;
+    std::string text;
+    Colour colour;
+    double height_mm = 6;
+};
+
+struct LegendEntry {
+    std::string text;
+    Colour colour;
+    bool dashed = false;
+};
+
+struct Scene {
+    double width_mm = 0, height_mm = 0, grid_mm = 25;
+    std::string title;
+    Colour table_colour{236, 238, 240, 255};
+    std::vector<Vec2> holes_mm;
+    std::vector<Polyline> shapes;   // in drawing order: elements, envelopes, beams, markers
+    std::vector<Label> labels;
+    std::vector<LegendEntry> legend;
+    double envelope_exaggeration = 20;  // the drawn half-width is w(s) × this factor
+};
+
+struct SceneOptions {
+    // The drawn half-width is w(s) × this factor; 0 picks a round factor (1, 2, 5, 10, …) that
+    // makes the widest beam about 4 % of the table's smaller side.
+    double envelope_exaggeration = 0;
+    bool holes = true;
+};
+
+Scene build_scene(const Layout& layout, const RendezvousReport& report, const SceneOptions& options = {});
+
+}  // namespace rv::scene
