@@ -1,5 +1,6 @@
 // rendezvous: the command line (the interactive window arrives with the viewer issue).
-// Exit status: 0 success, 2 bad input or bad command line.
+// Exit status: 0 success, 2 bad input or bad command line, 3 report --check found the verdict
+// not met.
 #include <CLI/CLI.hpp>
 #include <cstdio>
 #include <iostream>

@@ -8,6 +8,7 @@
 #include "nonlinear/boyd_kleinman.hpp"
 #include "nonlinear/overlap.hpp"
 #include "nonlinear/phase_matching.hpp"
+#include "trace/crystal_axes.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
 
@@ -69,18 +70,6 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
 
 double delay_of(const std::vector<ReportBeam>& b) {
     return b[0].at_target.arrival_fs - b[1].at_target.arrival_fs;
-}
-
-// The fraction of a beam's power in the crystal's A wave (see nonlinear/phase_matching.hpp):
-// the A wave is horizontally polarized when the optic-axis plane is vertical, and vice versa.
-double a_fraction(const BeamSource& b, const Crystal& c) {
-    using K = Polarization::Kind;
-    double horizontal = 0.5;
-    if (b.polarization.kind == K::Horizontal) horizontal = 1;
-    if (b.polarization.kind == K::Vertical) horizontal = 0;
-    if (b.polarization.kind == K::Linear)
-        horizontal = std::pow(std::cos(deg_to_rad(b.polarization.angle_deg)), 2);
-    return c.optic_axis_horizontal ? 1 - horizontal : horizontal;
 }
 
 std::optional<OverlapReport> overlap_of(const Layout& layout, const std::vector<ReportBeam>& b,
@@ -198,7 +187,8 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     PhaseMatchingReport r;
     r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
     r.output_nm = sum_frequency_nm(l1, l2);
-    const double a1 = a_fraction(b1, xc), a2 = a_fraction(b2, xc);
+    const double a1 = a_wave_fraction(b1.polarization, xc.optic_axis_horizontal);
+    const double a2 = a_wave_fraction(b2.polarization, xc.optic_axis_horizontal);
     const PrincipalPlane plane = xc.principal_plane;
     const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
     r.type = type_text(type);
@@ -215,36 +205,43 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
                               (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
     }
     const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
+    // Geometry (trace/crystal_axes.hpp): α the angle of k from the face normal, `rel` the same
+    // from the normal line along the travel, in (−π/2, π/2].
     const double cut = deg_to_rad(xc.cut_deg);
+    const Vec2 n = unit_at(xe.normal_deg);
     const Path& path = beams[i].path;
-    double internal = 0;  // angle of k to the face normal inside the crystal, in the table plane
-    if (path.target_hit) {
-        const Vec2 d = path.hits[*path.target_hit].direction_in;
-        const Vec2 n = unit_at(xe.normal_deg);
-        internal = std::atan2(d.dot(perpendicular(n)), std::abs(d.dot(n)));
-    }
-    const double n_a = wave_index(m, l1, w.wave1, cut, plane).index;
-    const double theta_now = xc.optic_axis_horizontal ? cut + internal
-                                                      : std::acos(std::cos(internal) * std::cos(cut));
+    const Vec2 d = path.target_hit ? path.hits[*path.target_hit].direction_in : n;
+    auto wrap_half = [](double x) {
+        while (x > kPi / 2) x -= kPi;
+        while (x <= -kPi / 2) x += kPi;
+        return x;
+    };
+    const double rel = wrap_half(std::atan2(d.dot(perpendicular(n)), d.dot(n)));
+    const double theta_now = angle_to_reference_axis_rad(n, cut, xc.optic_axis_horizontal, d);
     r.theta_now_deg = rad_to_deg(theta_now);
-    r.incidence_now_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(internal), -1.0, 1.0)));
     const double length = xc.length_mm;
     const double dk = delta_k_per_mm(m, l1, l2, type, theta_now, plane);
     r.delta_k_l = dk * length;
     const double x = r.delta_k_l / 2;
     r.sinc2_now = x == 0 ? 1 : std::pow(std::sin(x) / x, 2);
+    // Snell's law outside ↔ inside with the first input's index.
+    const double n_1 = wave_index(m, l1, w.wave1, pm.value_or(theta_now), plane).index;
+    auto external = [n_1](double internal) { return rad_to_deg(std::asin(std::clamp(n_1 * std::sin(internal), -1.0, 1.0))); };
+    r.incidence_now_deg = external(rel);
     if (!pm) return r;
     r.phase_matchable = true;
     r.theta_pm_deg = rad_to_deg(*pm);
     if (xc.optic_axis_horizontal) {
+        // |cos(α − cut)| = cos θ_pm: α = cut ± θ_pm (mod π); the turn is to the nearer one.
         r.rotation_axis = "vertical axis: a turn in the table plane, + = clockwise seen from above";
-        r.incidence_needed_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(*pm - cut), -1.0, 1.0)));
+        const double a1 = wrap_half(cut + *pm), a2 = wrap_half(cut - *pm);
+        r.incidence_needed_deg = external(std::abs(a1 - rel) <= std::abs(a2 - rel) ? a1 : a2);
     } else {
+        // |cos α| cos(cut + tilt) = cos θ_pm, the tilt out of the table plane (none yet).
         r.rotation_axis = "horizontal axis across the beam: a tilt, + = away from the optic axis";
-        const double c = std::cos(*pm) / std::cos(internal);
-        const double tilt = std::acos(std::clamp(c, -1.0, 1.0)) - cut;
-        r.incidence_now_deg = 0;  // the layout is flat: no tilt yet
-        r.incidence_needed_deg = rad_to_deg(std::asin(std::clamp(n_a * std::sin(tilt), -1.0, 1.0)));
+        const double tilt = std::acos(std::clamp(std::cos(*pm) / std::cos(rel), -1.0, 1.0)) - cut;
+        r.incidence_now_deg = 0;
+        r.incidence_needed_deg = external(tilt);
     }
     r.rotate_by_deg = r.incidence_needed_deg - r.incidence_now_deg;
     // Walk-off of the angle-dependent (B) wave: the output, or the input B wave when the
@@ -253,7 +250,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.walkoff_mrad = 1e3 * std::abs(walkoff_rad(m, b_lambda, *pm, plane));
     const Acceptance acc = acceptance(m, l1, l2, type, *pm, length, plane);
     r.angular_acceptance_internal_mrad = acc.angular_internal_fwhm_mrad;
-    r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_a;
+    r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_1;
     r.spectral_acceptance_nm = acc.spectral_fwhm_nm;
     const std::string out = shg ? "SHG" : "SFG";
     auto walk = [](double tau, double gvm) -> std::optional<double> {
@@ -303,6 +300,12 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         if (const std::string kind = invisible_kind(b.wavelength_nm); !kind.empty())
             r.invisible.push_back(fmt("%.0f nm", b.wavelength_nm) + " (" + b.id + "): " + kind);
     }
+    // Thin glass lenses carry no thickness, so their glass is missing from the timing
+    // (about 1.5–1.8 ps per mm, physics.md §7): say so where it matters, with two pulsed beams.
+    if (both && layout.beams[0].pulse_fwhm_fs > 0 && layout.beams[1].pulse_fwhm_fs > 0)
+        for (const Element& e : layout.elements)
+            if (const auto* lens = std::get_if<Lens>(&e.kind); lens && std::holds_alternative<ThinChromaticLens>(lens->model))
+                r.warnings.push_back({"thin-lens-timing", e.id + ": a thin lens adds no glass to the delay; give its radii and centre thickness to count it", e.id});
     if (both) {
         r.mismatch = mismatch_at_target(r.beams[0].at_target, r.beams[1].at_target);
         const double b1 = r.beams[0].confocal_tangential_mm + r.beams[0].confocal_sagittal_mm;
@@ -401,8 +404,10 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
                 v.time.action = "move stage " + r.stage->id + " by " + fmt("%+.3f", r.stage->move_mm) + " mm (to " +
                                 fmt("%.3f", r.stage->zero_delay_mm) + " mm)";
             else {
-                const double path_mm = std::abs(d) * kSpeedOfLight_mm_per_fs / 1.00028;
-                const std::string later = d > 0 ? r.beams[1].id : r.beams[0].id;
+                const size_t early = d > 0 ? 1 : 0;  // the beam that arrives first needs the path
+                const double ng_air = sample_index(*library.find("air"), r.beams[early].wavelength_nm).group_index;
+                const double path_mm = std::abs(d) * kSpeedOfLight_mm_per_fs / ng_air;
+                const std::string later = r.beams[early].id;
                 v.time.action = (r.stage ? "stage " + r.stage->id + " would need " + fmt("%.3f", r.stage->zero_delay_mm) +
                                                " mm, outside its travel; " : std::string()) +
                                 "add " + fmt("%.2f", path_mm) + " mm of air path to " + later;

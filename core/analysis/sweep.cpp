@@ -1,5 +1,6 @@
 #include "analysis/sweep.hpp"
 
+#include <charconv>
 #include <nlohmann/json.hpp>
 
 #include "io/layout_reader.hpp"
@@ -15,9 +16,18 @@ using nlohmann::json;
 json* locate(json& doc, const std::string& id, const std::string& field, Diagnostics& out) {
     std::string key = field;
     std::optional<size_t> index;
-    if (const size_t open = field.find('['); open != std::string::npos && field.back() == ']') {
+    if (const size_t open = field.find('['); open != std::string::npos) {
         key = field.substr(0, open);
-        index = std::stoul(field.substr(open + 1, field.size() - open - 2));
+        size_t i = 0;
+        const char* first = field.data() + open + 1;
+        const char* last = field.data() + field.size() - 1;
+        const auto [end, ec] = std::from_chars(first, last, i);
+        if (field.back() != ']' || ec != std::errc() || end != last) {
+            out.push_back({Diagnostic::Severity::Error, "", 0, 0,
+                           "expected FIELD or FIELD[INDEX] with a whole number INDEX, found \"" + field + "\""});
+            return nullptr;
+        }
+        index = i;
     }
     for (const char* list : {"beams", "elements"}) {
         for (size_t i = 0; i < doc[list].size(); ++i) {

@@ -458,6 +458,8 @@ void Reader::check_references(const json& doc, Layout& layout) {
                 error(pointer_of(e.id, "aim_at"), "no element has id \"" + *m->aim_at + "\"");
             else if (*m->aim_at == e.id)
                 error(pointer_of(e.id, "aim_at"), "a mirror cannot aim at itself");
+            else if (is_element(*m->aim_at) && std::holds_alternative<Stage>(layout.find(*m->aim_at)->kind))
+                error(pointer_of(e.id, "aim_at"), "\"" + *m->aim_at + "\" is a stage, which has no position to aim at");
         }
         if (const auto* s = std::get_if<Stage>(&e.kind)) {
             for (size_t i = 0; i < s->carries.size(); ++i) {

@@ -3,11 +3,18 @@
 #include <cmath>
 #include <complex>
 
+#include "units/constants.hpp"
+
 namespace rv {
 
 double boyd_kleinman_h(double sigma, double xi) {
+    if (!(xi > 0) || !std::isfinite(xi) || !std::isfinite(sigma)) return 0;
+    // Strong focusing, ξ > 1000: the integral tends to 2π e^{−σ} for σ > 0 (residue at τ = i),
+    // so h → π² e^{−2σ}/ξ (Boyd & Kleinman 1968, the ξ → ∞ limit).
+    if (xi > 1000) return sigma > 0 ? kPi * kPi * std::exp(-2 * sigma) / xi : kPi * kPi / xi;
     // Composite Simpson's rule; the integrand is smooth and oscillates at most σξ/π times.
-    const int n = 2 * static_cast<int>(std::ceil(200 + 40 * xi * (1 + std::abs(sigma))));
+    const double steps = std::min(2e6, std::ceil(200 + 40 * xi * (1 + std::min(std::abs(sigma), 10.0))));
+    const int n = 2 * static_cast<int>(steps);
     const double step = 2 * xi / n;
     std::complex<double> sum = 0;
     for (int k = 0; k <= n; ++k) {

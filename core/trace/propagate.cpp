@@ -100,7 +100,7 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
 
     // Samples along one segment starting at s0 with the beams (bt, bs) at its start.
     auto sample_segment = [&](const GaussianBeam& bt, const GaussianBeam& bs, double length) {
-        if (!options.sample_envelope) return;
+        if (!options.sample_envelope || !(length >= 0) || !std::isfinite(length)) return;
         const int n = std::clamp(static_cast<int>(length / options.envelope_step_mm), 1, 400);
         for (int i = 0; i <= n; ++i) {
             const double z = length * i / n;

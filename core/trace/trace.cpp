@@ -4,7 +4,8 @@
 #include <limits>
 #include <sstream>
 
-#include "materials/birefringence.hpp"
+#include "nonlinear/phase_matching.hpp"
+#include "trace/crystal_axes.hpp"
 #include "materials/dispersion.hpp"
 #include "optics/thick_lens.hpp"
 #include "units/constants.hpp"
@@ -243,6 +244,7 @@ std::optional<BeamTracer::Candidate> BeamTracer::nearest(const Vec2& p, const Ve
         for (int k = 0; k < n; ++k) {
             if (last_surface_ && last_surface_->first == i && last_surface_->second == s[k].face)
                 continue;
+            if (s[k].face == Face::Centre && !inside_) continue;  // the centre plane is inside the crystal
             double dist = 0, height = 0;
             if (!cross_line(p, d, s[k], dist, height)) continue;
             if (dist <= kEps_mm || dist > max_dist + 1e-6) continue;  // on the edge counts
@@ -281,30 +283,16 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
     const ElementKind& kind = layout_.elements[element].kind;
     const Material& m = *placed_[element].material;
     const double nm = beam_.wavelength_nm;
-    if (const auto* c = std::get_if<Crystal>(&kind); c && m.symmetry == Symmetry::Uniaxial) {
-        // Extraordinary when the polarization lies in the plane of the optic axis and k.
-        using K = Polarization::Kind;
-        const bool horizontal = beam_.polarization.kind == K::Horizontal ||
-                                (beam_.polarization.kind == K::Linear &&
-                                 std::abs(std::cos(deg_to_rad(beam_.polarization.angle_deg))) >=
-                                     std::sqrt(0.5));
-        const bool vertical = beam_.polarization.kind == K::Vertical ||
-                              (beam_.polarization.kind == K::Linear && !horizontal);
-        const bool extraordinary = c->optic_axis_horizontal ? horizontal : vertical;
-        if (!extraordinary) {
-            const IndexSample o = sample_index(m, nm, Axis::Ordinary);
-            slab_cache_[element] = Medium{o.index, o.group_index};
-            return *slab_cache_[element];
-        }
-        // Internal angle of the ray to the face normal, in the table plane.
-        const Vec2& n = placed_[element].normal;
-        const double inside = std::atan2(dir.dot(perpendicular(n)), dir.dot(n));
-        const double cut = deg_to_rad(c->cut_deg);
-        const double to_axis = c->optic_axis_horizontal
-                                   ? std::abs(inside) < kPi / 2 ? inside - cut : inside + cut
-                                   : std::acos(std::cos(inside) * std::cos(cut));
-        const IndexSample e = extraordinary_index(m, nm, to_axis);
-        return {e.index, e.group_index};
+    if (const auto* c = std::get_if<Crystal>(&kind); c && m.symmetry != Symmetry::Isotropic) {
+        // Birefringent: the A (ordinary) wave when most of the beam's power is in it, else the
+        // B wave at its angle ψ to the reference axis (trace/crystal_axes.hpp).
+        const bool a_wave = a_wave_fraction(beam_.polarization, c->optic_axis_horizontal) >= 0.5;
+        const double psi = angle_to_reference_axis_rad(placed_[element].normal, deg_to_rad(c->cut_deg),
+                                                       c->optic_axis_horizontal, dir);
+        const WaveIndex w = wave_index(m, nm, a_wave ? Polarity::A : Polarity::B, psi, c->principal_plane);
+        const Medium medium{w.index, w.group_index, 0};
+        if (a_wave) slab_cache_[element] = medium;  // the A index does not depend on the direction
+        return medium;
     }
     const IndexSample rel = sample_index(m, nm, Axis::X);
     const IndexSample abs = absolute_index(m, *air_, nm, Axis::X);
@@ -408,6 +396,12 @@ Path BeamTracer::run() {
                 slab_cache_[e] = Medium{n, ng, f};
             }
             const double f = slab_cache_[e]->focal_length_mm;
+            if (!(std::isfinite(f) && f != 0)) {
+                finding(Finding::Kind::MaterialOutOfRange, e, h, 0,
+                        "the focal length of " + id(e) + " is not a real number at " + mm_text(wavelength) +
+                            " nm (its glass's formula fails there); the ray stops");
+                break;
+            }
             hit.focal_length_mm = f;
             hit.lens_index = slab_cache_[e]->index;
             const Vec2 t = perpendicular(n);
@@ -474,6 +468,12 @@ Path BeamTracer::run() {
                     // Guess the medium from the straight-on index, refine the direction for an
                     // index that depends on it (extraordinary wave): a few fixed-point steps.
                     next = slab_medium(e, d);
+                    if (!(std::isfinite(next.index) && next.index > 0)) {
+                        finding(Finding::Kind::MaterialOutOfRange, e, h, 0,
+                                "the index of " + placed_[e].material->name + " is not a real number at " +
+                                    mm_text(wavelength) + " nm; the ray stops at " + id(e));
+                        break;
+                    }
                     for (int it = 0; it < 4; ++it) {
                         out = refract(d, n, 1.0, next.index);
                         if (!out) break;

@@ -3,6 +3,8 @@
 
 #include "analysis/calibrate.hpp"
 #include "materials/dispersion.hpp"
+#include "nonlinear/phase_matching.hpp"
+#include "units/constants.hpp"
 
 #include <cmath>
 
@@ -46,32 +48,76 @@ TEST_CASE("moving the stage to the reported zero leaves no delay", "[report][sta
 }
 
 TEST_CASE("a measured zero reading gives the emission offset the model lacks", "[report][stage]") {
+    // The offset is the model's delay with the stage at the reading: checked by a second trace
+    // with the stage moved there.
     rv::Layout l = demo();
-    const double zero = report(l).stage->zero_delay_mm;
-    std::get<rv::Stage>(element(l, "S1").kind).measured_zero_mm = zero + 0.5;
+    const double reading = report(l).stage->zero_delay_mm + 0.5;
+    std::get<rv::Stage>(element(l, "S1").kind).measured_zero_mm = reading;
     const rv::RendezvousReport r = report(l);
     REQUIRE(r.stage->emission_offset_fs);
-    CHECK_THAT(*r.stage->emission_offset_fs, near(0.5 * r.stage->delay_per_mm_fs, 1e-3));
+    rv::Layout at_reading = l;
+    std::get<rv::Stage>(element(at_reading, "S1").kind).position_mm = reading;
+    CHECK_THAT(*r.stage->emission_offset_fs, near(report(at_reading).mismatch->delay_fs, 1e-3));
 }
+
+namespace {
+// The angle between a wave vector and the optic axis of a crystal whose axis lies in the table
+// plane at `cut` counter-clockwise from its face normal, by plain vector geometry.
+double geometric_theta_deg(const rv::Element& x, double cut_deg, const rv::Vec2& k) {
+    const double nd = rv::deg_to_rad(x.normal_deg), c = rv::deg_to_rad(cut_deg);
+    const rv::Vec2 n(std::cos(nd), std::sin(nd)), t(-n.y(), n.x());
+    const rv::Vec2 axis = std::cos(c) * n + std::sin(c) * t;
+    return rv::rad_to_deg(std::acos(std::abs(k.normalized().dot(axis))));
+}
+}  // namespace
 
 TEST_CASE("turning the crystal as advised phase-matches it", "[report][phase]") {
     // Optic axis in the table plane, vertically polarized (ordinary) inputs: the advice is a
-    // turn about the vertical axis, + = clockwise seen from above (normal_deg decreases).
+    // turn about the vertical axis, + = clockwise seen from above (normal_deg decreases). The
+    // result is checked by geometry and Δk computed here, not by the report itself.
+    for (double start_deg : {0.0, 3.0, -4.0, 180.0}) {
+        CAPTURE(start_deg);
+        rv::Layout l = demo();
+        for (rv::BeamSource& b : l.beams) b.polarization.kind = rv::Polarization::Kind::Vertical;
+        auto& x = std::get<rv::Crystal>(element(l, "X").kind);
+        x.optic_axis_horizontal = true;
+        element(l, "X").normal_deg = start_deg;
+        const rv::RendezvousReport r = report(l);
+        REQUIRE(!r.phase_matching.empty());
+        const rv::PhaseMatchingReport& p = r.phase_matching.front();
+        CHECK(p.polarizations_suit);
+        element(l, "X").normal_deg -= p.rotate_by_deg;
+        const rv::RendezvousReport after = report(l);
+        const rv::ReportBeam& pump = after.beams[0];
+        REQUIRE(pump.at_target.reached);
+        const rv::Vec2 k = pump.path.hits[*pump.path.target_hit].direction_in;
+        const double theta = geometric_theta_deg(element(l, "X"), x.cut_deg, k);
+        CHECK_THAT(theta, near(p.theta_pm_deg, 2e-3));
+        const rv::Material& bbo = *rv::MaterialLibrary::builtin().find("BBO");
+        const double dkl = rv::delta_k_per_mm(bbo, 1030, 780, rv::MixingType::TypeI, rv::deg_to_rad(theta)) * x.length_mm;
+        CHECK(std::pow(std::sin(dkl / 2) / (dkl / 2), 2) > 0.999);
+        CHECK(after.verdict.phase.met);
+    }
+}
+
+TEST_CASE("the extraordinary index in the trace follows the geometric angle", "[report][crystal]") {
+    // Index ellipsoid 1/n² = cos²θ/n_o² + sin²θ/n_e² (Boyd, Nonlinear Optics §2.3) at the angle
+    // the traced ray makes with the optic axis: a horizontally polarized beam, axis in the table
+    // plane, the crystal turned so the ray refracts.
     rv::Layout l = demo();
-    for (rv::BeamSource& b : l.beams) b.polarization.kind = rv::Polarization::Kind::Vertical;
     auto& x = std::get<rv::Crystal>(element(l, "X").kind);
     x.optic_axis_horizontal = true;
+    element(l, "X").normal_deg = 8;
     const rv::RendezvousReport r = report(l);
-    REQUIRE(!r.phase_matching.empty());
-    const rv::PhaseMatchingReport& p = r.phase_matching.front();
-    CHECK(p.polarizations_suit);
-    CHECK(p.sinc2_now < 0.9);
-    CHECK_FALSE(r.verdict.phase.met);
-    element(l, "X").normal_deg -= p.rotate_by_deg;
-    const rv::RendezvousReport after = report(l);
-    CHECK_THAT(after.phase_matching.front().theta_now_deg, near(p.theta_pm_deg, 2e-3));
-    CHECK(after.phase_matching.front().sinc2_now > 0.999);
-    CHECK(after.verdict.phase.met);
+    const rv::ReportBeam& pump = r.beams[0];
+    REQUIRE(pump.at_target.reached);
+    const rv::TraceHit& hit = pump.path.hits[*pump.path.target_hit];
+    const double theta = rv::deg_to_rad(geometric_theta_deg(element(l, "X"), x.cut_deg, hit.direction_in));
+    const rv::Material& bbo = *rv::MaterialLibrary::builtin().find("BBO");
+    const double no = rv::sample_index(bbo, 1030, rv::Axis::Ordinary).index;
+    const double ne = rv::sample_index(bbo, 1030, rv::Axis::Extraordinary).index;
+    const double expected = 1 / std::sqrt(std::pow(std::cos(theta) / no, 2) + std::pow(std::sin(theta) / ne, 2));
+    CHECK_THAT(hit.index_before, near(expected, 1e-9));
 }
 
 TEST_CASE("polarizations that do not suit the type are flagged", "[report][phase]") {

@@ -34,6 +34,7 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"duplicate-id.json", {"duplicate-id.json: error: /elements/1/id: duplicate id \"L\" (first used at /elements/0/id)",
                                "duplicate-id.json: error: /target: no element has id \"T\""}},
         {"aim-at-missing.json", {"aim-at-missing.json: error: /elements/1/aim_at: no element has id \"M9\""}},
+        {"aim-at-stage.json", {"aim-at-stage.json: error: /elements/1/aim_at: \"S\" is a stage, which has no position to aim at"}},
         {"aim-and-normal.json", {"aim-and-normal.json: error: /elements/1/normal_deg: not allowed together with \"aim_at\""}},
         {"stage-carries-itself.json", {"stage-carries-itself.json: error: /elements/2/carries/0: a stage cannot carry itself"}},
         {"stage-carries-stage.json", {"stage-carries-stage.json: error: /elements/2/carries/0: a stage cannot carry another stage (\"S2\")"}},

@@ -173,7 +173,7 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
         for (size_t i = 0; i < layout.elements.size(); ++i)
             if (&layout.elements[i] == t) s.shapes.push_back(circle(poses[i].at_mm, t->aperture_mm / 2 + 4, kTarget, 0.6));
 
-    for (const ReportBeam& b : report.beams) add_envelope(s, b, beam_style(b.wavelength_nm).colour, options.envelope_exaggeration);
+    for (const ReportBeam& b : report.beams) add_envelope(s, b, beam_style(b.wavelength_nm).colour, s.envelope_exaggeration);
     for (const ReportBeam& b : report.beams) {
         const BeamStyle style = beam_style(b.wavelength_nm);
         Polyline ray{{}, style.colour, 0.7, !style.visible, false, false, false};

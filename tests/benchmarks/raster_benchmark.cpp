@@ -1,0 +1,52 @@
+// One 1600 × 1000 frame of the viewer on the SFG demo rasterized on the CPU (design budget:
+// ≤ 8 ms median on one core). Building the ImGui frame is outside the timed loop.
+//
+// Reproduce: build/release/tests/benchmarks/rendezvous_benchmarks --benchmark_filter=Raster
+//     --benchmark_repetitions=9 --benchmark_report_aggregates_only=true
+#include <benchmark/benchmark.h>
+#include <imgui.h>
+
+#include "analysis/report.hpp"
+#include "io/layout_reader.hpp"
+#include "render/cpu_rasterizer.hpp"
+#include "render/headless.hpp"
+#include "scene/scene.hpp"
+#include "ui/frame.hpp"
+
+namespace {
+
+void RasterFrame1600x1000(benchmark::State& state) {
+    const rv::Layout layout = *rv::read_layout_file(RV_SOURCE_DIR "/layouts/sfg-bbo.json").layout;
+    const rv::RendezvousReport report = rv::build_report(layout, rv::material_library_for(layout));
+    const rv::scene::Scene scene = rv::scene::build_scene(layout, report);
+    ImGui::CreateContext();
+    ImGuiIO& io = ImGui::GetIO();
+    io.IniFilename = nullptr;
+    io.DisplaySize = ImVec2(1600, 1000);
+    io.BackendFlags |= ImGuiBackendFlags_RendererHasVtxOffset;
+    ImGui::StyleColorsLight();
+    ImGui::GetStyle().AntiAliasedLinesUseTex = false;
+    rv::render::load_fonts(io);
+    unsigned char* pixels = nullptr;
+    int w = 0, h = 0;
+    io.Fonts->GetTexDataAsRGBA32(&pixels, &w, &h);
+    rv::render::Texture font{w, h, pixels};
+    io.Fonts->SetTexID(&font);
+    for (int f = 0; f < 2; ++f) {
+        ImGui::NewFrame();
+        rv::ui::draw_frame(report, scene);
+        ImGui::Render();
+    }
+    rv::render::Framebuffer fb(1600, 1000);
+    const int threads = static_cast<int>(state.range(0));
+    for (auto _ : state) {
+        fb.clear(255, 255, 255);
+        rv::render::rasterize(*ImGui::GetDrawData(), fb, {threads});
+        benchmark::DoNotOptimize(fb.rgba.data());
+    }
+    state.counters["vertices"] = ImGui::GetDrawData()->TotalVtxCount;
+    ImGui::DestroyContext();
+}
+BENCHMARK(RasterFrame1600x1000)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
+
+}  // namespace

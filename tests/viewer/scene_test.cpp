@@ -1,0 +1,127 @@
+// The table scene, its colours, the headless PNG and the SVG.
+#include <stb_image.h>
+
+#include <catch2/catch.hpp>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+
+#include "analysis/report.hpp"
+#include "io/layout_reader.hpp"
+#include "render/headless.hpp"
+#include "render/png.hpp"
+#include "scene/scene.hpp"
+#include "scene/svg_writer.hpp"
+#include "scene/wavelength_colour.hpp"
+
+using Catch::Matchers::WithinAbs;
+
+namespace {
+struct Demo {
+    rv::Layout layout;
+    rv::RendezvousReport report;
+    rv::scene::Scene scene;
+};
+Demo demo(const char* name = "sfg-bbo.json") {
+    const rv::LayoutReadResult r = rv::read_layout_file(std::string(RV_SOURCE_DIR) + "/layouts/" + name);
+    REQUIRE(r.layout);
+    Demo d{*r.layout, rv::build_report(*r.layout, rv::material_library_for(*r.layout)), {}};
+    d.scene = rv::scene::build_scene(d.layout, d.report);
+    return d;
+}
+// Pixels within a few levels of a colour.
+size_t count_colour(const unsigned char* rgba, int w, int h, rv::scene::Colour c, int tol = 6) {
+    size_t n = 0;
+    for (int i = 0; i < w * h; ++i) {
+        const unsigned char* p = rgba + 4 * i;
+        n += std::abs(p[0] - c.r) <= tol && std::abs(p[1] - c.g) <= tol && std::abs(p[2] - c.b) <= tol;
+    }
+    return n;
+}
+}  // namespace
+
+TEST_CASE("CIE 1931 colour matching by the analytic fit", "[colour]") {
+    // Wyman, Sloan & Shirley, JCGT 2(2), 2013; check values computed in physics.md §8.
+    struct Row { double nm, x, y, z; };
+    for (const Row& r : {Row{532, 0.1820, 0.8893, 0.0374}, Row{555, 0.5173, 0.9980, 0.0057},
+                         Row{633, 0.5951, 0.2350, 0.0000}}) {
+        CAPTURE(r.nm);
+        const rv::scene::Xyz c = rv::scene::cie1931_xyz(r.nm);
+        CHECK_THAT(c.x, WithinAbs(r.x, 5e-4));
+        CHECK_THAT(c.y, WithinAbs(r.y, 5e-4));
+        CHECK_THAT(c.z, WithinAbs(r.z, 5e-4));
+    }
+}
+
+TEST_CASE("beam colours: visible from the wavelength, invisible dashed", "[colour]") {
+    // 532 nm looks green (its sRGB green channel dominates); 633 nm red. Beams outside
+    // 400–700 nm are drawn dashed in false colours (physics.md §8: common practice), two
+    // infrared wavelengths in different ones.
+    const rv::scene::BeamStyle green = rv::scene::beam_style(532);
+    CHECK(green.visible);
+    CHECK(green.colour.g > green.colour.r);
+    CHECK(green.colour.g > green.colour.b);
+    const rv::scene::BeamStyle red = rv::scene::beam_style(633);
+    CHECK(red.colour.r > red.colour.g);
+    CHECK_FALSE(rv::scene::beam_style(1030).visible);
+    CHECK_FALSE(rv::scene::beam_style(355).visible);
+    const rv::scene::Colour a = rv::scene::beam_style(780).colour, b = rv::scene::beam_style(1030).colour;
+    CHECK(std::abs(a.r - b.r) + std::abs(a.g - b.g) + std::abs(a.b - b.b) > 60);
+}
+
+TEST_CASE("the scene labels every optic and draws every beam", "[scene]") {
+    const Demo d = demo();
+    for (const rv::Element& e : d.layout.elements) {
+        if (std::holds_alternative<rv::Stage>(e.kind)) continue;
+        bool labelled = false;
+        for (const rv::scene::Label& l : d.scene.labels) labelled = labelled || l.text == e.id;
+        CAPTURE(e.id);
+        CHECK(labelled);
+    }
+    for (const rv::BeamSource& b : d.layout.beams) {
+        const rv::scene::Colour c = rv::scene::beam_style(b.wavelength_nm).colour;
+        size_t rays = 0;
+        for (const rv::scene::Polyline& p : d.scene.shapes)
+            rays += !p.filled && p.dashed && p.colour.r == c.r && p.colour.g == c.g && p.colour.b == c.b;
+        CAPTURE(b.id);
+        CHECK(rays >= 1);
+    }
+    REQUIRE(d.scene.legend.size() == 3);
+    CHECK(d.scene.legend[2].text == "444 nm generated (SFG of pump + signal)");
+    CHECK(d.scene.holes_mm.size() == 36 * 24);  // 900 × 600 mm on a 25 mm grid
+}
+
+TEST_CASE("the headless frame is a PNG with the beams in it", "[render]") {
+    const Demo d = demo();
+    const rv::render::Framebuffer fb = rv::render::render_frame(d.report, d.scene, 800, 500);
+    const std::vector<std::uint8_t> png = rv::render::encode_png(fb);
+    int w = 0, h = 0, channels = 0;
+    unsigned char* pixels = stbi_load_from_memory(png.data(), static_cast<int>(png.size()), &w, &h, &channels, 4);
+    REQUIRE(pixels != nullptr);
+    CHECK(w == 800);
+    CHECK(h == 500);
+    CHECK(count_colour(pixels, w, h, rv::scene::beam_style(1030).colour) > 10);
+    CHECK(count_colour(pixels, w, h, rv::scene::beam_style(780).colour) > 10);
+    CHECK(count_colour(pixels, w, h, rv::scene::Colour{255, 255, 255, 255}, 0) < static_cast<size_t>(w * h) / 2);
+    stbi_image_free(pixels);
+}
+
+TEST_CASE("the SVG opens in a real renderer and shows the beams", "[render][svg]") {
+    // Debian's rsvg-convert (librsvg) renders the file; the table is drawn at 1 unit = 1 mm.
+    const Demo d = demo();
+    const std::string svg = rv::scene::write_svg(d.scene);
+    CHECK(svg.find("width=\"940.000mm\" height=\"680.000mm\"") != std::string::npos);
+    const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-svg-test";
+    std::filesystem::create_directories(dir);
+    { std::ofstream(dir / "demo.svg") << svg; }
+    const std::string cmd = "rsvg-convert -w 1880 -o '" + (dir / "demo.png").string() + "' '" + (dir / "demo.svg").string() + "'";
+    REQUIRE(std::system(cmd.c_str()) == 0);
+    int w = 0, h = 0, channels = 0;
+    unsigned char* pixels = stbi_load((dir / "demo.png").c_str(), &w, &h, &channels, 4);
+    REQUIRE(pixels != nullptr);
+    CHECK(w == 1880);
+    CHECK(h == 1360);  // 2 px per mm: the aspect ratio of the drawing in mm
+    CHECK(count_colour(pixels, w, h, rv::scene::beam_style(1030).colour, 12) > 30);
+    stbi_image_free(pixels);
+    std::filesystem::remove_all(dir);
+}
