@@ -6,6 +6,8 @@
 #include <iostream>
 
 #include "cli/commands.hpp"
+#include "cli/load.hpp"
+#include "window/window.hpp"
 
 int main(int argc, char** argv) {
     CLI::App app{"Rendezvous: plan two-colour beam combining (focus, size, timing, phase matching).",
@@ -94,6 +96,17 @@ int main(int argc, char** argv) {
     render_cmd->add_option("--size", render_size, "frame size WxH in pixels (default 1600x1000)");
     render_cmd->add_option("--threads", render.threads, "rasterizer threads (the image is the same)")->check(CLI::Range(1, 16));
 
+    std::string view_layout;
+    rv::window::WindowOptions window_options;
+    CLI::App* view_cmd = app.add_subcommand(
+        "view", "Open the interactive window on a layout (the SFG demo without one).\n"
+                "Drag to pan, wheel to zoom about the cursor, F or a double click to fit.\n"
+                "Example: rendezvous view layouts/pump-probe.json   (or simply: rendezvous LAYOUT.json)");
+    view_cmd->add_option("layout", view_layout, "layout file (JSON)");
+    view_cmd->add_option("--quit-after-frames", window_options.quit_after_frames, "close after N frames (for tests)");
+    std::string bare_layout;
+    app.add_option("file", bare_layout, "a layout file to open in the window (the same as `view FILE`)");
+
     try {
         app.parse(argc, argv);
         if (*render_cmd) {
@@ -130,6 +143,13 @@ int main(int argc, char** argv) {
     if (*format_cmd) return rv::cli::run_format(format, std::cout, std::cerr);
     if (*trace_cmd) return rv::cli::run_trace(trace, std::cout, std::cerr);
     if (*render_cmd) return rv::cli::run_render(render, std::cout, std::cerr);
+    if (*view_cmd || !bare_layout.empty()) {
+        const std::string path = *view_cmd ? view_layout : bare_layout;
+        std::optional<rv::Layout> layout = path.empty() ? std::optional<rv::Layout>(rv::cli::demo_layout())
+                                                        : rv::cli::load_layout(path, std::cerr);
+        if (!layout) return 2;
+        return rv::window::run_window(*layout, path.empty() ? "demo" : path, window_options, std::cerr);
+    }
     if (*balance_cmd) return rv::cli::run_balance(balance, std::cout, std::cerr);
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);

@@ -67,6 +67,9 @@ TEST_CASE("beam colours: visible from the wavelength, invisible dashed", "[colou
     CHECK_FALSE(rv::scene::beam_style(355).visible);
     const rv::scene::Colour a = rv::scene::beam_style(780).colour, b = rv::scene::beam_style(1030).colour;
     CHECK(std::abs(a.r - b.r) + std::abs(a.g - b.g) + std::abs(a.b - b.b) > 60);
+    // The window test (tests/viewer/window_test.sh) looks for these two on screen.
+    CHECK((int(b.r) == 0x99 && int(b.g) == 0x2A && int(b.b) == 0x07));
+    CHECK((int(a.r) == 0xBD && int(a.g) == 0x0A && int(a.b) == 0x5D));
 }
 
 TEST_CASE("the scene labels every optic and draws every beam", "[scene]") {

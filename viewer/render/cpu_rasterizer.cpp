@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstring>
 #include <thread>
 
 namespace rv::render {
@@ -135,6 +136,29 @@ bool fill_rectangle(const ImDrawVert* v, const ImDrawIdx* idx, const Texture* te
     const Rgba col = unpack(a.col);
     const bool flat_uv = a.uv.x == c.uv.x && a.uv.y == c.uv.y;
     const Rgba texel0 = sample(tex, a.uv.x, a.uv.y);
+    if (flat_uv && px0 < px1) {
+        // One colour over the whole rectangle: blend it once per pixel with no sampling, and
+        // fill opaque ones as 32-bit words (the window backgrounds are most of every frame).
+        const int r = mul255(col.r, texel0.r), g = mul255(col.g, texel0.g), b = mul255(col.b, texel0.b);
+        const int alpha = mul255(col.a, texel0.a);
+        if (alpha <= 0) return true;
+        if (alpha >= 255) {
+            std::uint32_t word;
+            const std::uint8_t bytes[4] = {static_cast<std::uint8_t>(r), static_cast<std::uint8_t>(g),
+                                           static_cast<std::uint8_t>(b), 255};
+            std::memcpy(&word, bytes, 4);
+            for (int y = py0; y < py1; ++y) {
+                std::uint8_t* row = &fb.rgba[(static_cast<size_t>(y) * fb.width + px0) * 4];
+                for (int x = px0; x < px1; ++x, row += 4) std::memcpy(row, &word, 4);
+            }
+            return true;
+        }
+        for (int y = py0; y < py1; ++y) {
+            std::uint8_t* row = &fb.rgba[(static_cast<size_t>(y) * fb.width) * 4];
+            for (int x = px0; x < px1; ++x) blend(row + x * 4, r, g, b, alpha);
+        }
+        return true;
+    }
     // Texture coordinates at pixel centres, linear across the rectangle.
     const float du = (c.pos.x != a.pos.x) ? (c.uv.x - a.uv.x) / (c.pos.x - a.pos.x) : 0;
     const float dv = (c.pos.y != a.pos.y) ? (c.uv.y - a.uv.y) / (c.pos.y - a.pos.y) : 0;
@@ -187,12 +211,10 @@ void rasterize_band(const ImDrawData& data, Framebuffer& fb, int band_y0, int ba
 }  // namespace
 
 void Framebuffer::clear(std::uint8_t r, std::uint8_t g, std::uint8_t b, std::uint8_t a) {
-    for (size_t i = 0; i < rgba.size(); i += 4) {
-        rgba[i] = r;
-        rgba[i + 1] = g;
-        rgba[i + 2] = b;
-        rgba[i + 3] = a;
-    }
+    std::uint32_t word;
+    const std::uint8_t bytes[4] = {r, g, b, a};
+    std::memcpy(&word, bytes, 4);
+    for (size_t i = 0; i < rgba.size(); i += 4) std::memcpy(&rgba[i], &word, 4);
 }
 
 void rasterize(const ImDrawData& data, Framebuffer& fb, const RasterOptions& options) {

@@ -1,0 +1,103 @@
+// All GL code of the program is in this file.
+#include "window/window.hpp"
+
+#include <GLFW/glfw3.h>
+#include <backends/imgui_impl_glfw.h>
+#include <imgui.h>
+
+#include <ostream>
+
+#include "analysis/report.hpp"
+#include "io/layout_reader.hpp"
+#include "render/cpu_rasterizer.hpp"
+#include "render/headless.hpp"
+#include "scene/scene.hpp"
+#include "ui/frame.hpp"
+
+namespace rv::window {
+
+int run_window(const Layout& layout, const std::string& title, const WindowOptions& options, std::ostream& err) {
+    if (!glfwInit()) {
+        err << "rendezvous: error: cannot open a window (no display?); use `rendezvous render` for files\n";
+        return 2;
+    }
+    glfwWindowHint(GLFW_CONTEXT_VERSION_MAJOR, 2);
+    glfwWindowHint(GLFW_CONTEXT_VERSION_MINOR, 1);
+    GLFWwindow* window = glfwCreateWindow(options.width, options.height, ("Rendezvous — " + title).c_str(), nullptr, nullptr);
+    if (!window) {
+        glfwTerminate();
+        err << "rendezvous: error: cannot create a window with an OpenGL 2.1 context\n";
+        return 2;
+    }
+    glfwMakeContextCurrent(window);
+    glfwSwapInterval(1);
+
+    const RendezvousReport report = build_report(layout, material_library_for(layout));
+    const scene::Scene scene = scene::build_scene(layout, report);
+    ui::ViewerState state;
+
+    IMGUI_CHECKVERSION();
+    ImGui::CreateContext();
+    ImGuiIO& io = ImGui::GetIO();
+    io.IniFilename = nullptr;
+    io.BackendFlags |= ImGuiBackendFlags_RendererHasVtxOffset;
+    ImGui::StyleColorsLight();
+    ImGui::GetStyle().AntiAliasedLinesUseTex = false;
+    render::load_fonts(io);
+    unsigned char* pixels = nullptr;
+    int tw = 0, th = 0;
+    io.Fonts->GetTexDataAsRGBA32(&pixels, &tw, &th);
+    render::Texture font{tw, th, pixels};
+    io.Fonts->SetTexID(&font);
+    ImGui_ImplGlfw_InitForOther(window, true);
+
+    GLuint texture = 0;
+    glGenTextures(1, &texture);
+    int tex_w = 0, tex_h = 0;
+    for (int frame = 0; !glfwWindowShouldClose(window); ++frame) {
+        if (options.quit_after_frames > 0 && frame >= options.quit_after_frames) break;
+        glfwPollEvents();
+        ImGui_ImplGlfw_NewFrame();
+        ImGui::NewFrame();
+        ui::draw_frame(report, scene, &state);
+        ImGui::Render();
+        int fw = 0, fh = 0;
+        glfwGetFramebufferSize(window, &fw, &fh);
+        if (fw <= 0 || fh <= 0) continue;
+        render::Framebuffer fb(fw, fh);
+        fb.clear(255, 255, 255);
+        rasterize(*ImGui::GetDrawData(), fb, {options.threads});
+        glBindTexture(GL_TEXTURE_2D, texture);
+        if (fw != tex_w || fh != tex_h) {
+            glTexParameteri(GL_TEXTURE_2D, GL_TEXTURE_MIN_FILTER, GL_NEAREST);
+            glTexParameteri(GL_TEXTURE_2D, GL_TEXTURE_MAG_FILTER, GL_NEAREST);
+            glTexImage2D(GL_TEXTURE_2D, 0, GL_RGBA, fw, fh, 0, GL_RGBA, GL_UNSIGNED_BYTE, fb.rgba.data());
+            tex_w = fw;
+            tex_h = fh;
+        } else {
+            glTexSubImage2D(GL_TEXTURE_2D, 0, 0, 0, fw, fh, GL_RGBA, GL_UNSIGNED_BYTE, fb.rgba.data());
+        }
+        glViewport(0, 0, fw, fh);
+        glMatrixMode(GL_PROJECTION);
+        glLoadIdentity();
+        glOrtho(0, 1, 1, 0, -1, 1);  // the buffer's first row at the top
+        glMatrixMode(GL_MODELVIEW);
+        glLoadIdentity();
+        glEnable(GL_TEXTURE_2D);
+        glBegin(GL_QUADS);
+        glTexCoord2f(0, 0), glVertex2f(0, 0);
+        glTexCoord2f(1, 0), glVertex2f(1, 0);
+        glTexCoord2f(1, 1), glVertex2f(1, 1);
+        glTexCoord2f(0, 1), glVertex2f(0, 1);
+        glEnd();
+        glfwSwapBuffers(window);
+    }
+    glDeleteTextures(1, &texture);
+    ImGui_ImplGlfw_Shutdown();
+    ImGui::DestroyContext();
+    glfwDestroyWindow(window);
+    glfwTerminate();
+    return 0;
+}
+
+}  // namespace rv::window
