@@ -541,10 +541,19 @@ void line_and_column(std::string_view text, size_t byte, int& line, int& column)
     }
 }
 
+std::string too_large(std::uintmax_t bytes) {
+    return "the file has " + std::to_string(bytes) + " bytes; a layout may have at most " +
+           std::to_string(kMaxLayoutBytes) + " (16 MiB)";
+}
+
 }  // namespace
 
 LayoutReadResult read_layout(std::string_view text) {
     LayoutReadResult result;
+    if (text.size() > kMaxLayoutBytes) {
+        result.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, too_large(text.size())});
+        return result;
+    }
     json doc;
     try {
         doc = json::parse(text.begin(), text.end(), nullptr, true, false);
@@ -560,6 +569,10 @@ LayoutReadResult read_layout(std::string_view text) {
 }
 
 LayoutReadResult read_layout_file(const std::filesystem::path& path) {
+    std::error_code ec;
+    const std::uintmax_t size = std::filesystem::file_size(path, ec);
+    if (!ec && size > kMaxLayoutBytes)  // refused before reading: memory stays bounded
+        return {std::nullopt, {{Diagnostic::Severity::Error, "", 0, 0, too_large(size)}}};
     std::ifstream in(path, std::ios::binary);
     if (!in) {
         return {std::nullopt,

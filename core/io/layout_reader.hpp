@@ -13,6 +13,9 @@
 
 namespace rv {
 
+// Larger inputs are refused unread (a table of thousands of optics is far below this).
+inline constexpr std::size_t kMaxLayoutBytes = 16u << 20;
+
 struct LayoutReadResult {
     std::optional<Layout> layout;
     Diagnostics diagnostics;

@@ -2,6 +2,7 @@
 #include "io/layout_reader.hpp"
 
 #include <filesystem>
+#include <fstream>
 
 #include "support/tolerance.hpp"
 
@@ -90,4 +91,21 @@ TEST_CASE("a thick lens from a named shape gets radii from the lensmaker equatio
     const double n = 1.5168;
     CHECK_THAT(b.front_radius_mm, rv::test::near((n - 1) * 50 * (1 + std::sqrt(1 - 6 / (n * 50))), 5e-3));
     CHECK_THAT(b.back_radius_mm, rv::test::near(-b.front_radius_mm, 1e-12));
+}
+
+TEST_CASE("a file over 16 MiB is refused before it is read", "[reader]") {
+    const std::filesystem::path big = std::filesystem::temp_directory_path() / "rv-big-layout.json";
+    {
+        std::ofstream out(big, std::ios::binary);
+        out << "{\"format\": \"rendezvous-layout\", \"name\": \"";
+        const std::string block(1 << 20, 'x');
+        for (int i = 0; i < 17; ++i) out << block;
+        out << "\"}";
+    }
+    const rv::LayoutReadResult r = rv::read_layout_file(big);
+    std::filesystem::remove(big);
+    REQUIRE(r.diagnostics.size() == 1);
+    CHECK_FALSE(r.layout);
+    CHECK(rv::format_diagnostic(r.diagnostics[0], "big.json") ==
+          "big.json: error: the file has 17825835 bytes; a layout may have at most 16777216 (16 MiB)");
 }
