@@ -109,11 +109,17 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         }
     };
 
+    struct SegmentStart {
+        double s_mm, length_mm;
+        GaussianBeam t, s;
+    };
+    std::vector<SegmentStart> segment_starts;
     for (size_t i = 0; i < path.segments.size(); ++i) {
         const TraceSegment& seg = path.segments[i];
         t.index = seg.index;
         s.index = seg.index;
         sample_segment(t, s, seg.length_mm);
+        if (options.sample_envelope) segment_starts.push_back({s0, seg.length_mm, t, s});
         t = propagate(t, free_space(seg.length_mm));
         s = propagate(s, free_space(seg.length_mm));
         s0 += seg.length_mm;
@@ -147,21 +153,19 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         out.target_waist_offset_sagittal_mm = locate_waist_mm(layout, path, k, out.target_sagittal, Plane::Sagittal);
     }
 
-    // Denser samples around the target: ±3 Rayleigh ranges, from the target state, kept
-    // between the hits either side of it (beyond them other matrices apply).
+    // Denser samples around the target: `samples_near_target` points over ±3 Rayleigh ranges,
+    // taken from the state at the start of each segment that overlaps that window (so the
+    // samples follow the beam through the crystal's faces and any other element there).
     if (out.reaches_target && options.sample_envelope) {
-        const size_t k_target = *path.target_hit;
-        const double zr = std::min(rayleigh_range_mm(out.target_tangential),
-                                   rayleigh_range_mm(out.target_sagittal));
-        const double lo = std::max(-3 * zr, (k_target > 0 ? path.hits[k_target - 1].s_mm : 0.0) - target_s);
-        const double hi = std::min(3 * zr, k_target + 1 < path.hits.size()
-                                               ? path.hits[k_target + 1].s_mm - target_s : 3 * zr);
-        const int n = options.samples_near_target;
-        for (int k = 0; k < n; ++k) {
-            const double z = lo + (hi - lo) * k / (n - 1);
-            out.envelope.push_back({target_s + z,
-                                    radius_um(propagate(out.target_tangential, free_space(z))),
-                                    radius_um(propagate(out.target_sagittal, free_space(z)))});
+        const double zr = std::min(rayleigh_range_mm(out.target_tangential), rayleigh_range_mm(out.target_sagittal));
+        const double lo = target_s - 3 * zr, hi = target_s + 3 * zr;
+        const double step = (hi - lo) / (options.samples_near_target - 1);
+        for (const SegmentStart& seg : segment_starts) {
+            const double a = std::max(lo, seg.s_mm), b = std::min(hi, seg.s_mm + seg.length_mm);
+            for (double x = lo + std::ceil((a - lo) / step) * step; x <= b; x += step) {
+                const double z = x - seg.s_mm;
+                out.envelope.push_back({x, radius_um(propagate(seg.t, free_space(z))), radius_um(propagate(seg.s, free_space(z)))});
+            }
         }
         std::stable_sort(out.envelope.begin(), out.envelope.end(),
                          [](const EnvelopeSample& a, const EnvelopeSample& b) { return a.s_mm < b.s_mm; });

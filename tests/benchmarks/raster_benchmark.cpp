@@ -34,7 +34,7 @@ void RasterFrame1600x1000(benchmark::State& state) {
     io.Fonts->SetTexID(&font);
     for (int f = 0; f < 2; ++f) {
         ImGui::NewFrame();
-        rv::ui::draw_frame(report, scene);
+        rv::ui::draw_frame(layout, report, scene);
         ImGui::Render();
     }
     rv::render::Framebuffer fb(1600, 1000);

@@ -96,7 +96,7 @@ TEST_CASE("the scene labels every optic and draws every beam", "[scene]") {
 
 TEST_CASE("the headless frame is a PNG with the beams in it", "[render]") {
     const Demo d = demo();
-    const rv::render::Framebuffer fb = rv::render::render_frame(d.report, d.scene, 800, 500);
+    const rv::render::Framebuffer fb = rv::render::render_frame(d.layout, d.report, d.scene, 800, 500);
     const std::vector<std::uint8_t> png = rv::render::encode_png(fb);
     int w = 0, h = 0, channels = 0;
     unsigned char* pixels = stbi_load_from_memory(png.data(), static_cast<int>(png.size()), &w, &h, &channels, 4);

@@ -20,7 +20,7 @@ int run_render(const RenderOptions& o, std::ostream& out, std::ostream& err) {
     const scene::Scene scene = scene::build_scene(*layout, report);
     try {
         if (!o.png.empty()) {
-            render::save_png(render::render_frame(report, scene, o.width, o.height, o.threads), o.png);
+            render::save_png(render::render_frame(*layout, report, scene, o.width, o.height, o.threads), o.png);
             out << "wrote " << o.png << " (" << o.width << "x" << o.height << ")\n";
         }
         if (!o.svg.empty()) {

@@ -14,8 +14,8 @@ void load_fonts(ImGuiIO& io) {
     if (!io.Fonts->AddFontFromFileTTF(kUiFontPath, 15.0f, nullptr, ranges)) io.Fonts->AddFontDefault();
 }
 
-Framebuffer render_frame(const RendezvousReport& report, const scene::Scene& scene, int width, int height,
-                         int threads) {
+Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
+                         int width, int height, int threads) {
     ImGuiContext* previous = ImGui::GetCurrentContext();
     ImGuiContext* context = ImGui::CreateContext();
     ImGui::SetCurrentContext(context);
@@ -34,7 +34,7 @@ Framebuffer render_frame(const RendezvousReport& report, const scene::Scene& sce
     io.Fonts->SetTexID(&font);
     for (int frame = 0; frame < 2; ++frame) {
         ImGui::NewFrame();
-        ui::draw_frame(report, scene);
+        ui::draw_frame(layout, report, scene);
         ImGui::Render();
     }
     Framebuffer fb(width, height);

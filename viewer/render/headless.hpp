@@ -15,7 +15,7 @@ inline constexpr const char* kUiFontPath = "/usr/share/fonts/truetype/dejavu/Dej
 // Adds the viewer's font to the atlas (before it is built).
 void load_fonts(ImGuiIO& io);
 
-Framebuffer render_frame(const RendezvousReport& report, const scene::Scene& scene, int width, int height,
-                         int threads = 1);
+Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
+                         int width, int height, int threads = 1);
 
 }  // namespace rv::render

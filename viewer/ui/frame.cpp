@@ -4,6 +4,7 @@
 
 #include <cmath>
 
+#include "ui/plots.hpp"
 #include "ui/report_panel.hpp"
 #include "ui/table_view.hpp"
 
@@ -40,7 +41,7 @@ View interact(const View& fitted, ViewerState& state) {
 
 }  // namespace
 
-void draw_frame(const RendezvousReport& report, const scene::Scene& scene, ViewerState* state) {
+void draw_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene, ViewerState* state) {
     const ImGuiViewport* vp = ImGui::GetMainViewport();
     ImGui::SetNextWindowPos(vp->Pos);
     ImGui::SetNextWindowSize(vp->Size);
@@ -50,12 +51,22 @@ void draw_frame(const RendezvousReport& report, const scene::Scene& scene, Viewe
     ImGui::Text("%s", scene.title.c_str());
     const float panel = 380;
     const ImVec2 avail = ImGui::GetContentRegionAvail();
-    ImGui::BeginChild("table", ImVec2(avail.x - panel, avail.y), true);
+    ImGui::BeginGroup();
+    const float plots = std::floor(avail.y * 0.3f);
+    ImGui::BeginChild("table", ImVec2(avail.x - panel, avail.y - plots), true);
     const ImVec2 origin = ImGui::GetCursorScreenPos();
     const ImVec2 size = ImGui::GetContentRegionAvail();
     const View fitted = fit_view(origin, size, scene.width_mm, scene.height_mm);
     draw_table(ImGui::GetWindowDrawList(), scene, state ? interact(fitted, *state) : fitted);
     ImGui::EndChild();
+    ImGui::BeginChild("plots", ImVec2(avail.x - panel, 0), true);
+    const ImVec2 p0 = ImGui::GetCursorScreenPos();
+    const ImVec2 ps = ImGui::GetContentRegionAvail();
+    const float half = std::floor(ps.x / 2);
+    draw_caustic_plot(ImGui::GetWindowDrawList(), p0, ImVec2(half - 4, ps.y), report);
+    draw_timing_plot(ImGui::GetWindowDrawList(), ImVec2(p0.x + half + 4, p0.y), ImVec2(ps.x - half - 4, ps.y), layout, report);
+    ImGui::EndChild();
+    ImGui::EndGroup();
     ImGui::SameLine();
     ImGui::BeginChild("report", ImVec2(0, avail.y), true);
     draw_report_panel(report);

@@ -17,6 +17,7 @@ struct ViewerState {
 
 // Draws one frame; with a state, the table view pans (drag), zooms about the cursor (wheel)
 // and fits again on F or a double click.
-void draw_frame(const RendezvousReport& report, const scene::Scene& scene, ViewerState* state = nullptr);
+void draw_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
+                ViewerState* state = nullptr);
 
 }  // namespace rv::ui

@@ -59,7 +59,7 @@ int run_window(const Layout& layout, const std::string& title, const WindowOptio
         glfwPollEvents();
         ImGui_ImplGlfw_NewFrame();
         ImGui::NewFrame();
-        ui::draw_frame(report, scene, &state);
+        ui::draw_frame(layout, report, scene, &state);
         ImGui::Render();
         int fw = 0, fh = 0;
         glfwGetFramebufferSize(window, &fw, &fh);

@@ -1,0 +1,42 @@
+#include "ui/plot_axes.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace rv::ui {
+
+double nice_step(double span, int count) {
+    const double raw = span / std::max(count, 1);
+    const double p = std::pow(10.0, std::floor(std::log10(raw)));
+    for (double m : {1.0, 2.0, 5.0, 10.0})
+        if (m * p >= raw) return m * p;
+    return 10 * p;
+}
+
+PlotAxes draw_axes(ImDrawList* draw, ImVec2 origin, ImVec2 size, double x0, double x1, double y0, double y1,
+                   const std::string& x_label, const std::string& y_label, const std::string& title) {
+    const ImU32 ink = IM_COL32(40, 40, 50, 255), grid = IM_COL32(220, 222, 226, 255);
+    PlotAxes a{ImVec2(origin.x + 52, origin.y + 22), ImVec2(origin.x + size.x - 12, origin.y + size.y - 34), x0, x1, y0, y1};
+    draw->AddRectFilled(origin, ImVec2(origin.x + size.x, origin.y + size.y), IM_COL32(255, 255, 255, 255));
+    draw->AddText(ImVec2(origin.x + 8, origin.y + 3), ink, title.c_str());
+    char buf[32];
+    const double sx = nice_step(x1 - x0, 6), sy = nice_step(y1 - y0, 4);
+    for (double x = std::ceil(x0 / sx) * sx; x <= x1 + 1e-9 * sx; x += sx) {
+        const ImVec2 p = a.to_screen(x, y0);
+        draw->AddLine(ImVec2(p.x, a.min_px.y), ImVec2(p.x, a.max_px.y), grid);
+        std::snprintf(buf, sizeof buf, "%g", std::abs(x) < 1e-12 * sx ? 0.0 : x);
+        draw->AddText(ImVec2(p.x - 10, a.max_px.y + 3), ink, buf);
+    }
+    for (double y = std::ceil(y0 / sy) * sy; y <= y1 + 1e-9 * sy; y += sy) {
+        const ImVec2 p = a.to_screen(x0, y);
+        draw->AddLine(ImVec2(a.min_px.x, p.y), ImVec2(a.max_px.x, p.y), grid);
+        std::snprintf(buf, sizeof buf, "%g", y);
+        draw->AddText(ImVec2(origin.x + 4, p.y - 7), ink, buf);
+    }
+    draw->AddRect(a.min_px, a.max_px, ink);
+    draw->AddText(ImVec2(a.max_px.x - 8.0f * x_label.size(), a.max_px.y + 16), ink, x_label.c_str());
+    draw->AddText(ImVec2(a.min_px.x + 4, a.min_px.y + 2), ink, y_label.c_str());
+    return a;
+}
+
+}  // namespace rv::ui

@@ -1,0 +1,94 @@
+#include "ui/plots.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "scene/wavelength_colour.hpp"
+#include "ui/plot_axes.hpp"
+
+namespace rv::ui {
+
+namespace {
+ImU32 beam_colour(double nm, int alpha = 255) {
+    const scene::Colour c = scene::beam_style(nm).colour;
+    return IM_COL32(c.r, c.g, c.b, alpha);
+}
+}  // namespace
+
+void draw_caustic_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const RendezvousReport& r) {
+    double range = 0, top = 0;
+    for (const ReportBeam& b : r.beams)
+        if (b.at_target.reached) range = std::max(range, 3 * std::max(b.at_target.tangential.rayleigh_mm, b.at_target.sagittal.rayleigh_mm));
+    if (range <= 0) {
+        draw_axes(draw, origin, size, -1, 1, 0, 1, "mm from the target", "radius um", "Caustic: no beam reaches the target");
+        return;
+    }
+    range = std::max(range, r.crystal_length_mm);
+    for (const ReportBeam& b : r.beams) {
+        if (!b.at_target.reached) continue;
+        for (const EnvelopeSample& e : b.caustic.envelope)
+            if (std::abs(e.s_mm - b.at_target.path_mm) <= range)
+                top = std::max({top, e.radius_tangential_um, e.radius_sagittal_um});
+    }
+    const PlotAxes a = draw_axes(draw, origin, size, -range, range, 0, 1.1 * top, "mm from the target centre",
+                                 "radius um", "Caustic near the target (t solid, s dashed)");
+    draw->PushClipRect(a.min_px, a.max_px, true);
+    if (r.target_is_crystal) {
+        const ImVec2 p0 = a.to_screen(-r.crystal_length_mm / 2, 1.1 * top), p1 = a.to_screen(r.crystal_length_mm / 2, 0);
+        draw->AddRectFilled(p0, p1, IM_COL32(250, 215, 150, 110));
+    }
+    for (const ReportBeam& b : r.beams) {
+        if (!b.at_target.reached) continue;
+        for (int plane = 0; plane < 2; ++plane) {
+            std::vector<ImVec2> pts;
+            for (const EnvelopeSample& e : b.caustic.envelope) {
+                const double z = e.s_mm - b.at_target.path_mm;
+                if (std::abs(z) <= range) pts.push_back(a.to_screen(z, plane ? e.radius_sagittal_um : e.radius_tangential_um));
+            }
+            if (plane == 0) {
+                draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), beam_colour(b.wavelength_nm), ImDrawFlags_None, 2.0f);
+            } else {
+                for (size_t i = 0; i + 1 < pts.size(); i += 2) draw->AddLine(pts[i], pts[i + 1], beam_colour(b.wavelength_nm), 1.5f);
+            }
+        }
+        // Waist markers and the Rayleigh range around each (tangential plane).
+        const PlaneAtTarget& t = b.at_target.tangential;
+        const ImVec2 w = a.to_screen(t.waist_offset_mm, t.waist_um);
+        draw->AddCircleFilled(w, 4, beam_colour(b.wavelength_nm));
+        const ImVec2 l = a.to_screen(t.waist_offset_mm - t.rayleigh_mm, t.waist_um * std::sqrt(2.0));
+        const ImVec2 rr = a.to_screen(t.waist_offset_mm + t.rayleigh_mm, t.waist_um * std::sqrt(2.0));
+        draw->AddLine(l, rr, beam_colour(b.wavelength_nm, 140), 1.0f);
+    }
+    draw->PopClipRect();
+}
+
+void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout& layout, const RendezvousReport& r) {
+    if (r.beams.size() < 2 || !r.mismatch || layout.beams[0].pulse_fwhm_fs <= 0 || layout.beams[1].pulse_fwhm_fs <= 0) {
+        draw_axes(draw, origin, size, -1, 1, 0, 1, "fs", "", "Timing: two pulsed beams at the target needed");
+        return;
+    }
+    const double d = r.mismatch->delay_fs;  // beam 1 − beam 2: beam 2 arrives at t0 − d
+    const double tau1 = layout.beams[0].pulse_fwhm_fs, tau2 = layout.beams[1].pulse_fwhm_fs;
+    const double span = std::max(2 * std::hypot(tau1, tau2), std::abs(d) + 1.5 * std::max(tau1, tau2));
+    const double centre = -d / 2;
+    char title[128];
+    std::snprintf(title, sizeof title, "Pulses at the target: delay %+.1f fs", d);
+    const PlotAxes a = draw_axes(draw, origin, size, centre - span, centre + span, 0, 1.1,
+                                 "fs from the first beam's arrival", "intensity", title);
+    draw->PushClipRect(a.min_px, a.max_px, true);
+    const double arrivals[2] = {0, -d};
+    const double taus[2] = {tau1, tau2};
+    for (int k = 0; k < 2; ++k) {
+        std::vector<ImVec2> pts;
+        for (int i = 0; i <= 400; ++i) {
+            const double t = centre - span + 2 * span * i / 400;
+            const double x = (t - arrivals[k]) / taus[k];
+            pts.push_back(a.to_screen(t, std::exp(-4 * std::log(2.0) * x * x)));
+        }
+        draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), beam_colour(r.beams[k].wavelength_nm), ImDrawFlags_None, 2.0f);
+    }
+    draw->PopClipRect();
+}
+
+}  // namespace rv::ui
