@@ -11,11 +11,7 @@
 using rv::test::near;
 
 namespace {
-rv::Layout demo() {
-    const rv::LayoutReadResult r = rv::read_layout_file(std::string(RV_SOURCE_DIR) + "/layouts/sfg-bbo.json");
-    REQUIRE(r.layout);
-    return *r.layout;
-}
+rv::Layout demo() { return rv::test::bundled_layout("sfg-bbo.json"); }
 rv::Stage& stage(rv::Layout& l) {
     for (rv::Element& e : l.elements)
         if (auto* s = std::get_if<rv::Stage>(&e.kind)) return *s;

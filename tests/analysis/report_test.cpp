@@ -14,11 +14,7 @@ using rv::test::layout_from;
 using rv::test::near;
 
 namespace {
-rv::Layout demo() {
-    const rv::LayoutReadResult r = rv::read_layout_file(std::string(RV_SOURCE_DIR) + "/layouts/sfg-bbo.json");
-    REQUIRE(r.layout);
-    return *r.layout;
-}
+rv::Layout demo() { return rv::test::bundled_layout("sfg-bbo.json"); }
 rv::RendezvousReport report(const rv::Layout& l) { return rv::build_report(l, rv::material_library_for(l)); }
 rv::Element& element(rv::Layout& l, const std::string& id) {
     for (rv::Element& e : l.elements)

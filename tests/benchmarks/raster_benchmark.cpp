@@ -20,18 +20,9 @@ void RasterFrame1600x1000(benchmark::State& state) {
     const rv::RendezvousReport report = rv::build_report(layout, rv::material_library_for(layout));
     const rv::scene::Scene scene = rv::scene::build_scene(layout, report);
     ImGui::CreateContext();
-    ImGuiIO& io = ImGui::GetIO();
-    io.IniFilename = nullptr;
-    io.DisplaySize = ImVec2(1600, 1000);
-    io.BackendFlags |= ImGuiBackendFlags_RendererHasVtxOffset;
-    ImGui::StyleColorsLight();
-    ImGui::GetStyle().AntiAliasedLinesUseTex = false;
-    rv::render::load_fonts(io);
-    unsigned char* pixels = nullptr;
-    int w = 0, h = 0;
-    io.Fonts->GetTexDataAsRGBA32(&pixels, &w, &h);
-    rv::render::Texture font{w, h, pixels};
-    io.Fonts->SetTexID(&font);
+    rv::render::Texture font;
+    rv::render::configure_context(font);
+    ImGui::GetIO().DisplaySize = ImVec2(1600, 1000);
     for (int f = 0; f < 2; ++f) {
         ImGui::NewFrame();
         rv::ui::draw_frame(layout, report, scene);

@@ -2,18 +2,14 @@
 #include "materials/dispersion.hpp"
 
 #include "materials/material_library.hpp"
-#include "support/tolerance.hpp"
+#include "support/layouts.hpp"
 #include "units/constants.hpp"
 
 using rv::test::near;
 using rv::test::near_rel;
 
 namespace {
-const rv::Material& material(const char* name) {
-    const rv::Material* m = rv::MaterialLibrary::builtin().find(name);
-    REQUIRE(m != nullptr);
-    return *m;
-}
+using rv::test::material;
 }  // namespace
 
 TEST_CASE("GVD of fused silica and N-BK7 at 800 nm against published values", "[dispersion]") {

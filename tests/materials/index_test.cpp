@@ -1,16 +1,12 @@
 // Refractive indices of the built-in dispersion sets.
 #include "materials/dispersion.hpp"
 #include "materials/material_library.hpp"
-#include "support/tolerance.hpp"
+#include "support/layouts.hpp"
 
 using rv::test::near;
 
 namespace {
-const rv::Material& material(const char* name) {
-    const rv::Material* m = rv::MaterialLibrary::builtin().find(name);
-    REQUIRE(m != nullptr);
-    return *m;
-}
+using rv::test::material;
 double n_at(const char* name, double nm, rv::Axis axis = rv::Axis::X) {
     return rv::sample_index(material(name), nm, axis).index;
 }

@@ -2,17 +2,13 @@
 #include "nonlinear/phase_matching.hpp"
 
 #include "materials/material_library.hpp"
-#include "support/tolerance.hpp"
+#include "support/layouts.hpp"
 #include "units/constants.hpp"
 
 using rv::test::near;
 
 namespace {
-const rv::Material& crystal(const char* name) {
-    const rv::Material* m = rv::MaterialLibrary::builtin().find(name);
-    REQUIRE(m != nullptr);
-    return *m;
-}
+const rv::Material& crystal(const char* name) { return rv::test::material(name); }
 double pm_deg(const char* set, double l1, double l2, rv::MixingType t = rv::MixingType::TypeI) {
     const auto a = rv::phase_matching_angle_rad(crystal(set), l1, l2, t);
     REQUIRE(a.has_value());

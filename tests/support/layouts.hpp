@@ -22,4 +22,18 @@ inline std::string layout_json(const std::string& beams, const std::string& elem
            target + "\"}";
 }
 
+// A layout from the layouts/ folder, read cleanly.
+inline Layout bundled_layout(const std::string& file) {
+    const LayoutReadResult r = read_layout_file(std::string(RV_SOURCE_DIR) + "/layouts/" + file);
+    REQUIRE(r.layout.has_value());
+    return *r.layout;
+}
+
+// A built-in material by the name a file would use.
+inline const Material& material(const char* name) {
+    const Material* m = MaterialLibrary::builtin().find(name);
+    REQUIRE(m != nullptr);
+    return *m;
+}
+
 }  // namespace rv::test

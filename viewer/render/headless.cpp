@@ -14,24 +14,29 @@ void load_fonts(ImGuiIO& io) {
     if (!io.Fonts->AddFontFromFileTTF(kUiFontPath, 15.0f, nullptr, ranges)) io.Fonts->AddFontDefault();
 }
 
-Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
-                         int width, int height, int threads) {
-    ImGuiContext* previous = ImGui::GetCurrentContext();
-    ImGuiContext* context = ImGui::CreateContext();
-    ImGui::SetCurrentContext(context);
+void configure_context(Texture& font) {
     ImGuiIO& io = ImGui::GetIO();
     io.IniFilename = nullptr;
-    io.DisplaySize = ImVec2(static_cast<float>(width), static_cast<float>(height));
-    io.DeltaTime = 1.0f / 60.0f;
     io.BackendFlags |= ImGuiBackendFlags_RendererHasVtxOffset;
     ImGui::StyleColorsLight();
     ImGui::GetStyle().AntiAliasedLinesUseTex = false;  // lines as polygons: no bilinear sampling needed
     load_fonts(io);
     unsigned char* pixels = nullptr;
-    int tw = 0, th = 0;
-    io.Fonts->GetTexDataAsRGBA32(&pixels, &tw, &th);
-    Texture font{tw, th, pixels};
+    io.Fonts->GetTexDataAsRGBA32(&pixels, &font.width, &font.height);
+    font.rgba = pixels;
     io.Fonts->SetTexID(&font);
+}
+
+Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
+                         int width, int height, int threads) {
+    ImGuiContext* previous = ImGui::GetCurrentContext();
+    ImGuiContext* context = ImGui::CreateContext();
+    ImGui::SetCurrentContext(context);
+    Texture font;
+    configure_context(font);
+    ImGuiIO& io = ImGui::GetIO();
+    io.DisplaySize = ImVec2(static_cast<float>(width), static_cast<float>(height));
+    io.DeltaTime = 1.0f / 60.0f;
     for (int frame = 0; frame < 2; ++frame) {
         ImGui::NewFrame();
         ui::draw_frame(layout, report, scene);

@@ -15,6 +15,11 @@ inline constexpr const char* kUiFontPath = "/usr/share/fonts/truetype/dejavu/Dej
 // Adds the viewer's font to the atlas (before it is built).
 void load_fonts(ImGuiIO& io);
 
+// Sets up the current ImGui context as the viewer uses it: no ini file, vertex offsets for
+// large meshes, the light style, lines as polygons, the font atlas baked into `font` and
+// handed to ImGui as its texture (`font` must outlive the context).
+void configure_context(Texture& font);
+
 Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
                          int width, int height, int threads = 1);
 

@@ -38,17 +38,8 @@ int run_window(const Layout& layout, const std::string& title, const WindowOptio
 
     IMGUI_CHECKVERSION();
     ImGui::CreateContext();
-    ImGuiIO& io = ImGui::GetIO();
-    io.IniFilename = nullptr;
-    io.BackendFlags |= ImGuiBackendFlags_RendererHasVtxOffset;
-    ImGui::StyleColorsLight();
-    ImGui::GetStyle().AntiAliasedLinesUseTex = false;
-    render::load_fonts(io);
-    unsigned char* pixels = nullptr;
-    int tw = 0, th = 0;
-    io.Fonts->GetTexDataAsRGBA32(&pixels, &tw, &th);
-    render::Texture font{tw, th, pixels};
-    io.Fonts->SetTexID(&font);
+    render::Texture font;
+    render::configure_context(font);
     ImGui_ImplGlfw_InitForOther(window, true);
 
     GLuint texture = 0;
