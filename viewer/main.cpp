@@ -66,6 +66,15 @@ int main(int argc, char** argv) {
     calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->required();
     calibrate_cmd->add_option("--write", calibrate.output, "the new layout file (written atomically)")->required();
 
+    rv::cli::SolveCommandOptions solve;
+    CLI::App* solve_cmd = app.add_subcommand(
+        "solve", "Choose stock lenses and positions for the layout's goals.solve; rank the solutions.\n"
+                 "Example: rendezvous solve mine.json --write mine-solved.json");
+    solve_cmd->add_option("layout", solve.layout, "layout file (JSON)")->required();
+    solve_cmd->add_option("--catalog", solve.catalog, "lens catalog (default: the built-in generic one)");
+    solve_cmd->add_option("--top", solve.top, "how many solutions to list")->check(CLI::Range(1, 100));
+    solve_cmd->add_option("--write", solve.output, "write the best solution here (atomically)");
+
     rv::cli::BalanceOptions balance;
     CLI::App* balance_cmd = app.add_subcommand(
         "balance", "Put the stage where the delay is zero; say what fixed path to add when it cannot.\n"
@@ -150,6 +159,7 @@ int main(int argc, char** argv) {
         if (!layout) return 2;
         return rv::window::run_window(*layout, path.empty() ? "demo" : path, window_options, std::cerr);
     }
+    if (*solve_cmd) return rv::cli::run_solve(solve, std::cout, std::cerr);
     if (*balance_cmd) return rv::cli::run_balance(balance, std::cout, std::cerr);
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);

@@ -105,7 +105,23 @@ std::optional<Layout> Reader::read(const json& doc) {
             vr.finish({"max_waist_offset_rayleigh", "max_waist_ratio", "max_lateral_offset_radius",
                        "max_delay_xcorr", "min_phase_factor", "max_goal_waist_error"});
         }
-        g.finish({"waist_um", "verdict"});
+        if (const json* sv = g.object("solve", Need::Optional)) {
+            FieldReader sr(*sv, "/goals/solve", "the solver goals", out_);
+            SolveGoals sg;
+            const std::string aim = sr.choice("aim", Need::Optional, {"waist", "equal-confocal", "focus"}).value_or("waist");
+            sg.aim = aim == "equal-confocal" ? SolveGoals::Aim::EqualConfocal
+                     : aim == "focus"        ? SolveGoals::Aim::Focus
+                                             : SolveGoals::Aim::Waist;
+            if (const json* mv = sr.object("move", Need::Optional)) {
+                FieldReader mr(*mv, "/goals/solve/move", "the moves", out_);
+                for (const auto& item : mv->items())
+                    if (const auto range = mr.interval(item.key(), Need::Required)) sg.move.emplace_back(item.key(), *range);
+            }
+            sg.swap = sr.strings("swap", Need::Optional).value_or(std::vector<std::string>{});
+            sr.finish({"aim", "move", "swap"});
+            layout.goals.solve = sg;
+        }
+        g.finish({"waist_um", "verdict", "solve"});
     }
     root.finish({"format", "version", "name", "table", "materials", "beams", "elements", "target",
                  "goals"});
@@ -487,6 +503,22 @@ void Reader::check_references(const json& doc, Layout& layout) {
                    !std::holds_alternative<Target>(t->kind)) {
             error("/target", "expected the id of a crystal or a target, found the " +
                                  std::string(type_name(t->kind)) + " \"" + layout.target + "\"");
+        }
+    }
+    if (layout.goals.solve) {
+        for (const auto& [id, range] : layout.goals.solve->move) {
+            (void)range;
+            const std::string ptr = child_pointer("/goals/solve/move", id);
+            if (!index_of.count(id)) error(ptr, "no element has id \"" + id + "\"");
+            else if (is_element(id) && std::holds_alternative<Stage>(layout.find(id)->kind))
+                error(ptr, "\"" + id + "\" is a stage; move it with its position_mm");
+        }
+        for (size_t i = 0; i < layout.goals.solve->swap.size(); ++i) {
+            const std::string& id = layout.goals.solve->swap[i];
+            const std::string ptr = child_pointer("/goals/solve/swap", i);
+            if (!index_of.count(id)) error(ptr, "no element has id \"" + id + "\"");
+            else if (is_element(id) && !std::holds_alternative<Lens>(layout.find(id)->kind))
+                error(ptr, "\"" + id + "\" is not a lens; only lenses can be swapped");
         }
     }
     for (const auto& [beam, waist] : layout.goals.waist_um) {

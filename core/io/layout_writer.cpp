@@ -193,6 +193,19 @@ std::string write_layout(const Layout& layout) {
     if (t.min_phase_factor != d.min_phase_factor) v["min_phase_factor"] = num(t.min_phase_factor);
     if (t.max_goal_waist_error != d.max_goal_waist_error) v["max_goal_waist_error"] = num(t.max_goal_waist_error);
     if (!v.empty()) goals["verdict"] = v;
+    if (layout.goals.solve) {
+        const SolveGoals& sg = *layout.goals.solve;
+        ojson j = ojson::object();
+        if (sg.aim == SolveGoals::Aim::EqualConfocal) j["aim"] = "equal-confocal";
+        if (sg.aim == SolveGoals::Aim::Focus) j["aim"] = "focus";
+        if (!sg.move.empty()) {
+            ojson m = ojson::object();
+            for (const auto& [id, r] : sg.move) m[id] = pair(r.first, r.second);
+            j["move"] = m;
+        }
+        if (!sg.swap.empty()) j["swap"] = sg.swap;
+        goals["solve"] = j;
+    }
     if (!goals.empty()) root["goals"] = goals;
 
     std::string out = "{\n";

@@ -191,9 +191,23 @@ struct VerdictThresholds {
     bool operator==(const VerdictThresholds&) const = default;
 };
 
+// What `rendezvous solve` may change and what it aims at (goals.solve in the file).
+struct SolveGoals {
+    // All aims put each waist at the target centre; waist: also goals.waist_um per beam;
+    // equal-confocal: also b1 = b2; focus: nothing more.
+    enum class Aim { Waist, EqualConfocal, Focus };
+    Aim aim = Aim::Waist;
+    // Elements that may move along the beam at them, with the range of the move in mm
+    // (relative to where they are now).
+    std::vector<std::pair<std::string, std::pair<double, double>>> move;
+    std::vector<std::string> swap;  // lenses that may be replaced by any lens of the catalog
+    bool operator==(const SolveGoals&) const = default;
+};
+
 struct Goals {
     std::vector<std::pair<std::string, double>> waist_um;  // beam id → wanted waist radius
     VerdictThresholds verdict;
+    std::optional<SolveGoals> solve;
     bool operator==(const Goals&) const = default;
 };
 

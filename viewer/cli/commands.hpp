@@ -38,6 +38,14 @@ struct CalibrateOptions {
 // Records a measured zero-delay stage reading: writes a new layout (see analysis/calibrate.hpp).
 int run_calibrate(const CalibrateOptions& options, std::ostream& out, std::ostream& err);
 
+struct SolveCommandOptions {
+    std::string layout;
+    std::string catalog;  // "" = the built-in generic catalog
+    std::string output;   // write the best solution here
+    int top = 5;
+};
+int run_solve(const SolveCommandOptions& options, std::ostream& out, std::ostream& err);
+
 struct BalanceOptions {
     std::string layout;
     std::string output;  // "" = print only

@@ -1,6 +1,6 @@
-# Writes a C++ file holding the SFG demo layout as a raw string, so `report --demo` works
-# from any folder.
+# Writes a C++ file holding a bundled JSON file as a raw string (the SFG demo, the lens
+# catalog), so the program works from any folder. INPUT, OUTPUT and FUNCTION are given.
 file(READ "${INPUT}" content)
-file(WRITE "${OUTPUT}" "// Generated from layouts/sfg-bbo.json by viewer/cli/embed_demo.cmake.\n"
+file(WRITE "${OUTPUT}" "// Generated from ${INPUT} by viewer/cli/embed_demo.cmake.\n"
   "#include \"cli/load.hpp\"\n"
-  "const char* rv::cli::demo_layout_text() {\n    return R\"rvjson(${content})rvjson\";\n}\n")
+  "const char* rv::cli::${FUNCTION}() {\n    return R\"rvjson(${content})rvjson\";\n}\n")

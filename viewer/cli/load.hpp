@@ -15,4 +15,7 @@ std::optional<Layout> load_layout(const std::string& path, std::ostream& err);
 Layout demo_layout();
 const char* demo_layout_text();
 
+// layouts/lenses.json, built into the program: the solver's default catalog.
+const char* lens_catalog_text();
+
 }  // namespace rv::cli

@@ -1,0 +1,71 @@
+#include "io/lens_catalog.hpp"
+
+#include <fstream>
+#include <nlohmann/json.hpp>
+#include <sstream>
+
+#include "io/field_reader.hpp"
+#include "layout/lens_shape.hpp"
+#include "materials/dispersion.hpp"
+
+namespace rv {
+
+CatalogReadResult read_lens_catalog(const std::filesystem::path& path, const MaterialLibrary& library) {
+    CatalogReadResult out;
+    std::ifstream in(path, std::ios::binary);
+    if (!in) {
+        out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, "cannot open the lens catalog for reading"});
+        return out;
+    }
+    std::ostringstream text;
+    text << in.rdbuf();
+    return parse_lens_catalog(text.str(), library);
+}
+
+CatalogReadResult parse_lens_catalog(std::string_view text, const MaterialLibrary& library) {
+    CatalogReadResult out;
+    nlohmann::json doc;
+    try {
+        doc = nlohmann::json::parse(text.begin(), text.end());
+    } catch (const nlohmann::json::parse_error& e) {
+        out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, std::string("syntax error: ") + e.what()});
+        return out;
+    }
+    FieldReader root(doc, "", "a lens catalog", out.diagnostics);
+    if (const auto f = root.string("format", Need::Required); f && *f != "rendezvous-lens-catalog")
+        root.error("format", "expected \"rendezvous-lens-catalog\", found \"" + *f + "\"");
+    const nlohmann::json* lenses = root.array("lenses", Need::Required);
+    if (!lenses) return out;
+    for (size_t i = 0; i < lenses->size(); ++i) {
+        const nlohmann::json& item = (*lenses)[i];
+        FieldReader f(item, child_pointer("/lenses", i), "a catalog lens", out.diagnostics);
+        const auto id = f.string("id", Need::Required);
+        const auto kind = f.choice("kind", Need::Required, {"singlet", "achromat", "concave-mirror"});
+        const auto focal = f.number("focal_length_mm", Need::Required, non_zero());
+        const auto diameter = f.number("diameter_mm", Need::Required, positive());
+        if (!id || !kind || !focal || !diameter || *kind == "concave-mirror") continue;
+        CatalogLens c{*id, *focal, *diameter, Lens{IdealLens{*focal}}};
+        if (*kind == "singlet") {
+            const auto glass = f.string("glass", Need::Required);
+            const auto shape = f.choice("shape", Need::Required, lens_shape_names());
+            const auto t = f.number("center_thickness_mm", Need::Required, positive());
+            const double design = f.number("design_wavelength_nm", Need::Optional, positive()).value_or(587.6);
+            const Material* g = glass ? library.find(*glass) : nullptr;
+            if (!g || !shape || !t) {
+                if (glass && !g) f.error("glass", "unknown material \"" + *glass + "\"");
+                continue;
+            }
+            std::string why;
+            const auto radii = radii_for_shape(*shape, *focal, *t, sample_index(*g, design).index, &why);
+            if (!radii) {
+                f.error("focal_length_mm", "no " + *shape + " lens has this focal length: " + why);
+                continue;
+            }
+            c.lens = Lens{ThickLens{radii->front_radius_mm, radii->back_radius_mm, *t, *glass, *shape, *focal, design}};
+        }
+        out.lenses.push_back(std::move(c));
+    }
+    return out;
+}
+
+}  // namespace rv

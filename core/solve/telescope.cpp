@@ -1,0 +1,229 @@
+#include "solve/telescope.hpp"
+
+#include <unsupported/Eigen/NonLinearOptimization>
+#include <unsupported/Eigen/NumericalDiff>
+
+#include <algorithm>
+#include <cmath>
+#include <thread>
+
+#include "analysis/target_summary.hpp"
+#include "trace/propagate.hpp"
+#include "trace/trace.hpp"
+
+namespace rv {
+
+namespace {
+
+struct Problem {
+    const Layout& base;
+    const MaterialLibrary& library;
+    std::vector<size_t> move_index;
+    std::vector<Vec2> move_direction;
+    std::vector<std::pair<double, double>> move_range;
+    std::vector<size_t> swap_index;
+    std::vector<double> goal_um;  // per beam, 0 = none
+    SolveGoals::Aim aim;
+};
+
+double move_of(const Problem& p, size_t k, double u) {
+    const double mid = (p.move_range[k].first + p.move_range[k].second) / 2;
+    const double half = (p.move_range[k].second - p.move_range[k].first) / 2;
+    return mid + half * std::sin(u);
+}
+
+Layout apply(const Problem& p, const std::vector<const CatalogLens*>& choice, const Eigen::VectorXd& u) {
+    Layout l = p.base;
+    for (size_t k = 0; k < p.swap_index.size(); ++k) {
+        Element& e = l.elements[p.swap_index[k]];
+        e.kind = choice[k]->lens;
+        e.aperture_mm = choice[k]->diameter_mm;
+    }
+    for (size_t k = 0; k < p.move_index.size(); ++k)
+        l.elements[p.move_index[k]].at_mm += move_of(p, k, u[static_cast<Eigen::Index>(k)]) * p.move_direction[k];
+    return l;
+}
+
+std::vector<BeamAtTarget> evaluate(const Layout& l, const MaterialLibrary& library) {
+    PropagationOptions o;
+    o.sample_envelope = false;
+    std::vector<BeamAtTarget> out;
+    for (const Path& path : trace_layout(l, library)) out.push_back(beam_at_target(l, path, propagate_path(l, path, o)));
+    return out;
+}
+
+constexpr double kMissed = 1e3;  // residual of a beam that misses the target
+
+Eigen::VectorXd residuals(const Problem& p, const std::vector<BeamAtTarget>& at, Eigen::Index size) {
+    Eigen::VectorXd r = Eigen::VectorXd::Zero(size);
+    Eigen::Index i = 0;
+    auto push = [&](double v) {
+        if (i < size) r[i++] = v;
+    };
+    for (size_t b = 0; b < at.size(); ++b) {
+        const BeamAtTarget& t = at[b];
+        for (const PlaneAtTarget* pl : {&t.tangential, &t.sagittal})
+            push(t.reached ? pl->waist_offset_mm / pl->rayleigh_mm : kMissed);
+        if (p.aim == SolveGoals::Aim::Waist && p.goal_um[b] > 0)
+            for (const PlaneAtTarget* pl : {&t.tangential, &t.sagittal})
+                push(t.reached ? (pl->waist_um - p.goal_um[b]) / p.goal_um[b] : kMissed);
+    }
+    if (p.aim == SolveGoals::Aim::EqualConfocal && at.size() >= 2) {
+        const bool ok = at[0].reached && at[1].reached;
+        push(ok ? (at[0].tangential.rayleigh_mm - at[1].tangential.rayleigh_mm) /
+                      (at[0].tangential.rayleigh_mm + at[1].tangential.rayleigh_mm) : kMissed);
+        push(ok ? (at[0].sagittal.rayleigh_mm - at[1].sagittal.rayleigh_mm) /
+                      (at[0].sagittal.rayleigh_mm + at[1].sagittal.rayleigh_mm) : kMissed);
+    }
+    return r;
+}
+
+Eigen::Index residual_count(const Problem& p, size_t beams) {
+    Eigen::Index n = 2 * static_cast<Eigen::Index>(beams);
+    if (p.aim == SolveGoals::Aim::Waist)
+        for (double g : p.goal_um) n += g > 0 ? 2 : 0;
+    if (p.aim == SolveGoals::Aim::EqualConfocal) n += 2;
+    return n;
+}
+
+struct Functor {
+    using Scalar = double;
+    using InputType = Eigen::VectorXd;
+    using ValueType = Eigen::VectorXd;
+    using JacobianType = Eigen::MatrixXd;
+    enum { InputsAtCompileTime = Eigen::Dynamic, ValuesAtCompileTime = Eigen::Dynamic };
+    const Problem* p;
+    const std::vector<const CatalogLens*>* choice;
+    Eigen::Index n_inputs, n_values;
+    int inputs() const { return static_cast<int>(n_inputs); }
+    int values() const { return static_cast<int>(n_values); }
+    int operator()(const Eigen::VectorXd& u, Eigen::VectorXd& f) const {
+        f = residuals(*p, evaluate(apply(*p, *choice, u), p->library), n_values);
+        return 0;
+    }
+};
+
+TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLens*>& choice) {
+    const size_t beams = p.base.beams.size();
+    const Eigen::Index n = static_cast<Eigen::Index>(p.move_index.size());
+    const Eigen::Index m = std::max(residual_count(p, beams), n);
+    Eigen::VectorXd u = Eigen::VectorXd::Zero(n);
+    for (Eigen::Index k = 0; k < n; ++k) {  // start from no move when the range allows it
+        const auto [lo, hi] = p.move_range[static_cast<size_t>(k)];
+        u[k] = lo <= 0 && 0 <= hi ? std::asin(std::clamp((0 - (lo + hi) / 2) / ((hi - lo) / 2), -1.0, 1.0)) : 0;
+    }
+    if (n > 0) {
+        Functor f{&p, &choice, n, m};
+        Eigen::NumericalDiff<Functor> diff(f);
+        Eigen::LevenbergMarquardt<Eigen::NumericalDiff<Functor>> lm(diff);
+        lm.parameters.maxfev = 60 * static_cast<int>(n + 1);
+        lm.parameters.xtol = 1e-12;
+        lm.parameters.ftol = 1e-14;
+        lm.minimize(u);
+    }
+    TelescopeSolution s;
+    s.layout = apply(p, choice, u);
+    const std::vector<BeamAtTarget> at = evaluate(s.layout, p.library);
+    s.residual = residuals(p, at, m).norm();
+    for (size_t k = 0; k < p.swap_index.size(); ++k) s.swaps.emplace_back(p.base.elements[p.swap_index[k]].id, choice[k]->id);
+    for (Eigen::Index k = 0; k < n; ++k) {
+        const double move = move_of(p, static_cast<size_t>(k), u[k]);
+        s.moves_mm.emplace_back(p.base.elements[p.move_index[static_cast<size_t>(k)]].id, move);
+        s.total_move_mm += std::abs(move);
+        // Sensitivity: waist-offset change per mm of this move.
+        Layout nudged = s.layout;
+        nudged.elements[p.move_index[static_cast<size_t>(k)]].at_mm += 0.1 * p.move_direction[static_cast<size_t>(k)];
+        const std::vector<BeamAtTarget> after = evaluate(nudged, p.library);
+        for (size_t b = 0; b < at.size(); ++b)
+            if (at[b].reached && after[b].reached)
+                s.sensitivity_mm_per_mm = std::max(s.sensitivity_mm_per_mm,
+                    std::abs(after[b].tangential.waist_offset_mm - at[b].tangential.waist_offset_mm) / 0.1);
+    }
+    return s;
+}
+
+}  // namespace
+
+SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& library,
+                             const std::vector<CatalogLens>& catalog, const SolveOptions& options) {
+    SolveResult result;
+    if (!layout.goals.solve) {
+        result.error = "the layout has no goals.solve: name what may move or be swapped";
+        return result;
+    }
+    const SolveGoals& goals = *layout.goals.solve;
+    Problem p{layout, library, {}, {}, {}, {}, {}, goals.aim};
+    auto index_of = [&](const std::string& id) {
+        for (size_t i = 0; i < layout.elements.size(); ++i)
+            if (layout.elements[i].id == id) return i;
+        return layout.elements.size();
+    };
+    const std::vector<Path> paths = trace_layout(layout, library);
+    for (const auto& [id, range] : goals.move) {
+        const size_t i = index_of(id);
+        std::optional<Vec2> dir;
+        for (const Path& path : paths)
+            for (const TraceHit& h : path.hits)
+                if (h.element == i && !dir) dir = h.direction_in;
+        if (!dir) {
+            result.error = id + " is on no beam's path, so it cannot move along one";
+            return result;
+        }
+        p.move_index.push_back(i);
+        p.move_direction.push_back(*dir);
+        p.move_range.push_back(range);
+    }
+    for (const std::string& id : goals.swap) p.swap_index.push_back(index_of(id));
+    for (const BeamSource& b : layout.beams) {
+        double goal = 0;
+        for (const auto& [id, w] : layout.goals.waist_um)
+            if (id == b.id) goal = w;
+        p.goal_um.push_back(goal);
+    }
+    if (goals.aim == SolveGoals::Aim::Waist && std::all_of(p.goal_um.begin(), p.goal_um.end(), [](double g) { return g == 0; })) {
+        result.error = "aim \"waist\" needs goals.waist_um for at least one beam";
+        return result;
+    }
+    // Every combination of catalog choices for the swapped lenses.
+    std::vector<std::vector<const CatalogLens*>> combos{{}};
+    for (size_t k = 0; k < p.swap_index.size(); ++k) {
+        std::vector<std::vector<const CatalogLens*>> next;
+        for (const auto& c : combos)
+            for (const CatalogLens& lens : catalog) {
+                next.push_back(c);
+                next.back().push_back(&lens);
+            }
+        combos = std::move(next);
+        if (combos.size() > options.max_combinations) {
+            result.error = "more than " + std::to_string(options.max_combinations) +
+                           " catalog combinations; swap fewer lenses or use a smaller catalog";
+            return result;
+        }
+    }
+    if (!p.swap_index.empty() && catalog.empty()) {
+        result.error = "the catalog holds no lens";
+        return result;
+    }
+    result.combinations = combos.size();
+    // Combinations split over threads in fixed stripes; the ranking below is by value, so the
+    // result does not depend on the thread count.
+    std::vector<TelescopeSolution> all(combos.size());
+    const int threads = std::max(1, std::min<int>(options.threads, static_cast<int>(combos.size())));
+    std::vector<std::thread> pool;
+    for (int t = 0; t < threads; ++t)
+        pool.emplace_back([&, t] {
+            for (size_t c = static_cast<size_t>(t); c < combos.size(); c += static_cast<size_t>(threads))
+                all[c] = solve_one(p, combos[c]);
+        });
+    for (std::thread& th : pool) th.join();
+    std::stable_sort(all.begin(), all.end(), [](const TelescopeSolution& a, const TelescopeSolution& b) {
+        if (a.residual != b.residual) return a.residual < b.residual;
+        if (a.sensitivity_mm_per_mm != b.sensitivity_mm_per_mm) return a.sensitivity_mm_per_mm < b.sensitivity_mm_per_mm;
+        return a.total_move_mm < b.total_move_mm;
+    });
+    if (all.size() > options.keep) all.resize(options.keep);
+    result.solutions = std::move(all);
+    return result;
+}
+
+}  // namespace rv

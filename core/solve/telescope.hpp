@@ -1,0 +1,48 @@
+#pragma once
+// Telescope design: which catalog lenses to put where so that each beam's waist at the target
+// has its goal size (or the two confocal parameters match) and lies at the target centre.
+//
+// The free variables come from the layout's goals.solve: elements that may move along the beam
+// at them (within a range), and lenses that may be swapped for any catalog lens. For every
+// combination of catalog choices the moves are optimized by Levenberg–Marquardt (Eigen's
+// unsupported NonLinearOptimization module, numerical Jacobian) on the residuals
+//   aim "waist":          (W − W_goal)/W_goal and (waist offset)/z_R, per beam and plane
+//   aim "equal-confocal": (b1 − b2)/(b1 + b2) per plane, and the waist offsets/z_R
+//   aim "focus":          the waist offsets/z_R only
+// with each move kept in its range by x = mid + half·sin(u). Solutions are ranked by the residual
+// norm; ties by the sensitivity (how far the waists move per mm of move) and the total move.
+
+#include <string>
+#include <vector>
+
+#include "io/lens_catalog.hpp"
+#include "layout/layout.hpp"
+#include "materials/material_library.hpp"
+
+namespace rv {
+
+struct TelescopeSolution {
+    Layout layout;                        // the layout with the choices and moves applied
+    std::vector<std::pair<std::string, std::string>> swaps;  // lens id → catalog lens id
+    std::vector<std::pair<std::string, double>> moves_mm;    // element id → move along the beam
+    double residual = 0;                  // norm of the residual vector
+    double sensitivity_mm_per_mm = 0;     // largest |d(waist offset)/d(move)|
+    double total_move_mm = 0;
+};
+
+struct SolveOptions {
+    size_t keep = 5;            // solutions returned, best first
+    size_t max_combinations = 50000;
+    int threads = 2;
+};
+
+struct SolveResult {
+    std::vector<TelescopeSolution> solutions;
+    size_t combinations = 0;
+    std::string error;  // non-empty: nothing was solved, and why
+};
+
+SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& library,
+                             const std::vector<CatalogLens>& catalog, const SolveOptions& options = {});
+
+}  // namespace rv

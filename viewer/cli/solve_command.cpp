@@ -1,0 +1,63 @@
+// rendezvous solve: stock lenses and positions for the goals, ranked; the best as a new layout.
+#include <chrono>
+#include <cstdio>
+#include <ostream>
+#include <stdexcept>
+
+#include "cli/commands.hpp"
+#include "cli/load.hpp"
+#include "io/layout_reader.hpp"
+#include "io/layout_writer.hpp"
+#include "solve/telescope.hpp"
+
+namespace rv::cli {
+
+int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err) {
+    const std::optional<Layout> layout = load_layout(o.layout, err);
+    if (!layout) return 2;
+    const MaterialLibrary library = material_library_for(*layout);
+    const CatalogReadResult catalog = o.catalog.empty() ? parse_lens_catalog(lens_catalog_text(), library)
+                                                        : read_lens_catalog(o.catalog, library);
+    if (has_errors(catalog.diagnostics)) {
+        for (const Diagnostic& d : catalog.diagnostics)
+            err << format_diagnostic(d, o.catalog.empty() ? "lenses.json (built in)" : o.catalog) << "\n";
+        return 2;
+    }
+    SolveOptions options;
+    options.keep = static_cast<size_t>(o.top);
+    const auto t0 = std::chrono::steady_clock::now();
+    const SolveResult r = solve_telescopes(*layout, library, catalog.lenses, options);
+    const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+    if (!r.error.empty()) {
+        err << o.layout << ": error: " << r.error << "\n";
+        return 2;
+    }
+    char line[256];
+    std::snprintf(line, sizeof line, "%zu combination(s) searched in %.2f s; best %zu:\n", r.combinations, seconds,
+                  r.solutions.size());
+    out << line;
+    for (size_t i = 0; i < r.solutions.size(); ++i) {
+        const TelescopeSolution& s = r.solutions[i];
+        std::snprintf(line, sizeof line, "%2zu. residual %.3g, sensitivity %.3g mm/mm, total move %.2f mm:", i + 1,
+                      s.residual, s.sensitivity_mm_per_mm, s.total_move_mm);
+        out << line;
+        for (const auto& [id, lens] : s.swaps) out << " " << id << " = " << lens << ";";
+        for (const auto& [id, move] : s.moves_mm) {
+            std::snprintf(line, sizeof line, " move %s by %+.3f mm;", id.c_str(), move);
+            out << line;
+        }
+        out << "\n";
+    }
+    if (!o.output.empty() && !r.solutions.empty()) {
+        try {
+            save_layout(r.solutions.front().layout, o.output);
+        } catch (const std::runtime_error& e) {
+            err << "rendezvous: error: " << e.what() << "\n";
+            return 2;
+        }
+        out << "wrote the best solution to " << o.output << "\n";
+    }
+    return 0;
+}
+
+}  // namespace rv::cli
