@@ -75,6 +75,14 @@ int main(int argc, char** argv) {
     solve_cmd->add_option("--top", solve.top, "how many solutions to list")->check(CLI::Range(1, 100));
     solve_cmd->add_option("--write", solve.output, "write the best solution here (atomically)");
 
+    rv::cli::ToleranceOptions tolerance;
+    CLI::App* tolerance_cmd = app.add_subcommand(
+        "tolerance", "Sensitivities and a Monte Carlo run of the build tolerances (goals.tolerance).\n"
+                     "Example: rendezvous tolerance layouts/sfg-bbo.json --samples 100000 --seed 7");
+    tolerance_cmd->add_option("layout", tolerance.layout, "layout file (JSON)")->required();
+    tolerance_cmd->add_option("--samples", tolerance.samples, "Monte Carlo samples")->check(CLI::Range(1, 10000000));
+    tolerance_cmd->add_option("--seed", tolerance.seed, "random seed (the result depends on it only)");
+
     rv::cli::BalanceOptions balance;
     CLI::App* balance_cmd = app.add_subcommand(
         "balance", "Put the stage where the delay is zero; say what fixed path to add when it cannot.\n"
@@ -160,6 +168,7 @@ int main(int argc, char** argv) {
         return rv::window::run_window(*layout, path.empty() ? "demo" : path, window_options, std::cerr);
     }
     if (*solve_cmd) return rv::cli::run_solve(solve, std::cout, std::cerr);
+    if (*tolerance_cmd) return rv::cli::run_tolerance(tolerance, std::cout, std::cerr);
     if (*balance_cmd) return rv::cli::run_balance(balance, std::cout, std::cerr);
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);

@@ -121,7 +121,16 @@ std::optional<Layout> Reader::read(const json& doc) {
             sr.finish({"aim", "move", "swap"});
             layout.goals.solve = sg;
         }
-        g.finish({"waist_um", "verdict", "solve"});
+        if (const json* tv = g.object("tolerance", Need::Optional)) {
+            FieldReader tr(*tv, "/goals/tolerance", "the tolerances", out_);
+            Tolerances& t = layout.goals.tolerance;
+            t.position_mm = tr.number("position_mm", Need::Optional, at_least(0)).value_or(t.position_mm);
+            t.angle_mrad = tr.number("angle_mrad", Need::Optional, at_least(0)).value_or(t.angle_mrad);
+            t.focal_length_fraction = tr.number("focal_length_fraction", Need::Optional, between(0, 0.5)).value_or(t.focal_length_fraction);
+            t.stage_mm = tr.number("stage_mm", Need::Optional, at_least(0)).value_or(t.stage_mm);
+            tr.finish({"position_mm", "angle_mrad", "focal_length_fraction", "stage_mm"});
+        }
+        g.finish({"waist_um", "verdict", "solve", "tolerance"});
     }
     root.finish({"format", "version", "name", "table", "materials", "beams", "elements", "target",
                  "goals"});

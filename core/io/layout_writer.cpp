@@ -193,6 +193,14 @@ std::string write_layout(const Layout& layout) {
     if (t.min_phase_factor != d.min_phase_factor) v["min_phase_factor"] = num(t.min_phase_factor);
     if (t.max_goal_waist_error != d.max_goal_waist_error) v["max_goal_waist_error"] = num(t.max_goal_waist_error);
     if (!v.empty()) goals["verdict"] = v;
+    const Tolerances& tol = layout.goals.tolerance;
+    const Tolerances tol0;
+    ojson tj = ojson::object();
+    if (tol.position_mm != tol0.position_mm) tj["position_mm"] = num(tol.position_mm);
+    if (tol.angle_mrad != tol0.angle_mrad) tj["angle_mrad"] = num(tol.angle_mrad);
+    if (tol.focal_length_fraction != tol0.focal_length_fraction) tj["focal_length_fraction"] = num(tol.focal_length_fraction);
+    if (tol.stage_mm != tol0.stage_mm) tj["stage_mm"] = num(tol.stage_mm);
+    if (!tj.empty()) goals["tolerance"] = tj;
     if (layout.goals.solve) {
         const SolveGoals& sg = *layout.goals.solve;
         ojson j = ojson::object();

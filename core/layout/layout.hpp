@@ -204,9 +204,20 @@ struct SolveGoals {
     bool operator==(const SolveGoals&) const = default;
 };
 
+// Build tolerances for `rendezvous tolerance` (goals.tolerance in the file): each perturbation
+// is drawn uniformly from [−t, +t].
+struct Tolerances {
+    double position_mm = 0.5;           // every optic along the beam at it
+    double angle_mrad = 0.5;            // every optic's rotation in the table plane
+    double focal_length_fraction = 0.01;  // every lens's focal length (catalogue ±1 %)
+    double stage_mm = 0.001;            // stage repeatability
+    bool operator==(const Tolerances&) const = default;
+};
+
 struct Goals {
     std::vector<std::pair<std::string, double>> waist_um;  // beam id → wanted waist radius
     VerdictThresholds verdict;
+    Tolerances tolerance;
     std::optional<SolveGoals> solve;
     bool operator==(const Goals&) const = default;
 };

@@ -1,6 +1,8 @@
 #pragma once
 // The sub-commands of `rendezvous`. Each returns the process exit status:
 // 0 success, 2 bad input (a message on stderr, nothing written), 3 a --check verdict failed.
+#include <cstddef>
+#include <cstdint>
 #include <iosfwd>
 #include <string>
 
@@ -45,6 +47,13 @@ struct SolveCommandOptions {
     int top = 5;
 };
 int run_solve(const SolveCommandOptions& options, std::ostream& out, std::ostream& err);
+
+struct ToleranceOptions {
+    std::string layout;
+    size_t samples = 10000;
+    std::uint64_t seed = 1;
+};
+int run_tolerance(const ToleranceOptions& options, std::ostream& out, std::ostream& err);
 
 struct BalanceOptions {
     std::string layout;
