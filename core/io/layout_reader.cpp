@@ -603,6 +603,15 @@ LayoutReadResult read_layout(std::string_view text) {
         line_and_column(text, e.byte, d.line, d.column);
         result.diagnostics.push_back(d);
         return result;
+    } catch (const json::exception& e) {
+        // Found by fuzzing: a number too large for a double ("1e999") is out_of_range.406, not a
+        // parse error; it carries no position, only the number.
+        std::string what = e.what();
+        const size_t quote = what.find('\'');
+        result.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0,
+                                      "a number does not fit a double" +
+                                          (quote == std::string::npos ? std::string() : ": " + what.substr(quote))});
+        return result;
     }
     Reader reader(result.diagnostics);
     result.layout = reader.read(doc);

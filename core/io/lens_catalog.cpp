@@ -27,8 +27,8 @@ CatalogReadResult parse_lens_catalog(std::string_view text, const MaterialLibrar
     nlohmann::json doc;
     try {
         doc = nlohmann::json::parse(text.begin(), text.end());
-    } catch (const nlohmann::json::parse_error& e) {
-        out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, std::string("syntax error: ") + e.what()});
+    } catch (const nlohmann::json::exception& e) {  // parse errors and out-of-range numbers
+        out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, std::string("cannot read the catalog: ") + e.what()});
         return out;
     }
     FieldReader root(doc, "", "a lens catalog", out.diagnostics);

@@ -52,6 +52,9 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"point-not-pair.json", {"point-not-pair.json: error: /elements/1/at_mm: expected [x, y] in mm, found an array ([200])"}},
         {"convex-negative-f.json", {"convex-negative-f.json: error: /elements/0/focal_length_mm: no plano-convex lens has this focal length: a convex shape needs a positive focal length"}},
         {"plane-on-uniaxial.json", {"plane-on-uniaxial.json: error: /elements/1/principal_plane: only for biaxial crystals; BBO:Kato1986 is not biaxial"}},
+        // Found by fuzzing (fuzz_pipeline, seed 5): nlohmann reports an overflowing number as
+        // out_of_range, which once escaped as an uncaught exception.
+        {"number-overflow.json", {"number-overflow.json: error: a number does not fit a double: '1e999'"}},
         // Every problem of a file in one pass.
         {"three-errors.json", {"three-errors.json: error: /beams/0/wavelength_nm: must be positive (got -1)",
                                "three-errors.json: error: /elements/0/apperture_mm: unknown key for a lens; did you mean \"aperture_mm\"?",
