@@ -22,8 +22,6 @@ std::string fmt(const char* format, double a) {
     return buf;
 }
 
-Vec2 unit_at(double deg) { return {std::cos(deg_to_rad(deg)), std::sin(deg_to_rad(deg))}; }
-Vec2 perpendicular(const Vec2& v) { return {-v.y(), v.x()}; }
 
 const char* finding_code(Finding::Kind k) {
     switch (k) {
@@ -208,7 +206,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     // Geometry (trace/crystal_axes.hpp): α the angle of k from the face normal, `rel` the same
     // from the normal line along the travel, in (−π/2, π/2].
     const double cut = deg_to_rad(xc.cut_deg);
-    const Vec2 n = unit_at(xe.normal_deg);
+    const Vec2 n = direction_deg(xe.normal_deg);
     const Path& path = beams[i].path;
     const Vec2 d = path.target_hit ? path.hits[*path.target_hit].direction_in : n;
     auto wrap_half = [](double x) {

@@ -18,6 +18,7 @@
 //   travels along +normal; light travelling the other way meets the faces in reverse.
 
 #include <Eigen/Core>
+#include <cmath>
 #include <optional>
 #include <string>
 #include <variant>
@@ -28,6 +29,13 @@
 namespace rv {
 
 using Vec2 = Eigen::Vector2d;
+
+// The unit vector at angle_deg counter-clockwise from +x, and a vector turned by +90°.
+inline Vec2 direction_deg(double angle_deg) {
+    const double a = angle_deg * 3.14159265358979323846 / 180.0;
+    return {std::cos(a), std::sin(a)};
+}
+inline Vec2 perpendicular(const Vec2& v) { return {-v.y(), v.x()}; }
 
 inline constexpr double kDefaultAperture_mm = 25.4;
 

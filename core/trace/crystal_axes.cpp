@@ -8,7 +8,7 @@
 namespace rv {
 
 double angle_to_reference_axis_rad(const Vec2& n, double cut, bool horizontal, const Vec2& k) {
-    const Vec2 t(-n.y(), n.x());
+    const Vec2 t = perpendicular(n);
     const double alpha = std::atan2(k.dot(t), k.dot(n));
     const double c = horizontal ? std::abs(std::cos(alpha - cut)) : std::abs(std::cos(alpha)) * std::cos(cut);
     return std::acos(std::clamp(c, 0.0, 1.0));

@@ -10,12 +10,12 @@ std::vector<ElementPose> element_poses(const Layout& layout, const std::vector<P
     std::vector<ElementPose> poses(layout.elements.size());
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
-        poses[i] = {e.at_mm, Vec2(std::cos(deg_to_rad(e.normal_deg)), std::sin(deg_to_rad(e.normal_deg)))};
+        poses[i] = {e.at_mm, direction_deg(e.normal_deg)};
     }
     for (const Element& e : layout.elements) {
         const auto* s = std::get_if<Stage>(&e.kind);
         if (!s) continue;
-        const Vec2 axis(std::cos(deg_to_rad(s->axis_deg)), std::sin(deg_to_rad(s->axis_deg)));
+        const Vec2 axis = direction_deg(s->axis_deg);
         for (const std::string& id : s->carries)
             for (size_t i = 0; i < layout.elements.size(); ++i)
                 if (layout.elements[i].id == id) poses[i].at_mm += s->position_mm * axis;

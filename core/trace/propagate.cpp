@@ -19,7 +19,7 @@ RayMatrix hit_matrix(const Layout& layout, const TraceHit& hit, Plane plane) {
             const Lens& lens = std::get<Lens>(e.kind);
             if (const auto* t = std::get_if<ThickLens>(&lens.model)) {
                 const double n = hit.lens_index;
-                const Vec2 normal(std::cos(deg_to_rad(e.normal_deg)), std::sin(deg_to_rad(e.normal_deg)));
+                const Vec2 normal = direction_deg(e.normal_deg);
                 ThickSinglet shape{t->front_radius_mm, t->back_radius_mm, t->center_thickness_mm};
                 if (hit.direction_in.dot(normal) < 0)  // met from the back: faces reversed
                     shape = {-t->back_radius_mm, -t->front_radius_mm, t->center_thickness_mm};

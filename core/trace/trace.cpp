@@ -17,11 +17,6 @@ namespace {
 constexpr double kEps_mm = 1e-9;
 constexpr double kInf = std::numeric_limits<double>::infinity();
 
-Vec2 unit_at(double angle_deg) {
-    const double a = deg_to_rad(angle_deg);
-    return {std::cos(a), std::sin(a)};
-}
-Vec2 perpendicular(const Vec2& v) { return {-v.y(), v.x()}; }
 
 std::string mm_text(double v) {
     std::ostringstream s;
@@ -73,7 +68,7 @@ std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library) 
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
         placed[i].at = e.at_mm;
-        placed[i].normal = unit_at(e.normal_deg);
+        placed[i].normal = direction_deg(e.normal_deg);
         placed[i].half_aperture = e.aperture_mm / 2.0;
         placed[i].traced = !std::holds_alternative<Stage>(e.kind);
     }
@@ -85,7 +80,7 @@ std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library) 
     for (const Element& e : layout.elements) {
         if (const auto* s = std::get_if<Stage>(&e.kind))
             for (const std::string& id : s->carries)
-                if (auto i = index_of(id)) placed[*i].at += s->position_mm * unit_at(s->axis_deg);
+                if (auto i = index_of(id)) placed[*i].at += s->position_mm * direction_deg(s->axis_deg);
     }
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const ElementKind& kind = layout.elements[i].kind;
@@ -320,7 +315,7 @@ void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> n
 
 Path BeamTracer::run() {
     Vec2 p = beam_.start_mm;
-    Vec2 d = unit_at(beam_.direction_deg);
+    Vec2 d = direction_deg(beam_.direction_deg);
     double s_total = 0;
     Medium medium{1.0, air_group_index_};
     const double wavelength = beam_.wavelength_nm;

@@ -11,7 +11,6 @@ namespace rv::scene {
 
 namespace {
 
-Vec2 perpendicular(const Vec2& v) { return {-v.y(), v.x()}; }
 
 const Colour kOptic{70, 95, 140, 255};
 const Colour kMirror{80, 80, 92, 255};
@@ -156,7 +155,7 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
         if (const auto* st = std::get_if<Stage>(&e.kind)) {
-            const Vec2 axis(std::cos(deg_to_rad(st->axis_deg)), std::sin(deg_to_rad(st->axis_deg)));
+            const Vec2 axis = direction_deg(st->axis_deg);
             for (const std::string& id : st->carries)
                 for (size_t j = 0; j < layout.elements.size(); ++j)
                     if (layout.elements[j].id == id) {
