@@ -183,23 +183,27 @@ std::string write_layout(const Layout& layout) {
         for (const auto& [id, v] : layout.goals.waist_um) w[id] = num(v);
         goals["waist_um"] = w;
     }
+    // Thresholds and tolerances: only the keys that differ from their defaults.
+    auto unless_default = [](ojson& j, const char* key, double value, double fallback) {
+        if (value != fallback) j[key] = num(value);
+    };
     const VerdictThresholds& t = layout.goals.verdict;
     const VerdictThresholds d;
     ojson v = ojson::object();
-    if (t.max_waist_offset_rayleigh != d.max_waist_offset_rayleigh) v["max_waist_offset_rayleigh"] = num(t.max_waist_offset_rayleigh);
-    if (t.max_waist_ratio != d.max_waist_ratio) v["max_waist_ratio"] = num(t.max_waist_ratio);
-    if (t.max_lateral_offset_radius != d.max_lateral_offset_radius) v["max_lateral_offset_radius"] = num(t.max_lateral_offset_radius);
-    if (t.max_delay_xcorr != d.max_delay_xcorr) v["max_delay_xcorr"] = num(t.max_delay_xcorr);
-    if (t.min_phase_factor != d.min_phase_factor) v["min_phase_factor"] = num(t.min_phase_factor);
-    if (t.max_goal_waist_error != d.max_goal_waist_error) v["max_goal_waist_error"] = num(t.max_goal_waist_error);
+    unless_default(v, "max_waist_offset_rayleigh", t.max_waist_offset_rayleigh, d.max_waist_offset_rayleigh);
+    unless_default(v, "max_waist_ratio", t.max_waist_ratio, d.max_waist_ratio);
+    unless_default(v, "max_lateral_offset_radius", t.max_lateral_offset_radius, d.max_lateral_offset_radius);
+    unless_default(v, "max_delay_xcorr", t.max_delay_xcorr, d.max_delay_xcorr);
+    unless_default(v, "min_phase_factor", t.min_phase_factor, d.min_phase_factor);
+    unless_default(v, "max_goal_waist_error", t.max_goal_waist_error, d.max_goal_waist_error);
     if (!v.empty()) goals["verdict"] = v;
     const Tolerances& tol = layout.goals.tolerance;
     const Tolerances tol0;
     ojson tj = ojson::object();
-    if (tol.position_mm != tol0.position_mm) tj["position_mm"] = num(tol.position_mm);
-    if (tol.angle_mrad != tol0.angle_mrad) tj["angle_mrad"] = num(tol.angle_mrad);
-    if (tol.focal_length_fraction != tol0.focal_length_fraction) tj["focal_length_fraction"] = num(tol.focal_length_fraction);
-    if (tol.stage_mm != tol0.stage_mm) tj["stage_mm"] = num(tol.stage_mm);
+    unless_default(tj, "position_mm", tol.position_mm, tol0.position_mm);
+    unless_default(tj, "angle_mrad", tol.angle_mrad, tol0.angle_mrad);
+    unless_default(tj, "focal_length_fraction", tol.focal_length_fraction, tol0.focal_length_fraction);
+    unless_default(tj, "stage_mm", tol.stage_mm, tol0.stage_mm);
     if (!tj.empty()) goals["tolerance"] = tj;
     if (layout.goals.solve) {
         const SolveGoals& sg = *layout.goals.solve;

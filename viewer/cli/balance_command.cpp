@@ -1,13 +1,11 @@
 // rendezvous balance: the stage position for zero delay, written to a new layout on request.
 #include <cstdio>
 #include <ostream>
-#include <stdexcept>
 
 #include "analysis/balance.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "io/layout_reader.hpp"
-#include "io/layout_writer.hpp"
 
 namespace rv::cli {
 
@@ -41,12 +39,7 @@ int run_balance(const BalanceOptions& options, std::ostream& out, std::ostream& 
         out << line;
     }
     if (!options.output.empty()) {
-        try {
-            save_layout(b.layout, options.output);
-        } catch (const std::runtime_error& e) {
-            err << "rendezvous: error: " << e.what() << "\n";
-            return 2;
-        }
+        if (!save_layout_or_report(b.layout, options.output, err)) return 2;
         out << "wrote " << options.output << "\n";
     }
     return 0;

@@ -6,26 +6,23 @@
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "io/layout_reader.hpp"
-#include "io/layout_writer.hpp"
 
 namespace rv::cli {
 
 int run_calibrate(const CalibrateOptions& options, std::ostream& out, std::ostream& err) {
     const std::optional<Layout> layout = load_layout(options.layout, err);
     if (!layout) return 2;
+    std::optional<CalibrationResult> c;
     try {
-        const CalibrationResult c = calibrate_time_zero(*layout, material_library_for(*layout), options.zero_mm);
-        save_layout(c.layout, options.output);
-        out << "stage " << c.stage << ": zero measured at " << options.zero_mm << " mm; the model put "
-            << c.emission_offset_fs << " fs of delay there, now written into " << c.layout.beams[0].id
-            << "'s emit_time_fs (" << c.layout.beams[0].emit_time_fs << " fs) in " << options.output << "\n";
+        c = calibrate_time_zero(*layout, material_library_for(*layout), options.zero_mm);
     } catch (const std::invalid_argument& e) {
         err << options.layout << ": error: " << e.what() << "\n";
         return 2;
-    } catch (const std::runtime_error& e) {
-        err << "rendezvous: error: " << e.what() << "\n";
-        return 2;
     }
+    if (!save_layout_or_report(c->layout, options.output, err)) return 2;
+    out << "stage " << c->stage << ": zero measured at " << options.zero_mm << " mm; the model put "
+        << c->emission_offset_fs << " fs of delay there, now written into " << c->layout.beams[0].id
+        << "'s emit_time_fs (" << c->layout.beams[0].emit_time_fs << " fs) in " << options.output << "\n";
     return 0;
 }
 

@@ -1,6 +1,5 @@
 // rendezvous format: rewrite a layout in canonical form (to stdout, a file, or in place).
 #include <ostream>
-#include <stdexcept>
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
@@ -16,13 +15,7 @@ int run_format(const FormatOptions& options, std::ostream& out, std::ostream& er
         out << write_layout(*layout);
         return 0;
     }
-    try {
-        save_layout(*layout, target);
-    } catch (const std::runtime_error& e) {
-        err << "rendezvous: error: " << e.what() << "\n";
-        return 2;
-    }
-    return 0;
+    return save_layout_or_report(*layout, target, err) ? 0 : 2;
 }
 
 }  // namespace rv::cli

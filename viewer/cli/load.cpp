@@ -4,6 +4,7 @@
 #include <stdexcept>
 
 #include "io/layout_reader.hpp"
+#include "io/layout_writer.hpp"
 
 namespace rv::cli {
 
@@ -11,6 +12,16 @@ std::optional<Layout> load_layout(const std::string& path, std::ostream& err) {
     const LayoutReadResult r = read_layout_file(path);
     for (const Diagnostic& d : r.diagnostics) err << format_diagnostic(d, path) << "\n";
     return r.layout;
+}
+
+bool save_layout_or_report(const Layout& layout, const std::string& path, std::ostream& err) {
+    try {
+        save_layout(layout, path);
+        return true;
+    } catch (const std::runtime_error& e) {
+        err << "rendezvous: error: " << e.what() << "\n";
+        return false;
+    }
 }
 
 Layout demo_layout() {

@@ -11,6 +11,9 @@ namespace rv::cli {
 // Returns the layout when there is no error.
 std::optional<Layout> load_layout(const std::string& path, std::ostream& err);
 
+// Saves a layout atomically; on failure prints "rendezvous: error: …" and returns false.
+bool save_layout_or_report(const Layout& layout, const std::string& path, std::ostream& err);
+
 // The SFG demo (layouts/sfg-bbo.json) built into the program.
 Layout demo_layout();
 const char* demo_layout_text();

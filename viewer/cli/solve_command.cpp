@@ -2,12 +2,10 @@
 #include <chrono>
 #include <cstdio>
 #include <ostream>
-#include <stdexcept>
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "io/layout_reader.hpp"
-#include "io/layout_writer.hpp"
 #include "solve/telescope.hpp"
 
 namespace rv::cli {
@@ -49,12 +47,7 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
         out << "\n";
     }
     if (!o.output.empty() && !r.solutions.empty()) {
-        try {
-            save_layout(r.solutions.front().layout, o.output);
-        } catch (const std::runtime_error& e) {
-            err << "rendezvous: error: " << e.what() << "\n";
-            return 2;
-        }
+        if (!save_layout_or_report(r.solutions.front().layout, o.output, err)) return 2;
         out << "wrote the best solution to " << o.output << "\n";
     }
     return 0;
