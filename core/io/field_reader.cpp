@@ -68,6 +68,14 @@ std::string child_pointer(const std::string& parent, size_t index) {
     return parent + "/" + std::to_string(index);
 }
 
+nlohmann::json parse_json_limited(std::string_view text, int max_depth) {
+    const nlohmann::json::parser_callback_t guard = [max_depth](int depth, nlohmann::json::parse_event_t, nlohmann::json&) {
+        if (depth > max_depth) throw JsonTooDeep{};
+        return true;
+    };
+    return nlohmann::json::parse(text.begin(), text.end(), guard, true, false);
+}
+
 std::string describe_json_type(const nlohmann::json& value) {
     switch (value.type()) {
         case nlohmann::json::value_t::null: return "null";

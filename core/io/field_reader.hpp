@@ -7,6 +7,7 @@
 #include <nlohmann/json.hpp>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "io/diagnostic.hpp"
@@ -26,6 +27,12 @@ NumberRule between(double minimum, double maximum);
 // JSON pointer of a child ("/elements/3" + "focal_length_mm"), with ~ and / escaped.
 std::string child_pointer(const std::string& parent, const std::string& key);
 std::string child_pointer(const std::string& parent, size_t index);
+
+// Parses JSON, refusing nesting deeper than max_depth while parsing (before any recursive
+// walk of the value could overflow the stack): throws JsonTooDeep then; nlohmann's exceptions
+// for everything else.
+struct JsonTooDeep {};
+nlohmann::json parse_json_limited(std::string_view text, int max_depth);
 
 // "a string", "an array", … for messages.
 std::string describe_json_type(const nlohmann::json& value);

@@ -597,7 +597,12 @@ LayoutReadResult read_layout(std::string_view text) {
     }
     json doc;
     try {
-        doc = json::parse(text.begin(), text.end(), nullptr, true, false);
+        doc = parse_json_limited(text, kMaxLayoutDepth);
+    } catch (const JsonTooDeep&) {
+        result.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0,
+                                      "the file nests deeper than " + std::to_string(kMaxLayoutDepth) +
+                                          " levels; a layout needs at most 5"});
+        return result;
     } catch (const json::parse_error& e) {
         Diagnostic d{Diagnostic::Severity::Error, "", 0, 0, syntax_message(e.what())};
         line_and_column(text, e.byte, d.line, d.column);

@@ -15,6 +15,7 @@ namespace rv {
 
 // Larger inputs are refused unread (a table of thousands of optics is far below this).
 inline constexpr std::size_t kMaxLayoutBytes = 16u << 20;
+inline constexpr int kMaxLayoutDepth = 64;  // JSON nesting levels
 
 struct LayoutReadResult {
     std::optional<Layout> layout;

@@ -26,7 +26,10 @@ CatalogReadResult parse_lens_catalog(std::string_view text, const MaterialLibrar
     CatalogReadResult out;
     nlohmann::json doc;
     try {
-        doc = nlohmann::json::parse(text.begin(), text.end());
+        doc = parse_json_limited(text, 16);
+    } catch (const JsonTooDeep&) {
+        out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, "the catalog nests deeper than 16 levels"});
+        return out;
     } catch (const nlohmann::json::exception& e) {  // parse errors and out-of-range numbers
         out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, std::string("cannot read the catalog: ") + e.what()});
         return out;

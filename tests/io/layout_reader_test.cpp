@@ -55,6 +55,9 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         // Found by fuzzing (fuzz_pipeline, seed 5): nlohmann reports an overflowing number as
         // out_of_range, which once escaped as an uncaught exception.
         {"number-overflow.json", {"number-overflow.json: error: a number does not fit a double: '1e999'"}},
+        // Found by a hand-made hostile input: 200 000 nested arrays overflowed the stack when a
+        // message dumped the value; nesting is now limited while parsing.
+        {"deep-nesting.json", {"deep-nesting.json: error: the file nests deeper than 64 levels; a layout needs at most 5"}},
         // Every problem of a file in one pass.
         {"three-errors.json", {"three-errors.json: error: /beams/0/wavelength_nm: must be positive (got -1)",
                                "three-errors.json: error: /elements/0/apperture_mm: unknown key for a lens; did you mean \"aperture_mm\"?",
