@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "analysis/timing.hpp"
+#include "trace/trace.hpp"
 #include "units/constants.hpp"
 
 namespace rv {
@@ -27,6 +28,15 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Causti
     out.hit_mm = hit.point_mm;
     out.direction = hit.direction_in;
     out.index = hit.index_before;
+    return out;
+}
+
+std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library) {
+    PropagationOptions options;
+    options.sample_envelope = false;
+    std::vector<BeamAtTarget> out;
+    for (const Path& path : trace_layout(layout, library))
+        out.push_back(beam_at_target(layout, path, propagate_path(layout, path, options)));
     return out;
 }
 

@@ -13,6 +13,7 @@
 #include <vector>
 
 #include "layout/layout.hpp"
+#include "materials/material_library.hpp"
 #include "trace/path.hpp"
 #include "trace/propagate.hpp"
 
@@ -33,6 +34,10 @@ struct BeamAtTarget {
 };
 
 BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic);
+
+// Trace every beam, propagate it without the drawing envelope, and take it at the target: the
+// lean evaluation the solvers repeat.
+std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library);
 
 struct Mismatch {
     double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;

@@ -8,7 +8,6 @@
 #include <thread>
 
 #include "analysis/target_summary.hpp"
-#include "trace/propagate.hpp"
 #include "trace/trace.hpp"
 
 namespace rv {
@@ -45,11 +44,7 @@ Layout apply(const Problem& p, const std::vector<const CatalogLens*>& choice, co
 }
 
 std::vector<BeamAtTarget> evaluate(const Layout& l, const MaterialLibrary& library) {
-    PropagationOptions o;
-    o.sample_envelope = false;
-    std::vector<BeamAtTarget> out;
-    for (const Path& path : trace_layout(l, library)) out.push_back(beam_at_target(l, path, propagate_path(l, path, o)));
-    return out;
+    return evaluate_beams_at_target(l, library);
 }
 
 constexpr double kMissed = 1e3;  // residual of a beam that misses the target

@@ -7,7 +7,6 @@
 #include "analysis/target_summary.hpp"
 #include "nonlinear/overlap.hpp"
 #include "trace/poses.hpp"
-#include "trace/propagate.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
 
@@ -38,10 +37,7 @@ Spread spread(std::vector<double> v) {
 }  // namespace
 
 Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library) {
-    PropagationOptions o;
-    o.sample_envelope = false;
-    std::vector<BeamAtTarget> at;
-    for (const Path& p : trace_layout(layout, library)) at.push_back(beam_at_target(layout, p, propagate_path(layout, p, o)));
+    const std::vector<BeamAtTarget> at = evaluate_beams_at_target(layout, library);
     Figures f;
     if (at.size() == 1) {
         f.valid = at[0].reached;
