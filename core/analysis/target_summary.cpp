@@ -31,11 +31,13 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Causti
     return out;
 }
 
-std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library) {
+std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
+                                                   TraceCache* cache) {
     PropagationOptions options;
     options.sample_envelope = false;
     std::vector<BeamAtTarget> out;
-    for (const Path& path : trace_layout(layout, library))
+    out.reserve(layout.beams.size());
+    for (const Path& path : trace_layout(layout, library, cache))
         out.push_back(beam_at_target(layout, path, propagate_path(layout, path, options)));
     return out;
 }

@@ -16,6 +16,7 @@
 #include "materials/material_library.hpp"
 #include "trace/path.hpp"
 #include "trace/propagate.hpp"
+#include "trace/trace_cache.hpp"
 
 namespace rv {
 
@@ -36,8 +37,9 @@ struct BeamAtTarget {
 BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic);
 
 // Trace every beam, propagate it without the drawing envelope, and take it at the target: the
-// lean evaluation the solvers repeat.
-std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library);
+// lean evaluation the solvers repeat (with a TraceCache kept between calls on one layout).
+std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
+                                                   TraceCache* cache = nullptr);
 
 struct Mismatch {
     double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;

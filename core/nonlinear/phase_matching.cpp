@@ -11,30 +11,9 @@ namespace {
 
 constexpr double kSincHalfWidth = 5.566229;  // ΔkL at which sinc²(ΔkL/2) = 1/2, full width
 
-// The A index and the (p, q) pair of a crystal at a wavelength, with their λ-derivatives.
-struct PlaneIndices {
-    IndexDerivatives a, p, q;
-    bool in_range;
-};
-
-PlaneIndices plane_indices(const Material& m, double wavelength_nm, PrincipalPlane plane) {
-    const double l = nm_to_um(wavelength_nm);
-    const bool in_range = covers(m, wavelength_nm);
-    if (m.symmetry == Symmetry::Biaxial) {
-        const IndexDerivatives x = evaluate(m.axes[0], l), y = evaluate(m.axes[1], l), z = evaluate(m.axes[2], l);
-        switch (plane) {
-            case PrincipalPlane::XY: return {z, y, x, in_range};
-            case PrincipalPlane::YZ: return {x, y, z, in_range};
-            case PrincipalPlane::XZ: return {y, x, z, in_range};
-        }
-    }
-    const IndexDerivatives o = evaluate(m.axes[0], l);  // uniaxial: A = p = n_o, q = n_e
-    return {o, o, evaluate(m.axes[1], l), in_range};
-}
-
 // n_B(ψ) and dn_B/dλ at fixed ψ: from 1/n² = c²/p² + s²/q²,
 // dn/dλ = n³ (c² p'/p³ + s² q'/q³).
-std::pair<double, double> b_index(const PlaneIndices& x, double angle) {
+std::pair<double, double> b_index(const CrystalIndices& x, double angle) {
     const double c2 = std::cos(angle) * std::cos(angle), s2 = 1 - c2;
     const double inv2 = c2 / (x.p.n * x.p.n) + s2 / (x.q.n * x.q.n);
     const double n = 1 / std::sqrt(inv2);
@@ -43,11 +22,33 @@ std::pair<double, double> b_index(const PlaneIndices& x, double angle) {
 }
 
 double n_of(const Material& m, double nm, Polarity pol, double angle, PrincipalPlane plane) {
-    const PlaneIndices x = plane_indices(m, nm, plane);
+    const CrystalIndices x = crystal_indices(m, nm, plane);
     return pol == Polarity::A ? x.a.n : b_index(x, angle).first;
 }
 
 }  // namespace
+
+CrystalIndices crystal_indices(const Material& m, double wavelength_nm, PrincipalPlane plane) {
+    const double l = nm_to_um(wavelength_nm);
+    const bool in_range = covers(m, wavelength_nm);
+    if (m.symmetry == Symmetry::Biaxial) {
+        const IndexDerivatives x = evaluate(m.axes[0], l), y = evaluate(m.axes[1], l), z = evaluate(m.axes[2], l);
+        switch (plane) {
+            case PrincipalPlane::XY: return {z, y, x, l, in_range};
+            case PrincipalPlane::YZ: return {x, y, z, l, in_range};
+            case PrincipalPlane::XZ: return {y, x, z, l, in_range};
+        }
+    }
+    const IndexDerivatives o = evaluate(m.axes[0], l);  // uniaxial: A = p = n_o, q = n_e
+    return {o, o, evaluate(m.axes[1], l), l, in_range};
+}
+
+WaveIndex wave_index(const CrystalIndices& x, Polarity pol, double angle) {
+    const double l = x.wavelength_um;
+    if (pol == Polarity::A) return {x.a.n, x.a.n - l * x.a.dn, x.in_range};
+    const auto [n, dn] = b_index(x, angle);
+    return {n, n - l * dn, x.in_range};
+}
 
 WavePolarities polarities(MixingType type) {
     using P = Polarity;
@@ -65,11 +66,7 @@ WavePolarities polarities(MixingType type) {
 double sum_frequency_nm(double l1, double l2) { return 1.0 / (1.0 / l1 + 1.0 / l2); }
 
 WaveIndex wave_index(const Material& m, double nm, Polarity pol, double angle, PrincipalPlane plane) {
-    const PlaneIndices x = plane_indices(m, nm, plane);
-    const double l = nm_to_um(nm);
-    if (pol == Polarity::A) return {x.a.n, x.a.n - l * x.a.dn, x.in_range};
-    const auto [n, dn] = b_index(x, angle);
-    return {n, n - l * dn, x.in_range};
+    return wave_index(crystal_indices(m, nm, plane), pol, angle);
 }
 
 double delta_k_per_mm(const Material& m, double l1, double l2, MixingType type, double angle,
@@ -87,8 +84,8 @@ std::optional<double> phase_matching_angle_rad(const Material& m, double l1, dou
     if (m.symmetry == Symmetry::Isotropic) return std::nullopt;
     if (type == MixingType::TypeI) {
         const double l3 = sum_frequency_nm(l1, l2);
-        const PlaneIndices x1 = plane_indices(m, l1, plane), x2 = plane_indices(m, l2, plane),
-                           x3 = plane_indices(m, l3, plane);
+        const CrystalIndices x1 = crystal_indices(m, l1, plane), x2 = crystal_indices(m, l2, plane),
+                           x3 = crystal_indices(m, l3, plane);
         const double big_n = l3 * (x1.a.n / l1 + x2.a.n / l2);
         const double s2 = (1 / (big_n * big_n) - 1 / (x3.p.n * x3.p.n)) /
                           (1 / (x3.q.n * x3.q.n) - 1 / (x3.p.n * x3.p.n));
@@ -117,7 +114,7 @@ std::optional<double> phase_matching_angle_rad(const Material& m, double l1, dou
 }
 
 double walkoff_rad(const Material& m, double nm, double angle, PrincipalPlane plane) {
-    const PlaneIndices x = plane_indices(m, nm, plane);
+    const CrystalIndices x = crystal_indices(m, nm, plane);
     const double n = b_index(x, angle).first;
     return std::atan(0.5 * n * n * (1 / (x.q.n * x.q.n) - 1 / (x.p.n * x.p.n)) * std::sin(2 * angle));
 }

@@ -25,6 +25,7 @@
 #include <optional>
 #include <string>
 
+#include "materials/dispersion_formula.hpp"
 #include "materials/material.hpp"
 
 namespace rv {
@@ -50,6 +51,18 @@ struct WaveIndex {
 };
 WaveIndex wave_index(const Material& crystal, double wavelength_nm, Polarity p, double angle_rad,
                      PrincipalPlane plane = PrincipalPlane::XY);
+
+// The A index and the (p, q) pair of a crystal at one wavelength with their λ-derivatives
+// (λ in µm): evaluated once, they give the index of either wave at any angle in a few
+// multiplications (the trace keeps one per crystal and beam).
+struct CrystalIndices {
+    IndexDerivatives a, p, q;
+    double wavelength_um;
+    bool in_range;
+};
+CrystalIndices crystal_indices(const Material& crystal, double wavelength_nm,
+                               PrincipalPlane plane = PrincipalPlane::XY);
+WaveIndex wave_index(const CrystalIndices& indices, Polarity p, double angle_rad);
 
 // Phase-matching angle ψ in (0, π/2), or nullopt when the type cannot phase-match.
 std::optional<double> phase_matching_angle_rad(const Material& crystal, double lambda1_nm,

@@ -37,6 +37,11 @@ GaussianBeam beam_from_waist(double waist_um, double distance_to_waist_mm, doubl
 // free space, lenses and mirrors).
 GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m, double index_after);
 GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m);
+// Free space of length L in the beam's medium: q + L, the same as propagate(beam, free_space(L)).
+inline GaussianBeam translate(GaussianBeam beam, double length_mm) {
+    beam.q_mm += length_mm;
+    return beam;
+}
 
 // Second-moment beam radius W at the current plane, µm.
 double radius_um(const GaussianBeam& beam);

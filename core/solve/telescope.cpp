@@ -31,6 +31,13 @@ double move_of(const Problem& p, size_t k, double u) {
     return mid + half * std::sin(u);
 }
 
+// The moved elements of a layout that already holds the catalog choice put where u says.
+void place_moves(const Problem& p, const Eigen::VectorXd& u, Layout& l) {
+    for (size_t k = 0; k < p.move_index.size(); ++k)
+        l.elements[p.move_index[k]].at_mm = p.base.elements[p.move_index[k]].at_mm +
+                                             move_of(p, k, u[static_cast<Eigen::Index>(k)]) * p.move_direction[k];
+}
+
 Layout apply(const Problem& p, const std::vector<const CatalogLens*>& choice, const Eigen::VectorXd& u) {
     Layout l = p.base;
     for (size_t k = 0; k < p.swap_index.size(); ++k) {
@@ -38,13 +45,12 @@ Layout apply(const Problem& p, const std::vector<const CatalogLens*>& choice, co
         e.kind = choice[k]->lens;
         e.aperture_mm = choice[k]->diameter_mm;
     }
-    for (size_t k = 0; k < p.move_index.size(); ++k)
-        l.elements[p.move_index[k]].at_mm += move_of(p, k, u[static_cast<Eigen::Index>(k)]) * p.move_direction[k];
+    place_moves(p, u, l);
     return l;
 }
 
-std::vector<BeamAtTarget> evaluate(const Layout& l, const MaterialLibrary& library) {
-    return evaluate_beams_at_target(l, library);
+std::vector<BeamAtTarget> evaluate(const Layout& l, const MaterialLibrary& library, TraceCache* cache) {
+    return evaluate_beams_at_target(l, library, cache);
 }
 
 constexpr double kMissed = 1e3;  // residual of a beam that misses the target
@@ -88,12 +94,14 @@ struct Functor {
     using JacobianType = Eigen::MatrixXd;
     enum { InputsAtCompileTime = Eigen::Dynamic, ValuesAtCompileTime = Eigen::Dynamic };
     const Problem* p;
-    const std::vector<const CatalogLens*>* choice;
+    Layout* work;       // the layout with this catalog choice; only the moved positions change
+    TraceCache* cache;  // kept across the evaluations of one choice
     Eigen::Index n_inputs, n_values;
     int inputs() const { return static_cast<int>(n_inputs); }
     int values() const { return static_cast<int>(n_values); }
     int operator()(const Eigen::VectorXd& u, Eigen::VectorXd& f) const {
-        f = residuals(*p, evaluate(apply(*p, *choice, u), p->library), n_values);
+        place_moves(*p, u, *work);
+        f = residuals(*p, evaluate(*work, p->library, cache), n_values);
         return 0;
     }
 };
@@ -107,8 +115,10 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
         const auto [lo, hi] = p.move_range[static_cast<size_t>(k)];
         u[k] = lo <= 0 && 0 <= hi ? std::asin(std::clamp((0 - (lo + hi) / 2) / ((hi - lo) / 2), -1.0, 1.0)) : 0;
     }
+    Layout work = apply(p, choice, u);
+    TraceCache cache;
     if (n > 0) {
-        Functor f{&p, &choice, n, m};
+        Functor f{&p, &work, &cache, n, m};
         Eigen::NumericalDiff<Functor> diff(f);
         Eigen::LevenbergMarquardt<Eigen::NumericalDiff<Functor>> lm(diff);
         lm.parameters.maxfev = 60 * static_cast<int>(n + 1);
@@ -118,7 +128,7 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     }
     TelescopeSolution s;
     s.layout = apply(p, choice, u);
-    const std::vector<BeamAtTarget> at = evaluate(s.layout, p.library);
+    const std::vector<BeamAtTarget> at = evaluate(s.layout, p.library, &cache);
     s.residual = residuals(p, at, m).norm();
     for (size_t k = 0; k < p.swap_index.size(); ++k) s.swaps.emplace_back(p.base.elements[p.swap_index[k]].id, choice[k]->id);
     for (Eigen::Index k = 0; k < n; ++k) {
@@ -128,7 +138,7 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
         // Sensitivity: waist-offset change per mm of this move.
         Layout nudged = s.layout;
         nudged.elements[p.move_index[static_cast<size_t>(k)]].at_mm += 0.1 * p.move_direction[static_cast<size_t>(k)];
-        const std::vector<BeamAtTarget> after = evaluate(nudged, p.library);
+        const std::vector<BeamAtTarget> after = evaluate(nudged, p.library, &cache);
         for (size_t b = 0; b < at.size(); ++b)
             if (at[b].reached && after[b].reached)
                 s.sensitivity_mm_per_mm = std::max(s.sensitivity_mm_per_mm,

@@ -36,8 +36,8 @@ Spread spread(std::vector<double> v) {
 
 }  // namespace
 
-Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library) {
-    const std::vector<BeamAtTarget> at = evaluate_beams_at_target(layout, library);
+Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library, TraceCache* cache) {
+    const std::vector<BeamAtTarget> at = evaluate_beams_at_target(layout, library, cache);
     Figures f;
     if (at.size() == 1) {
         f.valid = at[0].reached;
@@ -165,11 +165,16 @@ ToleranceReport analyse_tolerances(const Layout& layout, const MaterialLibrary& 
     std::vector<std::thread> pool;
     for (int t = 0; t < n_threads; ++t)
         pool.emplace_back([&, t] {
+            // One working copy and one trace cache per thread; each sample starts from the
+            // nominal values of the elements it perturbs (the result depends on the seed and
+            // the sample number only, not on the thread that draws it).
+            Layout l = base;
+            TraceCache cache;
             for (size_t k = static_cast<size_t>(t); k < samples; k += static_cast<size_t>(n_threads)) {
                 SplitMix64 rng{seed ^ (0x5851f42d4c957f2dULL * (k + 1))};
-                Layout l = base;
+                for (const Perturbation& p : perts) l.elements[p.element] = base.elements[p.element];
                 for (const Perturbation& p : perts) apply_perturbation(l, p, p.tolerance * rng.uniform_symmetric());
-                results[k] = evaluate_figures(l, library);
+                results[k] = evaluate_figures(l, library, &cache);
             }
         });
     for (std::thread& th : pool) th.join();

@@ -18,6 +18,7 @@
 
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
+#include "trace/trace_cache.hpp"
 
 namespace rv {
 
@@ -26,7 +27,7 @@ struct Figures {
     double waist_offset_mm = 0, waist_ratio = 1, lateral_um = 0, delay_fs = 0, overlap = 0;
 };
 
-Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library);
+Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library, TraceCache* cache = nullptr);
 
 struct Perturbation {
     enum class Kind { Position, Angle, FocalLength, Stage };

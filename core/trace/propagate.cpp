@@ -64,7 +64,7 @@ double locate_waist_mm(const Layout& layout, const Path& path, size_t k, Gaussia
         for (size_t i = k; i + 1 < path.hits.size(); ++i) {
             const double gap = path.hits[i + 1].s_mm - path.hits[i].s_mm;
             if (d <= gap || has_power(layout, path.hits[i + 1])) break;
-            q = propagate(q, free_space(gap));
+            q = translate(q, gap);
             q = propagate(q, hit_matrix(layout, path.hits[i + 1], plane),
                           path.hits[i + 1].index_after);
             travelled += gap;
@@ -76,7 +76,7 @@ double locate_waist_mm(const Layout& layout, const Path& path, size_t k, Gaussia
     for (size_t i = k; i > 0; --i) {
         const double gap = path.hits[i].s_mm - path.hits[i - 1].s_mm;
         if (-d <= gap || has_power(layout, path.hits[i - 1])) break;
-        q = propagate(q, free_space(-gap));  // now just after hit i − 1: undo its matrix
+        q = translate(q, -gap);  // now just after hit i − 1: undo its matrix
         q = propagate(q, hit_matrix(layout, path.hits[i - 1], plane).inverse(),
                       path.hits[i - 1].index_before);
         travelled += gap;
@@ -104,8 +104,7 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         const int n = std::clamp(static_cast<int>(length / options.envelope_step_mm), 1, 400);
         for (int i = 0; i <= n; ++i) {
             const double z = length * i / n;
-            out.envelope.push_back({s0 + z, radius_um(propagate(bt, free_space(z))),
-                                    radius_um(propagate(bs, free_space(z)))});
+            out.envelope.push_back({s0 + z, radius_um(translate(bt, z)), radius_um(translate(bs, z))});
         }
     };
 
@@ -120,8 +119,8 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         s.index = seg.index;
         sample_segment(t, s, seg.length_mm);
         if (options.sample_envelope) segment_starts.push_back({s0, seg.length_mm, t, s});
-        t = propagate(t, free_space(seg.length_mm));
-        s = propagate(s, free_space(seg.length_mm));
+        t = translate(t, seg.length_mm);
+        s = translate(s, seg.length_mm);
         s0 += seg.length_mm;
         if (i >= path.hits.size()) break;  // the trailing segment to the table edge
         const TraceHit& hit = path.hits[i];
@@ -164,7 +163,7 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
             const double a = std::max(lo, seg.s_mm), b = std::min(hi, seg.s_mm + seg.length_mm);
             for (double x = lo + std::ceil((a - lo) / step) * step; x <= b; x += step) {
                 const double z = x - seg.s_mm;
-                out.envelope.push_back({x, radius_um(propagate(seg.t, free_space(z))), radius_um(propagate(seg.s, free_space(z)))});
+                out.envelope.push_back({x, radius_um(translate(seg.t, z)), radius_um(translate(seg.s, z))});
             }
         }
         std::stable_sort(out.envelope.begin(), out.envelope.end(),

@@ -1,13 +1,14 @@
 #include "trace/trace.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <sstream>
 
-#include "nonlinear/phase_matching.hpp"
-#include "trace/crystal_axes.hpp"
 #include "materials/dispersion.hpp"
+#include "nonlinear/phase_matching.hpp"
 #include "optics/thick_lens.hpp"
+#include "trace/crystal_axes.hpp"
 #include "units/constants.hpp"
 
 namespace rv {
@@ -63,8 +64,27 @@ const std::string* material_name(const ElementKind& kind) {
     return nullptr;
 }
 
-std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library) {
+std::optional<size_t> index_of(const Layout& layout, const std::string& id) {
+    for (size_t i = 0; i < layout.elements.size(); ++i)
+        if (layout.elements[i].id == id) return i;
+    return std::nullopt;
+}
+
+// An id looked up through the cache: the cached index while the element there still has it.
+std::optional<size_t> resolve(const Layout& layout, const std::string& id,
+                              std::optional<std::pair<std::string, size_t>>& slot) {
+    if (!slot || slot->first != id || slot->second >= layout.elements.size() ||
+        layout.elements[slot->second].id != id) {
+        const std::optional<size_t> i = index_of(layout, id);
+        if (!i) return std::nullopt;
+        slot = std::make_pair(id, *i);
+    }
+    return slot->second;
+}
+
+std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache) {
     std::vector<Placed> placed(layout.elements.size());
+    cache.resolved.resize(layout.elements.size());
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
         placed[i].at = e.at_mm;
@@ -72,25 +92,36 @@ std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library) 
         placed[i].half_aperture = e.aperture_mm / 2.0;
         placed[i].traced = !std::holds_alternative<Stage>(e.kind);
     }
-    auto index_of = [&](const std::string& id) -> std::optional<size_t> {
-        for (size_t i = 0; i < layout.elements.size(); ++i)
-            if (layout.elements[i].id == id) return i;
-        return std::nullopt;
-    };
-    for (const Element& e : layout.elements) {
-        if (const auto* s = std::get_if<Stage>(&e.kind))
-            for (const std::string& id : s->carries)
-                if (auto i = index_of(id)) placed[*i].at += s->position_mm * direction_deg(s->axis_deg);
+    for (size_t k = 0; k < layout.elements.size(); ++k) {
+        if (const auto* s = std::get_if<Stage>(&layout.elements[k].kind)) {
+            auto& carried = cache.resolved[k].carried;
+            carried.resize(s->carries.size());
+            for (size_t c = 0; c < s->carries.size(); ++c) {
+                std::optional<std::pair<std::string, size_t>> slot;
+                if (!carried[c].first.empty()) slot = carried[c];
+                if (auto i = resolve(layout, s->carries[c], slot)) {
+                    placed[*i].at += s->position_mm * direction_deg(s->axis_deg);
+                    carried[c] = *slot;
+                }
+            }
+        }
     }
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const ElementKind& kind = layout.elements[i].kind;
+        TraceCache::Resolved& r = cache.resolved[i];
         if (const auto* m = std::get_if<Mirror>(&kind); m && m->aim_at) {
-            placed[i].aim_target = index_of(*m->aim_at);
+            placed[i].aim_target = resolve(layout, *m->aim_at, r.aim_target);
             placed[i].aim_pending = placed[i].aim_target.has_value();
         }
         placed[i].surface_count = surfaces_of(kind, placed[i].at, placed[i].normal, placed[i].surfaces);
         placed[i].reach = std::hypot(placed[i].half_aperture, slab_thickness(kind)) + 1e-6;
-        if (const std::string* name = material_name(kind)) placed[i].material = library.find(*name);
+        if (const std::string* name = material_name(kind)) {
+            if (r.material_name != *name || !r.material) {
+                r.material_name = *name;
+                r.material = library.find(*name);
+            }
+            placed[i].material = r.material;
+        }
     }
     return placed;
 }
@@ -153,24 +184,43 @@ std::optional<Vec2> refract(const Vec2& d, const Vec2& surface_normal, double n1
 
 Vec2 reflect(const Vec2& d, const Vec2& n) { return d - 2.0 * d.dot(n) * n; }
 
-struct Medium {
-    double index = 1.0, group_index = 1.0;
-    double focal_length_mm = 0;  // lenses only
-};
+using Medium = TraceCache::Medium;
+
+// A sample from the cache when it was taken of the same material, else a fresh one.
+template <class T, class Make>
+const T& cached(TraceCache::Tagged<T>& slot, const Material* material, Make make) {
+    if (!slot.value || slot.material != material) {
+        slot.material = material;
+        slot.value = make();
+    }
+    return *slot.value;
+}
+
+// Distance from point c to the segment [a, b].
+double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
+    const Vec2 ab = b - a;
+    const double len2 = ab.squaredNorm();
+    const double t = len2 > 0 ? std::clamp((c - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
+    return (a + t * ab - c).norm();
+}
 
 class BeamTracer {
 public:
     BeamTracer(const Layout& layout, const MaterialLibrary& library, std::vector<Placed>& placed,
-               size_t beam)
-        : layout_(layout), library_(library), placed_(placed), beam_(layout.beams[beam]) {
+               size_t beam, TraceCache& cache)
+        : layout_(layout), placed_(placed), beam_(layout.beams[beam]), cache_(cache),
+          memo_(cache.beams[beam]) {
         path_.beam = beam;
         path_.hits.reserve(24);
         path_.segments.reserve(24);
         air_ = library.find("air");
-        air_group_index_ = sample_index(*air_, beam_.wavelength_nm).group_index;
-        slab_cache_.resize(layout.elements.size());
+        air_group_index_ = memo_.air_group_index;
         for (size_t i = 0; i < layout.elements.size(); ++i)
             if (layout.elements[i].id == layout.target) target_ = i;
+        // How far any element has moved since the steps were recorded (see trace_cache.hpp).
+        replaying_ = !memo_.steps.empty();
+        for (size_t i = 0; replaying_ && i < placed.size(); ++i)
+            moved_mm_ = std::max(moved_mm_, (placed[i].at - memo_.placed_at_mm[i]).norm());
     }
 
     Path run();
@@ -181,7 +231,11 @@ private:
         Surface surface;
         double dist, height;
     };
+    void consider(size_t element, const Vec2& p, const Vec2& d, double max_dist,
+                  std::optional<Candidate>& best) const;
     std::optional<Candidate> nearest(const Vec2& p, const Vec2& d, double max_dist) const;
+    std::optional<Candidate> next_hit(const Vec2& p, const Vec2& d, double max_dist, size_t step);
+    void record_steps();
     double table_exit(const Vec2& p, const Vec2& d) const;
     Medium slab_medium(size_t element, const Vec2& direction_inside);
     void note_material(size_t element, const Material& m);
@@ -195,14 +249,15 @@ private:
     void check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element);
 
     const Layout& layout_;
-    const MaterialLibrary& library_;
     std::vector<Placed>& placed_;
     const BeamSource& beam_;
+    TraceCache& cache_;
+    TraceCache::Beam& memo_;  // this beam's material samples and recorded steps
     const Material* air_ = nullptr;
-    // Per element, for this beam: the medium inside a slab whose index does not depend on the
-    // direction, and a thick lens's absolute group index.
-    std::vector<std::optional<Medium>> slab_cache_;
     Path path_;
+    std::vector<std::pair<Vec2, Vec2>> steps_;  // this trace's steps (start, end)
+    bool replaying_ = false;  // every step so far lay within the recorded steps' margin
+    double moved_mm_ = 0;
     double air_group_index_ = 1.0;
     std::optional<size_t> target_;
     std::optional<size_t> inside_;
@@ -211,43 +266,88 @@ private:
     std::vector<size_t> out_of_range_noted_;
 };
 
+void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dist,
+                          std::optional<Candidate>& best) const {
+    if (!placed_[i].traced) return;
+    if (inside_ && *inside_ != i) return;  // inside a slab only its own faces count
+    const Placed& pl = placed_[i];
+    // Cheap rejection: a ray that passes the element's bounding circle, or whose circle lies
+    // behind it, cannot meet its surfaces (inside a slab the faces are unbounded).
+    if (!inside_) {
+        const Vec2 to_centre = pl.at - p;
+        const double along = to_centre.dot(d);
+        const double across = to_centre.x() * d.y() - to_centre.y() * d.x();
+        if (std::abs(across) > pl.reach || along < -pl.reach) return;
+    }
+    Surface provisional[3];
+    const Surface* s = pl.surfaces;
+    int n = pl.surface_count;
+    if (pl.aim_pending) {
+        // Provisional orientation: the one that would send this ray, arriving at the centre,
+        // to the aimed-at element's centre.
+        const Vec2 to_target = (placed_[*pl.aim_target].at - pl.at).normalized();
+        n = surfaces_of(layout_.elements[i].kind, pl.at, (to_target - d).normalized(), provisional);
+        s = provisional;
+    }
+    for (int k = 0; k < n; ++k) {
+        if (last_surface_ && last_surface_->first == i && last_surface_->second == s[k].face) continue;
+        if (s[k].face == Face::Centre && !inside_) continue;  // the centre plane is inside the crystal
+        double dist = 0, height = 0;
+        if (!cross_line(p, d, s[k], dist, height)) continue;
+        if (dist <= kEps_mm || dist > max_dist + 1e-6) continue;  // on the edge counts
+        if (!inside_ && std::abs(height) > pl.half_aperture) continue;
+        if (!best || dist < best->dist) best = Candidate{i, s[k], dist, height};
+    }
+}
+
 std::optional<BeamTracer::Candidate> BeamTracer::nearest(const Vec2& p, const Vec2& d,
                                                          double max_dist) const {
     std::optional<Candidate> best;
-    for (size_t i = 0; i < layout_.elements.size(); ++i) {
-        if (!placed_[i].traced) continue;
-        if (inside_ && *inside_ != i) continue;  // inside a slab only its own faces count
-        const Placed& pl = placed_[i];
-        // Cheap rejection: a ray that passes the element's bounding circle, or whose circle
-        // lies behind it, cannot meet its surfaces (inside a slab the faces are unbounded).
-        if (!inside_) {
-            const Vec2 to_centre = pl.at - p;
-            const double along = to_centre.dot(d);
-            const double across = to_centre.x() * d.y() - to_centre.y() * d.x();
-            if (std::abs(across) > pl.reach || along < -pl.reach) continue;
-        }
-        Surface provisional[3];
-        const Surface* s = pl.surfaces;
-        int n = pl.surface_count;
-        if (pl.aim_pending) {
-            // Provisional orientation: the one that would send this ray, arriving at the
-            // centre, to the aimed-at element's centre.
-            const Vec2 to_target = (placed_[*pl.aim_target].at - pl.at).normalized();
-            n = surfaces_of(layout_.elements[i].kind, pl.at, (to_target - d).normalized(), provisional);
-            s = provisional;
-        }
-        for (int k = 0; k < n; ++k) {
-            if (last_surface_ && last_surface_->first == i && last_surface_->second == s[k].face)
-                continue;
-            if (s[k].face == Face::Centre && !inside_) continue;  // the centre plane is inside the crystal
-            double dist = 0, height = 0;
-            if (!cross_line(p, d, s[k], dist, height)) continue;
-            if (dist <= kEps_mm || dist > max_dist + 1e-6) continue;  // on the edge counts
-            if (!inside_ && std::abs(height) > pl.half_aperture) continue;
-            if (!best || dist < best->dist) best = Candidate{i, s[k], dist, height};
+    if (inside_) {
+        consider(*inside_, p, d, max_dist, best);
+        return best;
+    }
+    for (size_t i = 0; i < layout_.elements.size(); ++i) consider(i, p, d, max_dist, best);
+    return best;
+}
+
+// The next hit: among the recorded step's candidates while the new step stays within the
+// margin (trace_cache.hpp), else among all elements.
+std::optional<BeamTracer::Candidate> BeamTracer::next_hit(const Vec2& p, const Vec2& d,
+                                                          double max_dist, size_t step) {
+    if (replaying_ && step < memo_.steps.size()) {
+        const TraceCache::Step& recorded = memo_.steps[step];
+        if ((p - recorded.from_mm).norm() + moved_mm_ < kTraceMargin_mm) {
+            std::optional<Candidate> best;
+            for (uint32_t i : recorded.candidates) consider(i, p, d, max_dist, best);
+            const double reach = best ? best->dist : max_dist;
+            if (std::isfinite(reach) &&
+                (p + reach * d - recorded.to_mm).norm() + moved_mm_ < kTraceMargin_mm) {
+                ++cache_.replayed_steps;
+                return best;
+            }
         }
     }
-    return best;
+    replaying_ = false;
+    ++cache_.searched_steps;
+    return nearest(p, d, max_dist);
+}
+
+// Keep this trace's steps with their candidates for the next trace.
+void BeamTracer::record_steps() {
+    memo_.steps.resize(steps_.size());
+    for (size_t k = 0; k < steps_.size(); ++k) {
+        TraceCache::Step& step = memo_.steps[k];
+        step.from_mm = steps_[k].first;
+        step.to_mm = steps_[k].second;
+        step.candidates.clear();
+        for (size_t i = 0; i < placed_.size(); ++i)
+            if (placed_[i].traced &&
+                distance_to_segment(placed_[i].at, step.from_mm, step.to_mm) <= placed_[i].reach + kTraceMargin_mm)
+                step.candidates.push_back(static_cast<uint32_t>(i));
+    }
+    memo_.placed_at_mm.resize(placed_.size());
+    for (size_t i = 0; i < placed_.size(); ++i) memo_.placed_at_mm[i] = placed_[i].at;
 }
 
 double BeamTracer::table_exit(const Vec2& p, const Vec2& d) const {
@@ -274,25 +374,28 @@ void BeamTracer::note_material(size_t element, const Material& m) {
 
 // Phase and group index of the beam inside a slab, for a ray running along direction_inside.
 Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
-    if (slab_cache_[element]) return *slab_cache_[element];
     const ElementKind& kind = layout_.elements[element].kind;
     const Material& m = *placed_[element].material;
     const double nm = beam_.wavelength_nm;
     if (const auto* c = std::get_if<Crystal>(&kind); c && m.symmetry != Symmetry::Isotropic) {
         // Birefringent: the A (ordinary) wave when most of the beam's power is in it, else the
         // B wave at its angle ψ to the reference axis (trace/crystal_axes.hpp).
+        const CrystalIndices& x = cached(memo_.crystal[element], &m,
+                                         [&] { return crystal_indices(m, nm, c->principal_plane); });
         const bool a_wave = a_wave_fraction(beam_.polarization, c->optic_axis_horizontal) >= 0.5;
-        const double psi = angle_to_reference_axis_rad(placed_[element].normal, deg_to_rad(c->cut_deg),
-                                                       c->optic_axis_horizontal, dir);
-        const WaveIndex w = wave_index(m, nm, a_wave ? Polarity::A : Polarity::B, psi, c->principal_plane);
-        const Medium medium{w.index, w.group_index, 0};
-        if (a_wave) slab_cache_[element] = medium;  // the A index does not depend on the direction
-        return medium;
+        const double psi = a_wave ? 0.0
+                                  : angle_to_reference_axis_rad(placed_[element].normal, deg_to_rad(c->cut_deg),
+                                                                c->optic_axis_horizontal, dir);
+        const WaveIndex w = wave_index(x, a_wave ? Polarity::A : Polarity::B, psi);
+        return Medium{w.index, w.group_index};
     }
-    const IndexSample rel = sample_index(m, nm, Axis::X);
-    const IndexSample abs = absolute_index(m, *air_, nm, Axis::X);
-    slab_cache_[element] = Medium{rel.index, abs.group_index};
-    return *slab_cache_[element];
+    return cached(memo_.slab[element], &m, [&] {
+        return Medium{sample_index(m, nm, Axis::X).index, absolute_index(m, *air_, nm, Axis::X).group_index};
+    });
+}
+
+bool depends_on_direction(const ElementKind& kind, const Material& m) {
+    return std::holds_alternative<Crystal>(kind) && m.symmetry != Symmetry::Isotropic;
 }
 
 void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element) {
@@ -327,7 +430,8 @@ Path BeamTracer::run() {
             break;
         }
         const double exit = inside_ ? kInf : table_exit(p, d);
-        const std::optional<Candidate> c = nearest(p, d, exit);
+        const std::optional<Candidate> c = next_hit(p, d, exit, count);
+        if (c || std::isfinite(exit)) steps_.emplace_back(p, p + (c ? c->dist : exit) * d);
         if (!c) {
             if (inside_) {
                 finding(Finding::Kind::LeftThroughEdge, *inside_, p, 0,
@@ -373,24 +477,30 @@ Path BeamTracer::run() {
 
         if (const auto* lens = std::get_if<Lens>(&kind)) {
             hit.interaction = Interaction::ThinLens;
-            if (!slab_cache_[e]) {  // per beam: the glass index, its group index, the focal length
-                double n = 1, ng = 1, f = 0;
-                if (const auto* ideal = std::get_if<IdealLens>(&lens->model)) {
-                    f = ideal->focal_length_mm;
-                } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
-                    n = sample_index(*pl.material, wavelength).index;
-                    f = chromatic_focal_length_mm(thin->focal_length_mm,
-                                                  sample_index(*pl.material, thin->design_wavelength_nm).index, n);
-                } else {
-                    const auto& t = std::get<ThickLens>(lens->model);
-                    n = sample_index(*pl.material, wavelength).index;
-                    ng = absolute_index(*pl.material, *air_, wavelength).group_index;
-                    f = thick_lens_properties({t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm}, n)
-                            .effective_focal_length_mm;
-                }
-                slab_cache_[e] = Medium{n, ng, f};
+            // The focal length at this beam's wavelength, from the glass samples in the cache.
+            double f = 0, glass_index = 1, glass_group_index = 1;
+            if (const auto* ideal = std::get_if<IdealLens>(&lens->model)) {
+                f = ideal->focal_length_mm;
+            } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
+                TraceCache::Tagged<TraceCache::LensGlass>& slot = memo_.lens[e];
+                if (slot.value && slot.value->design_wavelength_nm != thin->design_wavelength_nm) slot.value.reset();
+                const auto& g = cached(slot, pl.material, [&] {
+                    return TraceCache::LensGlass{thin->design_wavelength_nm, sample_index(*pl.material, wavelength).index,
+                                                 sample_index(*pl.material, thin->design_wavelength_nm).index, 1};
+                });
+                glass_index = g.index;
+                f = chromatic_focal_length_mm(thin->focal_length_mm, g.design_index, g.index);
+            } else {
+                const auto& t = std::get<ThickLens>(lens->model);
+                const auto& g = cached(memo_.lens[e], pl.material, [&] {
+                    return TraceCache::LensGlass{0, sample_index(*pl.material, wavelength).index, 1,
+                                                 absolute_index(*pl.material, *air_, wavelength).group_index};
+                });
+                glass_index = g.index;
+                glass_group_index = g.group_index;
+                f = thick_lens_properties({t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm}, g.index)
+                        .effective_focal_length_mm;
             }
-            const double f = slab_cache_[e]->focal_length_mm;
             if (!(std::isfinite(f) && f != 0)) {
                 finding(Finding::Kind::MaterialOutOfRange, e, h, 0,
                         "the focal length of " + id(e) + " is not a real number at " + mm_text(wavelength) +
@@ -398,7 +508,7 @@ Path BeamTracer::run() {
                 break;
             }
             hit.focal_length_mm = f;
-            hit.lens_index = slab_cache_[e]->index;
+            hit.lens_index = glass_index;
             const Vec2 t = perpendicular(n);
             const double along = d.dot(n);
             const double slope = d.dot(t) / std::abs(along) - c->height / f;
@@ -406,7 +516,7 @@ Path BeamTracer::run() {
             if (const auto* thick = std::get_if<ThickLens>(&lens->model)) {
                 note_material(e, *pl.material);
                 hit.lumped_glass_mm = thick->center_thickness_mm;
-                hit.lumped_group_index = slab_cache_[e]->group_index;
+                hit.lumped_group_index = glass_group_index;
             } else if (std::holds_alternative<ThinChromaticLens>(lens->model)) {
                 note_material(e, *pl.material);
             }
@@ -469,7 +579,8 @@ Path BeamTracer::run() {
                                     mm_text(wavelength) + " nm; the ray stops at " + id(e));
                         break;
                     }
-                    for (int it = 0; it < 4; ++it) {
+                    const int refinements = depends_on_direction(kind, *pl.material) ? 4 : 0;
+                    for (int it = 0; it < refinements; ++it) {
                         out = refract(d, n, 1.0, next.index);
                         if (!out) break;
                         next = slab_medium(e, *out);
@@ -506,16 +617,41 @@ Path BeamTracer::run() {
     if (!path_.target_hit)
         finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p, 0,
                 "never reaches the target " + layout_.target);
+    if (!replaying_ || steps_.size() != memo_.steps.size()) record_steps();
     return std::move(path_);
 }
 
 }  // namespace
 
-std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library) {
-    std::vector<Placed> placed = place(layout, library);
+std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache* cache) {
+    TraceCache local;
+    TraceCache& c = cache ? *cache : local;
+    // Start afresh when the cache was made for another list of elements or beams, or with
+    // another material library.
+    const size_t n = layout.elements.size();
+    bool same = c.library == &library && c.element_kinds.size() == n && c.beams.size() == layout.beams.size();
+    for (size_t i = 0; same && i < n; ++i) same = c.element_kinds[i] == layout.elements[i].kind.index();
+    if (!same) {
+        c = TraceCache{};
+        c.library = &library;
+        for (const Element& e : layout.elements) c.element_kinds.push_back(e.kind.index());
+        c.beams.resize(layout.beams.size());
+    }
+    const Material* air = library.find("air");
+    for (size_t b = 0; b < layout.beams.size(); ++b) {
+        TraceCache::Beam& beam = c.beams[b];
+        if (beam.wavelength_nm == layout.beams[b].wavelength_nm && beam.slab.size() == n) continue;
+        beam = TraceCache::Beam{};
+        beam.wavelength_nm = layout.beams[b].wavelength_nm;
+        beam.air_group_index = sample_index(*air, beam.wavelength_nm).group_index;
+        beam.slab.resize(n);
+        beam.crystal.resize(n);
+        beam.lens.resize(n);
+    }
+    std::vector<Placed> placed = place(layout, library, c);
     std::vector<Path> paths;
     for (size_t b = 0; b < layout.beams.size(); ++b)
-        paths.push_back(BeamTracer(layout, library, placed, b).run());
+        paths.push_back(BeamTracer(layout, library, placed, b, c).run());
     return paths;
 }
 

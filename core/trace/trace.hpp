@@ -24,12 +24,15 @@
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
 #include "trace/path.hpp"
+#include "trace/trace_cache.hpp"
 
 namespace rv {
 
 inline constexpr size_t kMaxHitsPerBeam = 64;
 
-// One path per beam, in the layout's order.
-std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library);
+// One path per beam, in the layout's order. A cache (trace_cache.hpp) kept by the caller
+// between traces of one layout makes later traces faster and gives the same paths.
+std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library,
+                               TraceCache* cache = nullptr);
 
 }  // namespace rv

@@ -58,6 +58,27 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         // Found by a hand-made hostile input: 200 000 nested arrays overflowed the stack when a
         // message dumped the value; nesting is now limited while parsing.
         {"deep-nesting.json", {"deep-nesting.json: error: the file nests deeper than 64 levels; a layout needs at most 5"}},
+        // Hostile inputs (issue #7). Binary bytes: a syntax error at 1:1; the message quotes
+        // the offending byte as it is (0x89, not UTF-8).
+        {"binary-garbage.json", {"binary-garbage.json:1:1: error: syntax error: invalid literal; last read: '\x89'"}},
+        {"truncated.json", {"truncated.json:3:85: error: syntax error: unexpected end of input; expected '}'"}},
+        {"wrong-types.json", {"wrong-types.json: error: /version: expected a number, found a string (\"1\")",
+                              "wrong-types.json: error: /name: expected a string, found a number (7)",
+                              "wrong-types.json: error: /table/size_mm: expected an array of numbers, found a string (\"900x600\")",
+                              "wrong-types.json: error: /beams/0/start_mm/1: expected a number, found a string (\"300\")",
+                              "wrong-types.json: error: /beams/0/direction_deg: expected a number, found null (null)",
+                              "wrong-types.json: error: /beams/0/waist_um/0: expected a number, found a boolean (true)",
+                              "wrong-types.json: error: /beams/0/m2: expected one number or [tangential, sagittal], found an object ({})",
+                              "wrong-types.json: error: /elements/0/focal_length_mm: expected a number, found a string (\"150\")",
+                              "wrong-types.json: error: /elements/1/id: expected a string, found a number (5)",
+                              "wrong-types.json: error: /elements/2/aperture_mm: expected a number, found a boolean (false)",
+                              "wrong-types.json: error: /target: expected a string, found an array ([\"T\"])"}},
+        // JSON has no NaN or Infinity: each spelling is a syntax error at its line and column.
+        {"nan-literal.json", {"nan-literal.json:2:104: error: syntax error: invalid literal; last read: '\"waist_um\": N'"}},
+        {"infinity-literal.json", {"infinity-literal.json:2:104: error: syntax error: invalid literal; last read: '\"waist_um\": I'"}},
+        {"minus-infinity-literal.json", {"minus-infinity-literal.json:2:104: error: syntax error: invalid number; expected digit after '-'; last read: '-I'"}},
+        // A 1 MiB id as the target: the message repeats the whole id (it is not shortened).
+        {"long-id.json", {"long-id.json: error: /target: no element has id \"" + std::string(1 << 20, 'x') + "\""}},
         // Every problem of a file in one pass.
         {"three-errors.json", {"three-errors.json: error: /beams/0/wavelength_nm: must be positive (got -1)",
                                "three-errors.json: error: /elements/0/apperture_mm: unknown key for a lens; did you mean \"aperture_mm\"?",

@@ -61,3 +61,14 @@ TEST_CASE("a waist inside a medium", "[gaussian]") {
     CHECK_THAT(rv::distance_to_waist_mm(inside), near_rel(2.0 * 1.65452, 1e-12));
     CHECK_THAT(rv::waist_radius_um(inside), near_rel(30.0, 1e-12));
 }
+
+TEST_CASE("translate is free space", "[gaussian]") {
+    // Kogelnik & Li 1966: free space of length L takes q to q + L; translate() is the shortcut
+    // the propagation uses, so it must equal the matrix form exactly.
+    const rv::GaussianBeam b = rv::beam_from_waist(120.0, -35.0, 780.0, 1.0, 1.3);
+    for (double length_mm : {0.0, 12.5, -40.0, 1e4}) {
+        const rv::GaussianBeam m = rv::propagate(b, rv::free_space(length_mm));
+        CHECK(rv::translate(b, length_mm).q_mm == m.q_mm);
+        CHECK(rv::distance_to_waist_mm(rv::translate(b, length_mm)) == -35.0 - length_mm);
+    }
+}

@@ -1,0 +1,77 @@
+#pragma once
+// What one trace of a layout keeps so that the next trace of the same layout is fast: the
+// solvers and the tolerance analysis trace one layout thousands of times with optics moved,
+// turned or given other focal lengths.
+//
+// Two things are kept per beam:
+// * Material samples at the beam's wavelength (slab index and absolute group index, a
+//   crystal's principal indices, a lens glass at the beam's and the design wavelength), each
+//   tagged with the material it came from, so a changed glass is sampled again.
+// * The last trace's steps, each with the elements whose bounding circle comes within
+//   kTraceMargin_mm of it (the candidates). A later trace searches only a step's candidates
+//   when the new step lies within the margin of the recorded one, after allowing for how far
+//   any element has moved since the recording (δ): with ε the larger distance between the new
+//   and the recorded step's end points, every point of the new step lies within ε of the
+//   recorded step, so an element that is not a candidate keeps at least
+//   kTraceMargin_mm − ε − δ > 0 clear of it and cannot be met first. The result is the same
+//   as a full search (a test compares them); when the condition fails the step is searched
+//   among all elements and the steps are recorded again.
+// A cache belongs to one layout's list of elements and beams; trace_layout checks the element
+// kinds and the beams' wavelengths on every use and starts afresh when they differ.
+
+#include <cstdint>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "layout/layout.hpp"
+#include "materials/material.hpp"
+#include "nonlinear/phase_matching.hpp"
+
+namespace rv {
+
+inline constexpr double kTraceMargin_mm = 5.0;
+
+struct TraceCache {
+    struct Medium {
+        double index = 1, group_index = 1;
+    };
+    struct LensGlass {
+        double design_wavelength_nm = 0;
+        double index = 1, design_index = 1, group_index = 1;  // absolute group index
+    };
+    template <class T>
+    struct Tagged {  // a sample and the material it was taken of
+        const Material* material = nullptr;
+        std::optional<T> value;
+    };
+    struct Step {
+        Vec2 from_mm{0, 0}, to_mm{0, 0};
+        std::vector<uint32_t> candidates;
+    };
+    struct Beam {
+        double wavelength_nm = 0;
+        double air_group_index = 1;
+        std::vector<Tagged<Medium>> slab;              // isotropic slabs, dichroic substrates
+        std::vector<Tagged<CrystalIndices>> crystal;   // birefringent crystals
+        std::vector<Tagged<LensGlass>> lens;           // chromatic and thick lenses
+        std::vector<Step> steps;                       // the recorded trace
+        std::vector<Vec2> placed_at_mm;                // element positions when it was recorded
+    };
+    // Names resolved once per element (checked against the layout's names on every use):
+    // the elements a stage carries, an aim_at mirror's target, the material by its name.
+    struct Resolved {
+        std::vector<std::pair<std::string, size_t>> carried;
+        std::optional<std::pair<std::string, size_t>> aim_target;
+        std::string material_name;
+        const Material* material = nullptr;
+    };
+    std::vector<size_t> element_kinds;  // the variant index of each element
+    std::vector<Resolved> resolved;
+    const void* library = nullptr;  // the material library the pointers point into
+    std::vector<Beam> beams;
+    // How the last traces went (for tests and benchmarks).
+    size_t replayed_steps = 0, searched_steps = 0;
+};
+
+}  // namespace rv

@@ -1,0 +1,90 @@
+"""The command line on seeded random valid layouts (hardening_write_layouts): `report --json`
+exits 0 and prints strict JSON (no NaN or Infinity) whose numbers are all finite and where null
+stands only for a figure the report may leave out; `check` and `trace` exit 0.
+
+usage: check_cli_random.py RENDEZVOUS WRITER N SEED
+"""
+import json
+import math
+import os
+import subprocess
+import sys
+import tempfile
+
+# Keys whose value is null when the figure does not apply (viewer/cli/report_command.cpp,
+# optional_number); a null anywhere else is a number the report could not give (NaN).
+MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offset_fs",
+               "walk_apart_mm"}
+
+# TODO(#7, known bug, tests/hardening/repro/ktp-shg-outside-range.json): a process whose output
+# lies outside the crystal's index formula gives delta_k_l and sinc2_now NaN, printed as null.
+# Excused here until core reports it as a finding; remove this set then.
+KNOWN_NAN_BUG = {"delta_k_l", "sinc2_now"}
+
+
+def reject_constant(name):
+    raise ValueError("non-standard JSON constant " + name)
+
+
+def walk(value, path, problems, excused):
+    if isinstance(value, dict):
+        for k, v in value.items():
+            walk(v, path + [k], problems, excused)
+    elif isinstance(value, list):
+        for i, v in enumerate(value):
+            walk(v, path + [str(i)], problems, excused)
+    elif value is None:
+        key = path[-1] if path else ""
+        if key in KNOWN_NAN_BUG:
+            excused.append("/".join(path))
+        elif key not in MAY_BE_NULL:
+            problems.append("/".join(path) + " is null")
+    elif isinstance(value, float) and not math.isfinite(value):
+        problems.append("/".join(path) + " is not finite")
+
+
+def run(cmd):
+    p = subprocess.run(cmd, stdout=subprocess.PIPE, stderr=subprocess.PIPE, timeout=60)
+    return p.returncode, p.stdout.decode("utf-8"), p.stderr.decode("utf-8")
+
+
+def main():
+    rv, writer, n, seed = sys.argv[1], sys.argv[2], int(sys.argv[3]), sys.argv[4]
+    failures = []
+    excused = []
+    reached = 0
+    with tempfile.TemporaryDirectory() as folder:
+        subprocess.run([writer, folder, str(n), seed], check=True)
+        files = sorted(os.listdir(folder))
+        if len(files) != n:
+            failures.append("expected %d layouts, found %d" % (n, len(files)))
+        for name in files:
+            path = os.path.join(folder, name)
+            status, out, err = run([rv, "report", path, "--json"])
+            if status != 0:
+                failures.append("%s: report --json exited %d: %s" % (name, status, err.strip()))
+                continue
+            try:
+                doc = json.loads(out, parse_constant=reject_constant)
+            except ValueError as e:
+                failures.append("%s: report --json is not strict JSON: %s" % (name, e))
+                continue
+            problems = []
+            walk(doc, [], problems, excused)
+            failures += ["%s: %s" % (name, p) for p in problems]
+            reached += "mismatch" in doc
+            for command in (["check", path], ["trace", path, "--json"]):
+                status, out, err = run([rv] + command)
+                if status != 0:
+                    failures.append("%s: %s exited %d" % (name, command[0], status))
+    if reached < n // 5:
+        failures.append("only %d of %d layouts have both beams at the target" % (reached, n))
+    for f in failures:
+        print("FAIL:", f)
+    print("%d random layouts through report --json, check and trace; %d with a mismatch; "
+          "%d null(s) excused as the known NaN bug" % (n, reached, len(excused)))
+    return 1 if failures else 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
