@@ -23,6 +23,7 @@ struct Problem {
     std::vector<size_t> swap_index;
     std::vector<double> goal_um;  // per beam, 0 = none
     SolveGoals::Aim aim;
+    std::optional<size_t> only_beam;  // residuals of this beam only (one arm searched alone)
 };
 
 double move_of(const Problem& p, size_t k, double u) {
@@ -62,6 +63,7 @@ Eigen::VectorXd residuals(const Problem& p, const std::vector<BeamAtTarget>& at,
         if (i < size) r[i++] = v;
     };
     for (size_t b = 0; b < at.size(); ++b) {
+        if (p.only_beam && *p.only_beam != b) continue;
         const BeamAtTarget& t = at[b];
         for (const PlaneAtTarget* pl : {&t.tangential, &t.sagittal})
             push(t.reached ? pl->waist_offset_mm / pl->rayleigh_mm : kMissed);
@@ -80,9 +82,10 @@ Eigen::VectorXd residuals(const Problem& p, const std::vector<BeamAtTarget>& at,
 }
 
 Eigen::Index residual_count(const Problem& p, size_t beams) {
-    Eigen::Index n = 2 * static_cast<Eigen::Index>(beams);
+    Eigen::Index n = 2 * static_cast<Eigen::Index>(p.only_beam ? 1 : beams);
     if (p.aim == SolveGoals::Aim::Waist)
-        for (double g : p.goal_um) n += g > 0 ? 2 : 0;
+        for (size_t b = 0; b < p.goal_um.size(); ++b)
+            if (!p.only_beam || *p.only_beam == b) n += p.goal_um[b] > 0 ? 2 : 0;
     if (p.aim == SolveGoals::Aim::EqualConfocal) n += 2;
     return n;
 }
@@ -147,6 +150,55 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     return s;
 }
 
+// A catalog choice for each swapped lens, and its solution.
+struct Candidate {
+    std::vector<const CatalogLens*> choice;
+    TelescopeSolution solution;
+};
+
+// Every combination of catalog lenses for `swaps` swapped lenses (one empty choice for none).
+std::vector<std::vector<const CatalogLens*>> all_combinations(size_t swaps, const std::vector<CatalogLens>& catalog,
+                                                              const SolveOptions& options, std::string& error) {
+    std::vector<std::vector<const CatalogLens*>> combos{{}};
+    for (size_t k = 0; k < swaps; ++k) {
+        std::vector<std::vector<const CatalogLens*>> next;
+        for (const auto& c : combos)
+            for (const CatalogLens& lens : catalog) {
+                next.push_back(c);
+                next.back().push_back(&lens);
+            }
+        combos = std::move(next);
+        if (combos.size() > options.max_combinations) {
+            error = "more than " + std::to_string(options.max_combinations) +
+                    " catalog combinations; swap fewer lenses or use a smaller catalog";
+            return {};
+        }
+    }
+    return combos;
+}
+
+// Solve every combination, best first. Combinations split over threads in fixed stripes; the
+// ranking is by value (stable), so the result does not depend on the thread count.
+std::vector<Candidate> search(const Problem& p, const std::vector<std::vector<const CatalogLens*>>& combos,
+                              const SolveOptions& options) {
+    std::vector<Candidate> all(combos.size());
+    const int threads = std::max(1, std::min<int>(options.threads, static_cast<int>(combos.size())));
+    std::vector<std::thread> pool;
+    for (int t = 0; t < threads; ++t)
+        pool.emplace_back([&, t] {
+            for (size_t c = static_cast<size_t>(t); c < combos.size(); c += static_cast<size_t>(threads))
+                all[c] = Candidate{combos[c], solve_one(p, combos[c])};
+        });
+    for (std::thread& th : pool) th.join();
+    std::stable_sort(all.begin(), all.end(), [](const Candidate& x, const Candidate& y) {
+        const TelescopeSolution &a = x.solution, &b = y.solution;
+        if (a.residual != b.residual) return a.residual < b.residual;
+        if (a.sensitivity_mm_per_mm != b.sensitivity_mm_per_mm) return a.sensitivity_mm_per_mm < b.sensitivity_mm_per_mm;
+        return a.total_move_mm < b.total_move_mm;
+    });
+    return all;
+}
+
 }  // namespace
 
 SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& library,
@@ -189,43 +241,87 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
         result.error = "aim \"waist\" needs goals.waist_um for at least one beam";
         return result;
     }
-    // Every combination of catalog choices for the swapped lenses.
-    std::vector<std::vector<const CatalogLens*>> combos{{}};
-    for (size_t k = 0; k < p.swap_index.size(); ++k) {
-        std::vector<std::vector<const CatalogLens*>> next;
-        for (const auto& c : combos)
-            for (const CatalogLens& lens : catalog) {
-                next.push_back(c);
-                next.back().push_back(&lens);
-            }
-        combos = std::move(next);
-        if (combos.size() > options.max_combinations) {
-            result.error = "more than " + std::to_string(options.max_combinations) +
-                           " catalog combinations; swap fewer lenses or use a smaller catalog";
-            return result;
-        }
-    }
     if (!p.swap_index.empty() && catalog.empty()) {
         result.error = "the catalog holds no lens";
         return result;
     }
-    result.combinations = combos.size();
-    // Combinations split over threads in fixed stripes; the ranking below is by value, so the
-    // result does not depend on the thread count.
-    std::vector<TelescopeSolution> all(combos.size());
-    const int threads = std::max(1, std::min<int>(options.threads, static_cast<int>(combos.size())));
-    std::vector<std::thread> pool;
-    for (int t = 0; t < threads; ++t)
-        pool.emplace_back([&, t] {
-            for (size_t c = static_cast<size_t>(t); c < combos.size(); c += static_cast<size_t>(threads))
-                all[c] = solve_one(p, combos[c]);
-        });
-    for (std::thread& th : pool) th.join();
-    std::stable_sort(all.begin(), all.end(), [](const TelescopeSolution& a, const TelescopeSolution& b) {
-        if (a.residual != b.residual) return a.residual < b.residual;
-        if (a.sensitivity_mm_per_mm != b.sensitivity_mm_per_mm) return a.sensitivity_mm_per_mm < b.sensitivity_mm_per_mm;
-        return a.total_move_mm < b.total_move_mm;
-    });
+    // Which beams meet each swapped and each moved element.
+    auto beams_at = [&](size_t element) {
+        std::vector<size_t> beams;
+        for (const Path& path : paths)
+            for (const TraceHit& h : path.hits)
+                if (h.element == element) {
+                    beams.push_back(path.beam);
+                    break;
+                }
+        return beams;
+    };
+    // Separable: the aim is per beam (waist or focus) and every swapped or moved element is on
+    // one beam's path only. Then each beam's residuals depend on its own arm alone, the joint
+    // residual² is the sum of the arms', and the best `keep` joint solutions are among the
+    // combinations of each arm's best `keep`: each arm is searched alone (60 + 60 catalog
+    // choices instead of 60 × 60), then those combinations are solved together.
+    bool separable = options.separate_arms && p.aim != SolveGoals::Aim::EqualConfocal && p.base.beams.size() > 1;
+    std::vector<size_t> swap_beam, move_beam;
+    for (size_t i : p.swap_index) {
+        const std::vector<size_t> b = beams_at(i);
+        separable = separable && b.size() == 1;
+        swap_beam.push_back(b.empty() ? 0 : b[0]);
+    }
+    for (size_t i : p.move_index) {
+        const std::vector<size_t> b = beams_at(i);
+        separable = separable && b.size() == 1;
+        move_beam.push_back(b.empty() ? 0 : b[0]);
+    }
+    std::vector<Candidate> ranked;
+    if (separable) {
+        std::vector<std::vector<Candidate>> per_beam;
+        std::vector<std::vector<size_t>> swap_slots;  // which of p.swap_index each arm's choices fill
+        for (size_t beam = 0; beam < p.base.beams.size(); ++beam) {
+            Problem arm = p;
+            arm.only_beam = beam;
+            arm.swap_index.clear(), arm.move_index.clear(), arm.move_direction.clear(), arm.move_range.clear();
+            std::vector<size_t> slots;
+            for (size_t k = 0; k < p.swap_index.size(); ++k)
+                if (swap_beam[k] == beam) arm.swap_index.push_back(p.swap_index[k]), slots.push_back(k);
+            for (size_t k = 0; k < p.move_index.size(); ++k)
+                if (move_beam[k] == beam)
+                    arm.move_index.push_back(p.move_index[k]), arm.move_direction.push_back(p.move_direction[k]),
+                        arm.move_range.push_back(p.move_range[k]);
+            std::string error;
+            per_beam.push_back(search(arm, all_combinations(arm.swap_index.size(), catalog, options, error), options));
+            if (!error.empty()) {
+                result.error = error;
+                return result;
+            }
+            result.combinations += per_beam.back().size();
+            if (per_beam.back().size() > options.keep) per_beam.back().resize(options.keep);
+            swap_slots.push_back(std::move(slots));
+        }
+        // Every combination of the arms' best choices, solved together.
+        std::vector<std::vector<const CatalogLens*>> joint{std::vector<const CatalogLens*>(p.swap_index.size())};
+        for (size_t beam = 0; beam < per_beam.size(); ++beam) {
+            std::vector<std::vector<const CatalogLens*>> next;
+            for (const auto& partial : joint)
+                for (const Candidate& c : per_beam[beam]) {
+                    next.push_back(partial);
+                    for (size_t j = 0; j < swap_slots[beam].size(); ++j) next.back()[swap_slots[beam][j]] = c.choice[j];
+                }
+            joint = std::move(next);
+        }
+        ranked = search(p, joint, options);
+    } else {
+        std::string error;
+        std::vector<std::vector<const CatalogLens*>> combos = all_combinations(p.swap_index.size(), catalog, options, error);
+        if (!error.empty()) {
+            result.error = error;
+            return result;
+        }
+        result.combinations = combos.size();
+        ranked = search(p, combos, options);
+    }
+    std::vector<TelescopeSolution> all;
+    for (Candidate& c : ranked) all.push_back(std::move(c.solution));
     if (all.size() > options.keep) all.resize(options.keep);
     result.solutions = std::move(all);
     return result;

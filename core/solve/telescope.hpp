@@ -11,6 +11,9 @@
 //   aim "focus":          the waist offsets/z_R only
 // with each move kept in its range by x = mid + half·sin(u). Solutions are ranked by the residual
 // norm; ties by the sensitivity (how far the waists move per mm of move) and the total move.
+// When the aim is per beam (waist or focus) and every swapped or moved element lies on one
+// beam's path only, the arms are searched apart and their best choices combined (exact for
+// such problems: the joint residual² is the sum of the arms'); otherwise every combination.
 
 #include <string>
 #include <vector>
@@ -34,6 +37,9 @@ struct SolveOptions {
     size_t keep = 5;            // solutions returned, best first
     size_t max_combinations = 50000;
     int threads = 2;
+    // Search each arm alone when the problem separates (see solve_telescopes); off: every
+    // combination of every arm's choices (the same best solutions, slower).
+    bool separate_arms = true;
 };
 
 struct SolveResult {
