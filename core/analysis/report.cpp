@@ -75,20 +75,25 @@ std::optional<OverlapReport> overlap_of(const Layout& layout, const std::vector<
     if (b.size() < 2 || !b[0].at_target.reached || !b[1].at_target.reached) return std::nullopt;
     const BeamAtTarget& x = b[0].at_target;
     const BeamAtTarget& y = b[1].at_target;
-    const Vec2 across = perpendicular(x.direction);
+    // Offsets across the bisector of the two chief rays and the crystal's extent averaged over
+    // both paths, so that the figure does not depend on which beam is listed first.
+    const Vec2 across = perpendicular((x.direction + y.direction).normalized());
     const double d0_um = mm_to_um((y.hit_mm - x.hit_mm).dot(across));
     const double tilt = std::atan2(x.direction.x() * y.direction.y() - x.direction.y() * y.direction.x(),
                                    x.direction.dot(y.direction));
     OverlapReport o;
     o.spatial = transverse_overlap_1d(x.tangential.radius_um, y.tangential.radius_um, d0_um) *
                 transverse_overlap_1d(x.sagittal.radius_um, y.sagittal.radius_um, 0);
-    // Along the crystal: from its entrance to its exit face on beam 1's path.
-    const Path& p = b[0].path;
-    const size_t k = *p.target_hit;
+    // Along the crystal: from its entrance to its exit face (relative to the centre plane),
+    // the mean of the two beams' paths.
     double from = 0, to = 0;
-    if (k > 0 && k + 1 < p.hits.size() && p.hits[k].face == Face::Centre) {
-        from = p.hits[k - 1].s_mm - p.hits[k].s_mm;
-        to = p.hits[k + 1].s_mm - p.hits[k].s_mm;
+    for (const ReportBeam* beam : {&b[0], &b[1]}) {
+        const Path& p = beam->path;
+        const size_t k = *p.target_hit;
+        if (k > 0 && k + 1 < p.hits.size() && p.hits[k].face == Face::Centre) {
+            from += (p.hits[k - 1].s_mm - p.hits[k].s_mm) / 2;
+            to += (p.hits[k + 1].s_mm - p.hits[k].s_mm) / 2;
+        }
     }
     const int n = from < to ? 41 : 1;
     double sum = 0;
@@ -219,6 +224,16 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.theta_now_deg = rad_to_deg(theta_now);
     const double length = xc.length_mm;
     const double dk = delta_k_per_mm(m, l1, l2, type, theta_now, plane);
+    if (!std::isfinite(dk)) {
+        std::string where;
+        for (double l : {l1, l2, r.output_nm})
+            if (!std::isfinite(wave_index(m, l, Polarity::A, 0, plane).index + wave_index(m, l, Polarity::B, kPi / 4, plane).index))
+                where = fmt("%.1f", l) + " nm";
+        r.outside_index_data = m.name + " has no real index at " + (where.empty() ? "a wave of this process" : where) +
+                               " (its formula covers " + fmt("%.0f", m.min_wavelength_nm) + "–" +
+                               fmt("%.0f", m.max_wavelength_nm) + " nm): no phase-matching figures";
+        return r;
+    }
     r.delta_k_l = dk * length;
     const double x = r.delta_k_l / 2;
     r.sinc2_now = x == 0 ? 1 : std::pow(std::sin(x) / x, 2);
@@ -422,7 +437,10 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
         v.phase.met = p.phase_matchable && p.sinc2_now >= t.min_phase_factor && p.polarizations_suit;
-        if (!p.phase_matchable) {
+        if (!p.outside_index_data.empty()) {
+            v.phase.summary = p.process + ": " + p.outside_index_data;
+            v.phase.action = "choose a crystal that is transparent at these wavelengths";
+        } else if (!p.phase_matchable) {
             v.phase.summary = p.process + ": no " + p.type + " phase matching in this crystal";
             v.phase.action = "choose another crystal or type";
         } else {

@@ -68,6 +68,10 @@ struct PhaseMatchingReport {
     std::string rotation_axis;
     double delta_k_l = 0;           // Δk·L now (rad)
     double sinc2_now = 0;           // sinc²(ΔkL/2) now
+    // Non-empty when a wave's wavelength lies where the crystal's index formula has no real
+    // value (far outside its range): then nothing above is computed (Δk·L and sinc² stay 0 and
+    // are printed as unknown).
+    std::string outside_index_data;
     double walkoff_mrad = 0;        // of the generated (B) wave at θ_pm
     double angular_acceptance_internal_mrad = 0;  // FWHM, internal
     double angular_acceptance_external_mrad = 0;  // ≈ n × internal

@@ -23,7 +23,13 @@ using Diagnostics = std::vector<Diagnostic>;
 
 bool has_errors(const Diagnostics& diagnostics);
 
-// "FILE: error: POINTER: MESSAGE" (or "FILE:LINE:COL: error: MESSAGE").
+// Text fit for a terminal: bytes that are not UTF-8, and control characters, as \xNN; longer
+// than max_chars (a 1 MB id quoted in a message), the middle left out with a note of how much.
+inline constexpr size_t kMaxShownChars = 300;
+std::string printable_text(std::string_view text, size_t max_chars);
+
+// "FILE: error: POINTER: MESSAGE" (or "FILE:LINE:COL: error: MESSAGE"), pointer and message
+// through printable_text.
 std::string format_diagnostic(const Diagnostic& d, std::string_view file);
 
 }  // namespace rv

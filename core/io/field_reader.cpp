@@ -36,7 +36,12 @@ std::string found_text(const nlohmann::json& v) {
 }  // namespace
 
 NumberRule positive() {
-    return [](double v) { return v > 0 ? std::string() : "must be positive"; };
+    // A positive size below 1e-9 of its unit is no real size (a denormal such as 1e-320 would
+    // pass "> 0" and turn into infinities downstream).
+    return [](double v) {
+        return v <= 0 ? std::string("must be positive")
+               : v < kSmallestPositive ? "must be at least " + number_text(kSmallestPositive) : std::string();
+    };
 }
 NumberRule non_zero() {
     return [](double v) { return v != 0 ? std::string() : "must be non-zero"; };

@@ -19,7 +19,8 @@ enum class Need { Required, Optional };
 
 // A rule a number must obey: returns "" when it does, else what it must be ("must be positive").
 using NumberRule = std::function<std::string(double)>;
-NumberRule positive();
+inline constexpr double kSmallestPositive = 1e-9;  // in the unit of the field
+NumberRule positive();  // > 0 and at least kSmallestPositive
 NumberRule non_zero();
 NumberRule at_least(double minimum);
 NumberRule between(double minimum, double maximum);

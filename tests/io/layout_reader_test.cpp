@@ -60,7 +60,13 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"deep-nesting.json", {"deep-nesting.json: error: the file nests deeper than 64 levels; a layout needs at most 5"}},
         // Hostile inputs (issue #7). Binary bytes: a syntax error at 1:1; the message quotes
         // the offending byte as it is (0x89, not UTF-8).
-        {"binary-garbage.json", {"binary-garbage.json:1:1: error: syntax error: invalid literal; last read: '\x89'"}},
+        // A byte that is not UTF-8 is shown as \xNN, not written raw to the terminal.
+        {"binary-garbage.json", {"binary-garbage.json:1:1: error: syntax error: invalid literal; last read: '\\x89'"}},
+        // Positive sizes below 1e-9 of their unit (denormals pass "> 0").
+        {"denormal-waist.json", {"denormal-waist.json: error: /beams/0/waist_um: must be at least 1e-09 (got 9.99988867182683e-321)"}},
+        {"denormal-lengths.json", {"denormal-lengths.json: error: /beams/0/waist_um: must be at least 1e-09 (got 9.99988867182683e-321)",
+                                   "denormal-lengths.json: error: /elements/0/thickness_mm: must be at least 1e-09 (got 4.94065645841247e-324)",
+                                   "denormal-lengths.json: error: /elements/1/aperture_mm: must be at least 1e-09 (got 9.99999999999997e-311)"}},
         {"truncated.json", {"truncated.json:3:85: error: syntax error: unexpected end of input; expected '}'"}},
         {"wrong-types.json", {"wrong-types.json: error: /version: expected a number, found a string (\"1\")",
                               "wrong-types.json: error: /name: expected a string, found a number (7)",
@@ -78,7 +84,9 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"infinity-literal.json", {"infinity-literal.json:2:104: error: syntax error: invalid literal; last read: '\"waist_um\": I'"}},
         {"minus-infinity-literal.json", {"minus-infinity-literal.json:2:104: error: syntax error: invalid number; expected digit after '-'; last read: '-I'"}},
         // A 1 MiB id as the target: the message repeats the whole id (it is not shortened).
-        {"long-id.json", {"long-id.json: error: /target: no element has id \"" + std::string(1 << 20, 'x') + "\""}},
+        // A 1 MiB id: the message keeps its first 200 and last 75 bytes (1 048 596 in all).
+        {"long-id.json", {"long-id.json: error: /target: no element has id \"" + std::string(181, 'x') +
+                          " … (1048321 bytes left out) … " + std::string(74, 'x') + "\""}},
         // Every problem of a file in one pass.
         {"three-errors.json", {"three-errors.json: error: /beams/0/wavelength_nm: must be positive (got -1)",
                                "three-errors.json: error: /elements/0/apperture_mm: unknown key for a lens; did you mean \"aperture_mm\"?",

@@ -37,7 +37,10 @@ json phase_json(const PhaseMatchingReport& p) {
             {"phase_matchable", p.phase_matchable}, {"theta_pm_deg", p.theta_pm_deg},
             {"theta_now_deg", p.theta_now_deg}, {"incidence_now_deg", p.incidence_now_deg},
             {"incidence_needed_deg", p.incidence_needed_deg}, {"rotate_by_deg", p.rotate_by_deg},
-            {"rotation_axis", p.rotation_axis}, {"delta_k_l", p.delta_k_l}, {"sinc2_now", p.sinc2_now},
+            {"rotation_axis", p.rotation_axis},
+            {"delta_k_l", p.outside_index_data.empty() ? json(p.delta_k_l) : json(nullptr)},
+            {"sinc2_now", p.outside_index_data.empty() ? json(p.sinc2_now) : json(nullptr)},
+            {"outside_index_data", p.outside_index_data},
             {"walkoff_mrad", p.walkoff_mrad},
             {"angular_acceptance_mrad", {{"internal_fwhm", p.angular_acceptance_internal_mrad},
                                          {"external_fwhm", p.angular_acceptance_external_mrad}}},
@@ -171,6 +174,10 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
     }
     for (const PhaseMatchingReport& p : r.phase_matching) {
         out << "\nPhase matching: " << p.process << " → " << fmt("%.2f", p.output_nm) << " nm, " << p.type << "\n";
+        if (!p.outside_index_data.empty()) {
+            out << "  " << p.outside_index_data << "\n";
+            continue;
+        }
         if (!p.phase_matchable) {
             out << "  no phase matching; Δk·L now " << fmt("%.1f", p.delta_k_l) << " rad\n";
             continue;
