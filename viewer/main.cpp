@@ -165,7 +165,8 @@ int main(int argc, char** argv) {
         std::optional<rv::Layout> layout = path.empty() ? std::optional<rv::Layout>(rv::cli::demo_layout())
                                                         : rv::cli::load_layout(path, std::cerr);
         if (!layout) return 2;
-        return rv::window::run_window(*layout, path.empty() ? "demo" : path, window_options, std::cerr);
+        return rv::window::run_window(*layout, path.empty() ? std::nullopt : std::optional<std::filesystem::path>(path),
+                                      window_options, std::cerr);
     }
     if (*solve_cmd) return rv::cli::run_solve(solve, std::cout, std::cerr);
     if (*tolerance_cmd) return rv::cli::run_tolerance(tolerance, std::cout, std::cerr);

@@ -2,6 +2,8 @@
 
 #include <imgui.h>
 
+#include <utility>
+
 #include "ui/frame.hpp"
 
 namespace rv::render {
@@ -20,6 +22,16 @@ void configure_context(Texture& font) {
     io.BackendFlags |= ImGuiBackendFlags_RendererHasVtxOffset;
     ImGui::StyleColorsLight();
     ImGui::GetStyle().AntiAliasedLinesUseTex = false;  // lines as polygons: no bilinear sampling needed
+    // GLFW's key codes as key indices, as the GLFW backend sets them (ui/keys.hpp), so that a
+    // headless frame reads the same keys as the window.
+    const std::pair<ImGuiKey, int> keymap[] = {
+        {ImGuiKey_Tab, 258},      {ImGuiKey_LeftArrow, 263}, {ImGuiKey_RightArrow, 262}, {ImGuiKey_UpArrow, 265},
+        {ImGuiKey_DownArrow, 264}, {ImGuiKey_PageUp, 266},   {ImGuiKey_PageDown, 267},   {ImGuiKey_Home, 268},
+        {ImGuiKey_End, 269},      {ImGuiKey_Insert, 260},    {ImGuiKey_Delete, 261},     {ImGuiKey_Backspace, 259},
+        {ImGuiKey_Space, 32},     {ImGuiKey_Enter, 257},     {ImGuiKey_Escape, 256},     {ImGuiKey_KeyPadEnter, 335},
+        {ImGuiKey_A, 'A'},        {ImGuiKey_C, 'C'},         {ImGuiKey_V, 'V'},          {ImGuiKey_X, 'X'},
+        {ImGuiKey_Y, 'Y'},        {ImGuiKey_Z, 'Z'}};
+    for (const auto& [key, code] : keymap) io.KeyMap[key] = code;
     load_fonts(io);
     unsigned char* pixels = nullptr;
     io.Fonts->GetTexDataAsRGBA32(&pixels, &font.width, &font.height);

@@ -2,8 +2,13 @@
 
 #include <imgui.h>
 
+#include <algorithm>
 #include <cmath>
+#include <filesystem>
 
+#include "trace/poses.hpp"
+
+#include "ui/keys.hpp"
 #include "ui/plots.hpp"
 #include "ui/report_panel.hpp"
 #include "ui/table_view.hpp"
@@ -20,7 +25,8 @@ View interact(const View& fitted, ViewerState& state) {
     ImGui::SetCursorScreenPos(v.origin_px);
     ImGui::InvisibleButton("canvas", v.size_px, ImGuiButtonFlags_MouseButtonLeft | ImGuiButtonFlags_MouseButtonRight);
     const ImGuiIO& io = ImGui::GetIO();
-    if (ImGui::IsItemActive() && (io.MouseDelta.x != 0 || io.MouseDelta.y != 0)) {
+    const bool editing = state.doc && edit_on_canvas(*state.doc, state.editor, v);
+    if (!editing && ImGui::IsItemActive() && (io.MouseDelta.x != 0 || io.MouseDelta.y != 0)) {
         v.centre_mm += Vec2(-io.MouseDelta.x / v.px_per_mm, io.MouseDelta.y / v.px_per_mm);
         state.view = v;
     }
@@ -31,24 +37,137 @@ View interact(const View& fitted, ViewerState& state) {
         v.centre_mm += anchor - moved;
         state.view = v;
     }
-    if ((ImGui::IsItemHovered() && ImGui::IsMouseDoubleClicked(ImGuiMouseButton_Left)) ||
-        (ImGui::IsWindowFocused() && ImGui::IsKeyPressed(70 /* GLFW_KEY_F, the index the GLFW backend uses */, false))) {
+    if ((!editing && ImGui::IsItemHovered() && ImGui::IsMouseDoubleClicked(ImGuiMouseButton_Left)) ||
+        (!io.WantTextInput && ImGui::IsKeyPressed(keys::kF, false))) {
         state.view.reset();
         v = fitted;
     }
     return v;
 }
 
+// A ring around the selected element.
+void draw_selection(ImDrawList* draw, const edit::Document& doc, size_t element, const View& view) {
+    std::vector<Path> paths;
+    for (const ReportBeam& b : doc.report().beams) paths.push_back(b.path);
+    const ElementPose pose = element_poses(doc.layout(), paths)[element];
+    const float r = std::max(10.0f, static_cast<float>(doc.layout().elements[element].aperture_mm / 2 * view.px_per_mm) + 4);
+    draw->AddCircle(view.to_screen(pose.at_mm), r, IM_COL32(255, 140, 0, 255), 32, 2.0f);
+}
+
+void draw_menu_bar(ViewerState& st) {
+    edit::Document& doc = *st.doc;
+    EditorState& ed = st.editor;
+    if (!ImGui::BeginMenuBar()) return;
+    if (ImGui::BeginMenu("File")) {
+        if (ImGui::MenuItem("Save", "Ctrl+S", false, doc.path().has_value())) {
+            std::string error;
+            ed.status = doc.save(error) ? "saved " + doc.path()->string() : error;
+        }
+        if (ImGui::MenuItem("Save As...")) st.open_save_as = true;
+        if (ImGui::BeginMenu("Open Recent", !st.recent.empty())) {
+            for (const std::string& f : st.recent) ImGui::MenuItem(f.c_str(), nullptr, false, false);
+            ImGui::EndMenu();
+        }
+        ImGui::EndMenu();
+    }
+    if (ImGui::BeginMenu("Edit")) {
+        if (ImGui::MenuItem("Undo", "Ctrl+Z", false, doc.can_undo())) doc.undo();
+        if (ImGui::MenuItem("Redo", "Ctrl+Shift+Z / Ctrl+Y", false, doc.can_redo())) doc.redo();
+        ImGui::Separator();
+        const bool any = ed.selected.has_value();
+        if (ImGui::MenuItem("Rotate +15°", "R", false, any)) rotate_selected(doc, ed, 15);
+        if (ImGui::MenuItem("Rotate −15°", "Shift+R", false, any)) rotate_selected(doc, ed, -15);
+        if (ImGui::MenuItem("Duplicate", "Ctrl+D", false, any)) duplicate_selected(doc, ed);
+        if (ImGui::MenuItem("Delete", "Delete", false, any)) delete_selected(doc, ed);
+        ImGui::Separator();
+        ImGui::MenuItem("Snap to the hole grid", "G", &ed.snap);
+        ImGui::EndMenu();
+    }
+    if (ImGui::BeginMenu("Add")) {
+        for (const char* type : {"lens", "mirror", "plate", "target", "dump"})
+            if (ImGui::MenuItem(type)) add_element(doc, ed, type, st.last_view.centre_mm);
+        ImGui::EndMenu();
+    }
+    if (ImGui::BeginMenu("View")) {
+        if (ImGui::MenuItem("Fit the table", "F")) st.view.reset();
+        ImGui::EndMenu();
+    }
+    ImGui::EndMenuBar();
+    if (st.open_save_as) {
+        ImGui::OpenPopup("Save as");
+        st.open_save_as = false;
+    }
+    if (st.recovery_offer) ImGui::OpenPopup("Recover unsaved edits");
+    if (ImGui::BeginPopupModal("Recover unsaved edits", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+        ImGui::Text("Edits of a session that ended without saving are in\n%s", st.recovery_offer->c_str());
+        if (ImGui::Button("Restore them")) {
+            ed.status = doc.restore_from(*st.recovery_offer) ? "restored the unsaved edits (not saved yet)"
+                                                              : "the recovery file does not read as a layout";
+            st.recovery_offer.reset();
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("Discard them")) {
+            std::error_code ignored;
+            std::filesystem::remove(*st.recovery_offer, ignored);
+            st.recovery_offer.reset();
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::EndPopup();
+    }
+    if (st.close_requested) ImGui::OpenPopup("Unsaved changes");
+    if (ImGui::BeginPopupModal("Unsaved changes", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+        ImGui::Text("%s has unsaved changes.", doc.title().c_str());
+        if (ImGui::Button("Save and quit", ImVec2(0, 0))) {
+            std::string error;
+            if (doc.save(error)) st.quit = true;
+            else ed.status = error;
+            st.close_requested = false;
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("Quit without saving")) st.quit = true;
+        ImGui::SameLine();
+        if (ImGui::Button("Cancel")) {
+            st.close_requested = false;
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::EndPopup();
+    }
+    if (ImGui::BeginPopupModal("Save as", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+        ImGui::InputText("file", st.save_as_path, sizeof st.save_as_path);
+        if (ImGui::Button("Save")) {
+            std::string error;
+            ed.status = doc.save_as(st.save_as_path, error) ? "saved " + std::string(st.save_as_path) : error;
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
+        ImGui::EndPopup();
+    }
+}
+
 }  // namespace
+
+void draw_document_frame(ViewerState& state) {
+    draw_frame(state.doc->layout(), state.doc->report(), state.doc->scene(), &state);
+}
 
 void draw_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene, ViewerState* state) {
     const ImGuiViewport* vp = ImGui::GetMainViewport();
     ImGui::SetNextWindowPos(vp->Pos);
     ImGui::SetNextWindowSize(vp->Size);
+    edit::Document* doc = state ? state->doc : nullptr;
     ImGui::Begin("Rendezvous", nullptr,
                  ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoSavedSettings |
-                     ImGuiWindowFlags_NoBringToFrontOnFocus);
-    ImGui::Text("%s", scene.title.c_str());
+                     ImGuiWindowFlags_NoBringToFrontOnFocus | (doc ? ImGuiWindowFlags_MenuBar : 0));
+    if (doc) {
+        draw_menu_bar(*state);
+        edit_shortcuts(*doc, state->editor);
+        ImGui::Text("%s   %s", doc->title().c_str(), state->editor.status.c_str());
+    } else {
+        ImGui::Text("%s", scene.title.c_str());
+    }
     const float panel = 380;
     const ImVec2 avail = ImGui::GetContentRegionAvail();
     ImGui::BeginGroup();
@@ -57,7 +176,11 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     const ImVec2 origin = ImGui::GetCursorScreenPos();
     const ImVec2 size = ImGui::GetContentRegionAvail();
     const View fitted = fit_view(origin, size, scene.width_mm, scene.height_mm);
-    draw_table(ImGui::GetWindowDrawList(), scene, state ? interact(fitted, *state) : fitted);
+    const View view = state ? interact(fitted, *state) : fitted;
+    if (state) state->last_view = view;
+    draw_table(ImGui::GetWindowDrawList(), scene, view);
+    if (doc && state->editor.selected && *state->editor.selected < layout.elements.size())
+        draw_selection(ImGui::GetWindowDrawList(), *doc, *state->editor.selected, view);
     ImGui::EndChild();
     ImGui::BeginChild("plots", ImVec2(avail.x - panel, 0), true);
     const ImVec2 p0 = ImGui::GetCursorScreenPos();
@@ -69,6 +192,7 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     ImGui::EndGroup();
     ImGui::SameLine();
     ImGui::BeginChild("report", ImVec2(0, avail.y), true);
+    if (doc) draw_inspector(*doc, state->editor, state->inspector);
     draw_report_panel(report);
     ImGui::EndChild();
     ImGui::End();

@@ -4,7 +4,10 @@
 #include <optional>
 
 #include "analysis/report.hpp"
+#include "edit/document.hpp"
 #include "scene/scene.hpp"
+#include "ui/editor.hpp"
+#include "ui/inspector.hpp"
 #include "ui/view.hpp"
 
 namespace rv::ui {
@@ -13,11 +16,25 @@ namespace rv::ui {
 // once the user has panned or zoomed (none: fit the table).
 struct ViewerState {
     std::optional<View> view;
+    View last_view;                  // the table view as last drawn
+    edit::Document* doc = nullptr;   // set: the frame edits this document
+    EditorState editor;
+    InspectorState inspector;
+    bool open_save_as = false;
+    char save_as_path[1024] = {};
+    std::vector<std::string> recent;  // recent files, newest first
+    // A recovery file found at start: offered once (restore or discard).
+    std::optional<std::string> recovery_offer;
+    // The window asked to close with unsaved changes: ask; quit once answered.
+    bool close_requested = false, quit = false;
 };
 
-// Draws one frame; with a state, the table view pans (drag), zooms about the cursor (wheel)
-// and fits again on F or a double click.
+// Draws one frame; with a state, the table view pans (drag on empty table), zooms about the
+// cursor (wheel) and fits again on F or a double click; with a document as well, a menu bar,
+// editing on the table (ui/editor.hpp), the inspector above the report, and a status line.
 void draw_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
                 ViewerState* state = nullptr);
+// The same for the state's document.
+void draw_document_frame(ViewerState& state);
 
 }  // namespace rv::ui

@@ -16,7 +16,10 @@
 
 namespace rv::window {
 
-int run_window(const Layout& layout, const std::string& title, const WindowOptions& options, std::ostream& err) {
+int run_window(const Layout& layout, const std::optional<std::filesystem::path>& path, const WindowOptions& options,
+               std::ostream& err) {
+    edit::Document doc(layout, path);
+    const std::string title = doc.title();
     if (!glfwInit()) {
         err << "rendezvous: error: cannot open a window (no display?); use `rendezvous render` for files\n";
         return 2;
@@ -32,9 +35,11 @@ int run_window(const Layout& layout, const std::string& title, const WindowOptio
     glfwMakeContextCurrent(window);
     glfwSwapInterval(1);
 
-    const RendezvousReport report = build_report(layout, material_library_for(layout));
-    const scene::Scene scene = scene::build_scene(layout, report);
     ui::ViewerState state;
+    state.doc = &doc;
+    if (path) state.recent.push_back(path->string());
+    if (std::filesystem::exists(doc.recovery_path())) state.recovery_offer = doc.recovery_path().string();
+    double last_autosave_s = glfwGetTime();
 
     IMGUI_CHECKVERSION();
     ImGui::CreateContext();
@@ -45,12 +50,22 @@ int run_window(const Layout& layout, const std::string& title, const WindowOptio
     GLuint texture = 0;
     glGenTextures(1, &texture);
     int tex_w = 0, tex_h = 0;
-    for (int frame = 0; !glfwWindowShouldClose(window); ++frame) {
+    for (int frame = 0; !state.quit; ++frame) {
         if (options.quit_after_frames > 0 && frame >= options.quit_after_frames) break;
         glfwPollEvents();
+        if (glfwWindowShouldClose(window)) {  // the close box: ask first when there are unsaved changes
+            glfwSetWindowShouldClose(window, GLFW_FALSE);
+            if (doc.dirty()) state.close_requested = true;
+            else break;
+        }
+        if (glfwGetTime() - last_autosave_s > 30.0) {
+            std::string error;
+            if (!doc.autosave(error)) state.editor.status = error;
+            last_autosave_s = glfwGetTime();
+        }
         ImGui_ImplGlfw_NewFrame();
         ImGui::NewFrame();
-        ui::draw_frame(layout, report, scene, &state);
+        ui::draw_document_frame(state);
         ImGui::Render();
         int fw = 0, fh = 0;
         glfwGetFramebufferSize(window, &fw, &fh);

@@ -1,7 +1,9 @@
 #pragma once
 // The interactive window: GLFW for the window, input and a plain GL context whose only job is
 // to show the finished CPU-rendered frame as one texture (no GL renderer backend).
+#include <filesystem>
 #include <iosfwd>
+#include <optional>
 #include <string>
 
 #include "layout/layout.hpp"
@@ -15,6 +17,9 @@ struct WindowOptions {
 };
 
 // Returns the exit status: 0, or 2 when no window can be opened (no display).
-int run_window(const Layout& layout, const std::string& title, const WindowOptions& options, std::ostream& err);
+// With a path, edits are saved there (and autosaved to its recovery file every 30 s while
+// unsaved); without one (the demo), Save As names a file.
+int run_window(const Layout& layout, const std::optional<std::filesystem::path>& path, const WindowOptions& options,
+               std::ostream& err);
 
 }  // namespace rv::window

@@ -1,0 +1,223 @@
+// Headless interface tests: the viewer's frame fed mouse and key input frame by frame, as a
+// user would (press on an optic, move, release; keys through ImGuiIO's key indices), with no
+// display. What is checked is the document afterwards: positions, undo, the report.
+#include <imgui.h>
+
+#include <catch2/catch.hpp>
+#include <filesystem>
+#include <fstream>
+
+#include "edit/document.hpp"
+#include "io/layout_reader.hpp"
+#include "render/headless.hpp"
+#include "trace/poses.hpp"
+#include "ui/frame.hpp"
+#include "ui/keys.hpp"
+
+namespace {
+
+rv::Layout demo() { return *rv::read_layout_file(RV_SOURCE_DIR "/layouts/sfg-bbo.json").layout; }
+
+size_t index_of(const rv::Layout& l, const std::string& id) {
+    for (size_t i = 0; i < l.elements.size(); ++i)
+        if (l.elements[i].id == id) return i;
+    FAIL("no element " << id);
+    return 0;
+}
+
+double signal_waist_offset_mm(const rv::edit::Document& doc) {
+    return doc.report().beams[1].at_target.tangential.waist_offset_mm;
+}
+
+// A headless ImGui context running the document frame at 1600 × 1000.
+class Session {
+public:
+    explicit Session(rv::edit::Document& doc) {
+        previous_ = ImGui::GetCurrentContext();
+        context_ = ImGui::CreateContext();
+        ImGui::SetCurrentContext(context_);
+        rv::render::configure_context(font_);
+        ImGuiIO& io = ImGui::GetIO();
+        io.DisplaySize = ImVec2(1600, 1000);
+        io.DeltaTime = 1.0f / 60.0f;
+        state.doc = &doc;
+        for (int i = 0; i < 3; ++i) frame();  // windows are sized in the first frames
+    }
+    ~Session() {
+        ImGui::DestroyContext(context_);
+        ImGui::SetCurrentContext(previous_);
+    }
+    void frame() {
+        ImGui::NewFrame();
+        rv::ui::draw_document_frame(state);
+        ImGui::Render();
+    }
+    ImVec2 screen_of(const std::string& id) {
+        const rv::edit::Document& doc = *state.doc;
+        std::vector<rv::Path> paths;
+        for (const rv::ReportBeam& b : doc.report().beams) paths.push_back(b.path);
+        return state.last_view.to_screen(rv::element_poses(doc.layout(), paths)[index_of(doc.layout(), id)].at_mm);
+    }
+    void mouse(ImVec2 at, bool down) {
+        ImGuiIO& io = ImGui::GetIO();
+        io.MousePos = at;
+        io.MouseDown[0] = down;
+        frame();
+    }
+    // Press at `from`, move to `to` in a few steps, release there.
+    void drag(ImVec2 from, ImVec2 to, bool escape_before_release = false) {
+        mouse(from, false);
+        mouse(from, true);
+        for (int k = 1; k <= 4; ++k)
+            mouse(ImVec2(from.x + (to.x - from.x) * k / 4, from.y + (to.y - from.y) * k / 4), true);
+        if (escape_before_release) key(ImGui::GetKeyIndex(ImGuiKey_Escape));
+        mouse(to, false);
+    }
+    void key(int index, bool ctrl = false, bool shift = false) {
+        ImGuiIO& io = ImGui::GetIO();
+        io.KeyCtrl = ctrl;
+        io.KeyShift = shift;
+        io.KeysDown[index] = true;
+        frame();
+        io.KeysDown[index] = false;
+        io.KeyCtrl = io.KeyShift = false;
+        frame();
+    }
+    void type(const std::string& text) {
+        for (char c : text) {
+            ImGui::GetIO().AddInputCharacter(static_cast<unsigned>(c));
+            frame();
+        }
+    }
+    rv::ui::ViewerState state;
+
+private:
+    ImGuiContext* previous_ = nullptr;
+    ImGuiContext* context_ = nullptr;
+    rv::render::Texture font_;
+};
+
+}  // namespace
+
+TEST_CASE("dragging a lens moves it by the snapped amount and undo restores it", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t l2 = index_of(doc.layout(), "L2_S");
+    const rv::Vec2 start = doc.layout().elements[l2].at_mm;  // (310, 500): off the 25 mm grid in x
+    const double offset_before = signal_waist_offset_mm(doc);
+    const double px_per_mm = s.state.last_view.px_per_mm;
+    const ImVec2 from = s.screen_of("L2_S");
+    // 63 mm to the right: the lens lands on the nearest hole, x = 375 mm (310 + 63 = 373).
+    s.drag(from, ImVec2(from.x + static_cast<float>(63 * px_per_mm), from.y));
+    const rv::Vec2 moved = doc.layout().elements[l2].at_mm;
+    CHECK(moved.x() == 375.0);
+    CHECK(moved.y() == 500.0);
+    CHECK(s.state.editor.selected == l2);
+    CHECK(doc.dirty());
+    CHECK(signal_waist_offset_mm(doc) != offset_before);  // the report followed the lens
+    s.key(rv::ui::keys::kZ, true);                        // Ctrl+Z
+    CHECK(doc.layout().elements[l2].at_mm == start);
+    CHECK(signal_waist_offset_mm(doc) == offset_before);
+    s.key(rv::ui::keys::kZ, true, true);                  // Ctrl+Shift+Z
+    CHECK(doc.layout().elements[l2].at_mm == moved);
+    s.key(rv::ui::keys::kZ, true);
+    s.key(rv::ui::keys::kY, true);                        // Ctrl+Y
+    CHECK(doc.layout().elements[l2].at_mm == moved);
+}
+
+TEST_CASE("Esc cancels a drag and the snap toggle places freely", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t l1 = index_of(doc.layout(), "L1_S");
+    const rv::Vec2 start = doc.layout().elements[l1].at_mm;
+    const ImVec2 from = s.screen_of("L1_S");
+    const float px_per_mm = static_cast<float>(s.state.last_view.px_per_mm);
+    s.drag(from, ImVec2(from.x + 40 * px_per_mm, from.y), true);
+    CHECK(doc.layout().elements[l1].at_mm == start);
+    CHECK_FALSE(doc.can_undo());
+    s.key(rv::ui::keys::kG);  // snapping off
+    REQUIRE_FALSE(s.state.editor.snap);
+    s.drag(from, ImVec2(from.x + 40 * px_per_mm, from.y));
+    // Free placement: the move is the cursor's, 40 mm to within a pixel.
+    CHECK(std::abs(doc.layout().elements[l1].at_mm.x() - (start.x() + 40)) < 1.5 / px_per_mm);
+}
+
+TEST_CASE("an inspector edit changes the report and is one undo step", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t l2 = index_of(doc.layout(), "L2_S");
+    const double offset_before = signal_waist_offset_mm(doc);
+    s.mouse(s.screen_of("L2_S"), false);
+    s.mouse(s.screen_of("L2_S"), true);  // a click selects it
+    s.mouse(s.screen_of("L2_S"), false);
+    REQUIRE(s.state.editor.selected == l2);
+    s.frame();
+    REQUIRE(s.state.inspector.field_rects.count("x") == 1);
+    const rv::ui::FieldRect r = s.state.inspector.field_rects["x"];
+    const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
+    s.mouse(centre, true);
+    s.mouse(centre, false);
+    s.type("322.5");
+    s.key(ImGui::GetKeyIndex(ImGuiKey_Enter));
+    CHECK(doc.layout().elements[l2].at_mm.x() == 322.5);
+    CHECK(signal_waist_offset_mm(doc) != offset_before);
+    s.key(rv::ui::keys::kZ, true);
+    CHECK(doc.layout().elements[l2].at_mm.x() == 310.0);
+    CHECK(signal_waist_offset_mm(doc) == offset_before);
+}
+
+TEST_CASE("Delete removes the selection and Ctrl+D duplicates it", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t n = doc.layout().elements.size();
+    const ImVec2 at = s.screen_of("HWP_P");
+    s.mouse(at, true);
+    s.mouse(at, false);
+    s.key(rv::ui::keys::kD, true);
+    REQUIRE(doc.layout().elements.size() == n + 1);
+    CHECK(doc.layout().elements.back().id == "HWP_P_2");
+    s.key(ImGui::GetKeyIndex(ImGuiKey_Delete));
+    CHECK(doc.layout().elements.size() == n);
+    s.key(rv::ui::keys::kZ, true);
+    CHECK(doc.layout().elements.size() == n + 1);
+}
+
+TEST_CASE("save is atomic and the recovery file restores unsaved edits", "[viewer][edit]") {
+    const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-editor-test";
+    std::filesystem::create_directories(dir);
+    const std::filesystem::path file = dir / "bench.json";
+    std::filesystem::copy_file(RV_SOURCE_DIR "/layouts/sfg-bbo.json", file,
+                               std::filesystem::copy_options::overwrite_existing);
+    rv::Layout edited;
+    {
+        rv::edit::Document doc(*rv::read_layout_file(file).layout, file);
+        rv::Layout next = doc.layout();
+        next.elements[index_of(next, "L1_S")].at_mm.x() = 175;
+        doc.edit(next);
+        std::string error;
+        REQUIRE(doc.autosave(error));
+        REQUIRE(std::filesystem::exists(doc.recovery_path()));
+        edited = doc.layout();
+        // The session ends here without saving.
+    }
+    rv::edit::Document again(*rv::read_layout_file(file).layout, file);
+    CHECK(again.layout() != edited);
+    REQUIRE(again.restore_from(again.recovery_path()));
+    CHECK(again.layout() == edited);
+    CHECK(again.dirty());
+    std::string error;
+    REQUIRE(again.save(error));
+    CHECK_FALSE(std::filesystem::exists(again.recovery_path()));  // a save clears it
+    CHECK(*rv::read_layout_file(file).layout == edited);
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("an edit the file format refuses is not applied", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    rv::Layout bad = doc.layout();
+    bad.elements[0].aperture_mm = -3;
+    doc.edit(bad);
+    CHECK(doc.layout().elements[0].aperture_mm > 0);
+    CHECK_FALSE(doc.can_undo());
+    CHECK(doc.last_refusal().find("aperture_mm: must be positive") != std::string::npos);
+}

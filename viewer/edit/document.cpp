@@ -1,0 +1,135 @@
+#include "edit/document.hpp"
+
+#include <system_error>
+
+#include "io/atomic_file.hpp"
+#include "io/layout_reader.hpp"
+#include "io/layout_writer.hpp"
+
+namespace rv::edit {
+
+Document::Document(Layout layout, std::optional<std::filesystem::path> path)
+    : layout_(std::move(layout)), path_(std::move(path)) {
+    refresh();
+}
+
+std::string Document::title() const {
+    return (path_ ? path_->filename().string() : std::string("demo")) + (dirty_ ? " •" : "");
+}
+
+void Document::refresh() {
+    report_ = build_report(layout_, material_library_for(layout_));
+    scene_ = scene::build_scene(layout_, report_);
+}
+
+bool Document::acceptable(const Layout& layout, std::string& why) {
+    const LayoutReadResult r = read_layout(write_layout(layout));
+    for (const Diagnostic& d : r.diagnostics)
+        if (d.severity == Diagnostic::Severity::Error) {
+            why = (d.pointer.empty() ? "" : d.pointer + ": ") + d.message;
+            return false;
+        }
+    return r.layout.has_value();
+}
+
+void Document::edit(Layout next) {
+    if (next == layout_) return;
+    if (!acceptable(next, last_refusal_)) return;
+    undo_.push_back(std::move(layout_));
+    redo_.clear();
+    layout_ = std::move(next);
+    dirty_ = true;
+    refresh();
+}
+
+void Document::begin_gesture() { gesture_start_ = layout_; }
+
+void Document::preview(Layout next) {
+    if (!acceptable(next, last_refusal_)) return;
+    last_refusal_.clear();
+    layout_ = std::move(next);
+    refresh();
+}
+
+void Document::finish_gesture() {
+    if (!gesture_start_) return;
+    Layout start = std::move(*gesture_start_);
+    gesture_start_.reset();
+    if (start == layout_) return;
+    undo_.push_back(std::move(start));
+    redo_.clear();
+    dirty_ = true;
+}
+
+void Document::cancel_gesture() {
+    if (!gesture_start_) return;
+    layout_ = std::move(*gesture_start_);
+    gesture_start_.reset();
+    refresh();
+}
+
+void Document::undo() {
+    if (undo_.empty()) return;
+    redo_.push_back(std::move(layout_));
+    layout_ = std::move(undo_.back());
+    undo_.pop_back();
+    dirty_ = true;
+    refresh();
+}
+
+void Document::redo() {
+    if (redo_.empty()) return;
+    undo_.push_back(std::move(layout_));
+    layout_ = std::move(redo_.back());
+    redo_.pop_back();
+    dirty_ = true;
+    refresh();
+}
+
+bool Document::save(std::string& error) {
+    if (!path_) {
+        error = "the built-in demo has no file yet: use Save As";
+        return false;
+    }
+    return save_as(*path_, error);
+}
+
+bool Document::save_as(const std::filesystem::path& path, std::string& error) {
+    try {
+        save_layout(layout_, path);
+    } catch (const std::exception& e) {
+        error = "cannot save " + path.string() + ": " + e.what();
+        return false;
+    }
+    std::error_code ignored;
+    std::filesystem::remove(recovery_path(), ignored);  // the old name's recovery file
+    path_ = path;
+    std::filesystem::remove(recovery_path(), ignored);
+    dirty_ = false;
+    return true;
+}
+
+std::filesystem::path Document::recovery_path_for(const std::optional<std::filesystem::path>& path) {
+    if (!path) return ".demo.recovery.json";
+    return path->parent_path() / ("." + path->filename().string() + ".recovery.json");
+}
+
+bool Document::autosave(std::string& error) {
+    if (!dirty_) return true;
+    try {
+        write_file_atomically(recovery_path(), write_layout(layout_));
+    } catch (const std::exception& e) {
+        error = "cannot write the recovery file " + recovery_path().string() + ": " + e.what();
+        return false;
+    }
+    return true;
+}
+
+bool Document::restore_from(const std::filesystem::path& recovery) {
+    const LayoutReadResult r = read_layout_file(recovery);
+    if (!r.layout) return false;
+    edit(*r.layout);
+    return true;
+}
+
+}  // namespace rv::edit

@@ -1,0 +1,78 @@
+#pragma once
+// The layout open in the viewer, with what editing needs around it: the file it came from,
+// undo and redo (snapshots of the whole layout, one per finished edit, without limit), the
+// unsaved-changes mark, atomic saving, a recovery file written periodically while there are
+// unsaved changes, and the report and scene of the current layout, rebuilt after every change.
+// No ImGui here: the interface tests drive it directly and through the window's frame code.
+
+#include <filesystem>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "analysis/report.hpp"
+#include "layout/layout.hpp"
+#include "materials/material_library.hpp"
+#include "scene/scene.hpp"
+
+namespace rv::edit {
+
+class Document {
+public:
+    // A document for a layout, from a file (path) or built in (no path: "save" asks for one).
+    explicit Document(Layout layout, std::optional<std::filesystem::path> path = std::nullopt);
+
+    const Layout& layout() const { return layout_; }
+    const RendezvousReport& report() const { return report_; }
+    const scene::Scene& scene() const { return scene_; }
+    const std::optional<std::filesystem::path>& path() const { return path_; }
+    bool dirty() const { return dirty_; }
+    std::string title() const;  // the file name (or "demo"), with " •" when unsaved
+
+    // Whether a layout is one the file format accepts (written and read back; the first
+    // problem in `why`). Edits and previews of layouts it refuses are not applied.
+    static bool acceptable(const Layout& layout, std::string& why);
+    const std::string& last_refusal() const { return last_refusal_; }
+
+    // One finished edit: the old layout goes onto the undo stack, redo is cleared.
+    void edit(Layout next);
+    // A gesture (a drag): previews change the layout without undo steps; finish makes the
+    // whole gesture one undo step (none when nothing changed), cancel restores the start.
+    void begin_gesture();
+    void preview(Layout next);
+    void finish_gesture();
+    void cancel_gesture();
+    bool in_gesture() const { return gesture_start_.has_value(); }
+
+    bool can_undo() const { return !undo_.empty(); }
+    bool can_redo() const { return !redo_.empty(); }
+    void undo();
+    void redo();
+
+    // Atomic saves (core/io/atomic_file); false with `error` set when the file cannot be written.
+    bool save(std::string& error);
+    bool save_as(const std::filesystem::path& path, std::string& error);
+
+    // The recovery file of a layout file: ".NAME.recovery.json" beside it (the demo's lives in
+    // the working folder). Written by autosave while there are unsaved changes, removed on save.
+    static std::filesystem::path recovery_path_for(const std::optional<std::filesystem::path>& path);
+    std::filesystem::path recovery_path() const { return recovery_path_for(path_); }
+    bool autosave(std::string& error);
+    // Replace the layout by the recovery file's (one undo step, marked unsaved); false when it
+    // is missing or does not read as a layout.
+    bool restore_from(const std::filesystem::path& recovery);
+
+private:
+    void refresh();
+
+    Layout layout_;
+    std::optional<std::filesystem::path> path_;
+    bool dirty_ = false;
+    std::vector<Layout> undo_, redo_;
+    std::optional<Layout> gesture_start_;
+    std::string last_refusal_;
+    RendezvousReport report_;
+    scene::Scene scene_;
+};
+
+}  // namespace rv::edit

@@ -1,0 +1,176 @@
+#include "ui/editor.hpp"
+
+#include <imgui.h>
+
+#include <algorithm>
+#include <cmath>
+
+#include "trace/poses.hpp"
+#include "ui/keys.hpp"
+
+namespace rv::ui {
+
+namespace {
+
+std::vector<Path> paths_of(const RendezvousReport& report) {
+    std::vector<Path> paths;
+    for (const ReportBeam& b : report.beams) paths.push_back(b.path);
+    return paths;
+}
+
+Vec2 snapped(const Vec2& p, double grid_mm) {
+    if (!(grid_mm > 0)) return p;
+    return {std::round(p.x() / grid_mm) * grid_mm, std::round(p.y() / grid_mm) * grid_mm};
+}
+
+bool id_taken(const Layout& l, const std::string& id) {
+    return std::any_of(l.elements.begin(), l.elements.end(), [&](const Element& e) { return e.id == id; }) ||
+           std::any_of(l.beams.begin(), l.beams.end(), [&](const BeamSource& b) { return b.id == id; });
+}
+
+std::string unused_id(const Layout& l, const std::string& stem) {
+    for (int k = 2;; ++k)
+        if (const std::string id = stem + "_" + std::to_string(k); !id_taken(l, id)) return id;
+}
+
+}  // namespace
+
+std::optional<size_t> element_at(const edit::Document& doc, const Vec2& p, double px_per_mm) {
+    const Layout& l = doc.layout();
+    const std::vector<ElementPose> poses = element_poses(l, paths_of(doc.report()));
+    std::optional<size_t> best;
+    double best_d = 0;
+    for (size_t i = 0; i < l.elements.size(); ++i) {
+        if (std::holds_alternative<Stage>(l.elements[i].kind)) continue;  // a stage has no symbol
+        const double d = (poses[i].at_mm - p).norm();
+        const double reach = std::max(l.elements[i].aperture_mm / 2, 8.0 / px_per_mm);
+        if (d <= reach && (!best || d < best_d)) best = i, best_d = d;
+    }
+    return best;
+}
+
+bool edit_on_canvas(edit::Document& doc, EditorState& s, const View& view) {
+    const ImGuiIO& io = ImGui::GetIO();
+    const Vec2 cursor = view.to_table(io.MousePos);
+    if (ImGui::IsItemActivated() && ImGui::IsMouseClicked(ImGuiMouseButton_Left)) {
+        s.selected = element_at(doc, cursor, view.px_per_mm);
+        if (s.selected) {
+            // The element keeps its offset from the cursor (a stage's offset stays on top of it).
+            const Element& e = doc.layout().elements[*s.selected];
+            s.drag = EditorState::Drag{*s.selected, e.at_mm - cursor, e.at_mm};
+            doc.begin_gesture();
+        }
+    }
+    if (s.drag) {
+        if (ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Escape), false)) {
+            doc.cancel_gesture();
+            s.drag.reset();
+            s.status = "move cancelled";
+            return true;
+        }
+        if (!io.MouseDown[ImGuiMouseButton_Left]) {
+            doc.finish_gesture();
+            s.drag.reset();
+            return true;
+        }
+        // A click is not a move: nothing moves (or snaps) until the cursor has left the press
+        // point by ImGui's drag threshold.
+        if (!ImGui::IsMouseDragging(ImGuiMouseButton_Left) && doc.layout().elements[s.drag->element].at_mm == s.drag->start_mm)
+            return true;
+        Vec2 at = cursor + s.drag->grab_offset_mm;
+        if (s.snap && !io.KeyAlt) at = snapped(at, doc.layout().table.grid_mm);
+        if (at != doc.layout().elements[s.drag->element].at_mm) {
+            Layout next = doc.layout();
+            next.elements[s.drag->element].at_mm = at;
+            doc.preview(std::move(next));
+        }
+        return true;
+    }
+    return false;
+}
+
+void delete_selected(edit::Document& doc, EditorState& s) {
+    if (!s.selected || *s.selected >= doc.layout().elements.size()) return;
+    Layout next = doc.layout();
+    const std::string id = next.elements[*s.selected].id;
+    if (id == next.target) {
+        s.status = id + " is the layout's target: choose another target before deleting it";
+        return;
+    }
+    next.elements.erase(next.elements.begin() + static_cast<std::ptrdiff_t>(*s.selected));
+    // References to it go with it: a stage no longer carries it, a mirror no longer aims at it.
+    for (Element& e : next.elements) {
+        if (auto* st = std::get_if<Stage>(&e.kind))
+            st->carries.erase(std::remove(st->carries.begin(), st->carries.end(), id), st->carries.end());
+        if (auto* m = std::get_if<Mirror>(&e.kind); m && m->aim_at == id) m->aim_at.reset();
+    }
+    doc.edit(std::move(next));
+    s.status = "deleted " + id;
+    s.selected.reset();
+}
+
+void duplicate_selected(edit::Document& doc, EditorState& s) {
+    if (!s.selected || *s.selected >= doc.layout().elements.size()) return;
+    Layout next = doc.layout();
+    Element copy = next.elements[*s.selected];
+    if (std::holds_alternative<Stage>(copy.kind)) std::get<Stage>(copy.kind).carries.clear();
+    copy.id = unused_id(next, copy.id);
+    copy.at_mm += Vec2(next.table.grid_mm, next.table.grid_mm);
+    next.elements.push_back(copy);
+    doc.edit(std::move(next));
+    s.selected = doc.layout().elements.size() - 1;
+    s.status = "duplicated as " + copy.id;
+}
+
+void rotate_selected(edit::Document& doc, EditorState& s, double degrees) {
+    if (!s.selected || *s.selected >= doc.layout().elements.size()) return;
+    Layout next = doc.layout();
+    Element& e = next.elements[*s.selected];
+    if (auto* m = std::get_if<Mirror>(&e.kind); m && m->aim_at) {
+        s.status = e.id + " aims at " + *m->aim_at + "; turning it drops the aim";
+        m->aim_at.reset();
+    }
+    e.normal_deg = std::remainder(e.normal_deg + degrees, 360.0);
+    doc.edit(std::move(next));
+}
+
+void add_element(edit::Document& doc, EditorState& s, const std::string& type, const Vec2& at_mm) {
+    Layout next = doc.layout();
+    Element e;
+    e.at_mm = snapped(at_mm, next.table.grid_mm);
+    if (type == "lens") e.kind = Lens{IdealLens{100.0}};
+    else if (type == "mirror") e.kind = Mirror{}, e.normal_deg = 135;
+    else if (type == "plate") {
+        Plate plate;
+        plate.slab = Slab{"fused-silica", 3.0};
+        e.kind = plate;
+    }
+    else if (type == "dump") e.kind = Dump{}, e.normal_deg = 180;
+    else e.kind = Target{};
+    e.id = unused_id(next, type == "lens" ? "L" : type == "mirror" ? "M" : type == "plate" ? "P" : type == "dump" ? "D" : "T");
+    next.elements.push_back(e);
+    doc.edit(std::move(next));
+    s.selected = doc.layout().elements.size() - 1;
+    s.status = "added " + e.id;
+}
+
+void edit_shortcuts(edit::Document& doc, EditorState& s) {
+    const ImGuiIO& io = ImGui::GetIO();
+    if (s.drag || io.WantTextInput) return;  // typing in a field is not a shortcut
+    auto pressed = [](int key) { return ImGui::IsKeyPressed(key, false); };
+    if (io.KeyCtrl && pressed(keys::kZ)) io.KeyShift ? doc.redo() : doc.undo();
+    else if (io.KeyCtrl && pressed(keys::kY)) doc.redo();
+    else if (io.KeyCtrl && pressed(keys::kD)) duplicate_selected(doc, s);
+    else if (io.KeyCtrl && pressed(keys::kS)) {
+        std::string error;
+        s.status = doc.save(error) ? "saved " + doc.path()->string() : error;
+    } else if (!io.KeyCtrl && pressed(keys::kR)) rotate_selected(doc, s, io.KeyShift ? -15.0 : 15.0);
+    else if (!io.KeyCtrl && pressed(keys::kG)) {
+        s.snap = !s.snap;
+        s.status = s.snap ? "snapping to the hole grid" : "free placement (no snapping)";
+    } else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Delete))) delete_selected(doc, s);
+    else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Escape))) s.selected.reset();
+    if (s.selected && *s.selected >= doc.layout().elements.size()) s.selected.reset();  // after an undo
+}
+
+}  // namespace rv::ui

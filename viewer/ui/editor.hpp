@@ -1,0 +1,43 @@
+#pragma once
+// Editing on the table view: click selects the optic under the cursor, dragging it moves it
+// (snapped to the hole grid unless snapping is off), Esc cancels a drag, R / Shift+R turn the
+// selection by +15° / −15°, Delete removes it, Ctrl+D duplicates it, Ctrl+Z undoes, Ctrl+Shift+Z
+// and Ctrl+Y redo, Ctrl+S saves, G toggles snapping. Every change goes through the Document,
+// which rebuilds the report and the scene.
+#include <optional>
+#include <string>
+
+#include "edit/document.hpp"
+#include "ui/view.hpp"
+
+namespace rv::ui {
+
+struct EditorState {
+    std::optional<size_t> selected;  // element index
+    bool snap = true;
+    struct Drag {
+        size_t element;
+        Vec2 grab_offset_mm;  // element position minus the cursor's table point at the press
+        Vec2 start_mm;
+    };
+    std::optional<Drag> drag;
+    std::string status;  // the last thing the editor has to say (saved, an error)
+};
+
+// The element whose symbol is under a table point, if any (within its half aperture or 8 px).
+std::optional<size_t> element_at(const edit::Document& doc, const Vec2& table_mm, double px_per_mm);
+
+// The canvas interaction for one frame (after the canvas's invisible button was submitted):
+// returns true when it took the mouse (a press on an element), so the view does not pan.
+bool edit_on_canvas(edit::Document& doc, EditorState& state, const View& view);
+
+// Keyboard shortcuts (window focused).
+void edit_shortcuts(edit::Document& doc, EditorState& state);
+
+// Operations behind the shortcuts and menus.
+void delete_selected(edit::Document& doc, EditorState& state);
+void duplicate_selected(edit::Document& doc, EditorState& state);
+void rotate_selected(edit::Document& doc, EditorState& state, double degrees);
+void add_element(edit::Document& doc, EditorState& state, const std::string& type, const Vec2& at_mm);
+
+}  // namespace rv::ui
