@@ -118,7 +118,10 @@ std::optional<Layout> Reader::read(const json& doc) {
                     if (const auto range = mr.interval(item.key(), Need::Required)) sg.move.emplace_back(item.key(), *range);
             }
             sg.swap = sr.strings("swap", Need::Optional).value_or(std::vector<std::string>{});
-            sr.finish({"aim", "move", "swap"});
+            sg.min_spacing_mm = sr.number("min_spacing_mm", Need::Optional, at_least(0)).value_or(sg.min_spacing_mm);
+            sg.table_margin_mm = sr.number("table_margin_mm", Need::Optional, at_least(0)).value_or(sg.table_margin_mm);
+            sg.max_path_mm = sr.number("max_path_mm", Need::Optional, positive());
+            sr.finish({"aim", "move", "swap", "min_spacing_mm", "table_margin_mm", "max_path_mm"});
             layout.goals.solve = sg;
         }
         if (const json* tv = g.object("tolerance", Need::Optional)) {

@@ -216,6 +216,10 @@ std::string write_layout(const Layout& layout) {
             j["move"] = m;
         }
         if (!sg.swap.empty()) j["swap"] = sg.swap;
+        const SolveGoals sg0;
+        unless_default(j, "min_spacing_mm", sg.min_spacing_mm, sg0.min_spacing_mm);
+        unless_default(j, "table_margin_mm", sg.table_margin_mm, sg0.table_margin_mm);
+        if (sg.max_path_mm) j["max_path_mm"] = *sg.max_path_mm;
         goals["solve"] = j;
     }
     if (!goals.empty()) root["goals"] = goals;

@@ -209,6 +209,12 @@ struct SolveGoals {
     // (relative to where they are now).
     std::vector<std::pair<std::string, std::pair<double, double>>> move;
     std::vector<std::string> swap;  // lenses that may be replaced by any lens of the catalog
+    // Constraints on the solutions: a moved optic's centre stays this far from every other
+    // optic's centre (room for the mounts), and half its aperture plus this margin inside the
+    // table's edge; each beam's path from its start to the target is at most max_path_mm.
+    double min_spacing_mm = 20.0;
+    double table_margin_mm = 10.0;
+    std::optional<double> max_path_mm;
     bool operator==(const SolveGoals&) const = default;
 };
 

@@ -4,6 +4,7 @@
 #include <unsupported/Eigen/NumericalDiff>
 
 #include <algorithm>
+#include <atomic>
 #include <cmath>
 #include <thread>
 
@@ -56,12 +57,58 @@ std::vector<BeamAtTarget> evaluate(const Layout& l, const MaterialLibrary& libra
 
 constexpr double kMissed = 1e3;  // residual of a beam that misses the target
 
-Eigen::VectorXd residuals(const Problem& p, const std::vector<BeamAtTarget>& at, Eigen::Index size) {
+// A penalty leaves the optimum a little inside a constraint it presses against; less than this
+// is not reported as broken.
+constexpr double kReportedViolation_mm = 0.05;
+
+// Where an element sits: its position plus the offset of a stage that carries it.
+Vec2 placed_at(const Layout& l, size_t element) {
+    Vec2 at = l.elements[element].at_mm;
+    for (const Element& e : l.elements)
+        if (const auto* s = std::get_if<Stage>(&e.kind))
+            for (const std::string& id : s->carries)
+                if (id == l.elements[element].id) at += s->position_mm * direction_deg(s->axis_deg);
+    return at;
+}
+
+// How far (mm) a moved element breaks the spacing and table-edge constraints (0: it keeps them),
+// with a sentence for each broken one.
+double violation_mm(const Problem& p, const Layout& l, size_t k, std::vector<std::string>* why) {
+    const SolveGoals& g = *p.base.goals.solve;
+    const size_t i = p.move_index[k];
+    const Vec2 at = placed_at(l, i);
+    double v = 0;
+    for (size_t j = 0; j < l.elements.size(); ++j) {
+        if (j == i || std::holds_alternative<Stage>(l.elements[j].kind)) continue;
+        const double d = (placed_at(l, j) - at).norm();
+        if (d < g.min_spacing_mm) {
+            v += g.min_spacing_mm - d;
+            if (why && g.min_spacing_mm - d > kReportedViolation_mm)
+                why->push_back(l.elements[i].id + " is " + std::to_string(static_cast<int>(std::round(d))) +
+                                    " mm from " + l.elements[j].id + " (less than min_spacing_mm)");
+        }
+    }
+    const double inset = l.elements[i].aperture_mm / 2 + g.table_margin_mm;
+    const double outside = std::max({inset - at.x(), at.x() - (l.table.width_mm - inset), inset - at.y(),
+                                     at.y() - (l.table.height_mm - inset), 0.0});
+    if (outside > 0) {
+        v += outside;
+        if (why && outside > kReportedViolation_mm) why->push_back(l.elements[i].id + " is too close to the table's edge");
+    }
+    return v;
+}
+
+Eigen::VectorXd residuals(const Problem& p, const Layout& l, const std::vector<BeamAtTarget>& at, Eigen::Index size) {
     Eigen::VectorXd r = Eigen::VectorXd::Zero(size);
     Eigen::Index i = 0;
     auto push = [&](double v) {
         if (i < size) r[i++] = v;
     };
+    // Constraints as penalties, 1 per mm of violation (the other residuals are of order 1).
+    for (size_t k = 0; k < p.move_index.size(); ++k) push(violation_mm(p, l, k, nullptr));
+    if (const auto& max = p.base.goals.solve->max_path_mm)
+        for (size_t b = 0; b < at.size(); ++b)
+            if (!p.only_beam || *p.only_beam == b) push(at[b].reached ? std::max(0.0, at[b].path_mm - *max) : 0.0);
     for (size_t b = 0; b < at.size(); ++b) {
         if (p.only_beam && *p.only_beam != b) continue;
         const BeamAtTarget& t = at[b];
@@ -81,8 +128,19 @@ Eigen::VectorXd residuals(const Problem& p, const std::vector<BeamAtTarget>& at,
     return r;
 }
 
+Eigen::Index residual_count_without_constraints(const Problem& p, size_t beams) {
+    Eigen::Index n = 2 * static_cast<Eigen::Index>(p.only_beam ? 1 : beams);
+    if (p.aim == SolveGoals::Aim::Waist)
+        for (size_t b = 0; b < p.goal_um.size(); ++b)
+            if (!p.only_beam || *p.only_beam == b) n += p.goal_um[b] > 0 ? 2 : 0;
+    if (p.aim == SolveGoals::Aim::EqualConfocal) n += 2;
+    return n;
+}
+
 Eigen::Index residual_count(const Problem& p, size_t beams) {
     Eigen::Index n = 2 * static_cast<Eigen::Index>(p.only_beam ? 1 : beams);
+    n += static_cast<Eigen::Index>(p.move_index.size());
+    if (p.base.goals.solve->max_path_mm) n += static_cast<Eigen::Index>(p.only_beam ? 1 : beams);
     if (p.aim == SolveGoals::Aim::Waist)
         for (size_t b = 0; b < p.goal_um.size(); ++b)
             if (!p.only_beam || *p.only_beam == b) n += p.goal_um[b] > 0 ? 2 : 0;
@@ -104,7 +162,7 @@ struct Functor {
     int values() const { return static_cast<int>(n_values); }
     int operator()(const Eigen::VectorXd& u, Eigen::VectorXd& f) const {
         place_moves(*p, u, *work);
-        f = residuals(*p, evaluate(*work, p->library, cache), n_values);
+        f = residuals(*p, *work, evaluate(*work, p->library, cache), n_values);
         return 0;
     }
 };
@@ -132,7 +190,16 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     TelescopeSolution s;
     s.layout = apply(p, choice, u);
     const std::vector<BeamAtTarget> at = evaluate(s.layout, p.library, &cache);
-    s.residual = residuals(p, at, m).norm();
+    // The figure ranked on is the aim's residual alone; constraints are reported beside it.
+    const Eigen::VectorXd all = residuals(p, s.layout, at, m);
+    const Eigen::Index constraints = residual_count(p, beams) - residual_count_without_constraints(p, beams);
+    s.residual = all.tail(all.size() - constraints).norm();
+    for (size_t k = 0; k < p.move_index.size(); ++k) violation_mm(p, s.layout, k, &s.violations);
+    if (const auto& max = p.base.goals.solve->max_path_mm)
+        for (size_t b = 0; b < at.size(); ++b)
+            if ((!p.only_beam || *p.only_beam == b) && at[b].reached && at[b].path_mm > *max + 0.01)
+                s.violations.push_back(p.base.beams[b].id + "'s path is " + std::to_string(static_cast<int>(at[b].path_mm)) +
+                                       " mm, more than max_path_mm");
     for (size_t k = 0; k < p.swap_index.size(); ++k) s.swaps.emplace_back(p.base.elements[p.swap_index[k]].id, choice[k]->id);
     for (Eigen::Index k = 0; k < n; ++k) {
         const double move = move_of(p, static_cast<size_t>(k), u[k]);
@@ -184,14 +251,19 @@ std::vector<Candidate> search(const Problem& p, const std::vector<std::vector<co
     std::vector<Candidate> all(combos.size());
     const int threads = std::max(1, std::min<int>(options.threads, static_cast<int>(combos.size())));
     std::vector<std::thread> pool;
+    std::atomic<size_t> done{0};
     for (int t = 0; t < threads; ++t)
         pool.emplace_back([&, t] {
-            for (size_t c = static_cast<size_t>(t); c < combos.size(); c += static_cast<size_t>(threads))
+            for (size_t c = static_cast<size_t>(t); c < combos.size(); c += static_cast<size_t>(threads)) {
                 all[c] = Candidate{combos[c], solve_one(p, combos[c])};
+                const size_t n = ++done;
+                if (t == 0 && options.progress) options.progress(n, combos.size());
+            }
         });
     for (std::thread& th : pool) th.join();
     std::stable_sort(all.begin(), all.end(), [](const Candidate& x, const Candidate& y) {
         const TelescopeSolution &a = x.solution, &b = y.solution;
+        if (a.violations.empty() != b.violations.empty()) return a.violations.empty();  // feasible first
         if (a.residual != b.residual) return a.residual < b.residual;
         if (a.sensitivity_mm_per_mm != b.sensitivity_mm_per_mm) return a.sensitivity_mm_per_mm < b.sensitivity_mm_per_mm;
         return a.total_move_mm < b.total_move_mm;

@@ -11,10 +11,14 @@
 //   aim "focus":          the waist offsets/z_R only
 // with each move kept in its range by x = mid + half·sin(u). Solutions are ranked by the residual
 // norm; ties by the sensitivity (how far the waists move per mm of move) and the total move.
+// Constraints (goals.solve.min_spacing_mm, table_margin_mm, max_path_mm) enter the optimization
+// as penalties of 1 per mm of violation; a solution that still breaks one lists it in
+// `violations` and ranks after every solution that breaks none.
 // When the aim is per beam (waist or focus) and every swapped or moved element lies on one
 // beam's path only, the arms are searched apart and their best choices combined (exact for
 // such problems: the joint residual² is the sum of the arms'); otherwise every combination.
 
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -31,6 +35,7 @@ struct TelescopeSolution {
     double residual = 0;                  // norm of the residual vector
     double sensitivity_mm_per_mm = 0;     // largest |d(waist offset)/d(move)|
     double total_move_mm = 0;
+    std::vector<std::string> violations;  // broken constraints (goals.solve); ranked after those with none
 };
 
 struct SolveOptions {
@@ -40,6 +45,8 @@ struct SolveOptions {
     // Search each arm alone when the problem separates (see solve_telescopes); off: every
     // combination of every arm's choices (the same best solutions, slower).
     bool separate_arms = true;
+    // Called now and then with the combinations done and the total (from one thread at a time).
+    std::function<void(size_t done, size_t total)> progress;
 };
 
 struct SolveResult {

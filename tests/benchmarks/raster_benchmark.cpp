@@ -11,6 +11,7 @@
 #include "render/cpu_rasterizer.hpp"
 #include "render/headless.hpp"
 #include "scene/scene.hpp"
+#include "edit/document.hpp"
 #include "ui/frame.hpp"
 
 namespace {
@@ -39,5 +40,39 @@ void RasterFrame1600x1000(benchmark::State& state) {
     ImGui::DestroyContext();
 }
 BENCHMARK(RasterFrame1600x1000)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
+
+}  // namespace
+
+namespace {
+
+// One drag step of the viewer (design budget: ≤ 16 ms): the dragged lens moves by 1 mm, the
+// document re-traces and rebuilds the report and the scene, the ImGui frame is built and
+// rasterized at 1600 × 1000 on one thread.
+void DragStep1600x1000(benchmark::State& state) {
+    rv::edit::Document doc(*rv::read_layout_file(RV_SOURCE_DIR "/layouts/sfg-bbo.json").layout);
+    ImGui::CreateContext();
+    rv::render::Texture font;
+    rv::render::configure_context(font);
+    ImGui::GetIO().DisplaySize = ImVec2(1600, 1000);
+    rv::ui::ViewerState viewer;
+    viewer.doc = &doc;
+    size_t lens = 0;
+    while (doc.layout().elements[lens].id != "L2_S") ++lens;
+    rv::render::Framebuffer fb(1600, 1000);
+    int k = 0;
+    for (auto _ : state) {
+        rv::Layout next = doc.layout();
+        next.elements[lens].at_mm.x() += (k++ & 1) ? 1.0 : -1.0;
+        doc.preview(std::move(next));
+        ImGui::NewFrame();
+        rv::ui::draw_document_frame(viewer);
+        ImGui::Render();
+        fb.clear(255, 255, 255);
+        rv::render::rasterize(*ImGui::GetDrawData(), fb, {1});
+        benchmark::DoNotOptimize(fb.rgba.data());
+    }
+    ImGui::DestroyContext();
+}
+BENCHMARK(DragStep1600x1000)->Unit(benchmark::kMillisecond);
 
 }  // namespace

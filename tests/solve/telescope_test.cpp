@@ -149,3 +149,28 @@ TEST_CASE("searching the arms apart finds the best solutions of the full search"
         CHECK_THAT(a.solutions[k].residual, near(b.solutions[k].residual, 1e-9 + 1e-6 * b.solutions[k].residual));
     }
 }
+
+TEST_CASE("the spacing constraint keeps a moved lens clear of its neighbour", "[solve]") {
+    // Self-consistency: in the Kepler case the unconstrained best puts L2 (f = 150) at 300 mm;
+    // a post 40 mm beside that spot (a dump off the beam) with min_spacing_mm = 60 must push every
+    // solution that breaks no constraint at least 60 mm (less the reporting slack) from it, and
+    // a solution that does break it must say so.
+    const rv::Layout truth = layout_from(kepler(150, 300, 700, 100));
+    const rv::BeamAtTarget t = at_target(truth);
+    std::string json = kepler(100, 260, 700 + t.tangential.waist_offset_mm, t.tangential.waist_um);
+    json.replace(json.find(R"({"id": "LF")"), 0, R"({"id": "POST", "type": "dump", "at_mm": [300, 540]}, )");
+    json.replace(json.find(R"("swap": ["L2"])"), 0, R"("min_spacing_mm": 60, )");
+    const rv::Layout start = layout_from(json);
+    const rv::SolveResult r =
+        rv::solve_telescopes(start, rv::material_library_for(start), ideal_catalog({50, 75, 100, 150, 200, 250}));
+    REQUIRE(r.error.empty());
+    REQUIRE(!r.solutions.empty());
+    for (const rv::TelescopeSolution& s : r.solutions) {
+        const rv::Vec2 l2 = s.layout.find("L2")->at_mm, post = s.layout.find("POST")->at_mm;
+        if (s.violations.empty()) CHECK((l2 - post).norm() >= 60 - 0.05);
+        else CHECK(s.violations.front().find("from POST") != std::string::npos);
+    }
+    // Without the post the best sits at 300 mm; with it the best feasible one is elsewhere.
+    CHECK(r.solutions.front().violations.empty());
+    CHECK(std::abs(r.solutions.front().layout.find("L2")->at_mm.x() - 300) > 1);
+}

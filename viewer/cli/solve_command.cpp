@@ -5,6 +5,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "cli/progress_bar.hpp"
 #include "io/layout_reader.hpp"
 #include "solve/telescope.hpp"
 
@@ -23,6 +24,8 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
     }
     SolveOptions options;
     options.keep = static_cast<size_t>(o.top);
+    ProgressBar bar("solving");
+    options.progress = [&bar](size_t done, size_t total) { bar.update(done, total); };
     const auto t0 = std::chrono::steady_clock::now();
     const SolveResult r = solve_telescopes(*layout, library, catalog.lenses, options);
     const double seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
@@ -45,6 +48,7 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
             out << line;
         }
         out << "\n";
+        for (const std::string& v : s.violations) out << "      breaks a constraint: " << v << "\n";
     }
     if (!o.output.empty() && !r.solutions.empty()) {
         if (!save_layout_or_report(r.solutions.front().layout, o.output, err)) return 2;
