@@ -61,6 +61,18 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
             if (f.kind != Finding::Kind::MaterialOutOfRange && f.kind != Finding::Kind::NoTarget &&
                 f.kind != Finding::Kind::MissedOptic)
                 b.unconverted_end = f.message;
+        if (envelope) {  // the full report: power, polarization and pulse figures as well
+            const BeamSource& src = layout.beams[p.beam];
+            b.power = trace_power(layout, library, p, b.caustic);
+            b.at_target_polarization = describe(b.power.at_target);
+            if (src.power_mw > 0 && b.power.reached) {
+                b.target_power_mw = src.power_mw * b.power.at_target[0];
+                b.pulse_at_target = pulse_figures(*b.target_power_mw, src.repetition_rate_khz, src.pulse_fwhm_fs,
+                                                  b.at_target.tangential.radius_um, b.at_target.sagittal.radius_um);
+                b.pulse_at_waist = pulse_figures(*b.target_power_mw, src.repetition_rate_khz, src.pulse_fwhm_fs,
+                                                 b.at_target.tangential.waist_um, b.at_target.sagittal.waist_um);
+            }
+        }
         beams.push_back(std::move(b));
     }
     return beams;
@@ -180,6 +192,14 @@ const char* type_text(MixingType t) {
     return "";
 }
 
+// The fraction of a beam's power at the target in the crystal's A (ordinary) wave: from the
+// traced polarization when the power trace ran, else from the source's.
+double a_fraction_at_target(const ReportBeam& b, const BeamSource& src, const Crystal& xc) {
+    const PolarizationState& s = b.at_target_polarization;
+    if (!b.power.reached || !(s.power > 0)) return a_wave_fraction(src.polarization, xc.optic_axis_horizontal);
+    return (xc.optic_axis_horizontal ? s.v : s.h) / s.power;
+}
+
 PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, const Crystal& xc,
                                       const Material& m, const std::vector<ReportBeam>& beams,
                                       size_t i, size_t j) {
@@ -190,12 +210,14 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     PhaseMatchingReport r;
     r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
     r.output_nm = sum_frequency_nm(l1, l2);
-    const double a1 = a_wave_fraction(b1.polarization, xc.optic_axis_horizontal);
-    const double a2 = a_wave_fraction(b2.polarization, xc.optic_axis_horizontal);
+    const double a1 = a_fraction_at_target(beams[i], b1, xc);
+    const double a2 = a_fraction_at_target(beams[j], b2, xc);
     const PrincipalPlane plane = xc.principal_plane;
     const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
     r.type = type_text(type);
     const WavePolarities w = polarities(type);
+    r.first_needs_a = w.wave1 == Polarity::A;
+    r.second_needs_a = w.wave2 == Polarity::A;
     auto suits = [](Polarity need, double a) { return need == Polarity::A ? a >= 0.9 : a <= 0.1; };
     if (shg && type != MixingType::TypeI && type != MixingType::TypeI_BBA) {
         r.polarizations_suit = a1 >= 0.4 && a1 <= 0.6;
@@ -291,6 +313,69 @@ std::string invisible_kind(double nm) {
 
 }  // namespace
 
+// Polarization advice for one beam at the crystal (see PolarizationAdvice): the wave plate to
+// turn is the last one on the path after the last polarizer or cube before the target (turning
+// it changes the polarization without changing the power), its best angle found by a 0.5° scan
+// and a golden-section refinement of the power in the needed polarization.
+PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibrary& library, const ReportBeam& b,
+                                       const Crystal& xc, bool needs_a) {
+    PolarizationAdvice a;
+    a.beam = b.id;
+    const bool needs_h = needs_a != xc.optic_axis_horizontal;  // A = o is H when the axis plane is vertical
+    a.needs = std::string(needs_a ? "o" : "e") + (needs_h ? " (horizontal)" : " (vertical)");
+    const PolarizationState& s = b.at_target_polarization;
+    auto useful = [&](const Stokes& st) { return needs_h ? (st[0] + st[1]) / 2 : (st[0] - st[1]) / 2; };
+    a.useful_fraction = s.power > 0 ? useful(b.power.at_target) / s.power : 0;
+    const double src_mw = layout.beams[b.path.beam].power_mw;
+    if (src_mw > 0) a.useful_mw = src_mw * useful(b.power.at_target);
+    if (a.useful_fraction >= 0.99) return a;
+    // The candidate plate.
+    const size_t end = b.path.target_hit.value_or(b.path.hits.size());
+    std::optional<size_t> plate, last_polarizer;
+    for (size_t k = 0; k < end; ++k) {
+        const Element& e = layout.elements[b.path.hits[k].element];
+        if (const auto* p = std::get_if<Plate>(&e.kind)) {
+            if (p->role == Plate::Role::PolarizingCube || p->role == Plate::Role::Polarizer) {
+                last_polarizer = b.path.hits[k].element;
+                plate.reset();
+            } else if (p->role == Plate::Role::HalfWave || p->role == Plate::Role::QuarterWave) {
+                plate = b.path.hits[k].element;
+            }
+        }
+    }
+    if (!plate) {
+        a.action = "add a half-wave plate" +
+                   (last_polarizer ? " after " + layout.elements[*last_polarizer].id : std::string()) +
+                   ": only " + fmt("%.0f", 100 * a.useful_fraction) + " % of " + b.id + " is " + a.needs;
+        return a;
+    }
+    const Plate& p = std::get<Plate>(layout.elements[*plate].kind);
+    a.plate = layout.elements[*plate].id;
+    a.plate_now_deg = p.fast_axis_deg;
+    auto power_in_need = [&](double deg) {
+        return useful(target_stokes_with_plate(layout, library, b.path, b.caustic, *plate, deg));
+    };
+    double best = 0, best_value = -1;
+    for (int k = 0; k < 360; ++k)
+        if (const double v = power_in_need(0.5 * k); v > best_value) best_value = v, best = 0.5 * k;
+    double lo = best - 0.5, hi = best + 0.5;  // golden-section refinement
+    const double g = (std::sqrt(5.0) - 1) / 2;
+    for (int it = 0; it < 40; ++it) {
+        const double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
+        if (power_in_need(x1) > power_in_need(x2)) hi = x2;
+        else lo = x1;
+    }
+    a.plate_best_deg = std::remainder((lo + hi) / 2, 180.0);
+    if (a.plate_best_deg < 0) a.plate_best_deg += 180;
+    const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, *plate, a.plate_best_deg);
+    a.useful_fraction_best = at_best[0] > 0 ? useful(at_best) / at_best[0] : 0;
+    if (src_mw > 0) a.useful_mw_best = src_mw * useful(at_best);
+    a.action = "turn " + a.plate + "'s fast axis from " + fmt("%.1f", a.plate_now_deg) + "° to " +
+               fmt("%.1f", a.plate_best_deg) + "°: " + fmt("%.0f", 100 * a.useful_fraction) + " % → " +
+               fmt("%.0f", 100 * a.useful_fraction_best) + " % of " + b.id + " in " + a.needs;
+    return a;
+}
+
 RendezvousReport build_report(const Layout& layout, const MaterialLibrary& library) {
     RendezvousReport r;
     r.layout_name = layout.name;
@@ -312,6 +397,33 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
             r.warnings.push_back({"unterminated", b.id + ": light after the target " + b.unconverted_end + "; put a beam dump in its path", ""});
         if (const std::string kind = invisible_kind(b.wavelength_nm); !kind.empty())
             r.invisible.push_back(fmt("%.0f nm", b.wavelength_nm) + " (" + b.id + "): " + kind);
+        for (const PowerLoss& loss : b.power.losses)
+            if (loss.leaves_table && loss.fraction > 1e-3)
+                r.warnings.push_back({"stray-beam", b.id + ": " + fmt("%.1f", 100 * loss.fraction) + " % reflected by " +
+                                                        loss.element + " " + loss.goes_to + "; put a beam dump in its path",
+                                      loss.element});
+        // Damage: the peak intensity and fluence at the target plane, and at the waist when the
+        // waist lies inside the crystal, against the maker's threshold given in the file.
+        const DamageThreshold* damage = nullptr;
+        if (target) {
+            if (const auto* c = std::get_if<Crystal>(&target->kind)) damage = &c->damage;
+            if (const auto* t = std::get_if<Target>(&target->kind)) damage = &t->damage;
+        }
+        if (damage && b.pulse_at_target) {
+            PulseFigures worst = *b.pulse_at_target;
+            const double offset = std::abs(b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2;
+            if (b.pulse_at_waist && crystal && offset <= crystal->length_mm / 2) worst = *b.pulse_at_waist;
+            if (damage->intensity_gw_cm2 > 0 && worst.peak_intensity_w_cm2 > damage->intensity_gw_cm2 * 1e9)
+                r.warnings.push_back({"damage", b.id + ": peak intensity " + fmt("%.3g", worst.peak_intensity_w_cm2 * 1e-9) +
+                                                    " GW/cm² in " + layout.target + " exceeds its damage threshold " +
+                                                    fmt("%.3g", damage->intensity_gw_cm2) + " GW/cm²",
+                                      layout.target});
+            if (damage->fluence_j_cm2 > 0 && worst.peak_fluence_j_cm2 > damage->fluence_j_cm2)
+                r.warnings.push_back({"damage", b.id + ": peak fluence " + fmt("%.3g", worst.peak_fluence_j_cm2) + " J/cm² in " +
+                                                    layout.target + " exceeds its damage threshold " +
+                                                    fmt("%.3g", damage->fluence_j_cm2) + " J/cm²",
+                                      layout.target});
+        }
     }
     // Thin glass lenses carry no thickness, so their glass is missing from the timing
     // (about 1.5–1.8 ps per mm, physics.md §7): say so where it matters, with two pulsed beams.
@@ -339,6 +451,17 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
             for (const PhaseMatchingReport& p : r.phase_matching)
                 if (const std::string kind = invisible_kind(p.output_nm); !kind.empty())
                     r.invisible.push_back(fmt("%.1f nm", p.output_nm) + " (" + p.process + "): " + kind);
+            // Polarization of each input, for the first process (SFG, or the SHG of one beam).
+            if (!r.phase_matching.empty() && r.phase_matching.front().outside_index_data.empty()) {
+                const PhaseMatchingReport& first = r.phase_matching.front();
+                const bool sfg = r.beams.size() >= 2 && both;
+                const bool type_ii_shg = !sfg && first.type.rfind("type-II", 0) == 0;
+                if (!type_ii_shg)
+                    for (size_t i = 0; i < (sfg ? 2u : r.beams.size()); ++i)
+                        if (r.beams[i].at_target.reached && r.beams[i].power.reached)
+                            r.polarization.push_back(advise_polarization(layout, library, r.beams[i], *crystal,
+                                                                         i == 0 ? first.first_needs_a : first.second_needs_a));
+            }
             // Boyd–Kleinman for each beam, with the walk-off of the first process's output.
             const double rho = r.phase_matching.empty() ? 0 : r.phase_matching.front().walkoff_mrad * 1e-3;
             for (const ReportBeam& b : r.beams) {

@@ -7,6 +7,8 @@
 #include <string>
 #include <vector>
 
+#include "analysis/power_budget.hpp"
+#include "analysis/pulse_intensity.hpp"
 #include "analysis/target_summary.hpp"
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
@@ -24,6 +26,28 @@ struct ReportBeam {
     double confocal_tangential_mm = 0, confocal_sagittal_mm = 0;  // 2 z_R in the medium
     double crossing_angle_deg = 0;  // chief ray to the target's normal at the target plane
     std::string unconverted_end;    // where the light goes after the target, in words
+    // Power and polarization along the path (analysis/power_budget.hpp), fractions of the
+    // source power; absolute figures where the file gives power_mw (and the pulse figures
+    // where it also gives repetition_rate_khz and pulse_fwhm_fs).
+    BeamPower power;
+    PolarizationState at_target_polarization;  // h, v, power: fractions of the source power
+    std::optional<double> target_power_mw;
+    std::optional<PulseFigures> pulse_at_target;  // with the radii at the target plane
+    std::optional<PulseFigures> pulse_at_waist;   // with the waist radii
+};
+
+// Whether each beam reaching the crystal has the polarization the phase matching needs, and
+// which way to turn a wave plate when it has not.
+struct PolarizationAdvice {
+    std::string beam;
+    std::string needs;          // "o (horizontal)" …
+    double useful_fraction = 0; // of the power at the target, in the needed polarization
+    std::optional<double> useful_mw;
+    std::string plate;          // the wave plate to turn ("" when there is none to turn)
+    double plate_now_deg = 0, plate_best_deg = 0;
+    double useful_fraction_best = 0;  // with the plate at plate_best_deg (of the power at the target then)
+    std::optional<double> useful_mw_best;
+    std::string action;         // what to do, in words ("" when nothing)
 };
 
 struct OverlapReport {
@@ -72,6 +96,7 @@ struct PhaseMatchingReport {
     // value (far outside its range): then nothing above is computed (Δk·L and sinc² stay 0 and
     // are printed as unknown).
     std::string outside_index_data;
+    bool first_needs_a = true, second_needs_a = true;  // the inputs' polarities for the type
     double walkoff_mrad = 0;        // of the generated (B) wave at θ_pm
     double angular_acceptance_internal_mrad = 0;  // FWHM, internal
     double angular_acceptance_external_mrad = 0;  // ≈ n × internal
@@ -114,6 +139,7 @@ struct RendezvousReport {
     std::optional<StageReport> stage;
     std::vector<PhaseMatchingReport> phase_matching;
     std::vector<FocusingReport> focusing;
+    std::vector<PolarizationAdvice> polarization;
     Verdict verdict;
     std::vector<ReportWarning> warnings;
     std::vector<std::string> invisible;  // "1030 nm (pump): near infrared" …

@@ -19,7 +19,14 @@ namespace {
 using nlohmann::json;
 using Keys = std::vector<std::string>;
 
-const Keys kCommonKeys = {"id", "type", "at_mm", "normal_deg", "aperture_mm"};
+const Keys kCommonKeys = {"id", "type", "at_mm", "normal_deg", "aperture_mm", "transmission"};
+
+DamageThreshold read_damage(FieldReader& f) {
+    DamageThreshold d;
+    d.fluence_j_cm2 = f.number("damage_fluence_j_cm2", Need::Optional, positive()).value_or(0);
+    d.intensity_gw_cm2 = f.number("damage_intensity_gw_cm2", Need::Optional, positive()).value_or(0);
+    return d;
+}
 
 Keys with_common(const Keys& own) {
     Keys k = kCommonKeys;
@@ -225,6 +232,8 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     b.pulse_fwhm_fs = f.number("pulse_fwhm_fs", Need::Optional, positive()).value_or(0);
     b.emit_time_fs = f.number("emit_time_fs", Need::Optional).value_or(0);
     b.power_mw = f.number("power_mw", Need::Optional, positive()).value_or(0);
+    b.repetition_rate_khz = f.number("repetition_rate_khz", Need::Optional, positive()).value_or(0);
+    b.polarized_fraction = f.number("polarized_fraction", Need::Optional, between(0, 1)).value_or(1.0);
     const auto pol = f.choice("polarization", Need::Optional,
                               {"horizontal", "vertical", "linear", "circular-left", "circular-right"});
     using K = Polarization::Kind;
@@ -241,7 +250,7 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
         f.error("polarization_angle_deg", "only allowed with \"polarization\": \"linear\"");
     f.finish({"id", "wavelength_nm", "start_mm", "direction_deg", "waist_um", "waist_at_mm", "m2",
               "pulse_fwhm_fs", "emit_time_fs", "polarization", "polarization_angle_deg",
-              "power_mw"});
+              "power_mw", "repetition_rate_khz", "polarized_fraction"});
     if (!b.id.empty()) {
         if (element_pointers_.count(b.id))
             error(ptr + "/id", "duplicate id \"" + b.id + "\" (first used at " +
@@ -332,8 +341,9 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
         Mirror m;
         m.radius_of_curvature_mm = f.number("radius_of_curvature_mm", Need::Optional, non_zero());
         m.aim_at = f.string("aim_at", Need::Optional);
+        m.retardance_deg = f.number("retardance_deg", Need::Optional).value_or(0);
         f.forbid_together("normal_deg", "aim_at");
-        f.finish(with_common({"radius_of_curvature_mm", "aim_at"}));
+        f.finish(with_common({"radius_of_curvature_mm", "aim_at", "retardance_deg"}));
         return m;
     }
     if (type == "dichroic") {
@@ -347,23 +357,55 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
             d.substrate.thickness_mm = sf.number("thickness_mm", Need::Required, positive()).value_or(0);
             sf.finish({"glass", "thickness_mm"});
         }
-        f.finish(with_common({"edge_nm", "reflects", "substrate"}));
+        d.retardance_deg = f.number("retardance_deg", Need::Optional).value_or(0);
+        f.finish(with_common({"edge_nm", "reflects", "substrate", "retardance_deg"}));
         return d;
     }
     if (type == "plate") {
         Plate p;
         const auto role = f.choice("role", Need::Optional,
-                                   {"window", "half-wave", "quarter-wave", "polarizing-cube"});
+                                   {"window", "half-wave", "quarter-wave", "polarizing-cube", "polarizer"});
         using R = Plate::Role;
         p.role = !role ? R::Window
                  : *role == "half-wave"       ? R::HalfWave
                  : *role == "quarter-wave"    ? R::QuarterWave
                  : *role == "polarizing-cube" ? R::PolarizingCube
+                 : *role == "polarizer"       ? R::Polarizer
                                               : R::Window;
         p.slab.material = material_name(f, "material").value_or("");
         p.slab.thickness_mm = f.number("thickness_mm", Need::Required, positive()).value_or(0);
+        const bool wave = p.role == R::HalfWave || p.role == R::QuarterWave;
+        const bool polarizing = p.role == R::PolarizingCube || p.role == R::Polarizer;
+        auto only = [&](const char* key, bool allowed, const char* what) {
+            if (f.has(key) && !allowed) f.error(key, std::string("only for ") + what);
+        };
+        only("fast_axis_deg", wave || p.role == R::Polarizer, "wave plates and polarizers");
+        only("design_nm", wave, "wave plates");
+        only("retarder_material", wave, "wave plates");
+        only("order", wave, "wave plates");
+        only("retarder_thickness_um", wave, "wave plates");
+        only("extinction_ratio", polarizing, "polarizing cubes and polarizers");
+        only("reflects", p.role == R::PolarizingCube, "polarizing cubes");
         p.fast_axis_deg = f.number("fast_axis_deg", Need::Optional).value_or(0);
-        f.finish(with_common({"role", "material", "thickness_mm", "fast_axis_deg"}));
+        if (wave) {
+            p.retarder_thickness_um = f.number("retarder_thickness_um", Need::Optional, positive()).value_or(0);
+            p.design_nm = f.number("design_nm", p.retarder_thickness_um > 0 ? Need::Optional : Need::Required,
+                                   positive()).value_or(0);
+            if (f.has("retarder_material")) {
+                p.retarder_material = material_name(f, "retarder_material").value_or("");
+                const Material* m = library_.find(p.retarder_material);
+                if (m && m->symmetry != Symmetry::Uniaxial)
+                    f.error("retarder_material", "must be a uniaxial crystal (quartz, MgF2); " + m->name + " is not");
+            } else if (p.retarder_thickness_um > 0) {
+                f.error("retarder_thickness_um", "needs \"retarder_material\" (the birefringence comes from it)");
+            }
+            p.order = static_cast<int>(f.number("order", Need::Optional, between(0, 1000)).value_or(0));
+        }
+        if (polarizing) p.extinction_ratio = f.number("extinction_ratio", Need::Optional, at_least(1)).value_or(1000);
+        if (p.role == R::PolarizingCube)
+            p.reflects_left = f.choice("reflects", Need::Optional, {"left", "right"}).value_or("left") == "left";
+        f.finish(with_common({"role", "material", "thickness_mm", "fast_axis_deg", "design_nm", "retarder_material",
+                              "order", "retarder_thickness_um", "extinction_ratio", "reflects"}));
         return p;
     }
     if (type == "retroreflector") {
@@ -388,10 +430,10 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
             }
         }
         s.measured_zero_mm = f.number("measured_zero_mm", Need::Optional);
-        for (const char* key : {"at_mm", "normal_deg", "aperture_mm"})
+        for (const char* key : {"at_mm", "normal_deg", "aperture_mm", "transmission"})
             if (f.has(key)) f.error(key, "a stage has no position of its own; it moves what it carries");
         f.finish({"id", "type", "carries", "axis_deg", "position_mm", "travel_mm",
-                  "measured_zero_mm", "at_mm", "normal_deg", "aperture_mm"});
+                  "measured_zero_mm", "at_mm", "normal_deg", "aperture_mm", "transmission"});
         return s;
     }
     if (type == "crystal") {
@@ -414,13 +456,16 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
             if (m && m->symmetry != Symmetry::Biaxial)
                 f.error("principal_plane", "only for biaxial crystals; " + m->name + " is not biaxial");
         }
+        c.damage = read_damage(f);
         f.finish(with_common({"material", "length_mm", "cut_deg", "phase_matching", "optic_axis",
-                              "principal_plane"}));
+                              "principal_plane", "damage_fluence_j_cm2", "damage_intensity_gw_cm2"}));
         return c;
     }
     if (type == "target") {
-        f.finish(kCommonKeys);
-        return Target{};
+        Target t;
+        t.damage = read_damage(f);
+        f.finish(with_common({"damage_fluence_j_cm2", "damage_intensity_gw_cm2"}));
+        return t;
     }
     f.finish(kCommonKeys);
     return Dump{};
@@ -451,6 +496,7 @@ void Reader::read_element(const json& v, const std::string& ptr, Layout& layout)
         e.at_mm = typed.point("at_mm", Need::Required).value_or(Vec2(0, 0));
         e.normal_deg = typed.number("normal_deg", Need::Optional).value_or(0);
         e.aperture_mm = typed.number("aperture_mm", Need::Optional, positive()).value_or(kDefaultAperture_mm);
+        e.transmission = typed.number("transmission", Need::Optional, between(0, 1)).value_or(1.0);
     }
     std::optional<ElementKind> kind = read_kind(*type, typed, ptr);
     if (!e.id.empty()) {

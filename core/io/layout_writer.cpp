@@ -43,7 +43,9 @@ ojson beam_json(const BeamSource& b) {
         case K::CircularLeft: j["polarization"] = "circular-left"; break;
         case K::CircularRight: j["polarization"] = "circular-right"; break;
     }
+    if (b.polarized_fraction != 1.0) j["polarized_fraction"] = num(b.polarized_fraction);
     if (b.power_mw > 0) j["power_mw"] = num(b.power_mw);
+    if (b.repetition_rate_khz > 0) j["repetition_rate_khz"] = num(b.repetition_rate_khz);
     return j;
 }
 
@@ -75,22 +77,32 @@ struct KindWriter {
     void operator()(const Mirror& m) const {
         if (m.radius_of_curvature_mm) j["radius_of_curvature_mm"] = num(*m.radius_of_curvature_mm);
         if (m.aim_at) j["aim_at"] = *m.aim_at;
+        if (m.retardance_deg != 0) j["retardance_deg"] = num(m.retardance_deg);
     }
     void operator()(const Dichroic& d) const {
         j["edge_nm"] = num(d.edge_nm);
         j["reflects"] = d.reflects_shorter ? "shorter" : "longer";
         j["substrate"] = {{"glass", d.substrate.material},
                           {"thickness_mm", num(d.substrate.thickness_mm)}};
+        if (d.retardance_deg != 0) j["retardance_deg"] = num(d.retardance_deg);
     }
     void operator()(const Plate& p) const {
         using R = Plate::Role;
         if (p.role != R::Window)
             j["role"] = p.role == R::HalfWave      ? "half-wave"
                         : p.role == R::QuarterWave ? "quarter-wave"
+                        : p.role == R::Polarizer   ? "polarizer"
                                                    : "polarizing-cube";
         j["material"] = p.slab.material;
         j["thickness_mm"] = num(p.slab.thickness_mm);
         if (p.fast_axis_deg != 0) j["fast_axis_deg"] = num(p.fast_axis_deg);
+        if (p.design_nm > 0) j["design_nm"] = num(p.design_nm);
+        if (!p.retarder_material.empty()) j["retarder_material"] = p.retarder_material;
+        if (p.order != 0) j["order"] = p.order;
+        if (p.retarder_thickness_um > 0) j["retarder_thickness_um"] = num(p.retarder_thickness_um);
+        if ((p.role == R::PolarizingCube || p.role == R::Polarizer) && p.extinction_ratio != 1000)
+            j["extinction_ratio"] = num(p.extinction_ratio);
+        if (p.role == R::PolarizingCube && !p.reflects_left) j["reflects"] = "right";
     }
     void operator()(const Retroreflector&) const {}
     void operator()(const Stage& s) const {
@@ -108,8 +120,13 @@ struct KindWriter {
         if (c.optic_axis_horizontal) j["optic_axis"] = "horizontal";
         if (c.principal_plane != PrincipalPlane::XY)
             j["principal_plane"] = c.principal_plane == PrincipalPlane::YZ ? "YZ" : "XZ";
+        damage(c.damage);
     }
-    void operator()(const Target&) const {}
+    void damage(const DamageThreshold& d) const {
+        if (d.fluence_j_cm2 > 0) j["damage_fluence_j_cm2"] = num(d.fluence_j_cm2);
+        if (d.intensity_gw_cm2 > 0) j["damage_intensity_gw_cm2"] = num(d.intensity_gw_cm2);
+    }
+    void operator()(const Target& t) const { damage(t.damage); }
     void operator()(const Dump&) const {}
 };
 
@@ -122,6 +139,7 @@ ojson element_json(const Element& e) {
         const auto* mirror = std::get_if<Mirror>(&e.kind);
         if (e.normal_deg != 0 && !(mirror && mirror->aim_at)) j["normal_deg"] = num(e.normal_deg);
         if (e.aperture_mm != kDefaultAperture_mm) j["aperture_mm"] = num(e.aperture_mm);
+        if (e.transmission != 1.0) j["transmission"] = num(e.transmission);
     }
     std::visit(KindWriter{j}, e.kind);
     return j;

@@ -64,7 +64,9 @@ struct BeamSource {
     double pulse_fwhm_fs = 0.0;   // 0: not given (no temporal overlap)
     double emit_time_fs = 0.0;
     Polarization polarization;
+    double polarized_fraction = 1.0;  // degree of polarization; the rest is unpolarized
     double power_mw = 0.0;        // 0: not given
+    double repetition_rate_khz = 0.0;  // 0: not given (no pulse energy or peak intensity)
     bool operator==(const BeamSource&) const = default;
 };
 
@@ -98,6 +100,7 @@ struct Lens {
 struct Mirror {
     std::optional<double> radius_of_curvature_mm;  // absent: flat
     std::optional<std::string> aim_at;             // element id; replaces normal_deg
+    double retardance_deg = 0.0;  // phase of s (vertical) relative to p on reflection (coating)
     bool operator==(const Mirror&) const = default;
 };
 
@@ -111,14 +114,29 @@ struct Dichroic {
     double edge_nm = 0.0;
     bool reflects_shorter = true;  // "reflects": "shorter" | "longer"
     Slab substrate;
+    double retardance_deg = 0.0;  // phase of s relative to p on reflection (coating)
     bool operator==(const Dichroic&) const = default;
 };
 
+// A plate: a slab of `slab.material` for the trace, and in its role a retarder or a polarizer.
+// Angles of axes are measured looking along the beam from the table plane (horizontal, "H")
+// towards the vertical ("V") (polarization/polarization_model.hpp).
 struct Plate {
-    enum class Role { Window, HalfWave, QuarterWave, PolarizingCube };
+    enum class Role { Window, HalfWave, QuarterWave, PolarizingCube, Polarizer };
     Role role = Role::Window;
     Slab slab;
-    double fast_axis_deg = 0.0;  // wave plates
+    double fast_axis_deg = 0.0;  // wave plates: the fast axis; polarizers: the transmission axis
+    // Wave plates: the nominal retardance (½ or ¼ wave, plus `order` whole waves) holds at
+    // design_nm. With a birefringent retarder_material (quartz, MgF2) the retardance at another
+    // wavelength follows from its published n_e − n_o; without one (an ideal plate) it scales as
+    // design_nm/λ. retarder_thickness_um > 0 gives the birefringent thickness itself instead.
+    double design_nm = 0.0;
+    std::string retarder_material;
+    int order = 0;
+    double retarder_thickness_um = 0.0;
+    // Polarizing cubes (transmit H, reflect V) and polarizers: power extinction ratio.
+    double extinction_ratio = 1000.0;
+    bool reflects_left = true;  // cubes: the reflected beam leaves 90° to the left of travel
     bool operator==(const Plate&) const = default;
 };
 
@@ -135,6 +153,13 @@ struct Stage {
     bool operator==(const Stage&) const = default;
 };
 
+// A damage threshold of a crystal or sample, as given by its maker (either or both).
+struct DamageThreshold {
+    double fluence_j_cm2 = 0.0;       // 0: not given
+    double intensity_gw_cm2 = 0.0;    // 0: not given
+    bool operator==(const DamageThreshold&) const = default;
+};
+
 struct Crystal {
     enum class PhaseMatching { TypeI, TypeII };
     std::string material;
@@ -148,10 +173,12 @@ struct Crystal {
     // it (φ from X in XY, θ from Z in YZ and XZ). The plane holding the tuning angle is set on
     // the table like a uniaxial crystal's optic-axis plane (optic_axis).
     PrincipalPlane principal_plane = PrincipalPlane::XY;
+    DamageThreshold damage;
     bool operator==(const Crystal&) const = default;
 };
 
 struct Target {
+    DamageThreshold damage;
     bool operator==(const Target&) const = default;
 };
 struct Dump {
@@ -166,6 +193,7 @@ struct Element {
     Vec2 at_mm{0, 0};
     double normal_deg = 0.0;
     double aperture_mm = kDefaultAperture_mm;
+    double transmission = 1.0;  // fraction of the power it passes on (coating losses); 1: lossless
     ElementKind kind;
     bool operator==(const Element&) const = default;
 };

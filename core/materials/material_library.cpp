@@ -83,6 +83,26 @@ std::vector<Material> published_sets() {
                          sellmeier_squared_poles({1.151075, 0.21803, 0.656},
                                                  {0.007142, 0.02259, 263}),
                          188, 5200));
+    // Crystalline quartz (α-SiO2), positive uniaxial, for wave plates. G. Ghosh, Opt. Commun. 163,
+    // 95 (1999): n² = A + B λ²/(λ² − C) + D λ²/(λ² − E), λ in µm, C and E in µm², 0.198–2.0531 µm
+    // (coefficients via the refractiveindex.info database, Ghosh-o/-e). A second set:
+    // T. Radhakrishnan, Proc. Indian Acad. Sci. A 31, 22 (1951), 18 °C, 0.18–3 µm.
+    m.push_back(uniaxial("quartz:Ghosh1999", "Ghosh, Opt. Commun. 163, 95 (1999)",
+                         sellmeier_squared_poles({1.07044083, 1.10202242}, {1.00585997e-2, 100}, 0.28604141),
+                         sellmeier_squared_poles({1.09509924, 1.15662475}, {1.02101864e-2, 100}, 0.28851804),
+                         198, 2053));
+    m.push_back(uniaxial("quartz:Radhakrishnan1951", "Radhakrishnan, Proc. Indian Acad. Sci. A 31, 22 (1951)",
+                         sellmeier_resonances({0.663044, 0.517852, 0.175912, 0.565380, 1.675299},
+                                              {0.060, 0.106, 0.119, 8.844, 20.742}),
+                         sellmeier_resonances({0.665721, 0.503511, 0.214792, 0.539173, 1.807613},
+                                              {0.060, 0.106, 0.119, 8.792, 19.70}),
+                         180, 3000));
+    // MgF2, positive uniaxial, for wave plates. M. J. Dodge, Appl. Opt. 23, 1980 (1984), 19 °C,
+    // 0.2–7.0 µm: n² − 1 = Σ B λ²/(λ² − λ_i²), λ_i in µm.
+    m.push_back(uniaxial("MgF2:Dodge1984", "Dodge, Appl. Opt. 23, 1980 (1984)",
+                         sellmeier_resonances({0.48755108, 0.39875031, 2.3120353}, {0.04338408, 0.09461442, 23.793604}),
+                         sellmeier_resonances({0.41344023, 0.50497499, 2.4904862}, {0.03684262, 0.09076162, 23.771995}),
+                         200, 7000));
     // LiB3O5, biaxial; principal indices α < β < γ as x, y, z. C. Chen et al., JOSA B 6, 616
     // (1989), fit by Hanson & Dick, Opt. Lett. 16, 205 (1991); 0.2894–1.064 µm.
     m.push_back({"LBO:Chen1989", "LBO", "Chen et al., JOSA B 6, 616 (1989); Hanson & Dick, Opt. Lett. 16, 205 (1991)",
@@ -109,7 +129,8 @@ const MaterialLibrary& MaterialLibrary::builtin() {
         lib.materials_ = published_sets();
         lib.aliases_ = {{"CaF2", "CaF2:Malitson1963"}, {"air", "air:Ciddor1996"},
                         {"BBO", "BBO:Kato1986"},       {"LBO", "LBO:Chen1989"},
-                        {"KTP", "KTP:Kato2002"}};
+                        {"KTP", "KTP:Kato2002"},       {"quartz", "quartz:Ghosh1999"},
+                        {"MgF2", "MgF2:Dodge1984"}};
         return lib;
     }();
     return library;

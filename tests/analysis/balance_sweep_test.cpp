@@ -84,13 +84,13 @@ TEST_CASE("a sweep of an unknown id or field is refused with a located message",
     };
     CHECK(message("Q", "at_mm[0]") == "sfg.json: error: no beam or element has id \"Q\"");
     CHECK(message("X", "focal_length_mm") ==
-          "sfg.json: error: /elements/15/focal_length_mm: \"X\" has no \"focal_length_mm\" in the layout (give it a value first)");
-    CHECK(message("X", "material") == "sfg.json: error: /elements/15/material: \"material\" is not a number");
+          "sfg.json: error: /elements/17/focal_length_mm: \"X\" has no \"focal_length_mm\" in the layout (give it a value first)");
+    CHECK(message("X", "material") == "sfg.json: error: /elements/17/material: \"material\" is not a number");
     CHECK(message("X", "at_mm[x]") == "sfg.json: error: expected FIELD or FIELD[INDEX] with a whole number INDEX, found \"at_mm[x]\"");
-    CHECK(message("X", "at_mm[2]") == "sfg.json: error: /elements/15/at_mm: no element [2] in \"at_mm\"");
+    CHECK(message("X", "at_mm[2]") == "sfg.json: error: /elements/17/at_mm: no element [2] in \"at_mm\"");
     // A value the layout refuses stops the sweep with the reader's message.
     const rv::SweepResult bad = rv::sweep_field(l, "X", "length_mm", -1, 1, 2);
     REQUIRE(!bad.diagnostics.empty());
     CHECK(rv::format_diagnostic(bad.diagnostics[0], "sfg.json") ==
-          "sfg.json: error: /elements/15/length_mm: must be positive (got -1) (at length_mm = -1.000000)");
+          "sfg.json: error: /elements/17/length_mm: must be positive (got -1) (at length_mm = -1.000000)");
 }

@@ -15,8 +15,11 @@ import tempfile
 # optional_number); a null anywhere else is a number the report could not give (NaN).
 # delta_k_l and sinc2_now are null when a wave lies where the crystal's index formula has no real
 # value (phase_matching.outside_index_data says so).
+# Power, pulse and intensity figures are null when the file gives no power_mw (or no repetition
+# rate or pulse length).
 MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offset_fs",
-               "walk_apart_mm", "delta_k_l", "sinc2_now"}
+               "walk_apart_mm", "delta_k_l", "sinc2_now", "source_mw", "power_mw", "useful_mw",
+               "peak_intensity_w_cm2", "peak_fluence_j_cm2", "peak_intensity_at_waist_w_cm2"}
 
 
 def reject_constant(name):

@@ -15,6 +15,8 @@
 
 #include <cmath>
 #include <cstdint>
+#include <functional>
+#include <optional>
 #include <nlohmann/json.hpp>
 #include <random>
 #include <string>
@@ -120,10 +122,25 @@ inline void add_arm(Random& rng, const std::string& prefix, Point start, double 
                 e["normal_deg"] = axis_deg + rng.uniform(-35, 35);
                 e["material"] = rng.pick<std::string>({"N-BK7", "fused-silica", "CaF2", "N-SF11"});
                 e["thickness_mm"] = rng.uniform(0.3, 12);
-                if (rng.chance(0.4))
-                    e["role"] =
-                        rng.pick<std::string>({"half-wave", "quarter-wave", "polarizing-cube"});
-                if (rng.chance(0.3)) e["fast_axis_deg"] = rng.uniform(0, 90);
+                std::string role;
+                if (rng.chance(0.4)) role = rng.pick<std::string>({"half-wave", "quarter-wave", "polarizing-cube"});
+                std::optional<double> fast_axis_deg;
+                if (rng.chance(0.3)) fast_axis_deg = rng.uniform(0, 90);
+                // The polarization fields from a generator of their own (seeded by the id), so
+                // that the geometry drawn from `rng` stays what it was.
+                Random extra(std::hash<std::string>{}(e["id"].get<std::string>()));
+                if (role == "polarizing-cube" && extra.chance(0.3)) role = "polarizer";
+                if (!role.empty()) e["role"] = role;
+                if (role == "half-wave" || role == "quarter-wave") {
+                    e["design_nm"] = extra.uniform(400, 1600);
+                    if (extra.chance(0.5)) e["retarder_material"] = extra.pick<std::string>({"quartz", "MgF2"});
+                    if (extra.chance(0.3)) e["order"] = static_cast<int>(extra.uniform(0, 8));
+                } else if (!role.empty()) {
+                    e["extinction_ratio"] = extra.uniform(10, 1e5);
+                    if (role == "polarizing-cube" && extra.chance(0.5)) e["reflects"] = "right";
+                }
+                if (fast_axis_deg && role != "polarizing-cube" && !role.empty()) e["fast_axis_deg"] = *fast_axis_deg;
+                if (extra.chance(0.2)) e["transmission"] = extra.uniform(0.5, 1);
             }
             elements.push_back(e);
         }

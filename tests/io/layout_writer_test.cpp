@@ -52,12 +52,14 @@ TEST_CASE("non-default values survive a round trip", "[writer]") {
     const rv::LayoutReadResult r = rv::read_layout(R"({"format": "rendezvous-layout", "version": 1, "name": "all keys",
       "table": {"size_mm": [600, 450], "grid_mm": 25.4},
       "materials": [{"id": "my-glass", "sellmeier": {"b": [1.03961212, 0.231792344], "c_um2": [0.00600069867, 0.0200179144]}, "range_nm": [400, 1600], "source": "invented for a test"}],
-      "beams": [{"id": "a", "wavelength_nm": 532.1, "start_mm": [0, 10], "direction_deg": 0.5, "waist_um": [400, 420], "waist_at_mm": [-10, -12], "m2": [1.1, 1.3], "pulse_fwhm_fs": 80, "emit_time_fs": -15, "polarization": "linear", "polarization_angle_deg": 30, "power_mw": 12.5}],
-      "elements": [{"id": "W", "type": "plate", "at_mm": [50, 10], "normal_deg": 10, "aperture_mm": 12.7, "role": "quarter-wave", "material": "my-glass", "thickness_mm": 2, "fast_axis_deg": 45},
+      "beams": [{"id": "a", "wavelength_nm": 532.1, "start_mm": [0, 10], "direction_deg": 0.5, "waist_um": [400, 420], "waist_at_mm": [-10, -12], "m2": [1.1, 1.3], "pulse_fwhm_fs": 80, "emit_time_fs": -15, "polarization": "linear", "polarization_angle_deg": 30, "polarized_fraction": 0.9, "power_mw": 12.5, "repetition_rate_khz": 80000}],
+      "elements": [{"id": "W", "type": "plate", "at_mm": [50, 10], "normal_deg": 10, "aperture_mm": 12.7, "role": "quarter-wave", "material": "my-glass", "thickness_mm": 2, "fast_axis_deg": 45, "design_nm": 800, "retarder_material": "quartz", "order": 3, "transmission": 0.98},
+                   {"id": "C", "type": "plate", "at_mm": [70, 10], "role": "polarizing-cube", "material": "N-BK7", "thickness_mm": 10, "extinction_ratio": 500, "reflects": "right"},
+                   {"id": "Z", "type": "plate", "at_mm": [80, 10], "role": "polarizer", "material": "N-BK7", "thickness_mm": 2, "fast_axis_deg": 30},
                    {"id": "L", "type": "lens", "at_mm": [100, 10], "front_radius_mm": 51.5, "back_radius_mm": -200, "center_thickness_mm": 5, "glass": "N-SF11"},
-                   {"id": "M", "type": "mirror", "at_mm": [150, 10], "radius_of_curvature_mm": 400, "aim_at": "X"},
+                   {"id": "M", "type": "mirror", "at_mm": [150, 10], "radius_of_curvature_mm": 400, "aim_at": "X", "retardance_deg": 12},
                    {"id": "S", "type": "stage", "carries": ["M"], "axis_deg": 180, "position_mm": 2.5, "travel_mm": [-5, 5]},
-                   {"id": "X", "type": "crystal", "at_mm": [150, 100], "normal_deg": 90, "material": "BBO:Eimerl1987", "length_mm": 2, "cut_deg": 29.2, "phase_matching": "type-II", "optic_axis": "horizontal"}],
+                   {"id": "X", "type": "crystal", "at_mm": [150, 100], "normal_deg": 90, "material": "BBO:Eimerl1987", "length_mm": 2, "cut_deg": 29.2, "phase_matching": "type-II", "optic_axis": "horizontal", "damage_fluence_j_cm2": 0.5, "damage_intensity_gw_cm2": 40}],
       "target": "X", "goals": {"waist_um": {"a": 30}}})");
     REQUIRE(r.diagnostics.empty());
     REQUIRE(r.layout);

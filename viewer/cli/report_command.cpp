@@ -48,6 +48,24 @@ json phase_json(const PhaseMatchingReport& p) {
             {"polarizations_suit", p.polarizations_suit}, {"polarization_note", p.polarization_note}};
 }
 
+json polarization_json(const PolarizationState& s) {
+    return {{"state", describe_text(s)}, {"horizontal_fraction", s.h}, {"vertical_fraction", s.v},
+            {"degree", s.degree}, {"azimuth_deg", s.azimuth_deg}, {"ellipticity_deg", s.ellipticity_deg}};
+}
+
+json power_json(const Layout& layout, const ReportBeam& b) {
+    json losses = json::array();
+    for (const PowerLoss& l : b.power.losses)
+        losses.push_back({{"element", l.element}, {"what", l.what}, {"fraction", l.fraction}, {"goes_to", l.goes_to}});
+    json plates = json::array();
+    for (const WavePlatePass& p : b.power.plates)
+        plates.push_back({{"id", p.id}, {"retardance_waves", p.retardance_waves},
+                          {"fast_axis_deg", p.fast_axis_deg}});
+    const double source_mw = layout.beams[b.path.beam].power_mw;
+    return {{"source_mw", source_mw > 0 ? json(source_mw) : json(nullptr)}, {"losses", losses},
+            {"left_at_end_fraction", b.power.end_fraction}, {"wave_plates", plates}};
+}
+
 json to_json(const Layout& layout, const RendezvousReport& r) {
     json beams = json::object();
     for (const ReportBeam& b : r.beams) {
@@ -73,8 +91,15 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                 {"confocal_mm", planes(b.confocal_tangential_mm, b.confocal_sagittal_mm)},
                 {"hit_mm", {t.hit_mm.x(), t.hit_mm.y()}},
                 {"angle_deg", b.crossing_angle_deg},
-                {"index", t.index}};
+                {"index", t.index},
+                {"power_fraction", b.power.at_target[0]},
+                {"power_mw", optional_number(b.target_power_mw)},
+                {"peak_intensity_w_cm2", b.pulse_at_target ? json(b.pulse_at_target->peak_intensity_w_cm2) : json(nullptr)},
+                {"peak_fluence_j_cm2", b.pulse_at_target ? json(b.pulse_at_target->peak_fluence_j_cm2) : json(nullptr)},
+                {"peak_intensity_at_waist_w_cm2", b.pulse_at_waist ? json(b.pulse_at_waist->peak_intensity_w_cm2) : json(nullptr)},
+                {"polarization", polarization_json(b.at_target_polarization)}};
         }
+        beam["power"] = power_json(layout, b);
         beams[b.id] = beam;
     }
     json out = {{"layout", r.layout_name}, {"target", r.target},
@@ -99,6 +124,13 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                         {"measured_zero_mm", optional_number(s.measured_zero_mm)},
                         {"emission_offset_fs", optional_number(s.emission_offset_fs)}};
     }
+    json advice = json::array();
+    for (const PolarizationAdvice& a : r.polarization)
+        advice.push_back({{"beam", a.beam}, {"needs", a.needs}, {"useful_fraction", a.useful_fraction},
+                          {"useful_mw", optional_number(a.useful_mw)}, {"plate", a.plate},
+                          {"plate_now_deg", a.plate_now_deg}, {"plate_best_deg", a.plate_best_deg},
+                          {"useful_fraction_best", a.useful_fraction_best}, {"action", a.action}});
+    out["polarization"] = advice;
     if (!r.phase_matching.empty()) {
         out["phase_matching"] = phase_json(r.phase_matching.front());
         json all = json::array();
@@ -122,6 +154,36 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
 }
 
 const char* mark(const VerdictLine& l) { return l.met ? "met" : "NOT MET"; }
+
+std::string percent(double fraction) { return fmt("%.1f", 100 * fraction) + " %"; }
+
+void print_power(const RendezvousReport& r, std::ostream& out) {
+    out << "\nPower and polarization at the target (estimates for alignment and damage, not exposure limits)\n";
+    for (const ReportBeam& b : r.beams) {
+        if (!b.power.reached) continue;
+        out << "  " << b.id << ": " << percent(b.power.at_target[0]) << " of the source";
+        if (b.target_power_mw) out << " = " << fmt("%.1f", *b.target_power_mw) << " mW";
+        out << ", " << describe_text(b.at_target_polarization);
+        if (b.pulse_at_target)
+            out << "; " << fmt("%.3g", b.pulse_at_target->energy_uj) << " µJ, peak "
+                << fmt("%.3g", b.pulse_at_target->peak_intensity_w_cm2 * 1e-9) << " GW/cm² and "
+                << fmt("%.3g", b.pulse_at_target->peak_fluence_j_cm2 * 1e3) << " mJ/cm² at the target plane"
+                << (b.pulse_at_waist ? ", " + fmt("%.3g", b.pulse_at_waist->peak_intensity_w_cm2 * 1e-9) + " GW/cm² at its waist" : "");
+        out << "\n";
+        for (const WavePlatePass& p : b.power.plates)
+            out << "    " << p.id << ": retardance " << fmt("%.4f", p.retardance_waves) << " waves at "
+                << fmt("%.0f", b.wavelength_nm) << " nm, fast axis " << fmt("%.1f", p.fast_axis_deg) << "°\n";
+        for (const PowerLoss& l : b.power.losses)
+            if (l.fraction >= 5e-4)  // the JSON lists every loss; the text those of 0.05 % or more
+            out << "    " << l.element << ": " << percent(l.fraction) << " " << l.what
+                << (l.goes_to.empty() ? "" : ", " + l.goes_to) << "\n";
+    }
+    for (const PolarizationAdvice& a : r.polarization) {
+        out << "  " << a.beam << " needs " << a.needs << ": " << percent(a.useful_fraction) << " of it is";
+        if (a.useful_mw) out << " (" << fmt("%.1f", *a.useful_mw) << " mW)";
+        out << (a.action.empty() ? "" : "; " + a.action) << "\n";
+    }
+}
 
 void print_text(const RendezvousReport& r, std::ostream& out) {
     out << "Rendezvous report: " << r.layout_name << "\nTarget: " << r.target << "\n\n";
@@ -148,6 +210,7 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
                           t.sagittal.rayleigh_mm);
         out << line;
     }
+    print_power(r, out);
     if (r.mismatch) {
         const Mismatch& m = *r.mismatch;
         out << "\nMismatch (" << r.beams[1].id << " relative to " << r.beams[0].id << ")\n"
