@@ -163,6 +163,9 @@ ToleranceReport analyse_tolerances(const Layout& layout, const MaterialLibrary& 
     std::vector<Figures> results(samples);
     const int n_threads = std::max(1, threads);
     std::vector<std::thread> pool;
+    std::vector<size_t> touched;  // each perturbed element once
+    for (const Perturbation& p : perts)
+        if (std::find(touched.begin(), touched.end(), p.element) == touched.end()) touched.push_back(p.element);
     for (int t = 0; t < n_threads; ++t)
         pool.emplace_back([&, t] {
             // One working copy and one trace cache per thread; each sample starts from the
@@ -172,7 +175,13 @@ ToleranceReport analyse_tolerances(const Layout& layout, const MaterialLibrary& 
             TraceCache cache;
             for (size_t k = static_cast<size_t>(t); k < samples; k += static_cast<size_t>(n_threads)) {
                 SplitMix64 rng{seed ^ (0x5851f42d4c957f2dULL * (k + 1))};
-                for (const Perturbation& p : perts) l.elements[p.element] = base.elements[p.element];
+                for (size_t i : touched) {
+                    Element& e = l.elements[i];
+                    e.at_mm = base.elements[i].at_mm;
+                    e.normal_deg = base.elements[i].normal_deg;
+                    if (!std::holds_alternative<Mirror>(e.kind) && !std::holds_alternative<Plate>(e.kind))
+                        e.kind = base.elements[i].kind;  // focal lengths and stage positions
+                }
                 for (const Perturbation& p : perts) apply_perturbation(l, p, p.tolerance * rng.uniform_symmetric());
                 results[k] = evaluate_figures(l, library, &cache);
             }

@@ -207,9 +207,9 @@ double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
 class BeamTracer {
 public:
     BeamTracer(const Layout& layout, const MaterialLibrary& library, std::vector<Placed>& placed,
-               size_t beam, TraceCache& cache)
+               size_t beam, TraceCache& cache, bool record)
         : layout_(layout), placed_(placed), beam_(layout.beams[beam]), cache_(cache),
-          memo_(cache.beams[beam]) {
+          memo_(cache.beams[beam]), record_(record) {
         path_.beam = beam;
         path_.hits.reserve(24);
         path_.segments.reserve(24);
@@ -257,6 +257,7 @@ private:
     Path path_;
     std::vector<std::pair<Vec2, Vec2>> steps_;  // this trace's steps (start, end)
     bool replaying_ = false;  // every step so far lay within the recorded steps' margin
+    bool record_ = true;      // keep the steps for a later trace (only with a caller's cache)
     double moved_mm_ = 0;
     double air_group_index_ = 1.0;
     std::optional<size_t> target_;
@@ -617,7 +618,7 @@ Path BeamTracer::run() {
     if (!path_.target_hit)
         finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p, 0,
                 "never reaches the target " + layout_.target);
-    if (!replaying_ || steps_.size() != memo_.steps.size()) record_steps();
+    if (record_ && (!replaying_ || steps_.size() != memo_.steps.size())) record_steps();
     return std::move(path_);
 }
 
@@ -651,7 +652,7 @@ std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& libr
     std::vector<Placed> placed = place(layout, library, c);
     std::vector<Path> paths;
     for (size_t b = 0; b < layout.beams.size(); ++b)
-        paths.push_back(BeamTracer(layout, library, placed, b, c).run());
+        paths.push_back(BeamTracer(layout, library, placed, b, c, cache != nullptr).run());
     return paths;
 }
 
