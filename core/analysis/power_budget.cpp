@@ -12,15 +12,23 @@ namespace {
 
 bool entering_slab(const TraceHit& h) { return h.interaction == Interaction::Refract && h.index_before == 1.0; }
 
+struct Followed {
+    std::string where;
+    bool leaves_table = false;
+    std::vector<Vec2> points_mm;
+};
+
 // Where a beam leaving `from` along `direction` ends: traced as a beam of its own.
-std::pair<std::string, bool> follow(const Layout& layout, const MaterialLibrary& library, size_t beam,
-                                    const Vec2& from, const Vec2& direction) {
+Followed follow(const Layout& layout, const MaterialLibrary& library, size_t beam, const Vec2& from,
+                const Vec2& direction) {
     Layout l = layout;
     BeamSource b = layout.beams[beam];
     b.start_mm = from;
     b.direction_deg = rad_to_deg(std::atan2(direction.y(), direction.x()));
     l.beams = {b};
     const Path p = trace_layout(l, library).front();
+    std::vector<Vec2> points{from};
+    for (const TraceSegment& s : p.segments) points.push_back(s.to_mm);
     for (const Finding& f : p.findings)
         if (f.kind == Finding::Kind::LeftTable) {
             std::ostringstream s;
@@ -28,15 +36,15 @@ std::pair<std::string, bool> follow(const Layout& layout, const MaterialLibrary&
             s.precision(0);
             s << "leaves the table at (" << f.where_mm.x() << ", " << f.where_mm.y() << ") mm";
             if (!p.hits.empty()) s << " after " << l.elements[p.hits.back().element].id;
-            return {s.str(), true};
+            return {s.str(), true, points};
         }
     if (!p.hits.empty()) {
         const Element& last = l.elements[p.hits.back().element];
         return {std::string(std::holds_alternative<Dump>(last.kind) ? "into " : "stops at ") + last.id +
                     (std::holds_alternative<Dump>(last.kind) ? " (dump)" : ""),
-                false};
+                false, points};
     }
-    return {"goes nowhere traced", false};
+    return {"goes nowhere traced", false, points};
 }
 
 struct Options {
@@ -51,7 +59,7 @@ BeamPower run(const Layout& layout, const MaterialLibrary& library, const Path& 
     Stokes s = source_stokes(src.polarization, src.polarized_fraction);
     const double nm = src.wavelength_nm;
     auto lose = [&](const std::string& element, const std::string& what, double fraction) {
-        if (fraction > 1e-12) out.losses.push_back({element, what, fraction, "", false});
+        if (fraction > 1e-12) out.losses.push_back({element, what, fraction, "", false, {}});
     };
     for (size_t i = 0; i < path.hits.size(); ++i) {
         const TraceHit& h = path.hits[i];
@@ -84,11 +92,12 @@ BeamPower run(const Layout& layout, const MaterialLibrary& library, const Path& 
                     const Vec2 centre = i + 1 < path.hits.size() && path.hits[i + 1].element == h.element
                                             ? Vec2((h.point_mm + path.hits[i + 1].point_mm) / 2)
                                             : h.point_mm;
-                    PowerLoss loss{e.id, "reflected by the cube", reflected[0] * e.transmission, "", false};
+                    PowerLoss loss{e.id, "reflected by the cube", reflected[0] * e.transmission, "", false, {}};
                     if (options.follow_branches) {
-                        const auto [where, stray] = follow(layout, library, path.beam, centre + 1e-3 * side, side);
-                        loss.goes_to = where;
-                        loss.leaves_table = stray;
+                        Followed f = follow(layout, library, path.beam, centre + 1e-3 * side, side);
+                        loss.goes_to = f.where;
+                        loss.leaves_table = f.leaves_table;
+                        loss.branch_mm = std::move(f.points_mm);
                     }
                     if (loss.fraction > 1e-12) out.losses.push_back(loss);
                 }

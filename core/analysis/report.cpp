@@ -313,6 +313,14 @@ std::string invisible_kind(double nm) {
 
 }  // namespace
 
+void add_figure(Verdict& v, std::string name, double value, double limit, bool is_minimum, std::string definition) {
+    VerdictFigure f{std::move(name), value, limit, is_minimum, std::move(definition)};
+    using S = VerdictFigure::State;
+    if (is_minimum) f.state = value >= limit ? S::Met : value >= limit / 1.5 ? S::Near : S::NotMet;
+    else f.state = value <= limit ? S::Met : value <= 1.5 * limit ? S::Near : S::NotMet;
+    v.figures.push_back(std::move(f));
+}
+
 // Polarization advice for one beam at the crystal (see PolarizationAdvice): the wave plate to
 // turn is the last one on the path after the last polarizer or cube before the target (turning
 // it changes the polarization without changing the power), its best angle found by a 0.5° scan
@@ -499,6 +507,12 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         const double lateral = mm.lateral_um / wsum;
         v.space.met = frac <= t.max_waist_offset_rayleigh && ratio <= t.max_waist_ratio &&
                       lateral <= t.max_lateral_offset_radius && goal_misses.empty();
+        add_figure(v, "waist offset / z_R", frac, t.max_waist_offset_rayleigh, false,
+                   "distance between the two waists along the beam, over the shorter Rayleigh range at the target");
+        add_figure(v, "waist ratio", ratio, t.max_waist_ratio, false, "larger over smaller waist radius (mean of the planes)");
+        add_figure(v, "lateral / radius", lateral, t.max_lateral_offset_radius, false,
+                   "distance between the chief-ray crossings of the target plane over sqrt(w1² + w2²) "
+                   "(0.23 keeps 90 % of the overlap)");
         v.space.summary = "waists " + fmt("%.3f", std::abs(mm.waist_offset_mm)) + " mm apart = " + fmt("%.2f", frac) +
                           " of the shorter Rayleigh range; waist ratio " + fmt("%.3f", ratio) + "; chief rays " +
                           fmt("%.1f", mm.lateral_um) + " µm apart";
@@ -533,6 +547,8 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         const double xcorr = std::hypot(t1, t2);
         const double d = r.mismatch->delay_fs;
         v.time.met = std::abs(d) <= t.max_delay_xcorr * xcorr;
+        add_figure(v, "delay / cross-correlation", std::abs(d) / xcorr, t.max_delay_xcorr, false,
+                   "|arrival of beam 1 − beam 2| over sqrt(τ1² + τ2²), the FWHM of the two pulses' cross-correlation");
         v.time.summary = "delay " + fmt("%+.1f", d) + " fs = " + fmt("%.2f", std::abs(d) / xcorr) +
                          " of the cross-correlation width (" + fmt("%.0f", xcorr) + " fs)";
         if (!v.time.met) {
@@ -560,6 +576,9 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
         v.phase.met = p.phase_matchable && p.sinc2_now >= t.min_phase_factor && p.polarizations_suit;
+        if (p.outside_index_data.empty())
+            add_figure(v, "phase factor sinc²", p.sinc2_now, t.min_phase_factor, true,
+                       "sinc²(Δk·L/2) of the first process with the crystal as it is (1 = phase-matched)");
         if (!p.outside_index_data.empty()) {
             v.phase.summary = p.process + ": " + p.outside_index_data;
             v.phase.action = "choose a crystal that is transparent at these wavelengths";

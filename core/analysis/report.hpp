@@ -118,8 +118,19 @@ struct VerdictLine {
     std::string action;   // what to do ("" when met)
 };
 
+// One figure behind the verdict with its limit (goals.verdict): met within the limit, near
+// within 1.5 × the limit (or, for a minimum, above limit/1.5), not met beyond.
+struct VerdictFigure {
+    std::string name;        // "waist offset / z_R" …
+    double value = 0, limit = 0;
+    bool is_minimum = false; // the value must be at least the limit (sinc²)
+    std::string definition;  // one sentence, for a tooltip
+    enum class State { Met, Near, NotMet } state = State::NotMet;
+};
+
 struct Verdict {
     VerdictLine space, time, phase;
+    std::vector<VerdictFigure> figures;
 };
 
 struct ReportWarning {

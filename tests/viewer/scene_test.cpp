@@ -89,8 +89,9 @@ TEST_CASE("the scene labels every optic and draws every beam", "[scene]") {
         CAPTURE(b.id);
         CHECK(rays >= 1);
     }
-    REQUIRE(d.scene.legend.size() == 3);
-    CHECK(d.scene.legend[2].text == "444 nm generated (SFG of pump + signal)");
+    REQUIRE(d.scene.legend.size() == 4);
+    CHECK(d.scene.legend[2].text.rfind("polarization:", 0) == 0);
+    CHECK(d.scene.legend[3].text == "444 nm generated (SFG of pump + signal)");
     CHECK(d.scene.holes_mm.size() == 36 * 24);  // 900 × 600 mm on a 25 mm grid
 }
 
@@ -127,4 +128,25 @@ TEST_CASE("the SVG opens in a real renderer and shows the beams", "[render][svg]
     CHECK(count_colour(pixels, w, h, rv::scene::beam_style(1030).colour, 12) > 30);
     stbi_image_free(pixels);
     std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("the scene marks the polarization and draws the beams a cube reflects", "[scene][polarization]") {
+    // The demo's cubes reflect part of each beam into a dump (drawn thinner), and each beam gets
+    // a polarization mark after its half-wave plate and its cube; after a cube the light is
+    // horizontal: a bar across the beam and no dot.
+    const Demo d = demo();
+    size_t branches = 0, bars = 0;
+    auto beam_coloured = [&](const rv::scene::Colour& c) {
+        for (const rv::ReportBeam& b : d.report.beams) {
+            const rv::scene::Colour bc = rv::scene::beam_style(b.wavelength_nm).colour;
+            if (bc.r == c.r && bc.g == c.g && bc.b == c.b) return true;
+        }
+        return false;
+    };
+    for (const rv::scene::Polyline& p : d.scene.shapes) {
+        branches += p.dashed && p.width_mm == 0.4 && beam_coloured(p.colour);
+        bars += !p.dashed && p.width_mm == 1.0 && p.points_mm.size() == 2 && p.colour.r == 60;
+    }
+    CHECK(branches == 2);
+    CHECK(bars >= 4);  // after each source, plate and cube, and before the target, for two beams
 }

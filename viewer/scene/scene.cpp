@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "polarization/polarization_model.hpp"
 #include "trace/poses.hpp"
 #include "units/constants.hpp"
 
@@ -121,6 +122,49 @@ void add_envelope(Scene& s, const ReportBeam& b, Colour colour, double exaggerat
     }
 }
 
+// A small mark of the polarization at a point of a beam seen from above: a bar across the beam
+// for the part in the table plane, a dot for the vertical part, a ring for circular light.
+void add_glyph(Scene& s, const Vec2& at, const Vec2& direction, const Stokes& stokes) {
+    const PolarizationState p = describe(stokes);
+    if (!(p.power > 1e-6)) return;
+    const Colour c{60, 60, 70, 255};
+    if (p.degree < 0.05 || std::abs(p.ellipticity_deg) > 20) {
+        s.shapes.push_back(circle(at, 4.0, c, 0.6));
+        return;
+    }
+    const double psi = deg_to_rad(p.azimuth_deg);
+    const Vec2 across = perpendicular(direction);
+    if (std::abs(std::cos(psi)) > 0.15) {
+        const double h = 8.0 * std::abs(std::cos(psi));
+        s.shapes.push_back(line({at - h * across, at + h * across}, c, 1.0));
+    }
+    if (std::abs(std::sin(psi)) > 0.15) {
+        Polyline dot = circle(at, 2.5 * std::abs(std::sin(psi)), c, 0.4);
+        dot.filled = true;
+        s.shapes.push_back(dot);
+    }
+}
+
+// Glyphs after the start, after every wave plate, polarizer or cube, and before the target.
+void add_polarization_glyphs(Scene& s, const Layout& layout, const ReportBeam& b) {
+    const Path& path = b.path;
+    if (path.segments.empty() || b.power.stokes_after_hit.size() != path.hits.size()) return;
+    const BeamSource& src = layout.beams[path.beam];
+    const Vec2 d0 = direction_deg(src.direction_deg);
+    add_glyph(s, src.start_mm + 15.0 * d0, d0, source_stokes(src.polarization, src.polarized_fraction));
+    for (size_t k = 0; k < path.hits.size(); ++k) {
+        const auto* plate = std::get_if<Plate>(&layout.elements[path.hits[k].element].kind);
+        const bool last_face = k + 1 >= path.hits.size() || path.hits[k + 1].element != path.hits[k].element;
+        if (!plate || plate->role == Plate::Role::Window || !last_face) continue;
+        add_glyph(s, path.hits[k].point_mm + 12.0 * path.hits[k].direction_out, path.hits[k].direction_out,
+                  b.power.stokes_after_hit[k]);
+    }
+    if (path.target_hit && *path.target_hit > 0 && b.power.reached) {
+        const TraceHit& t = path.hits[*path.target_hit];
+        add_glyph(s, t.point_mm - 14.0 * t.direction_in, t.direction_in, b.power.at_target);
+    }
+}
+
 std::string nm_text(double nm) {
     char buf[32];
     std::snprintf(buf, sizeof buf, "%.0f nm", nm);
@@ -184,6 +228,11 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
             ray.points_mm.push_back(seg.to_mm);
         }
         if (ray.points_mm.size() >= 2) s.shapes.push_back(ray);
+        // Beams a polarizing cube reflects, thinner, to where they end.
+        for (const PowerLoss& loss : b.power.losses)
+            if (loss.branch_mm.size() >= 2 && loss.fraction > 1e-3)
+                s.shapes.push_back(Polyline{loss.branch_mm, style.colour, 0.4, true, false, false, false});
+        add_polarization_glyphs(s, layout, b);
         s.legend.push_back({nm_text(b.wavelength_nm) + " " + b.id + (style.visible ? "" : " (invisible, dashed)"),
                             style.colour, !style.visible});
         for (const Finding& f : b.path.findings)
@@ -193,6 +242,7 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
                 s.labels.push_back({f.where_mm + Vec2(7, 7), "!", kMarker, 6});
             }
     }
+    if (!report.beams.empty()) s.legend.push_back({"polarization: bar = in the table plane, dot = vertical, ring = circular", {60, 60, 70, 255}, false});
     for (const PhaseMatchingReport& p : report.phase_matching)
         if (p.process.rfind("SFG", 0) == 0 || report.beams.size() == 1)
             s.legend.push_back({nm_text(p.output_nm) + " generated (" + p.process + ")", beam_style(p.output_nm).colour,

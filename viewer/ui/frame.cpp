@@ -192,8 +192,11 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     ImGui::EndGroup();
     ImGui::SameLine();
     ImGui::BeginChild("report", ImVec2(0, avail.y), true);
-    if (doc) draw_inspector(*doc, state->editor, state->inspector);
-    draw_report_panel(report);
+    if (doc) {
+        draw_inspector(*doc, state->editor, state->inspector);
+        draw_tools_panel(*doc, state->tools);
+    }
+    draw_report_panel(report, layout, doc ? &state->editor.selected : nullptr);
     ImGui::EndChild();
     ImGui::End();
 }

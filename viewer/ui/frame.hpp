@@ -8,6 +8,7 @@
 #include "scene/scene.hpp"
 #include "ui/editor.hpp"
 #include "ui/inspector.hpp"
+#include "ui/tools_panel.hpp"
 #include "ui/view.hpp"
 
 namespace rv::ui {
@@ -20,6 +21,7 @@ struct ViewerState {
     edit::Document* doc = nullptr;   // set: the frame edits this document
     EditorState editor;
     InspectorState inspector;
+    ToolsState tools;
     bool open_save_as = false;
     char save_as_path[1024] = {};
     std::vector<std::string> recent;  // recent files, newest first

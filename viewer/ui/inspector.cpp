@@ -56,11 +56,29 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
         field("cut", "cut angle (deg)", &crystal->cut_deg, "%.3f", doc, st);
     } else if (auto* plate = std::get_if<Plate>(&e.kind)) {
         field("thickness", "thickness (mm)", &plate->slab.thickness_mm, "%.3f", doc, st);
+        using R = Plate::Role;
+        if (plate->role == R::HalfWave || plate->role == R::QuarterWave || plate->role == R::Polarizer)
+            field("fast_axis", plate->role == R::Polarizer ? "transmission axis (deg)" : "fast axis (deg)",
+                  &plate->fast_axis_deg, "%.2f", doc, st);
+        if (plate->role == R::HalfWave || plate->role == R::QuarterWave)
+            field("design", "design wavelength (nm)", &plate->design_nm, "%.1f", doc, st);
+        if (plate->role == R::PolarizingCube || plate->role == R::Polarizer)
+            field("extinction", "extinction ratio", &plate->extinction_ratio, "%.0f", doc, st);
     } else if (auto* dichroic = std::get_if<Dichroic>(&e.kind)) {
         field("edge", "edge (nm)", &dichroic->edge_nm, "%.1f", doc, st);
         field("thickness", "substrate (mm)", &dichroic->substrate.thickness_mm, "%.3f", doc, st);
     }
+    if (!std::holds_alternative<Stage>(e.kind)) field("transmission", "transmission", &e.transmission, "%.4f", doc, st);
+    // The polarization of each beam after this element (first pass), from the report.
+    for (const ReportBeam& b : doc.report().beams)
+        for (size_t k = 0; k < b.path.hits.size() && k < b.power.stokes_after_hit.size(); ++k)
+            if (b.path.hits[k].element == *editor.selected) {
+                ImGui::TextWrapped("%s after it: %.1f %%, %s", b.id.c_str(), 100 * b.power.fraction_after_hit[k],
+                                   describe_text(describe(b.power.stokes_after_hit[k])).c_str());
+                break;
+            }
     ImGui::PopID();
+    if (!doc.last_refusal().empty()) ImGui::TextColored(ImVec4(0.8f, 0.15f, 0.1f, 1), "not applied: %s", doc.last_refusal().c_str());
     ImGui::Separator();
 }
 

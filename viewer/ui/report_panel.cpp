@@ -2,31 +2,57 @@
 
 #include <imgui.h>
 
+#include "polarization/polarization_model.hpp"
+
 namespace rv::ui {
 
 namespace {
 
+const ImVec4 kMet(0.10f, 0.55f, 0.20f, 1), kNear(0.80f, 0.55f, 0.05f, 1), kNotMet(0.80f, 0.15f, 0.10f, 1);
+
 void verdict_line(const char* name, const VerdictLine& l) {
-    const ImVec4 colour = l.met ? ImVec4(0.10f, 0.55f, 0.20f, 1) : ImVec4(0.80f, 0.15f, 0.10f, 1);
-    ImGui::TextColored(colour, "%-6s %s", name, l.met ? "met" : "NOT MET");
+    ImGui::TextColored(l.met ? kMet : kNotMet, "%-6s %s", name, l.met ? "met" : "NOT MET");
     ImGui::TextWrapped("%s", l.summary.c_str());
     if (!l.action.empty()) ImGui::TextWrapped("-> %s", l.action.c_str());
     ImGui::Spacing();
 }
 
+void figures_table(const Verdict& v) {
+    if (v.figures.empty() || !ImGui::BeginTable("figures", 3, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
+    ImGui::TableSetupColumn("figure");
+    ImGui::TableSetupColumn("value");
+    ImGui::TableSetupColumn("limit");
+    ImGui::TableHeadersRow();
+    for (const VerdictFigure& f : v.figures) {
+        ImGui::TableNextRow();
+        ImGui::TableNextColumn();
+        using S = VerdictFigure::State;
+        const ImVec4 c = f.state == S::Met ? kMet : f.state == S::Near ? kNear : kNotMet;
+        ImGui::TextColored(c, "%s %s", f.state == S::Met ? "met" : f.state == S::Near ? "near" : "NOT", f.name.c_str());
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", f.definition.c_str());
+        ImGui::TableNextColumn();
+        ImGui::Text("%.3g", f.value);
+        ImGui::TableNextColumn();
+        ImGui::Text("%s %.3g", f.is_minimum ? ">=" : "<=", f.limit);
+    }
+    ImGui::EndTable();
+}
+
 }  // namespace
 
-void draw_report_panel(const RendezvousReport& r) {
+void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::optional<size_t>* select) {
     ImGui::TextUnformatted("Verdict");
     ImGui::Separator();
     verdict_line("space", r.verdict.space);
     verdict_line("time", r.verdict.time);
     verdict_line("phase", r.verdict.phase);
+    figures_table(r.verdict);
+    ImGui::Spacing();
     ImGui::TextUnformatted("At the target");
     ImGui::Separator();
     if (ImGui::BeginTable("beams", 4, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) {
         ImGui::TableSetupColumn("beam");
-        ImGui::TableSetupColumn("waist um");
+        ImGui::TableSetupColumn("waist µm");
         ImGui::TableSetupColumn("offset mm");
         ImGui::TableSetupColumn("z_R mm");
         ImGui::TableHeadersRow();
@@ -41,10 +67,13 @@ void draw_report_panel(const RendezvousReport& r) {
             }
             ImGui::TableNextColumn();
             ImGui::Text("%.2f", b.at_target.tangential.waist_um);
+            if (ImGui::IsItemHovered()) ImGui::SetTooltip("second-moment waist radius, tangential plane");
             ImGui::TableNextColumn();
             ImGui::Text("%+.3f", b.at_target.tangential.waist_offset_mm);
+            if (ImGui::IsItemHovered()) ImGui::SetTooltip("waist position minus the target centre, + = downstream");
             ImGui::TableNextColumn();
             ImGui::Text("%.3f", b.at_target.tangential.rayleigh_mm);
+            if (ImGui::IsItemHovered()) ImGui::SetTooltip("Rayleigh range in the medium at the target");
         }
         ImGui::EndTable();
     }
@@ -53,13 +82,41 @@ void draw_report_panel(const RendezvousReport& r) {
     if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
         ImGui::Text("%s: %.2f nm", p.process.c_str(), p.output_nm);
-        ImGui::Text("theta_pm %.3f deg, now %.3f deg", p.theta_pm_deg, p.theta_now_deg);
+        if (p.outside_index_data.empty()) ImGui::Text("θ_pm %.3f°, now %.3f°", p.theta_pm_deg, p.theta_now_deg);
+        else ImGui::TextWrapped("%s", p.outside_index_data.c_str());
     }
+    ImGui::Spacing();
+    ImGui::TextUnformatted("Power and polarization");
+    ImGui::Separator();
+    for (const ReportBeam& b : r.beams) {
+        if (!b.power.reached) continue;
+        if (b.target_power_mw) ImGui::Text("%s: %.1f mW (%.1f %%)", b.id.c_str(), *b.target_power_mw, 100 * b.power.at_target[0]);
+        else ImGui::Text("%s: %.1f %% of the source", b.id.c_str(), 100 * b.power.at_target[0]);
+        ImGui::TextWrapped("  %s", describe_text(b.at_target_polarization).c_str());
+        if (b.pulse_at_target) {
+            ImGui::Text("  peak %.3g GW/cm², %.3g mJ/cm²", b.pulse_at_target->peak_intensity_w_cm2 * 1e-9,
+                        b.pulse_at_target->peak_fluence_j_cm2 * 1e3);
+            if (ImGui::IsItemHovered())
+                ImGui::SetTooltip("I = 2 P_peak/(π w_t w_s), P_peak = 0.94 E/τ, at the target plane; "
+                                  "an estimate for damage, never an exposure limit");
+        }
+    }
+    for (const PolarizationAdvice& a : r.polarization)
+        if (!a.action.empty()) ImGui::TextWrapped("-> %s", a.action.c_str());
     if (!r.warnings.empty()) {
         ImGui::Spacing();
-        ImGui::TextUnformatted("Findings");
+        ImGui::TextUnformatted("Findings (click one to select its element)");
         ImGui::Separator();
-        for (const ReportWarning& w : r.warnings) ImGui::TextWrapped("[%s] %s", w.code.c_str(), w.message.c_str());
+        for (size_t k = 0; k < r.warnings.size(); ++k) {
+            const ReportWarning& w = r.warnings[k];
+            ImGui::PushID(static_cast<int>(k));
+            ImGui::PushTextWrapPos(0);
+            if (ImGui::Selectable(("[" + w.code + "] " + w.message).c_str(), false) && select && !w.element.empty())
+                for (size_t i = 0; i < layout.elements.size(); ++i)
+                    if (layout.elements[i].id == w.element) *select = i;
+            ImGui::PopTextWrapPos();
+            ImGui::PopID();
+        }
     }
     ImGui::Spacing();
     ImGui::TextWrapped("Planning aid only: no exposure limits. Follow your laser safety officer, "

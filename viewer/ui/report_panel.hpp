@@ -1,10 +1,15 @@
 #pragma once
+#include <optional>
+
 #include "analysis/report.hpp"
 
 namespace rv::ui {
 
-// The verdict and the numbers at the target (all from the core report), inside the current
-// ImGui window.
-void draw_report_panel(const RendezvousReport& report);
+// The verdict, each figure behind it with a met / near / not-met mark and its definition as a
+// tooltip, the numbers at the target, power and polarization, and the findings (all from the
+// core report), inside the current ImGui window. With `select`, clicking a finding selects the
+// element it names.
+void draw_report_panel(const RendezvousReport& report, const Layout& layout,
+                       std::optional<size_t>* select = nullptr);
 
 }  // namespace rv::ui

@@ -8,7 +8,9 @@
 #include <ostream>
 
 #include "analysis/report.hpp"
+#include "cli/load.hpp"
 #include "io/layout_reader.hpp"
+#include "io/lens_catalog.hpp"
 #include "render/cpu_rasterizer.hpp"
 #include "render/headless.hpp"
 #include "scene/scene.hpp"
@@ -37,6 +39,7 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
 
     ui::ViewerState state;
     state.doc = &doc;
+    state.tools.catalog = parse_lens_catalog(cli::lens_catalog_text(), material_library_for(layout)).lenses;
     if (path) state.recent.push_back(path->string());
     if (std::filesystem::exists(doc.recovery_path())) state.recovery_offer = doc.recovery_path().string();
     double last_autosave_s = glfwGetTime();

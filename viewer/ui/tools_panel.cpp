@@ -1,0 +1,119 @@
+#include "ui/tools_panel.hpp"
+
+#include <imgui.h>
+
+#include "analysis/balance.hpp"
+#include "analysis/sweep.hpp"
+#include "io/diagnostic.hpp"
+#include "io/layout_reader.hpp"
+
+namespace rv::ui {
+
+namespace {
+
+void end_preview(edit::Document& doc, ToolsState& st) {
+    if (st.previewing && doc.in_gesture()) doc.cancel_gesture();
+    st.previewing.reset();
+}
+
+void solve_section(edit::Document& doc, ToolsState& st) {
+    if (!doc.layout().goals.solve) {
+        ImGui::TextWrapped("Add goals.solve to the layout (what may move or be swapped) to search for telescopes.");
+        return;
+    }
+    if (ImGui::Button("Search the catalog")) {
+        end_preview(doc, st);
+        SolveOptions options;
+        st.solve = solve_telescopes(doc.layout(), material_library_for(doc.layout()), st.catalog, options);
+        st.message = st.solve.error.empty() ? std::to_string(st.solve.combinations) + " combination(s) searched"
+                                            : st.solve.error;
+    }
+    for (size_t k = 0; k < st.solve.solutions.size(); ++k) {
+        const TelescopeSolution& s = st.solve.solutions[k];
+        std::string label = std::to_string(k + 1) + ". residual " + std::to_string(s.residual).substr(0, 8);
+        for (const auto& [id, lens] : s.swaps) label += ", " + id + "=" + lens;
+        for (const auto& [id, move] : s.moves_mm) label += ", " + id + " " + std::to_string(move).substr(0, 6) + " mm";
+        if (!s.violations.empty()) label += " (breaks a constraint)";
+        if (ImGui::Selectable(label.c_str(), st.previewing == k)) {
+            end_preview(doc, st);
+            doc.begin_gesture();
+            doc.preview(s.layout);
+            st.previewing = k;
+        }
+    }
+    if (st.previewing) {
+        if (ImGui::Button("Apply")) {
+            doc.finish_gesture();
+            st.previewing.reset();
+            st.message = "applied the solution (Ctrl+Z undoes it)";
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("Back to the layout")) end_preview(doc, st);
+    }
+}
+
+void sweep_section(edit::Document& doc, ToolsState& st) {
+    ImGui::SetNextItemWidth(160);
+    ImGui::InputText("ID.FIELD", st.sweep_field, sizeof st.sweep_field);
+    ImGui::SetNextItemWidth(80);
+    ImGui::InputDouble("from", &st.sweep_from);
+    ImGui::SameLine();
+    ImGui::SetNextItemWidth(80);
+    ImGui::InputDouble("to", &st.sweep_to);
+    if (ImGui::Button("Sweep 41 values")) {
+        const std::string spec = st.sweep_field;
+        const size_t dot = spec.find('.');
+        st.sweep_overlap.clear();
+        st.sweep_phase.clear();
+        if (dot == std::string::npos) {
+            st.message = "expected ID.FIELD, such as S1.position_mm";
+        } else {
+            const SweepResult r = sweep_field(doc.layout(), spec.substr(0, dot), spec.substr(dot + 1), st.sweep_from, st.sweep_to, 41);
+            if (!r.diagnostics.empty()) st.message = format_diagnostic(r.diagnostics.front(), "sweep");
+            for (const SweepPoint& p : r.points) {
+                st.sweep_overlap.push_back(p.report.overlap ? static_cast<float>(p.report.overlap->combined) : 0.0f);
+                st.sweep_phase.push_back(p.report.phase_matching.empty() ? 0.0f
+                                                                         : static_cast<float>(p.report.phase_matching.front().sinc2_now));
+            }
+        }
+    }
+    if (!st.sweep_overlap.empty()) {
+        ImGui::PlotLines("overlap", st.sweep_overlap.data(), static_cast<int>(st.sweep_overlap.size()), 0, nullptr, 0, 1,
+                         ImVec2(0, 60));
+        ImGui::PlotLines("sinc²", st.sweep_phase.data(), static_cast<int>(st.sweep_phase.size()), 0, nullptr, 0, 1,
+                         ImVec2(0, 60));
+    }
+}
+
+}  // namespace
+
+void draw_tools_panel(edit::Document& doc, ToolsState& st) {
+    if (!ImGui::CollapsingHeader("Solvers")) return;
+    if (ImGui::Button("Balance the delay")) {
+        end_preview(doc, st);
+        const BalanceResult b = balance_delay(doc.layout(), material_library_for(doc.layout()));
+        if (b.stage.empty()) {
+            st.message = "no stage in either arm";
+        } else {
+            doc.edit(b.layout);
+            st.message = "stage " + b.stage + " set to " + std::to_string(b.stage_set_mm).substr(0, 7) + " mm" +
+                         (b.add_path_mm != 0 ? "; add " + std::to_string(b.add_path_mm).substr(0, 6) + " mm of path to " + b.add_path_to
+                                             : std::string());
+        }
+    }
+    ImGui::SameLine();
+    if (ImGui::Button("Tolerances")) {
+        end_preview(doc, st);
+        st.tolerance = analyse_tolerances(doc.layout(), material_library_for(doc.layout()), 2000, 1, 2);
+    }
+    if (st.tolerance) {
+        const ToleranceReport& t = *st.tolerance;
+        ImGui::Text("2000 samples: overlap %.3f / %.3f / %.3f (5/50/95 %%)", t.overlap.p5, t.overlap.p50, t.overlap.p95);
+        ImGui::TextWrapped("fine adjustment: %s", t.most_sensitive.c_str());
+    }
+    solve_section(doc, st);
+    sweep_section(doc, st);
+    if (!st.message.empty()) ImGui::TextWrapped("%s", st.message.c_str());
+}
+
+}  // namespace rv::ui
