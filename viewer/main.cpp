@@ -83,6 +83,16 @@ int main(int argc, char** argv) {
     tolerance_cmd->add_option("--samples", tolerance.samples, "Monte Carlo samples")->check(CLI::Range(1, 10000000));
     tolerance_cmd->add_option("--seed", tolerance.seed, "random seed (the result depends on it only)");
 
+    rv::cli::PolarizeOptions polarize;
+    CLI::App* polarize_cmd = app.add_subcommand(
+        "polarize", "Turn a wave plate: a wanted power at the target (--power-mw), or the most power in the\n"
+                    "polarization the crystal needs (the default).\n"
+                    "Example: rendezvous polarize layouts/sfg-bbo.json --plate HWP_P --power-mw 1500 --write sfg-1500.json");
+    polarize_cmd->add_option("layout", polarize.layout, "layout file (JSON)")->required();
+    polarize_cmd->add_option("--plate", polarize.plate, "id of the half- or quarter-wave plate to turn")->required();
+    polarize_cmd->add_option("--beam", polarize.beam, "the beam, when both pass the plate");
+    polarize_cmd->add_option("--power-mw", polarize.power_mw, "wanted power at the target (mW)")->check(CLI::NonNegativeNumber);
+    polarize_cmd->add_option("--write", polarize.output, "write the layout with the plate turned here (atomically)");
     rv::cli::BalanceOptions balance;
     CLI::App* balance_cmd = app.add_subcommand(
         "balance", "Put the stage where the delay is zero; say what fixed path to add when it cannot.\n"
@@ -171,6 +181,7 @@ int main(int argc, char** argv) {
     if (*solve_cmd) return rv::cli::run_solve(solve, std::cout, std::cerr);
     if (*tolerance_cmd) return rv::cli::run_tolerance(tolerance, std::cout, std::cerr);
     if (*balance_cmd) return rv::cli::run_balance(balance, std::cout, std::cerr);
+    if (*polarize_cmd) return rv::cli::run_polarize(polarize, std::cout, std::cerr);
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);
     if (*caustic_cmd) return rv::cli::run_caustic(caustic_layout, std::cout, std::cerr);

@@ -33,6 +33,12 @@ for beam in layout["beams"]:
         continue
     for key in ["wavelength_nm", "path_mm", "arrival_fs", "target.hit_mm", "elements"]:
         need(b, key)
+    # Power and intensity: present (a number, or null when the file gives no power_mw), and a
+    # number when it gives one.
+    for key in ["target.power_mw", "target.peak_intensity_w_cm2"]:
+        value = need(b, key)
+        if beam.get("power_mw") and key == "target.power_mw" and not isinstance(value, (int, float)):
+            missing.append(beam["id"] + "." + key + " (a number)")
     for key in plane_keys:
         for plane in ["tangential", "sagittal"]:
             need(b, f"target.{key}.{plane}")

@@ -61,6 +61,12 @@ struct BalanceOptions {
 };
 int run_balance(const BalanceOptions& options, std::ostream& out, std::ostream& err);
 
+struct PolarizeOptions {
+    std::string layout, plate, beam, output;
+    double power_mw = -1;  // < 0: the most power in the polarization the crystal needs
+};
+int run_polarize(const PolarizeOptions& options, std::ostream& out, std::ostream& err);
+
 struct SweepOptions {
     std::string layout;
     std::string vary;  // ID.FIELD

@@ -1,0 +1,41 @@
+// rendezvous polarize: turn a wave plate for a wanted power at the target, or for the most power
+// in the polarization the crystal needs; the result as a new layout on request.
+#include <cstdio>
+#include <ostream>
+
+#include "cli/commands.hpp"
+#include "cli/load.hpp"
+#include "io/layout_reader.hpp"
+#include "solve/wave_plate.hpp"
+
+namespace rv::cli {
+
+int run_polarize(const PolarizeOptions& o, std::ostream& out, std::ostream& err) {
+    const std::optional<Layout> layout = load_layout(o.layout, err);
+    if (!layout) return 2;
+    WavePlateGoal goal{o.plate, o.beam, std::nullopt};
+    if (o.power_mw >= 0) goal.power_mw = o.power_mw;
+    const WavePlateResult r = set_wave_plate(*layout, material_library_for(*layout), goal);
+    if (!r.error.empty()) {
+        err << o.layout << ": error: " << r.error << "\n";
+        return 2;
+    }
+    char line[320];
+    std::snprintf(line, sizeof line, "%s: fast axis %.2f° → %.2f°; %s at the target %.2f → %.2f mW", o.plate.c_str(),
+                  r.angle_before_deg, r.angle_deg, r.beam.c_str(), r.power_before_mw, r.power_mw);
+    out << line;
+    if (r.useful_before_mw > 0 || r.useful_mw > 0) {
+        std::snprintf(line, sizeof line, ", in the polarization the crystal needs %.2f → %.2f mW", r.useful_before_mw,
+                      r.useful_mw);
+        out << line;
+    }
+    out << "\n";
+    if (!r.reached) out << "the wanted power cannot be reached with this plate; this is the closest\n";
+    if (!o.output.empty()) {
+        if (!save_layout_or_report(r.layout, o.output, err)) return 2;
+        out << "wrote " << o.output << "\n";
+    }
+    return 0;
+}
+
+}  // namespace rv::cli
