@@ -38,12 +38,44 @@ const char* finding_code(Finding::Kind k) {
     return "finding";
 }
 
+// The trace picks a crystal's index (o or e) from the beam's source polarization. When the wave
+// plates and cubes before the target crystal turn a beam to the other wave, trace again with a
+// source polarization of that wave, so that the index, the refraction and the timing in the
+// crystal follow the light that arrives (the power trace keeps the real source).
+std::vector<Path> trace_with_arriving_polarization(const Layout& layout, const MaterialLibrary& library) {
+    std::vector<Path> paths = trace_layout(layout, library);
+    const Element* target = layout.find(layout.target);
+    const Crystal* crystal = target ? std::get_if<Crystal>(&target->kind) : nullptr;
+    const Material* m = crystal ? library.find(crystal->material) : nullptr;
+    if (!m || m->symmetry == Symmetry::Isotropic) return paths;
+    Layout adjusted = layout;
+    bool changed = false;
+    for (const Path& p : paths) {
+        if (!p.target_hit) continue;
+        const BeamSource& src = layout.beams[p.beam];
+        PropagationOptions lean;
+        lean.sample_envelope = false;
+        const BeamPower power = trace_power(layout, library, p, propagate_path(layout, p, lean));
+        const PolarizationState s = describe(power.at_target);
+        if (!(s.power > 0)) continue;
+        const bool a_now = a_wave_fraction(src.polarization, crystal->optic_axis_horizontal) >= 0.5;
+        const bool a_arriving = (crystal->optic_axis_horizontal ? s.v : s.h) / s.power >= 0.5;
+        if (a_now == a_arriving) continue;
+        // A source polarization that gives the arriving wave: A is vertical when the axis plane is
+        // horizontal, horizontal otherwise.
+        const bool horizontal = a_arriving != crystal->optic_axis_horizontal;
+        adjusted.beams[p.beam].polarization = {horizontal ? Polarization::Kind::Horizontal : Polarization::Kind::Vertical, 0};
+        changed = true;
+    }
+    return changed ? trace_layout(adjusted, library) : paths;
+}
+
 std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary& library,
                                     bool envelope) {
     PropagationOptions options;
     options.sample_envelope = envelope;
     std::vector<ReportBeam> beams;
-    for (const Path& p : trace_layout(layout, library)) {
+    for (const Path& p : trace_with_arriving_polarization(layout, library)) {
         ReportBeam b;
         b.id = layout.beams[p.beam].id;
         b.wavelength_nm = layout.beams[p.beam].wavelength_nm;

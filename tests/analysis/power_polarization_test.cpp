@@ -201,3 +201,24 @@ TEST_CASE("the report says which way to turn a wave plate for the crystal's pola
     CHECK(a.action.find("turn HWP's fast axis from 22.5°") == 0);
     CHECK_FALSE(r.verdict.phase.met);  // half of the fundamental is e: the polarizations do not suit
 }
+
+TEST_CASE("the crystal's index follows the polarization that arrives", "[polarization][crystal]") {
+    // A horizontally polarized source turned vertical by a half-wave plate at 45° (Hecht, §8.7:
+    // linear light at 0° leaves at 2θ); with the optic axis plane horizontal the vertical wave is
+    // the ordinary one, so inside the crystal the chief ray sees n_o (BBO, Kato 1986) whatever its
+    // angle, not the extraordinary index the source polarization would give.
+    const rv::Layout l = layout_from(layout_json(
+        R"({"id": "f", "wavelength_nm": 1064, "start_mm": [0, 500], "direction_deg": 0, "waist_um": 500})",
+        R"({"id": "HWP", "type": "plate", "at_mm": [200, 500], "role": "half-wave", "material": "fused-silica",
+            "thickness_mm": 1, "fast_axis_deg": 45, "design_nm": 1064},
+           {"id": "X", "type": "crystal", "at_mm": [500, 500], "normal_deg": 5, "material": "BBO", "length_mm": 2,
+            "cut_deg": 22.8, "phase_matching": "type-I", "optic_axis": "horizontal"})",
+        "X"));
+    const rv::RendezvousReport r = report(l);
+    const rv::ReportBeam& b = beam0(r);
+    REQUIRE(b.at_target.reached);
+    CHECK(b.at_target_polarization.v > 0.999);
+    const double no = rv::sample_index(rv::test::material("BBO"), 1064, rv::Axis::Ordinary).index;
+    CHECK_THAT(b.path.hits[*b.path.target_hit].index_before, near(no, 1e-12));
+    CHECK(r.phase_matching.front().polarizations_suit);
+}
