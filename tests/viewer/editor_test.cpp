@@ -221,3 +221,33 @@ TEST_CASE("an edit the file format refuses is not applied", "[viewer][edit]") {
     CHECK_FALSE(doc.can_undo());
     CHECK(doc.last_refusal().find("aperture_mm: must be positive") != std::string::npos);
 }
+
+TEST_CASE("the measuring tool reads the distance between two optics", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    s.key(rv::ui::keys::kM);
+    REQUIRE(s.state.editor.measuring);
+    // From near L1_S to near L2_S (3 px off each centre): the ends are caught by the centres,
+    // (160, 500) and (310, 500) mm.
+    const ImVec2 a = s.screen_of("L1_S"), b = s.screen_of("L2_S");
+    s.drag(ImVec2(a.x + 3, a.y + 2), ImVec2(b.x - 3, b.y + 2));
+    REQUIRE(s.state.editor.ruler.has_value());
+    CHECK(rv::ui::ruler_text(*s.state.editor.ruler) == "150.0 mm at 0.0°");
+    CHECK_FALSE(doc.can_undo());  // measuring changes nothing
+    s.key(ImGui::GetKeyIndex(ImGuiKey_Escape));
+    CHECK_FALSE(s.state.editor.ruler.has_value());
+}
+
+TEST_CASE("clicking a finding selects its element", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    // The demo's findings name thin lenses (their glass is missing from the timing).
+    REQUIRE_FALSE(s.state.finding_rects.empty());
+    REQUIRE_FALSE(doc.report().warnings.empty());
+    const auto [lo, hi] = s.state.finding_rects.front();
+    const ImVec2 centre((lo.x + hi.x) / 2, (lo.y + hi.y) / 2);
+    s.mouse(centre, true);
+    s.mouse(centre, false);
+    REQUIRE(s.state.editor.selected.has_value());
+    CHECK(doc.layout().elements[*s.state.editor.selected].id == doc.report().warnings.front().element);
+}

@@ -150,3 +150,31 @@ TEST_CASE("the scene marks the polarization and draws the beams a cube reflects"
     CHECK(branches == 2);
     CHECK(bars >= 4);  // after each source, plate and cube, and before the target, for two beams
 }
+
+TEST_CASE("the rendered demo matches its golden image", "[render][golden]") {
+    // tests/viewer/golden/sfg-bbo-800x500.png was made by `rendezvous render layouts/sfg-bbo.json
+    // --png … --size 800x500`; after an intended change of the drawing, make it again the same
+    // way and look at it before committing (DEVELOPERS.md). Small tolerance: under 0.5 % of the
+    // pixels may differ by more than 32 in a channel, and the mean difference stays under 1.
+    const Demo d = demo();
+    const rv::render::Framebuffer fb = rv::render::render_frame(d.layout, d.report, d.scene, 800, 500);
+    int w = 0, h = 0, channels = 0;
+    unsigned char* golden = stbi_load(RV_SOURCE_DIR "/tests/viewer/golden/sfg-bbo-800x500.png", &w, &h, &channels, 4);
+    REQUIRE(golden != nullptr);
+    REQUIRE(w == 800);
+    REQUIRE(h == 500);
+    size_t far = 0;
+    double total = 0;
+    for (size_t i = 0; i < static_cast<size_t>(w) * h; ++i) {
+        int worst = 0;
+        for (int c = 0; c < 3; ++c) {
+            const int diff = std::abs(int(golden[4 * i + c]) - int(fb.rgba[4 * i + c]));
+            worst = std::max(worst, diff);
+            total += diff;
+        }
+        far += worst > 32;
+    }
+    stbi_image_free(golden);
+    CHECK(far < static_cast<size_t>(w) * h / 200);
+    CHECK(total / (3.0 * w * h) < 1.0);
+}

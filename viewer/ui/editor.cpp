@@ -4,9 +4,11 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 
 #include "trace/poses.hpp"
 #include "ui/keys.hpp"
+#include "units/constants.hpp"
 
 namespace rv::ui {
 
@@ -49,7 +51,48 @@ std::optional<size_t> element_at(const edit::Document& doc, const Vec2& p, doubl
     return best;
 }
 
+std::string ruler_text(const EditorState::Ruler& r) {
+    const Vec2 d = r.to_mm - r.from_mm;
+    char text[64];
+    std::snprintf(text, sizeof text, "%.1f mm at %.1f°", d.norm(), rad_to_deg(std::atan2(d.y(), d.x())));
+    return text;
+}
+
+namespace {
+
+// A table point, caught by the nearest optic's centre within 8 px.
+Vec2 caught(const edit::Document& doc, const Vec2& p, double px_per_mm) {
+    const std::vector<ElementPose> poses = element_poses(doc.layout(), paths_of(doc.report()));
+    Vec2 best = p;
+    double best_d = 8.0 / px_per_mm;
+    for (size_t i = 0; i < poses.size(); ++i)
+        if (!std::holds_alternative<Stage>(doc.layout().elements[i].kind) && (poses[i].at_mm - p).norm() < best_d)
+            best = poses[i].at_mm, best_d = (poses[i].at_mm - p).norm();
+    return best;
+}
+
+bool measure_on_canvas(const edit::Document& doc, EditorState& s, const View& view) {
+    const ImGuiIO& io = ImGui::GetIO();
+    const Vec2 cursor = caught(doc, view.to_table(io.MousePos), view.px_per_mm);
+    if (ImGui::IsItemActivated() && ImGui::IsMouseClicked(ImGuiMouseButton_Left)) {
+        s.ruler = EditorState::Ruler{cursor, cursor, true};
+        return true;
+    }
+    if (s.ruler && s.ruler->active) {
+        s.ruler->to_mm = cursor;
+        if (!io.MouseDown[ImGuiMouseButton_Left]) {
+            s.ruler->active = false;
+            s.status = "measured " + ruler_text(*s.ruler);
+        }
+        return true;
+    }
+    return false;
+}
+
+}  // namespace
+
 bool edit_on_canvas(edit::Document& doc, EditorState& s, const View& view) {
+    if (s.measuring) return measure_on_canvas(doc, s, view);
     const ImGuiIO& io = ImGui::GetIO();
     const Vec2 cursor = view.to_table(io.MousePos);
     if (ImGui::IsItemActivated() && ImGui::IsMouseClicked(ImGuiMouseButton_Left)) {
@@ -165,11 +208,17 @@ void edit_shortcuts(edit::Document& doc, EditorState& s) {
         std::string error;
         s.status = doc.save(error) ? "saved " + doc.path()->string() : error;
     } else if (!io.KeyCtrl && pressed(keys::kR)) rotate_selected(doc, s, io.KeyShift ? -15.0 : 15.0);
-    else if (!io.KeyCtrl && pressed(keys::kG)) {
+    else if (!io.KeyCtrl && pressed(keys::kM)) {
+        s.measuring = !s.measuring;
+        s.status = s.measuring ? "measuring: drag on the table (M again to edit)" : "editing";
+    } else if (!io.KeyCtrl && pressed(keys::kG)) {
         s.snap = !s.snap;
         s.status = s.snap ? "snapping to the hole grid" : "free placement (no snapping)";
     } else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Delete))) delete_selected(doc, s);
-    else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Escape))) s.selected.reset();
+    else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Escape))) {
+        s.selected.reset();
+        s.ruler.reset();
+    }
     if (s.selected && *s.selected >= doc.layout().elements.size()) s.selected.reset();  // after an undo
 }
 

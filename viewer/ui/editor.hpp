@@ -1,7 +1,7 @@
 #pragma once
 // Editing on the table view: click selects the optic under the cursor, dragging it moves it
 // (snapped to the hole grid unless snapping is off), Esc cancels a drag, R / Shift+R turn the
-// selection by +15° / −15°, Delete removes it, Ctrl+D duplicates it, Ctrl+Z undoes, Ctrl+Shift+Z
+// selection by +15° / −15°, M toggles the measuring tool, Delete removes it, Ctrl+D duplicates it, Ctrl+Z undoes, Ctrl+Shift+Z
 // and Ctrl+Y redo, Ctrl+S saves, G toggles snapping. Every change goes through the Document,
 // which rebuilds the report and the scene.
 #include <optional>
@@ -22,7 +22,18 @@ struct EditorState {
     };
     std::optional<Drag> drag;
     std::string status;  // the last thing the editor has to say (saved, an error)
+    // The measuring tool (M): a press and drag on the table draws a ruler, its ends caught by
+    // an optic's centre within 8 px; it stays until the next measurement or Esc.
+    bool measuring = false;
+    struct Ruler {
+        Vec2 from_mm, to_mm;
+        bool active = false;  // the button is still down
+    };
+    std::optional<Ruler> ruler;
 };
+
+// The ruler's text: "123.4 mm at 12.3°" (angle from the table's x axis, counter-clockwise).
+std::string ruler_text(const EditorState::Ruler& r);
 
 // The element whose symbol is under a table point, if any (within its half aperture or 8 px).
 std::optional<size_t> element_at(const edit::Document& doc, const Vec2& table_mm, double px_per_mm);

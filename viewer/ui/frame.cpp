@@ -54,6 +54,19 @@ void draw_selection(ImDrawList* draw, const edit::Document& doc, size_t element,
     draw->AddCircle(view.to_screen(pose.at_mm), r, IM_COL32(255, 140, 0, 255), 32, 2.0f);
 }
 
+void draw_ruler(ImDrawList* draw, const EditorState::Ruler& r, const View& view) {
+    const ImVec2 a = view.to_screen(r.from_mm), b = view.to_screen(r.to_mm);
+    const ImU32 c = IM_COL32(20, 90, 200, 255);
+    draw->AddLine(a, b, c, 2.0f);
+    draw->AddCircleFilled(a, 3, c);
+    draw->AddCircleFilled(b, 3, c);
+    const std::string text = ruler_text(r);
+    const ImVec2 at((a.x + b.x) / 2 + 6, (a.y + b.y) / 2 - 18);
+    const ImVec2 extent = ImGui::CalcTextSize(text.c_str());
+    draw->AddRectFilled(at, ImVec2(at.x + extent.x + 6, at.y + extent.y + 4), IM_COL32(255, 255, 255, 220));
+    draw->AddText(ImVec2(at.x + 3, at.y + 2), c, text.c_str());
+}
+
 void draw_menu_bar(ViewerState& st) {
     edit::Document& doc = *st.doc;
     EditorState& ed = st.editor;
@@ -90,6 +103,7 @@ void draw_menu_bar(ViewerState& st) {
     }
     if (ImGui::BeginMenu("View")) {
         if (ImGui::MenuItem("Fit the table", "F")) st.view.reset();
+        ImGui::MenuItem("Measure distances", "M", &ed.measuring);
         ImGui::EndMenu();
     }
     ImGui::EndMenuBar();
@@ -181,6 +195,7 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     draw_table(ImGui::GetWindowDrawList(), scene, view);
     if (doc && state->editor.selected && *state->editor.selected < layout.elements.size())
         draw_selection(ImGui::GetWindowDrawList(), *doc, *state->editor.selected, view);
+    if (doc && state->editor.ruler) draw_ruler(ImGui::GetWindowDrawList(), *state->editor.ruler, view);
     ImGui::EndChild();
     ImGui::BeginChild("plots", ImVec2(avail.x - panel, 0), true);
     const ImVec2 p0 = ImGui::GetCursorScreenPos();
@@ -196,7 +211,7 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
         draw_inspector(*doc, state->editor, state->inspector);
         draw_tools_panel(*doc, state->tools);
     }
-    draw_report_panel(report, layout, doc ? &state->editor.selected : nullptr);
+    draw_report_panel(report, layout, doc ? &state->editor.selected : nullptr, state ? &state->finding_rects : nullptr);
     ImGui::EndChild();
     ImGui::End();
 }

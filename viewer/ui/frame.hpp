@@ -22,6 +22,7 @@ struct ViewerState {
     EditorState editor;
     InspectorState inspector;
     ToolsState tools;
+    std::vector<std::pair<ImVec2, ImVec2>> finding_rects;  // last frame's finding rows
     bool open_save_as = false;
     char save_as_path[1024] = {};
     std::vector<std::string> recent;  // recent files, newest first

@@ -5,5 +5,5 @@
 // tests press the keys a user would.
 namespace rv::ui::keys {
 inline constexpr int kEscape = 256, kDelete = 261;
-inline constexpr int kD = 'D', kF = 'F', kG = 'G', kR = 'R', kS = 'S', kY = 'Y', kZ = 'Z';
+inline constexpr int kD = 'D', kF = 'F', kG = 'G', kM = 'M', kR = 'R', kS = 'S', kY = 'Y', kZ = 'Z';
 }  // namespace rv::ui::keys

@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <optional>
+#include <string>
 
 #include "scene/wavelength_colour.hpp"
 #include "ui/plot_axes.hpp"
@@ -13,6 +15,20 @@ namespace {
 ImU32 beam_colour(double nm, int alpha = 255) {
     const scene::Colour c = scene::beam_style(nm).colour;
     return IM_COL32(c.r, c.g, c.b, alpha);
+}
+
+// A beam's tangential and sagittal radii at z mm from the target plane, interpolated between
+// the envelope samples around it.
+std::optional<std::pair<double, double>> radius_at(const ReportBeam& b, double z) {
+    const std::vector<EnvelopeSample>& e = b.caustic.envelope;
+    const double s = b.at_target.path_mm + z;
+    for (size_t i = 0; i + 1 < e.size(); ++i)
+        if (e[i].s_mm <= s && s <= e[i + 1].s_mm && e[i + 1].s_mm > e[i].s_mm) {
+            const double f = (s - e[i].s_mm) / (e[i + 1].s_mm - e[i].s_mm);
+            return std::make_pair(e[i].radius_tangential_um + f * (e[i + 1].radius_tangential_um - e[i].radius_tangential_um),
+                                  e[i].radius_sagittal_um + f * (e[i + 1].radius_sagittal_um - e[i].radius_sagittal_um));
+        }
+    return std::nullopt;
 }
 }  // namespace
 
@@ -61,6 +77,24 @@ void draw_caustic_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Rende
         draw->AddLine(l, rr, beam_colour(b.wavelength_nm, 140), 1.0f);
     }
     draw->PopClipRect();
+    // Hover readout: both beams' radii at the cursor's position along the beam.
+    const ImVec2 mouse = ImGui::GetIO().MousePos;
+    if (mouse.x < a.min_px.x || mouse.x > a.max_px.x || mouse.y < a.min_px.y || mouse.y > a.max_px.y) return;
+    const double z = a.x0 + (mouse.x - a.min_px.x) / (a.max_px.x - a.min_px.x) * (a.x1 - a.x0);
+    draw->AddLine(ImVec2(mouse.x, a.min_px.y), ImVec2(mouse.x, a.max_px.y), IM_COL32(90, 90, 90, 160), 1.0f);
+    std::string text = "z " + std::to_string(z).substr(0, z < 0 ? 6 : 5) + " mm";
+    for (const ReportBeam& b : r.beams) {
+        if (!b.at_target.reached) continue;
+        const std::optional<std::pair<double, double>> w = radius_at(b, z);
+        if (!w) continue;
+        char line[96];
+        std::snprintf(line, sizeof line, "\n%s %.1f / %.1f µm", b.id.c_str(), w->first, w->second);
+        text += line;
+    }
+    const ImVec2 box(mouse.x + 8, a.min_px.y + 4);
+    const ImVec2 extent = ImGui::CalcTextSize(text.c_str());
+    draw->AddRectFilled(box, ImVec2(box.x + extent.x + 8, box.y + extent.y + 6), IM_COL32(255, 255, 255, 230));
+    draw->AddText(ImVec2(box.x + 4, box.y + 3), IM_COL32(30, 30, 30, 255), text.c_str());
 }
 
 void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout& layout, const RendezvousReport& r) {

@@ -40,7 +40,9 @@ void figures_table(const Verdict& v) {
 
 }  // namespace
 
-void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::optional<size_t>* select) {
+void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::optional<size_t>* select,
+                       std::vector<std::pair<ImVec2, ImVec2>>* finding_rects) {
+    if (finding_rects) finding_rects->clear();
     ImGui::TextUnformatted("Verdict");
     ImGui::Separator();
     verdict_line("space", r.verdict.space);
@@ -114,6 +116,8 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
             if (ImGui::Selectable(("[" + w.code + "] " + w.message).c_str(), false) && select && !w.element.empty())
                 for (size_t i = 0; i < layout.elements.size(); ++i)
                     if (layout.elements[i].id == w.element) *select = i;
+            if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", w.message.c_str());
+            if (finding_rects) finding_rects->emplace_back(ImGui::GetItemRectMin(), ImGui::GetItemRectMax());
             ImGui::PopTextWrapPos();
             ImGui::PopID();
         }
