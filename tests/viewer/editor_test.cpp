@@ -4,10 +4,12 @@
 #include <imgui.h>
 
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 
 #include "edit/document.hpp"
+#include "edit/recent_files.hpp"
 #include "io/layout_reader.hpp"
 #include "render/headless.hpp"
 #include "trace/poses.hpp"
@@ -250,4 +252,20 @@ TEST_CASE("clicking a finding selects its element", "[viewer][edit]") {
     s.mouse(centre, false);
     REQUIRE(s.state.editor.selected.has_value());
     CHECK(doc.layout().elements[*s.state.editor.selected].id == doc.report().warnings.front().element);
+}
+
+TEST_CASE("recent files keep the newest first once each", "[viewer][edit]") {
+    const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-recent-test";
+    std::filesystem::remove_all(dir);
+    const std::filesystem::path file = dir / "rendezvous" / "recent.txt";
+    std::vector<std::string> list;
+    for (int k = 0; k < 12; ++k) list = rv::edit::with_recent(list, "/lab/layout-" + std::to_string(k) + ".json");
+    list = rv::edit::with_recent(list, "/lab/layout-5.json");
+    REQUIRE(list.size() == rv::edit::kMaxRecent);
+    CHECK(list.front() == "/lab/layout-5.json");
+    CHECK(list[1] == "/lab/layout-11.json");
+    CHECK(std::count(list.begin(), list.end(), "/lab/layout-5.json") == 1);
+    REQUIRE(rv::edit::save_recent(file, list));
+    CHECK(rv::edit::load_recent(file) == list);
+    std::filesystem::remove_all(dir);
 }

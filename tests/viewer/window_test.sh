@@ -8,6 +8,7 @@ bin=$1
 layout=$2
 dir=$(mktemp -d)
 trap 'rm -rf "$dir"' EXIT
+export XDG_CONFIG_HOME="$dir/config"   # the recent-files list goes here, not into the user's config
 # The viewer closes itself after 400 frames; the screenshot is taken while it is open.
 xvfb-run -a -s '-screen 0 1280x800x24' sh -c "
   \"$bin\" view \"$layout\" --quit-after-frames 400 &

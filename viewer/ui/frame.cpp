@@ -77,8 +77,10 @@ void draw_menu_bar(ViewerState& st) {
             ed.status = doc.save(error) ? "saved " + doc.path()->string() : error;
         }
         if (ImGui::MenuItem("Save As...")) st.open_save_as = true;
+        if (ImGui::MenuItem("Open...")) st.open_dialog = true;
         if (ImGui::BeginMenu("Open Recent", !st.recent.empty())) {
-            for (const std::string& f : st.recent) ImGui::MenuItem(f.c_str(), nullptr, false, false);
+            for (const std::string& f : st.recent)
+                if (ImGui::MenuItem(f.c_str())) st.open_request = f;
             ImGui::EndMenu();
         }
         ImGui::EndMenu();
@@ -146,6 +148,20 @@ void draw_menu_bar(ViewerState& st) {
             st.close_requested = false;
             ImGui::CloseCurrentPopup();
         }
+        ImGui::EndPopup();
+    }
+    if (st.open_dialog) {
+        ImGui::OpenPopup("Open a layout");
+        st.open_dialog = false;
+    }
+    if (ImGui::BeginPopupModal("Open a layout", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+        ImGui::InputText("file", st.open_path, sizeof st.open_path);
+        if (ImGui::Button("Open")) {
+            st.open_request = st.open_path;
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
         ImGui::EndPopup();
     }
     if (ImGui::BeginPopupModal("Save as", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {

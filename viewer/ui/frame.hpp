@@ -26,6 +26,9 @@ struct ViewerState {
     bool open_save_as = false;
     char save_as_path[1024] = {};
     std::vector<std::string> recent;  // recent files, newest first
+    std::optional<std::string> open_request;  // File ▸ Open or a recent file: the window opens it
+    bool open_dialog = false;
+    char open_path[1024] = {};
     // A recovery file found at start: offered once (restore or discard).
     std::optional<std::string> recovery_offer;
     // The window asked to close with unsaved changes: ask; quit once answered.

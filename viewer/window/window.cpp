@@ -5,10 +5,12 @@
 #include <backends/imgui_impl_glfw.h>
 #include <imgui.h>
 
+#include <memory>
 #include <ostream>
 
 #include "analysis/report.hpp"
 #include "cli/load.hpp"
+#include "edit/recent_files.hpp"
 #include "io/layout_reader.hpp"
 #include "io/lens_catalog.hpp"
 #include "render/cpu_rasterizer.hpp"
@@ -20,8 +22,8 @@ namespace rv::window {
 
 int run_window(const Layout& layout, const std::optional<std::filesystem::path>& path, const WindowOptions& options,
                std::ostream& err) {
-    edit::Document doc(layout, path);
-    const std::string title = doc.title();
+    auto doc = std::make_unique<edit::Document>(layout, path);
+    const std::string title = doc->title();
     if (!glfwInit()) {
         err << "rendezvous: error: cannot open a window (no display?); use `rendezvous render` for files\n";
         return 2;
@@ -38,10 +40,15 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
     glfwSwapInterval(1);
 
     ui::ViewerState state;
-    state.doc = &doc;
+    state.doc = doc.get();
     state.tools.catalog = parse_lens_catalog(cli::lens_catalog_text(), material_library_for(layout)).lenses;
-    if (path) state.recent.push_back(path->string());
-    if (std::filesystem::exists(doc.recovery_path())) state.recovery_offer = doc.recovery_path().string();
+    const std::filesystem::path recent_file = edit::recent_files_path();
+    state.recent = edit::load_recent(recent_file);
+    if (path) {
+        state.recent = edit::with_recent(state.recent, path->string());
+        edit::save_recent(recent_file, state.recent);
+    }
+    if (std::filesystem::exists(doc->recovery_path())) state.recovery_offer = doc->recovery_path().string();
     double last_autosave_s = glfwGetTime();
 
     IMGUI_CHECKVERSION();
@@ -58,13 +65,32 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
         glfwPollEvents();
         if (glfwWindowShouldClose(window)) {  // the close box: ask first when there are unsaved changes
             glfwSetWindowShouldClose(window, GLFW_FALSE);
-            if (doc.dirty()) state.close_requested = true;
+            if (doc->dirty()) state.close_requested = true;
             else break;
         }
         if (glfwGetTime() - last_autosave_s > 30.0) {
             std::string error;
-            if (!doc.autosave(error)) state.editor.status = error;
+            if (!doc->autosave(error)) state.editor.status = error;
             last_autosave_s = glfwGetTime();
+        }
+        if (state.open_request) {  // File ▸ Open or a recent file
+            const std::string file = *state.open_request;
+            state.open_request.reset();
+            const LayoutReadResult r = read_layout_file(file);
+            if (doc->dirty()) {
+                state.editor.status = "unsaved changes: save or undo them before opening another layout";
+            } else if (!r.layout) {
+                state.editor.status = r.diagnostics.empty() ? "cannot read " + file : format_diagnostic(r.diagnostics.front(), file);
+            } else {
+                doc = std::make_unique<edit::Document>(*r.layout, std::filesystem::path(file));
+                state.doc = doc.get();
+                state.editor = {};
+                state.view.reset();
+                state.recent = edit::with_recent(state.recent, file);
+                edit::save_recent(recent_file, state.recent);
+                glfwSetWindowTitle(window, ("Rendezvous — " + doc->title()).c_str());
+                if (std::filesystem::exists(doc->recovery_path())) state.recovery_offer = doc->recovery_path().string();
+            }
         }
         ImGui_ImplGlfw_NewFrame();
         ImGui::NewFrame();

@@ -1,0 +1,49 @@
+#include "edit/recent_files.hpp"
+
+#include <algorithm>
+#include <cstdlib>
+#include <fstream>
+#include <system_error>
+
+#include "io/atomic_file.hpp"
+
+namespace rv::edit {
+
+std::filesystem::path recent_files_path() {
+    if (const char* xdg = std::getenv("XDG_CONFIG_HOME"); xdg && *xdg) return std::filesystem::path(xdg) / "rendezvous" / "recent.txt";
+    if (const char* home = std::getenv("HOME"); home && *home) return std::filesystem::path(home) / ".config" / "rendezvous" / "recent.txt";
+    return "rendezvous-recent.txt";
+}
+
+std::vector<std::string> load_recent(const std::filesystem::path& file) {
+    std::vector<std::string> list;
+    std::ifstream in(file);
+    for (std::string line; std::getline(in, line) && list.size() < kMaxRecent;)
+        if (!line.empty()) list.push_back(line);
+    return list;
+}
+
+std::vector<std::string> with_recent(std::vector<std::string> list, const std::string& path) {
+    std::error_code ec;
+    std::filesystem::path absolute = std::filesystem::absolute(path, ec);
+    const std::string p = ec ? path : absolute.lexically_normal().string();
+    list.erase(std::remove(list.begin(), list.end(), p), list.end());
+    list.insert(list.begin(), p);
+    if (list.size() > kMaxRecent) list.resize(kMaxRecent);
+    return list;
+}
+
+bool save_recent(const std::filesystem::path& file, const std::vector<std::string>& list) {
+    try {
+        std::error_code ec;
+        std::filesystem::create_directories(file.parent_path(), ec);
+        std::string text;
+        for (const std::string& p : list) text += p + "\n";
+        write_file_atomically(file, text);
+        return true;
+    } catch (const std::exception&) {
+        return false;
+    }
+}
+
+}  // namespace rv::edit
