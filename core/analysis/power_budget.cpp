@@ -68,8 +68,18 @@ BeamPower run(const Layout& layout, const MaterialLibrary& library, const Path& 
             out.reached = true;
             out.at_target = s;
         }
+        // A slab acts once per pass, where it is entered (its other face and a crystal's centre
+        // plane do nothing); its aperture clips there too, before the element acts.
         const bool slab_face = h.interaction == Interaction::Refract;
-        const bool acts = !slab_face || entering_slab(h);  // a slab acts once per pass, where it is entered
+        const bool crystal_centre = h.face == Face::Centre;
+        const bool acts = (!slab_face || entering_slab(h)) && !crystal_centre;
+        if (acts && i < caustic.at_hits.size()) {
+            const double clipped = caustic.at_hits[i].clipped_fraction;
+            if (clipped > 0) {
+                lose(e.id, "clipped at its aperture", s[0] * clipped);
+                s *= 1 - clipped;
+            }
+        }
         if (acts) {
             const double before = s[0];
             Mueller m = Mueller::Identity();
@@ -93,6 +103,7 @@ BeamPower run(const Layout& layout, const MaterialLibrary& library, const Path& 
                                             ? Vec2((h.point_mm + path.hits[i + 1].point_mm) / 2)
                                             : h.point_mm;
                     PowerLoss loss{e.id, "reflected by the cube", reflected[0] * e.transmission, "", false, {}};
+                    lose(e.id, "coating loss (reflected port)", reflected[0] * (1 - e.transmission));
                     if (options.follow_branches) {
                         Followed f = follow(layout, library, path.beam, centre + 1e-3 * side, side);
                         loss.goes_to = f.where;
@@ -114,13 +125,6 @@ BeamPower run(const Layout& layout, const MaterialLibrary& library, const Path& 
             // (a cube's reflected part is its own loss entry above; before − after is that part)
             s *= e.transmission;
             lose(e.id, "coating loss", after_element * (1 - e.transmission));
-        }
-        if (i < caustic.at_hits.size()) {
-            const double clipped = caustic.at_hits[i].clipped_fraction;
-            if (clipped > 0) {
-                lose(e.id, "clipped at its aperture", s[0] * clipped);
-                s *= 1 - clipped;
-            }
         }
         if (h.interaction == Interaction::Absorb) {
             lose(e.id, "absorbed in the dump", s[0]);

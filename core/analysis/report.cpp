@@ -368,6 +368,34 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
     a.useful_fraction = s.power > 0 ? useful(b.power.at_target) / s.power : 0;
     const double src_mw = layout.beams[b.path.beam].power_mw;
     if (src_mw > 0) a.useful_mw = src_mw * useful(b.power.at_target);
+    // The angle of a plate that gives the most useful power: a 1° scan over 180°, then golden
+    // section over ±1°.
+    auto best_angle = [&](size_t plate) {
+        auto power_in_need = [&](double deg) {
+            return useful(target_stokes_with_plate(layout, library, b.path, b.caustic, plate, deg));
+        };
+        double best = 0, best_value = -1;
+        for (int k = 0; k < 180; ++k)
+            if (const double v = power_in_need(k); v > best_value) best_value = v, best = k;
+        double lo = best - 1, hi = best + 1;
+        const double g = (std::sqrt(5.0) - 1) / 2;
+        for (int it = 0; it < 40; ++it) {
+            const double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
+            if (power_in_need(x1) > power_in_need(x2)) hi = x2;
+            else lo = x1;
+        }
+        double angle = std::remainder((lo + hi) / 2, 180.0);
+        if (angle < 0) angle += 180;
+        return std::make_pair(angle, power_in_need(angle));
+    };
+    const size_t before_target = b.path.target_hit.value_or(b.path.hits.size());
+    for (const WavePlatePass& pass : b.power.plates) {
+        bool before = false;
+        for (size_t k = 0; k < before_target; ++k) before = before || b.path.hits[k].element == pass.element;
+        if (!before) continue;
+        const auto [angle, value] = best_angle(pass.element);
+        a.plates.push_back({pass.id, pass.fast_axis_deg, angle, useful(b.power.at_target), value});
+    }
     if (a.useful_fraction >= 0.99) return a;
     // The candidate plate.
     const size_t end = b.path.target_hit.value_or(b.path.hits.size());
@@ -392,21 +420,7 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
     const Plate& p = std::get<Plate>(layout.elements[*plate].kind);
     a.plate = layout.elements[*plate].id;
     a.plate_now_deg = p.fast_axis_deg;
-    auto power_in_need = [&](double deg) {
-        return useful(target_stokes_with_plate(layout, library, b.path, b.caustic, *plate, deg));
-    };
-    double best = 0, best_value = -1;
-    for (int k = 0; k < 360; ++k)
-        if (const double v = power_in_need(0.5 * k); v > best_value) best_value = v, best = 0.5 * k;
-    double lo = best - 0.5, hi = best + 0.5;  // golden-section refinement
-    const double g = (std::sqrt(5.0) - 1) / 2;
-    for (int it = 0; it < 40; ++it) {
-        const double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
-        if (power_in_need(x1) > power_in_need(x2)) hi = x2;
-        else lo = x1;
-    }
-    a.plate_best_deg = std::remainder((lo + hi) / 2, 180.0);
-    if (a.plate_best_deg < 0) a.plate_best_deg += 180;
+    a.plate_best_deg = best_angle(*plate).first;
     const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, *plate, a.plate_best_deg);
     a.useful_fraction_best = at_best[0] > 0 ? useful(at_best) / at_best[0] : 0;
     if (src_mw > 0) a.useful_mw_best = src_mw * useful(at_best);

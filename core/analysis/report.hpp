@@ -48,6 +48,14 @@ struct PolarizationAdvice {
     double useful_fraction_best = 0;  // with the plate at plate_best_deg (of the power at the target then)
     std::optional<double> useful_mw_best;
     std::string action;         // what to do, in words ("" when nothing)
+    // Every wave plate on the beam's path before the target: its angle now, and the angle that
+    // gives the most power in the needed polarization at the target (fractions of the source).
+    struct PlateSetting {
+        std::string plate;
+        double now_deg = 0, best_deg = 0;
+        double useful_now = 0, useful_best = 0;
+    };
+    std::vector<PlateSetting> plates;
 };
 
 struct OverlapReport {

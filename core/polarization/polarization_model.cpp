@@ -47,7 +47,7 @@ Stokes source_stokes(const Polarization& p, double polarized_fraction) {
 Mueller mueller_from_jones(const JonesMatrix& j) {
     Eigen::Matrix4cd a;
     const cd i(0, 1);
-    a << 1, 0, 0, 1, 1, 0, 0, -1, 0, 1, 1, 0, 0, i, -i, 0;
+    a << 1, 0, 0, 1, 1, 0, 0, -1, 0, 1, 1, 0, 0, -i, i, 0;
     Eigen::Matrix4cd kron;
     for (int r = 0; r < 2; ++r)
         for (int c = 0; c < 2; ++c)

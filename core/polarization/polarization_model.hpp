@@ -7,9 +7,11 @@
 // left of travel), V = vertical (out of the table). Angles of axes and of linear polarization run
 // from H towards V. Time dependence e^{i(kz − ωt)}: a wave delayed by Γ gains e^{iΓ}.
 // Stokes (Born & Wolf; Goldstein, Polarized Light, 2003) from a Jones vector (a, b) = (E_H, E_V):
-//   S0 = |a|² + |b|², S1 = |a|² − |b|², S2 = 2 Re(a b*), S3 = −2 Im(a b*);
-// M = A (J ⊗ J*) A⁻¹ with A = [1 0 0 1; 1 0 0 −1; 0 1 1 0; 0 i −i 0].
-// "circular-right" in a file is S3 = +1, E = (1, i)/√2 in this basis; "circular-left" S3 = −1.
+//   S0 = |a|² + |b|², S1 = |a|² − |b|², S2 = 2 Re(a b*), S3 = 2 Im(a b*);
+// M = A (J ⊗ J*) A⁻¹ with A = [1 0 0 1; 1 0 0 −1; 0 1 1 0; 0 −i i 0].
+// With (H, V, direction) right-handed, S3 > 0 is right-handed light in Born & Wolf's sense (the
+// field turns clockwise seen facing the source): E = (1, −i)/√2 has the real field
+// (cos ωt, −sin ωt). "circular-right" in a file is S3 = +1, "circular-left" S3 = −1.
 // Elements (Jones, before the power factors):
 // * wave plate, fast axis θ, retardance Γ: R(−θ) diag(1, e^{iΓ}) R(θ), R(θ) = [c s; −s c];
 // * polarizer, transmission axis θ, power extinction ratio ER: R(−θ) diag(1, 1/√ER) R(θ);

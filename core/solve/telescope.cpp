@@ -345,6 +345,16 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
         separable = separable && b.size() == 1;
         move_beam.push_back(b.empty() ? 0 : b[0]);
     }
+    // Movers on different arms that could come within min_spacing_mm of each other couple the
+    // arms through the spacing constraint: then the arms are not searched apart.
+    const double spacing = layout.goals.solve->min_spacing_mm;
+    for (size_t a = 0; separable && a < p.move_index.size(); ++a)
+        for (size_t b = a + 1; separable && b < p.move_index.size(); ++b) {
+            if (move_beam[a] == move_beam[b]) continue;
+            auto travel = [&](size_t k) { return std::max(std::abs(p.move_range[k].first), std::abs(p.move_range[k].second)); };
+            const double d = (placed_at(layout, p.move_index[a]) - placed_at(layout, p.move_index[b])).norm();
+            if (d - travel(a) - travel(b) < spacing) separable = false;
+        }
     std::vector<Candidate> ranked;
     if (separable) {
         std::vector<std::vector<Candidate>> per_beam;

@@ -188,9 +188,10 @@ using Medium = TraceCache::Medium;
 
 // A sample from the cache when it was taken of the same material, else a fresh one.
 template <class T, class Make>
-const T& cached(TraceCache::Tagged<T>& slot, const Material* material, Make make) {
-    if (!slot.value || slot.material != material) {
+const T& cached(TraceCache::Tagged<T>& slot, const Material* material, int variant, Make make) {
+    if (!slot.value || slot.material != material || slot.variant != variant) {
         slot.material = material;
+        slot.variant = variant;
         slot.value = make();
     }
     return *slot.value;
@@ -220,7 +221,8 @@ public:
         // How far any element has moved since the steps were recorded (see trace_cache.hpp).
         replaying_ = !memo_.steps.empty();
         for (size_t i = 0; replaying_ && i < placed.size(); ++i)
-            moved_mm_ = std::max(moved_mm_, (placed[i].at - memo_.placed_at_mm[i]).norm());
+            moved_mm_ = std::max(moved_mm_, (placed[i].at - memo_.placed_at_mm[i]).norm() +
+                                                std::max(0.0, placed[i].reach - memo_.placed_reach_mm[i]));
     }
 
     Path run();
@@ -348,7 +350,11 @@ void BeamTracer::record_steps() {
                 step.candidates.push_back(static_cast<uint32_t>(i));
     }
     memo_.placed_at_mm.resize(placed_.size());
-    for (size_t i = 0; i < placed_.size(); ++i) memo_.placed_at_mm[i] = placed_[i].at;
+    memo_.placed_reach_mm.resize(placed_.size());
+    for (size_t i = 0; i < placed_.size(); ++i) {
+        memo_.placed_at_mm[i] = placed_[i].at;
+        memo_.placed_reach_mm[i] = placed_[i].reach;
+    }
 }
 
 double BeamTracer::table_exit(const Vec2& p, const Vec2& d) const {
@@ -381,7 +387,7 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
     if (const auto* c = std::get_if<Crystal>(&kind); c && m.symmetry != Symmetry::Isotropic) {
         // Birefringent: the A (ordinary) wave when most of the beam's power is in it, else the
         // B wave at its angle ψ to the reference axis (trace/crystal_axes.hpp).
-        const CrystalIndices& x = cached(memo_.crystal[element], &m,
+        const CrystalIndices& x = cached(memo_.crystal[element], &m, static_cast<int>(c->principal_plane),
                                          [&] { return crystal_indices(m, nm, c->principal_plane); });
         const bool a_wave = a_wave_fraction(beam_.polarization, c->optic_axis_horizontal) >= 0.5;
         const double psi = a_wave ? 0.0
@@ -390,7 +396,7 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
         const WaveIndex w = wave_index(x, a_wave ? Polarity::A : Polarity::B, psi);
         return Medium{w.index, w.group_index};
     }
-    return cached(memo_.slab[element], &m, [&] {
+    return cached(memo_.slab[element], &m, 0, [&] {
         return Medium{sample_index(m, nm, Axis::X).index, absolute_index(m, *air_, nm, Axis::X).group_index};
     });
 }
@@ -485,7 +491,7 @@ Path BeamTracer::run() {
             } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
                 TraceCache::Tagged<TraceCache::LensGlass>& slot = memo_.lens[e];
                 if (slot.value && slot.value->design_wavelength_nm != thin->design_wavelength_nm) slot.value.reset();
-                const auto& g = cached(slot, pl.material, [&] {
+                const auto& g = cached(slot, pl.material, 1, [&] {
                     return TraceCache::LensGlass{thin->design_wavelength_nm, sample_index(*pl.material, wavelength).index,
                                                  sample_index(*pl.material, thin->design_wavelength_nm).index, 1};
                 });
@@ -493,7 +499,7 @@ Path BeamTracer::run() {
                 f = chromatic_focal_length_mm(thin->focal_length_mm, g.design_index, g.index);
             } else {
                 const auto& t = std::get<ThickLens>(lens->model);
-                const auto& g = cached(memo_.lens[e], pl.material, [&] {
+                const auto& g = cached(memo_.lens[e], pl.material, 2, [&] {
                     return TraceCache::LensGlass{0, sample_index(*pl.material, wavelength).index, 1,
                                                  absolute_index(*pl.material, *air_, wavelength).group_index};
                 });

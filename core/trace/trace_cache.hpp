@@ -13,7 +13,8 @@
 //   any element has moved since the recording (δ): with ε the larger distance between the new
 //   and the recorded step's end points, every point of the new step lies within ε of the
 //   recorded step, so an element that is not a candidate keeps at least
-//   kTraceMargin_mm − ε − δ > 0 clear of it and cannot be met first. The result is the same
+//   kTraceMargin_mm − ε − δ > 0 clear of it and cannot be met first (δ also counts how much any
+//   bounding circle has grown: a larger aperture or a thicker slab). The result is the same
 //   as a full search (a test compares them); when the condition fails the step is searched
 //   among all elements and the steps are recorded again.
 // A cache belongs to one layout's list of elements and beams; trace_layout checks the element
@@ -41,8 +42,10 @@ struct TraceCache {
         double index = 1, design_index = 1, group_index = 1;  // absolute group index
     };
     template <class T>
-    struct Tagged {  // a sample and the material it was taken of
+    struct Tagged {  // a sample and what it was taken of: the material, and for lenses the
+                     // model kind, for crystals the principal plane (`variant`)
         const Material* material = nullptr;
+        int variant = 0;
         std::optional<T> value;
     };
     struct Step {
@@ -57,6 +60,7 @@ struct TraceCache {
         std::vector<Tagged<LensGlass>> lens;           // chromatic and thick lenses
         std::vector<Step> steps;                       // the recorded trace
         std::vector<Vec2> placed_at_mm;                // element positions when it was recorded
+        std::vector<double> placed_reach_mm;           // and their bounding-circle radii
     };
     // Names resolved once per element (checked against the layout's names on every use):
     // the elements a stage carries, an aim_at mirror's target, the material by its name.

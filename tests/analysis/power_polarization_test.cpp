@@ -69,7 +69,8 @@ TEST_CASE("a quarter-wave plate at 45 degrees makes horizontal light circular", 
             "thickness_mm": 1, "fast_axis_deg": 45, "design_nm": 800},
            {"id": "T", "type": "target", "at_mm": [500, 500]})",
         "T"));
-    const rv::ReportBeam& b = beam0(report(l));
+    const rv::RendezvousReport b_report = report(l);
+    const rv::ReportBeam& b = beam0(b_report);
     const rv::PolarizationState s = b.at_target_polarization;
     CHECK_THAT(std::abs(b.power.at_target[3]), near(1.0, 1e-12));
     CHECK_THAT(std::abs(s.ellipticity_deg), near(45.0, 1e-9));
@@ -145,8 +146,32 @@ TEST_CASE("the power budget adds up to the source power", "[polarization]") {
     // A coating loss of 4 % on a window shows as such.
     const rv::Layout lossy = layout_from(hwp_cube(0, R"({"id": "W", "type": "plate", "at_mm": [300, 500],
         "material": "fused-silica", "thickness_mm": 2, "transmission": 0.96},)"));
-    const rv::ReportBeam& b = beam0(report(lossy));
+    const rv::RendezvousReport b_report = report(lossy);
+    const rv::ReportBeam& b = beam0(b_report);
     CHECK_THAT(b.power.at_target[0], near(0.96, 1e-8));
+    // A lossy cube met by light that it splits, and a lossy crystal (its transmission counts
+    // once, not again at its centre plane): the budget still adds up to 1.
+    const rv::Layout split = layout_from(layout_json(
+        R"({"id": "b", "wavelength_nm": 1064, "start_mm": [0, 500], "direction_deg": 0, "waist_um": 500,
+            "polarization": "linear", "polarization_angle_deg": 30})",
+        R"({"id": "PBS", "type": "plate", "at_mm": [100, 500], "role": "polarizing-cube", "material": "N-BK7",
+            "thickness_mm": 10, "transmission": 0.98},
+           {"id": "X", "type": "crystal", "at_mm": [400, 500], "material": "BBO", "length_mm": 2, "cut_deg": 22.8,
+            "phase_matching": "type-I", "transmission": 0.9},
+           {"id": "D", "type": "dump", "at_mm": [600, 500], "normal_deg": 180})",
+        "X"));
+    const rv::RendezvousReport c_report = report(split);
+    const rv::ReportBeam& c = beam0(c_report);
+    double sum = c.power.end_fraction;
+    for (const rv::PowerLoss& loss : c.power.losses) sum += loss.fraction;
+    CHECK_THAT(sum, near(1.0, 1e-12));
+    const double through_cube = 0.98 * (std::pow(std::cos(rv::deg_to_rad(30)), 2) + std::pow(std::sin(rv::deg_to_rad(30)), 2) / 1000);
+    // Malus through the cube, then the crystal's loss, counted once where the beam enters it.
+    CHECK_THAT(c.power.at_target[0], near(0.9 * through_cube, 1e-9));
+    double crystal_loss = 0;
+    for (const rv::PowerLoss& loss : c.power.losses)
+        if (loss.element == "X") crystal_loss += loss.fraction;
+    CHECK_THAT(crystal_loss, near(0.1 * through_cube, 1e-9));
 }
 
 TEST_CASE("peak intensity and fluence of a Gaussian pulse", "[polarization][intensity]") {
@@ -221,4 +246,29 @@ TEST_CASE("the crystal's index follows the polarization that arrives", "[polariz
     const double no = rv::sample_index(rv::test::material("BBO"), 1064, rv::Axis::Ordinary).index;
     CHECK_THAT(b.path.hits[*b.path.target_hit].index_before, near(no, 1e-12));
     CHECK(r.phase_matching.front().polarizations_suit);
+}
+
+TEST_CASE("circular handedness follows the rotation of the real field", "[polarization]") {
+    // Born & Wolf, Principles of Optics, §1.4.2: light is right-handed when, looking towards the
+    // source, the field turns clockwise. With e^{i(kz − ωt)}, E(t) = Re[J e^{−iωt}] in the (H, V)
+    // plane seen facing the source (H to the right, V up): clockwise means E(0) × E(T/8) < 0.
+    // Checked for the Jones output of a quarter-wave plate at ±45° on horizontal light, against
+    // the handedness the Stokes description gives.
+    for (double axis_deg : {45.0, -45.0}) {
+        INFO("fast axis " << axis_deg);
+        const rv::JonesMatrix q = rv::retarder_jones(rv::kPi / 2, rv::deg_to_rad(axis_deg));
+        const Eigen::Vector2cd e = q * Eigen::Vector2cd(1, 0);
+        auto field = [&](double phase) {
+            const std::complex<double> w = std::polar(1.0, -phase);
+            return Eigen::Vector2d((e[0] * w).real(), (e[1] * w).real());
+        };
+        const Eigen::Vector2d e0 = field(0), e1 = field(rv::kPi / 4);
+        const bool clockwise = e0.x() * e1.y() - e0.y() * e1.x() < 0;
+        const rv::PolarizationState s = rv::describe(rv::mueller_from_jones(q) * rv::Stokes(1, 1, 0, 0));
+        CHECK(std::abs(s.ellipticity_deg) > 44.9);
+        CHECK(rv::describe_text(s) == (clockwise ? "circular (right)" : "circular (left)"));
+    }
+    // A file's circular-right source is right-handed by the same reading.
+    CHECK(rv::describe_text(rv::describe(rv::source_stokes({rv::Polarization::Kind::CircularRight, 0}, 1))) ==
+          "circular (right)");
 }

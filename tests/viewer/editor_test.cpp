@@ -269,3 +269,47 @@ TEST_CASE("recent files keep the newest first once each", "[viewer][edit]") {
     CHECK(rv::edit::load_recent(file) == list);
     std::filesystem::remove_all(dir);
 }
+
+TEST_CASE("a field edit left by clicking the table is kept as one undo step", "[viewer][edit]") {
+    // Type into a field, then click empty table instead of pressing Enter: the edit stays, is
+    // one undo step, and marks the document unsaved.
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t l2 = index_of(doc.layout(), "L2_S");
+    s.mouse(s.screen_of("L2_S"), true);
+    s.mouse(s.screen_of("L2_S"), false);
+    s.frame();
+    const rv::ui::FieldRect r = s.state.inspector.field_rects["x"];
+    const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
+    s.mouse(centre, true);
+    s.mouse(centre, false);
+    s.type("333");
+    const ImVec2 empty = s.state.last_view.to_screen(rv::Vec2(450, 420));  // no optic there
+    s.mouse(empty, true);
+    s.mouse(empty, false);
+    s.frame();
+    CHECK(doc.layout().elements[l2].at_mm.x() == 333.0);
+    CHECK(doc.dirty());
+    CHECK_FALSE(doc.in_gesture());
+    s.key(rv::ui::keys::kZ, true);
+    CHECK(doc.layout().elements[l2].at_mm.x() == 310.0);
+}
+
+TEST_CASE("the selection follows its element through undo", "[viewer][edit]") {
+    // Select X, delete an optic listed before it, select X again, undo the delete: X stays
+    // selected although its index moved back by one.
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    s.mouse(s.screen_of("HWP_P"), true);
+    s.mouse(s.screen_of("HWP_P"), false);
+    s.key(ImGui::GetKeyIndex(ImGuiKey_Delete));
+    REQUIRE(doc.layout().elements.size() + 1 == demo().elements.size());
+    s.mouse(s.screen_of("X"), true);
+    s.mouse(s.screen_of("X"), false);
+    REQUIRE(s.state.editor.selected.has_value());
+    CHECK(doc.layout().elements[*s.state.editor.selected].id == "X");
+    s.key(rv::ui::keys::kZ, true);
+    s.frame();
+    REQUIRE(s.state.editor.selected.has_value());
+    CHECK(doc.layout().elements[*s.state.editor.selected].id == "X");
+}

@@ -66,6 +66,14 @@ json power_json(const Layout& layout, const ReportBeam& b) {
             {"left_at_end_fraction", b.power.end_fraction}, {"wave_plates", plates}};
 }
 
+json plate_settings_json(const PolarizationAdvice& a) {
+    json plates = json::array();
+    for (const PolarizationAdvice::PlateSetting& p : a.plates)
+        plates.push_back({{"id", p.plate}, {"now_deg", p.now_deg}, {"best_deg", p.best_deg},
+                          {"useful_now_fraction", p.useful_now}, {"useful_best_fraction", p.useful_best}});
+    return plates;
+}
+
 json to_json(const Layout& layout, const RendezvousReport& r) {
     json beams = json::object();
     for (const ReportBeam& b : r.beams) {
@@ -129,7 +137,8 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
         advice.push_back({{"beam", a.beam}, {"needs", a.needs}, {"useful_fraction", a.useful_fraction},
                           {"useful_mw", optional_number(a.useful_mw)}, {"plate", a.plate},
                           {"plate_now_deg", a.plate_now_deg}, {"plate_best_deg", a.plate_best_deg},
-                          {"useful_fraction_best", a.useful_fraction_best}, {"action", a.action}});
+                          {"useful_fraction_best", a.useful_fraction_best}, {"action", a.action},
+                          {"wave_plates", plate_settings_json(a)}});
     out["polarization"] = advice;
     if (!r.phase_matching.empty()) {
         out["phase_matching"] = phase_json(r.phase_matching.front());
@@ -182,6 +191,11 @@ void print_power(const RendezvousReport& r, std::ostream& out) {
         out << "  " << a.beam << " needs " << a.needs << ": " << percent(a.useful_fraction) << " of it is";
         if (a.useful_mw) out << " (" << fmt("%.1f", *a.useful_mw) << " mW)";
         out << (a.action.empty() ? "" : "; " + a.action) << "\n";
+        for (const PolarizationAdvice::PlateSetting& p : a.plates) {
+            out << "    " << p.plate << " at " << fmt("%.1f", p.now_deg) << "°: " << percent(p.useful_now)
+                << " of the source in " << a.needs << "; the most, " << percent(p.useful_best) << ", at "
+                << fmt("%.1f", p.best_deg) << "°\n";
+        }
     }
 }
 

@@ -18,6 +18,7 @@ std::string Document::title() const {
 }
 
 void Document::refresh() {
+    ++revision_;
     report_ = build_report(layout_, material_library_for(layout_));
     scene_ = scene::build_scene(layout_, report_);
 }
@@ -33,6 +34,7 @@ bool Document::acceptable(const Layout& layout, std::string& why) {
 }
 
 void Document::edit(Layout next) {
+    if (gesture_start_) finish_gesture(gesture_);  // an edit ends any gesture (one step each)
     if (next == layout_) return;
     if (!acceptable(next, last_refusal_)) return;
     undo_.push_back(std::move(layout_));
@@ -42,33 +44,47 @@ void Document::edit(Layout next) {
     refresh();
 }
 
-void Document::begin_gesture() { gesture_start_ = layout_; }
+Document::Gesture Document::begin_gesture() {
+    if (gesture_start_) finish_gesture(gesture_);
+    gesture_start_ = layout_;
+    gesture_ = next_gesture_++;
+    dirty_before_gesture_ = dirty_;
+    return gesture_;
+}
 
 void Document::preview(Layout next) {
+    if (next == layout_) return;
     if (!acceptable(next, last_refusal_)) return;
     last_refusal_.clear();
     layout_ = std::move(next);
+    dirty_ = true;
     refresh();
 }
 
-void Document::finish_gesture() {
-    if (!gesture_start_) return;
+void Document::finish_gesture(Gesture g) {
+    if (!in_gesture(g)) return;
     Layout start = std::move(*gesture_start_);
     gesture_start_.reset();
-    if (start == layout_) return;
+    if (start == layout_) {
+        dirty_ = dirty_before_gesture_;
+        return;
+    }
     undo_.push_back(std::move(start));
     redo_.clear();
     dirty_ = true;
 }
 
-void Document::cancel_gesture() {
-    if (!gesture_start_) return;
+void Document::cancel_gesture(Gesture g) {
+    if (!in_gesture(g)) return;
+    const bool changed = *gesture_start_ != layout_;
     layout_ = std::move(*gesture_start_);
     gesture_start_.reset();
-    refresh();
+    dirty_ = dirty_before_gesture_;
+    if (changed) refresh();
 }
 
 void Document::undo() {
+    if (gesture_start_) finish_gesture(gesture_);
     if (undo_.empty()) return;
     redo_.push_back(std::move(layout_));
     layout_ = std::move(undo_.back());
@@ -78,6 +94,7 @@ void Document::undo() {
 }
 
 void Document::redo() {
+    if (gesture_start_) finish_gesture(gesture_);
     if (redo_.empty()) return;
     undo_.push_back(std::move(layout_));
     layout_ = std::move(redo_.back());
@@ -95,6 +112,7 @@ bool Document::save(std::string& error) {
 }
 
 bool Document::save_as(const std::filesystem::path& path, std::string& error) {
+    if (gesture_start_) finish_gesture(gesture_);  // what is saved is what is shown, as one step
     try {
         save_layout(layout_, path);
     } catch (const std::exception& e) {
@@ -128,8 +146,10 @@ bool Document::autosave(std::string& error) {
 bool Document::restore_from(const std::filesystem::path& recovery) {
     const LayoutReadResult r = read_layout_file(recovery);
     if (!r.layout) return false;
+    if (*r.layout == layout_) return true;  // nothing to restore
+    const unsigned before = revision_;
     edit(*r.layout);
-    return true;
+    return revision_ != before;
 }
 
 }  // namespace rv::edit

@@ -36,13 +36,20 @@ public:
 
     // One finished edit: the old layout goes onto the undo stack, redo is cleared.
     void edit(Layout next);
-    // A gesture (a drag): previews change the layout without undo steps; finish makes the
-    // whole gesture one undo step (none when nothing changed), cancel restores the start.
-    void begin_gesture();
+    // A gesture (a drag, a field being typed in, a previewed solution): previews change the
+    // layout without undo steps; finishing makes the whole gesture one undo step (none when
+    // nothing changed), cancelling restores the start. One gesture at a time: beginning one
+    // finishes any other first, and finish/cancel act only on the gesture they were given (the
+    // number begin_gesture returned). A preview marks the document unsaved until it is cancelled.
+    using Gesture = int;
+    Gesture begin_gesture();
     void preview(Layout next);
-    void finish_gesture();
-    void cancel_gesture();
+    void finish_gesture(Gesture g);
+    void cancel_gesture(Gesture g);
     bool in_gesture() const { return gesture_start_.has_value(); }
+    bool in_gesture(Gesture g) const { return gesture_start_.has_value() && gesture_ == g; }
+    // Counts every change of the layout (edits, previews, undo, redo, cancels).
+    unsigned revision() const { return revision_; }
 
     bool can_undo() const { return !undo_.empty(); }
     bool can_redo() const { return !redo_.empty(); }
@@ -70,6 +77,9 @@ private:
     bool dirty_ = false;
     std::vector<Layout> undo_, redo_;
     std::optional<Layout> gesture_start_;
+    Gesture gesture_ = 0, next_gesture_ = 1;
+    bool dirty_before_gesture_ = false;
+    unsigned revision_ = 0;
     std::string last_refusal_;
     RendezvousReport report_;
     scene::Scene scene_;

@@ -96,23 +96,26 @@ bool edit_on_canvas(edit::Document& doc, EditorState& s, const View& view) {
     const ImGuiIO& io = ImGui::GetIO();
     const Vec2 cursor = view.to_table(io.MousePos);
     if (ImGui::IsItemActivated() && ImGui::IsMouseClicked(ImGuiMouseButton_Left)) {
-        s.selected = element_at(doc, cursor, view.px_per_mm);
-        if (s.selected) {
+        select(doc, s, element_at(doc, cursor, view.px_per_mm));
+        if (s.selected && !s.locked) {
             // The element keeps its offset from the cursor (a stage's offset stays on top of it).
             const Element& e = doc.layout().elements[*s.selected];
-            s.drag = EditorState::Drag{*s.selected, e.at_mm - cursor, e.at_mm};
-            doc.begin_gesture();
+            s.drag = EditorState::Drag{*s.selected, e.at_mm - cursor, e.at_mm, doc.begin_gesture()};
         }
     }
     if (s.drag) {
+        if (!doc.in_gesture(s.drag->gesture)) {  // something else ended it
+            s.drag.reset();
+            return false;
+        }
         if (ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Escape), false)) {
-            doc.cancel_gesture();
+            doc.cancel_gesture(s.drag->gesture);
             s.drag.reset();
             s.status = "move cancelled";
             return true;
         }
         if (!io.MouseDown[ImGuiMouseButton_Left]) {
-            doc.finish_gesture();
+            doc.finish_gesture(s.drag->gesture);
             s.drag.reset();
             return true;
         }
@@ -147,9 +150,14 @@ void delete_selected(edit::Document& doc, EditorState& s) {
             st->carries.erase(std::remove(st->carries.begin(), st->carries.end(), id), st->carries.end());
         if (auto* m = std::get_if<Mirror>(&e.kind); m && m->aim_at == id) m->aim_at.reset();
     }
+    const unsigned before = doc.revision();
     doc.edit(std::move(next));
+    if (doc.revision() == before) {
+        s.status = "cannot delete " + id + ": " + doc.last_refusal();
+        return;
+    }
     s.status = "deleted " + id;
-    s.selected.reset();
+    select(doc, s, std::nullopt);
 }
 
 void duplicate_selected(edit::Document& doc, EditorState& s) {
@@ -161,7 +169,7 @@ void duplicate_selected(edit::Document& doc, EditorState& s) {
     copy.at_mm += Vec2(next.table.grid_mm, next.table.grid_mm);
     next.elements.push_back(copy);
     doc.edit(std::move(next));
-    s.selected = doc.layout().elements.size() - 1;
+    select(doc, s, doc.layout().elements.size() - 1);
     s.status = "duplicated as " + copy.id;
 }
 
@@ -193,13 +201,33 @@ void add_element(edit::Document& doc, EditorState& s, const std::string& type, c
     e.id = unused_id(next, type == "lens" ? "L" : type == "mirror" ? "M" : type == "plate" ? "P" : type == "dump" ? "D" : "T");
     next.elements.push_back(e);
     doc.edit(std::move(next));
-    s.selected = doc.layout().elements.size() - 1;
+    select(doc, s, doc.layout().elements.size() - 1);
     s.status = "added " + e.id;
+}
+
+void select(const edit::Document& doc, EditorState& s, std::optional<size_t> element) {
+    s.selected = element && *element < doc.layout().elements.size() ? element : std::nullopt;
+    s.selected_id = s.selected ? doc.layout().elements[*s.selected].id : std::string();
+    s.selection_revision = doc.revision();
+}
+
+void sync_selection(const edit::Document& doc, EditorState& s) {
+    const auto& elements = doc.layout().elements;
+    if (doc.revision() != s.selection_revision && !s.selected_id.empty()) {
+        std::optional<size_t> found;
+        for (size_t i = 0; i < elements.size(); ++i)
+            if (elements[i].id == s.selected_id) found = i;
+        s.selected = found;  // the same element where it is now, or none when it is gone
+    }
+    if (s.selected && *s.selected >= elements.size()) s.selected.reset();
+    // A selection made since (a click, a finding) is recorded by its id.
+    s.selected_id = s.selected ? elements[*s.selected].id : std::string();
+    s.selection_revision = doc.revision();
 }
 
 void edit_shortcuts(edit::Document& doc, EditorState& s) {
     const ImGuiIO& io = ImGui::GetIO();
-    if (s.drag || io.WantTextInput) return;  // typing in a field is not a shortcut
+    if (s.drag || io.WantTextInput || s.locked) return;  // typing in a field is not a shortcut
     auto pressed = [](int key) { return ImGui::IsKeyPressed(key, false); };
     if (io.KeyCtrl && pressed(keys::kZ)) io.KeyShift ? doc.redo() : doc.undo();
     else if (io.KeyCtrl && pressed(keys::kY)) doc.redo();
@@ -216,10 +244,10 @@ void edit_shortcuts(edit::Document& doc, EditorState& s) {
         s.status = s.snap ? "snapping to the hole grid" : "free placement (no snapping)";
     } else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Delete))) delete_selected(doc, s);
     else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Escape))) {
-        s.selected.reset();
+        select(doc, s, std::nullopt);
         s.ruler.reset();
     }
-    if (s.selected && *s.selected >= doc.layout().elements.size()) s.selected.reset();  // after an undo
+
 }
 
 }  // namespace rv::ui

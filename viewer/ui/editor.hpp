@@ -14,11 +14,18 @@ namespace rv::ui {
 
 struct EditorState {
     std::optional<size_t> selected;  // element index
+    // The selected element's id and the document revision it was read at: after a change of
+    // the layout (undo, delete, …) the selection follows the id (sync_selection).
+    std::string selected_id;
+    unsigned selection_revision = 0;
+    // Set while a solver's solution is previewed: the layout is not edited then.
+    bool locked = false;
     bool snap = true;
     struct Drag {
         size_t element;
         Vec2 grab_offset_mm;  // element position minus the cursor's table point at the press
         Vec2 start_mm;
+        edit::Document::Gesture gesture = 0;
     };
     std::optional<Drag> drag;
     std::string status;  // the last thing the editor has to say (saved, an error)
@@ -44,6 +51,11 @@ bool edit_on_canvas(edit::Document& doc, EditorState& state, const View& view);
 
 // Keyboard shortcuts (window focused).
 void edit_shortcuts(edit::Document& doc, EditorState& state);
+
+// Keeps the selection on the same element across changes of the layout (call once a frame).
+void sync_selection(const edit::Document& doc, EditorState& state);
+// Selects an element and records its id.
+void select(const edit::Document& doc, EditorState& state, std::optional<size_t> element);
 
 // Operations behind the shortcuts and menus.
 void delete_selected(edit::Document& doc, EditorState& state);

@@ -71,14 +71,15 @@ void draw_menu_bar(ViewerState& st) {
     edit::Document& doc = *st.doc;
     EditorState& ed = st.editor;
     if (!ImGui::BeginMenuBar()) return;
+    const bool free = !ed.locked;  // a previewed solution blocks saving and editing
     if (ImGui::BeginMenu("File")) {
-        if (ImGui::MenuItem("Save", "Ctrl+S", false, doc.path().has_value())) {
+        if (ImGui::MenuItem("Save", "Ctrl+S", false, free && doc.path().has_value())) {
             std::string error;
             ed.status = doc.save(error) ? "saved " + doc.path()->string() : error;
         }
-        if (ImGui::MenuItem("Save As...")) st.open_save_as = true;
-        if (ImGui::MenuItem("Open...")) st.open_dialog = true;
-        if (ImGui::BeginMenu("Open Recent", !st.recent.empty())) {
+        if (ImGui::MenuItem("Save As...", nullptr, false, free)) st.open_save_as = true;
+        if (ImGui::MenuItem("Open...", nullptr, false, free)) st.open_dialog = true;
+        if (ImGui::BeginMenu("Open Recent", free && !st.recent.empty())) {
             for (const std::string& f : st.recent)
                 if (ImGui::MenuItem(f.c_str())) st.open_request = f;
             ImGui::EndMenu();
@@ -86,10 +87,10 @@ void draw_menu_bar(ViewerState& st) {
         ImGui::EndMenu();
     }
     if (ImGui::BeginMenu("Edit")) {
-        if (ImGui::MenuItem("Undo", "Ctrl+Z", false, doc.can_undo())) doc.undo();
-        if (ImGui::MenuItem("Redo", "Ctrl+Shift+Z / Ctrl+Y", false, doc.can_redo())) doc.redo();
+        if (ImGui::MenuItem("Undo", "Ctrl+Z", false, free && doc.can_undo())) doc.undo();
+        if (ImGui::MenuItem("Redo", "Ctrl+Shift+Z / Ctrl+Y", false, free && doc.can_redo())) doc.redo();
         ImGui::Separator();
-        const bool any = ed.selected.has_value();
+        const bool any = free && ed.selected.has_value();
         if (ImGui::MenuItem("Rotate +15°", "R", false, any)) rotate_selected(doc, ed, 15);
         if (ImGui::MenuItem("Rotate −15°", "Shift+R", false, any)) rotate_selected(doc, ed, -15);
         if (ImGui::MenuItem("Duplicate", "Ctrl+D", false, any)) duplicate_selected(doc, ed);
@@ -98,7 +99,7 @@ void draw_menu_bar(ViewerState& st) {
         ImGui::MenuItem("Snap to the hole grid", "G", &ed.snap);
         ImGui::EndMenu();
     }
-    if (ImGui::BeginMenu("Add")) {
+    if (ImGui::BeginMenu("Add", free)) {
         for (const char* type : {"lens", "mirror", "plate", "target", "dump"})
             if (ImGui::MenuItem(type)) add_element(doc, ed, type, st.last_view.centre_mm);
         ImGui::EndMenu();
@@ -193,6 +194,8 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
                      ImGuiWindowFlags_NoBringToFrontOnFocus | (doc ? ImGuiWindowFlags_MenuBar : 0));
     if (doc) {
         draw_menu_bar(*state);
+        state->editor.locked = state->tools.previewing.has_value();
+        sync_selection(*doc, state->editor);
         edit_shortcuts(*doc, state->editor);
         ImGui::Text("%s   %s", doc->title().c_str(), state->editor.status.c_str());
     } else {

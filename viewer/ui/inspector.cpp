@@ -14,23 +14,45 @@ void field(const char* key, const char* label, double* value, const char* format
     st.field_rects[key] = {ImGui::GetItemRectMin(), ImGui::GetItemRectMax()};
     if (ImGui::IsItemActivated()) {
         st.editing = true;
-        doc.begin_gesture();
+        st.gesture = doc.begin_gesture();
     }
-    if (changed && std::isfinite(*value)) doc.preview(st.scratch);
+    if (ImGui::IsItemActive()) st.active_this_frame = true;
+    if (changed && std::isfinite(*value) && doc.in_gesture(st.gesture)) doc.preview(st.scratch);
     if (ImGui::IsItemDeactivated()) {
         st.editing = false;
-        doc.finish_gesture();
+        doc.finish_gesture(st.gesture);
     }
 }
 
 }  // namespace
 
+// A field edit ends when its field is no longer active, or when something else (a drag, an
+// undo, another selection) has taken over: its gesture is finished then.
+void end_stale_edit(edit::Document& doc, const EditorState& editor, InspectorState& st) {
+    const bool same_element = editor.selected && *editor.selected < doc.layout().elements.size() &&
+                              doc.layout().elements[*editor.selected].id == st.element;
+    if (st.editing && (!doc.in_gesture(st.gesture) || !same_element)) {
+        doc.finish_gesture(st.gesture);
+        st.editing = false;
+    }
+}
+
 void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st) {
+    end_stale_edit(doc, editor, st);
     if (!editor.selected || *editor.selected >= doc.layout().elements.size()) {
-        ImGui::TextDisabled("Click an optic to inspect it; drag it to move it.");
+        ImGui::TextDisabled("Click an optic to inspect it; drag it to move it (M: measure).");
         return;
     }
-    if (!st.editing) st.scratch = doc.layout();
+    if (editor.locked) {
+        ImGui::TextWrapped("%s: a solution is previewed; Apply it or go back to edit.",
+                           doc.layout().elements[*editor.selected].id.c_str());
+        return;
+    }
+    if (!st.editing) {
+        st.scratch = doc.layout();
+        st.element = doc.layout().elements[*editor.selected].id;
+    }
+    st.active_this_frame = false;
     Element& e = st.scratch.elements[*editor.selected];
     ImGui::Text("%s", e.id.c_str());
     ImGui::PushID(static_cast<int>(*editor.selected));
@@ -78,6 +100,10 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
                 break;
             }
     ImGui::PopID();
+    if (st.editing && !st.active_this_frame) {  // the field lost focus without a deactivation
+        doc.finish_gesture(st.gesture);
+        st.editing = false;
+    }
     if (!doc.last_refusal().empty()) ImGui::TextColored(ImVec4(0.8f, 0.15f, 0.1f, 1), "not applied: %s", doc.last_refusal().c_str());
     ImGui::Separator();
 }

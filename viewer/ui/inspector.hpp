@@ -18,7 +18,10 @@ struct FieldRect {
 
 struct InspectorState {
     Layout scratch;        // the layout the fields edit (the document's, while none is active)
-    bool editing = false;  // a field is active
+    bool editing = false;  // a field is active: its gesture is open
+    edit::Document::Gesture gesture = 0;
+    std::string element;   // the id of the element being edited
+    bool active_this_frame = false;
     std::map<std::string, FieldRect> field_rects;  // last frame's field rectangles, for interface tests
 };
 

@@ -12,7 +12,7 @@ namespace rv::ui {
 namespace {
 
 void end_preview(edit::Document& doc, ToolsState& st) {
-    if (st.previewing && doc.in_gesture()) doc.cancel_gesture();
+    if (st.previewing) doc.cancel_gesture(st.preview_gesture);
     st.previewing.reset();
 }
 
@@ -36,14 +36,14 @@ void solve_section(edit::Document& doc, ToolsState& st) {
         if (!s.violations.empty()) label += " (breaks a constraint)";
         if (ImGui::Selectable(label.c_str(), st.previewing == k)) {
             end_preview(doc, st);
-            doc.begin_gesture();
+            st.preview_gesture = doc.begin_gesture();
             doc.preview(s.layout);
             st.previewing = k;
         }
     }
     if (st.previewing) {
         if (ImGui::Button("Apply")) {
-            doc.finish_gesture();
+            doc.finish_gesture(st.preview_gesture);
             st.previewing.reset();
             st.message = "applied the solution (Ctrl+Z undoes it)";
         }
@@ -88,6 +88,7 @@ void sweep_section(edit::Document& doc, ToolsState& st) {
 }  // namespace
 
 void draw_tools_panel(edit::Document& doc, ToolsState& st) {
+    if (st.previewing && !doc.in_gesture(st.preview_gesture)) st.previewing.reset();  // ended elsewhere
     if (!ImGui::CollapsingHeader("Solvers")) return;
     if (ImGui::Button("Balance the delay")) {
         end_preview(doc, st);

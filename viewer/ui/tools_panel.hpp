@@ -17,6 +17,7 @@ struct ToolsState {
     std::vector<CatalogLens> catalog;      // the lens catalog for the search (set by the window)
     SolveResult solve;                     // the last search
     std::optional<size_t> previewing;      // the solution shown on the table (a Document gesture)
+    edit::Document::Gesture preview_gesture = 0;
     std::optional<ToleranceReport> tolerance;
     char sweep_field[64] = "S1.position_mm";
     double sweep_from = 0, sweep_to = 40;

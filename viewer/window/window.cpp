@@ -85,6 +85,10 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
                 doc = std::make_unique<edit::Document>(*r.layout, std::filesystem::path(file));
                 state.doc = doc.get();
                 state.editor = {};
+                state.inspector = {};
+                state.tools.solve = {};
+                state.tools.previewing.reset();
+                state.tools.tolerance.reset();
                 state.view.reset();
                 state.recent = edit::with_recent(state.recent, file);
                 edit::save_recent(recent_file, state.recent);
