@@ -11,6 +11,7 @@
 #include "edit/document.hpp"
 #include "edit/recent_files.hpp"
 #include "io/layout_reader.hpp"
+#include "render/export.hpp"
 #include "render/headless.hpp"
 #include "trace/poses.hpp"
 #include "ui/frame.hpp"
@@ -312,4 +313,46 @@ TEST_CASE("the selection follows its element through undo", "[viewer][edit]") {
     s.frame();
     REQUIRE(s.state.editor.selected.has_value());
     CHECK(doc.layout().elements[*s.state.editor.selected].id == "X");
+}
+
+TEST_CASE("the inspector edits names and roles and refuses unknown materials", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t w = index_of(doc.layout(), "HWP_P");
+    s.mouse(s.screen_of("HWP_P"), true);
+    s.mouse(s.screen_of("HWP_P"), false);
+    s.frame();
+    auto type_into = [&](const char* key, const std::string& text) {
+        REQUIRE(s.state.inspector.field_rects.count(key) == 1);
+        const rv::ui::FieldRect r = s.state.inspector.field_rects[key];
+        const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
+        s.mouse(centre, true);
+        s.mouse(centre, false);
+        s.key(ImGui::GetKeyIndex(ImGuiKey_A), true);  // Ctrl+A selects the old name
+        s.type(text);
+        s.key(ImGui::GetKeyIndex(ImGuiKey_Enter));
+    };
+    type_into("material", "fused-silica");
+    CHECK(std::get<rv::Plate>(doc.layout().elements[w].kind).slab.material == "fused-silica");
+    type_into("material", "unobtainium");
+    CHECK(std::get<rv::Plate>(doc.layout().elements[w].kind).slab.material == "fused-silica");
+    CHECK(doc.last_refusal().find("unobtainium") != std::string::npos);
+}
+
+TEST_CASE("export writes the frame as PNG and the table as SVG", "[viewer][edit]") {
+    const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-export-test";
+    std::filesystem::create_directories(dir);
+    rv::edit::Document doc(demo());
+    CHECK(rv::render::export_document(doc, dir / "frame.png", false).empty());
+    CHECK(rv::render::export_document(doc, dir / "table.svg", true).empty());
+    std::ifstream png(dir / "frame.png", std::ios::binary);
+    char magic[8] = {};
+    png.read(magic, 8);
+    CHECK(std::string(magic + 1, 3) == "PNG");
+    std::ifstream svg(dir / "table.svg");
+    const std::string text((std::istreambuf_iterator<char>(svg)), std::istreambuf_iterator<char>());
+    CHECK(text.find("<svg") != std::string::npos);
+    CHECK(text.find("L2_S") != std::string::npos);
+    CHECK_FALSE(rv::render::export_document(doc, "/nonexistent-folder/x.png", false).empty());
+    std::filesystem::remove_all(dir);
 }

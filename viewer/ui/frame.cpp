@@ -79,6 +79,7 @@ void draw_menu_bar(ViewerState& st) {
         }
         if (ImGui::MenuItem("Save As...", nullptr, false, free)) st.open_save_as = true;
         if (ImGui::MenuItem("Open...", nullptr, false, free)) st.open_dialog = true;
+        if (ImGui::MenuItem("Export PNG or SVG...")) st.export_dialog = true;
         if (ImGui::BeginMenu("Open Recent", free && !st.recent.empty())) {
             for (const std::string& f : st.recent)
                 if (ImGui::MenuItem(f.c_str())) st.open_request = f;
@@ -154,6 +155,26 @@ void draw_menu_bar(ViewerState& st) {
     if (st.open_dialog) {
         ImGui::OpenPopup("Open a layout");
         st.open_dialog = false;
+    }
+    if (st.export_dialog) {
+        ImGui::OpenPopup("Export");
+        st.export_dialog = false;
+    }
+    if (ImGui::BeginPopupModal("Export", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+        ImGui::InputText("file", st.export_path, sizeof st.export_path);
+        ImGui::TextDisabled("PNG: the whole frame at 1600 x 1000; SVG: the table at true scale");
+        if (ImGui::Button("PNG")) {
+            st.export_request = ViewerState::ExportRequest{st.export_path, false};
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("SVG")) {
+            st.export_request = ViewerState::ExportRequest{st.export_path, true};
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
+        ImGui::EndPopup();
     }
     if (ImGui::BeginPopupModal("Open a layout", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
         ImGui::InputText("file", st.open_path, sizeof st.open_path);

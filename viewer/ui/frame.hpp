@@ -27,6 +27,13 @@ struct ViewerState {
     char save_as_path[1024] = {};
     std::vector<std::string> recent;  // recent files, newest first
     std::optional<std::string> open_request;  // File ▸ Open or a recent file: the window opens it
+    struct ExportRequest {
+        std::string path;
+        bool svg = false;  // else PNG of the whole frame
+    };
+    std::optional<ExportRequest> export_request;  // File ▸ Export: the window writes it after the frame
+    bool export_dialog = false;
+    char export_path[1024] = "layout.png";
     bool open_dialog = false;
     char open_path[1024] = {};
     // A recovery file found at start: offered once (restore or discard).

@@ -24,6 +24,42 @@ void field(const char* key, const char* label, double* value, const char* format
     }
 }
 
+// A name field (a material or glass): applied as one edit when the field is left after typing;
+// a name the library does not know is refused with the reader's message.
+void name_field(const char* key, const char* label, std::string* value, edit::Document& doc, InspectorState& st) {
+    char buffer[128];
+    const std::string& shown = st.text.count(key) ? st.text[key] : *value;
+    std::snprintf(buffer, sizeof buffer, "%s", shown.c_str());
+    ImGui::SetNextItemWidth(120);
+    ImGui::InputText(label, buffer, sizeof buffer);
+    st.field_rects[key] = {ImGui::GetItemRectMin(), ImGui::GetItemRectMax()};
+    if (ImGui::IsItemActive()) st.text[key] = buffer;
+    if (ImGui::IsItemDeactivatedAfterEdit()) {
+        *value = buffer;
+        doc.edit(st.scratch);
+    }
+    if (!ImGui::IsItemActive()) st.text.erase(key);
+}
+
+// A plate's role from a list; one edit on a choice.
+void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
+    static const char* const names[] = {"window", "half-wave", "quarter-wave", "polarizing-cube", "polarizer"};
+    int role = static_cast<int>(plate.role);
+    ImGui::SetNextItemWidth(120);
+    if (ImGui::Combo("role", &role, names, 5)) {
+        using R = Plate::Role;
+        plate.role = static_cast<R>(role);
+        const bool wave = plate.role == R::HalfWave || plate.role == R::QuarterWave;
+        // Keys of the old role that the new one does not take go back to their defaults.
+        if (!wave) plate.design_nm = 0, plate.retarder_material.clear(), plate.order = 0, plate.retarder_thickness_um = 0;
+        if (wave && plate.design_nm <= 0) plate.design_nm = 1000;  // a round design wavelength to edit
+        if (!wave && plate.role != R::Polarizer) plate.fast_axis_deg = 0;
+        if (plate.role != R::PolarizingCube && plate.role != R::Polarizer) plate.extinction_ratio = 1000;
+        if (plate.role != R::PolarizingCube) plate.reflects_left = true;
+        doc.edit(st.scratch);
+    }
+}
+
 }  // namespace
 
 // A field edit ends when its field is no longer active, or when something else (a drag, an
@@ -64,8 +100,12 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
     }
     if (auto* lens = std::get_if<Lens>(&e.kind)) {
         if (auto* ideal = std::get_if<IdealLens>(&lens->model)) field("f", "focal length (mm)", &ideal->focal_length_mm, "%.2f", doc, st);
-        if (auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) field("f", "focal length (mm)", &thin->focal_length_mm, "%.2f", doc, st);
+        if (auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
+            field("f", "focal length (mm)", &thin->focal_length_mm, "%.2f", doc, st);
+            name_field("glass", "glass", &thin->glass, doc, st);
+        }
         if (auto* thick = std::get_if<ThickLens>(&lens->model)) {
+            name_field("glass", "glass", &thick->glass, doc, st);
             field("r1", "front radius (mm)", &thick->front_radius_mm, "%.2f", doc, st);
             field("r2", "back radius (mm)", &thick->back_radius_mm, "%.2f", doc, st);
             field("ct", "centre thickness (mm)", &thick->center_thickness_mm, "%.2f", doc, st);
@@ -74,9 +114,12 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
         field("position", "position (mm)", &stage->position_mm, "%.3f", doc, st);
         field("axis", "axis (deg)", &stage->axis_deg, "%.2f", doc, st);
     } else if (auto* crystal = std::get_if<Crystal>(&e.kind)) {
+        name_field("material", "material", &crystal->material, doc, st);
         field("length", "length (mm)", &crystal->length_mm, "%.3f", doc, st);
         field("cut", "cut angle (deg)", &crystal->cut_deg, "%.3f", doc, st);
     } else if (auto* plate = std::get_if<Plate>(&e.kind)) {
+        role_field(*plate, doc, st);
+        name_field("material", "material", &plate->slab.material, doc, st);
         field("thickness", "thickness (mm)", &plate->slab.thickness_mm, "%.3f", doc, st);
         using R = Plate::Role;
         if (plate->role == R::HalfWave || plate->role == R::QuarterWave || plate->role == R::Polarizer)
@@ -88,6 +131,7 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
             field("extinction", "extinction ratio", &plate->extinction_ratio, "%.0f", doc, st);
     } else if (auto* dichroic = std::get_if<Dichroic>(&e.kind)) {
         field("edge", "edge (nm)", &dichroic->edge_nm, "%.1f", doc, st);
+        name_field("glass", "substrate glass", &dichroic->substrate.material, doc, st);
         field("thickness", "substrate (mm)", &dichroic->substrate.thickness_mm, "%.3f", doc, st);
     }
     if (!std::holds_alternative<Stage>(e.kind)) field("transmission", "transmission", &e.transmission, "%.4f", doc, st);

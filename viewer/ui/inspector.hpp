@@ -23,6 +23,7 @@ struct InspectorState {
     std::string element;   // the id of the element being edited
     bool active_this_frame = false;
     std::map<std::string, FieldRect> field_rects;  // last frame's field rectangles, for interface tests
+    std::map<std::string, std::string> text;       // text fields being typed in (material names)
 };
 
 void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& state);

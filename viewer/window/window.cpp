@@ -14,6 +14,7 @@
 #include "io/layout_reader.hpp"
 #include "io/lens_catalog.hpp"
 #include "render/cpu_rasterizer.hpp"
+#include "render/export.hpp"
 #include "render/headless.hpp"
 #include "scene/scene.hpp"
 #include "ui/frame.hpp"
@@ -130,6 +131,12 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
         glTexCoord2f(0, 1), glVertex2f(0, 1);
         glEnd();
         glfwSwapBuffers(window);
+        if (state.export_request) {  // File ▸ Export, outside the frame (the PNG has its own context)
+            const ui::ViewerState::ExportRequest req = *state.export_request;
+            state.export_request.reset();
+            const std::string error = render::export_document(*doc, req.path, req.svg, options.threads);
+            state.editor.status = error.empty() ? "exported " + req.path : error;
+        }
     }
     glDeleteTextures(1, &texture);
     ImGui_ImplGlfw_Shutdown();
