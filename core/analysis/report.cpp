@@ -399,29 +399,32 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
     if (a.useful_fraction >= 0.99) return a;
     // The candidate plate.
     const size_t end = b.path.target_hit.value_or(b.path.hits.size());
-    std::optional<size_t> plate, last_polarizer;
+    constexpr size_t kNone = SIZE_MAX;
+    size_t plate = kNone;
+    std::optional<size_t> last_polarizer;
     for (size_t k = 0; k < end; ++k) {
         const Element& e = layout.elements[b.path.hits[k].element];
         if (const auto* p = std::get_if<Plate>(&e.kind)) {
             if (p->role == Plate::Role::PolarizingCube || p->role == Plate::Role::Polarizer) {
                 last_polarizer = b.path.hits[k].element;
-                plate.reset();
+                plate = kNone;
             } else if (p->role == Plate::Role::HalfWave || p->role == Plate::Role::QuarterWave) {
                 plate = b.path.hits[k].element;
             }
         }
     }
-    if (!plate) {
+    if (plate == kNone) {
         a.action = "add a half-wave plate" +
                    (last_polarizer ? " after " + layout.elements[*last_polarizer].id : std::string()) +
                    ": only " + fmt("%.0f", 100 * a.useful_fraction) + " % of " + b.id + " is " + a.needs;
         return a;
     }
-    const Plate& p = std::get<Plate>(layout.elements[*plate].kind);
-    a.plate = layout.elements[*plate].id;
+    const size_t turn = plate;
+    const Plate& p = std::get<Plate>(layout.elements[turn].kind);
+    a.plate = layout.elements[turn].id;
     a.plate_now_deg = p.fast_axis_deg;
-    a.plate_best_deg = best_angle(*plate).first;
-    const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, *plate, a.plate_best_deg);
+    a.plate_best_deg = best_angle(turn).first;
+    const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, turn, a.plate_best_deg);
     a.useful_fraction_best = at_best[0] > 0 ? useful(at_best) / at_best[0] : 0;
     if (src_mw > 0) a.useful_mw_best = src_mw * useful(at_best);
     a.action = "turn " + a.plate + "'s fast axis from " + fmt("%.1f", a.plate_now_deg) + "° to " +

@@ -281,7 +281,7 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
         return result;
     }
     const SolveGoals& goals = *layout.goals.solve;
-    Problem p{layout, library, {}, {}, {}, {}, {}, goals.aim};
+    Problem p{layout, library, {}, {}, {}, {}, {}, goals.aim, std::nullopt};
     auto index_of = [&](const std::string& id) {
         for (size_t i = 0; i < layout.elements.size(); ++i)
             if (layout.elements[i].id == id) return i;

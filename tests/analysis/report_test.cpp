@@ -76,7 +76,11 @@ TEST_CASE("turning the crystal as advised phase-matches it", "[report][phase]") 
         rv::Layout l = demo();
         for (rv::BeamSource& b : l.beams) b.polarization.kind = rv::Polarization::Kind::Vertical;
         for (rv::Element& e : l.elements)  // no polarizing optics: the beams arrive as they start
-            if (auto* p = std::get_if<rv::Plate>(&e.kind)) *p = rv::Plate{rv::Plate::Role::Window, p->slab};
+            if (auto* p = std::get_if<rv::Plate>(&e.kind)) {
+                rv::Plate plain;
+                plain.slab = p->slab;
+                *p = plain;
+            }
         auto& x = std::get<rv::Crystal>(element(l, "X").kind);
         x.optic_axis_horizontal = true;
         element(l, "X").normal_deg = start_deg;
@@ -167,7 +171,9 @@ TEST_CASE("calibrating time zero predicts the new zero after a window is added",
     rv::Element window;
     window.id = "W";
     window.at_mm = {140, 300};
-    window.kind = rv::Plate{rv::Plate::Role::Window, {"fused-silica", 2.0}, 0.0};
+    rv::Plate glass;
+    glass.slab = {"fused-silica", 2.0};
+    window.kind = glass;
     changed.elements.push_back(window);
     const rv::RendezvousReport after = report(changed);
     const double ng = rv::absolute_index(*lib.find("fused-silica"), *lib.find("air"), 1030).group_index;

@@ -71,7 +71,10 @@ TEST_CASE("a telescope spacing cancels the shared lens's chromatic focal shift",
     // telescope's second lens (and the crystal) brings both waists to the crystal centre,
     // within 1 % of the shorter Rayleigh range (the solver issue's criterion).
     rv::Layout l = rv::test::bundled_layout("sfg-bbo.json");
-    l.goals.solve = rv::SolveGoals{rv::SolveGoals::Aim::Focus, {{"L2_S", {-20, 20}}, {"X", {-10, 10}}}, {}};
+    rv::SolveGoals goals;
+    goals.aim = rv::SolveGoals::Aim::Focus;
+    goals.move = {{"L2_S", {-20, 20}}, {"X", {-10, 10}}};
+    l.goals.solve = goals;
     const rv::SolveResult r = rv::solve_telescopes(l, rv::material_library_for(l), {});
     REQUIRE(r.error.empty());
     REQUIRE(!r.solutions.empty());
@@ -107,7 +110,10 @@ TEST_CASE("the solver says why it cannot start", "[solve]") {
     rv::Layout l = rv::test::bundled_layout("sfg-bbo.json");
     CHECK(rv::solve_telescopes(l, rv::material_library_for(l), {}).error ==
           "the layout has no goals.solve: name what may move or be swapped");
-    l.goals.solve = rv::SolveGoals{rv::SolveGoals::Aim::Focus, {{"S1", {-1, 1}}}, {}};
+    rv::SolveGoals goals;
+    goals.aim = rv::SolveGoals::Aim::Focus;
+    goals.move = {{"S1", {-1, 1}}};
+    l.goals.solve = goals;
     CHECK(rv::solve_telescopes(l, rv::material_library_for(l), {}).error ==
           "S1 is on no beam's path, so it cannot move along one");
 }
