@@ -9,6 +9,7 @@
 #include <fstream>
 
 #include "edit/document.hpp"
+#include "support/tolerance.hpp"
 #include "edit/recent_files.hpp"
 #include "io/layout_reader.hpp"
 #include "render/export.hpp"
@@ -355,4 +356,27 @@ TEST_CASE("export writes the frame as PNG and the table as SVG", "[viewer][edit]
     CHECK(text.find("L2_S") != std::string::npos);
     CHECK_FALSE(rv::render::export_document(doc, "/nonexistent-folder/x.png", false).empty());
     std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("a beam's power is edited in the inspector", "[viewer][edit]") {
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const double before_mw = *doc.report().beams[1].target_power_mw;
+    auto click = [&](const char* key) {
+        REQUIRE(s.state.inspector.field_rects.count(key) == 1);
+        const rv::ui::FieldRect r = s.state.inspector.field_rects[key];
+        const ImVec2 c((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
+        s.mouse(c, true);
+        s.mouse(c, false);
+    };
+    click("beams");  // open the header
+    s.frame();
+    click("beam signal power");
+    s.type("150");
+    s.key(ImGui::GetKeyIndex(ImGuiKey_Enter));
+    CHECK(doc.layout().beams[1].power_mw == 150.0);
+    // The power at the target scales with the source (the same fraction arrives).
+    CHECK_THAT(*doc.report().beams[1].target_power_mw, rv::test::near_rel(before_mw / 2, 1e-9));
+    s.key(rv::ui::keys::kZ, true);
+    CHECK(doc.layout().beams[1].power_mw == 300.0);
 }

@@ -1,6 +1,8 @@
 #include "ui/inspector.hpp"
 
+#include <cmath>
 #include <cstdio>
+#include <optional>
 
 namespace rv::ui {
 
@@ -60,37 +62,33 @@ void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
     }
 }
 
-}  // namespace
+// A choice among names (one edit on a choice).
+bool choice_field(const char* label, int* value, const char* const* names, int count) {
+    ImGui::SetNextItemWidth(120);
+    return ImGui::Combo(label, value, names, count);
+}
 
 // A field edit ends when its field is no longer active, or when something else (a drag, an
 // undo, another selection) has taken over: its gesture is finished then.
 void end_stale_edit(edit::Document& doc, const EditorState& editor, InspectorState& st) {
-    const bool same_element = editor.selected && *editor.selected < doc.layout().elements.size() &&
-                              doc.layout().elements[*editor.selected].id == st.element;
-    if (st.editing && (!doc.in_gesture(st.gesture) || !same_element)) {
+    if (!st.editing) return;
+    bool owner_there = false;
+    if (st.element.rfind("beam ", 0) == 0) {
+        for (const BeamSource& b : doc.layout().beams) owner_there = owner_there || "beam " + b.id == st.element;
+    } else {
+        owner_there = editor.selected && *editor.selected < doc.layout().elements.size() &&
+                      doc.layout().elements[*editor.selected].id == st.element;
+    }
+    if (!doc.in_gesture(st.gesture) || !owner_there || st.scratch.elements.size() != doc.layout().elements.size()) {
         doc.finish_gesture(st.gesture);
         st.editing = false;
     }
 }
 
-void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st) {
-    end_stale_edit(doc, editor, st);
-    if (!editor.selected || *editor.selected >= doc.layout().elements.size()) {
-        ImGui::TextDisabled("Click an optic to inspect it; drag it to move it (M: measure).");
-        return;
-    }
-    if (editor.locked) {
-        ImGui::TextWrapped("%s: a solution is previewed; Apply it or go back to edit.",
-                           doc.layout().elements[*editor.selected].id.c_str());
-        return;
-    }
-    if (!st.editing) {
-        st.scratch = doc.layout();
-        st.element = doc.layout().elements[*editor.selected].id;
-    }
-    st.active_this_frame = false;
+void element_fields(edit::Document& doc, const EditorState& editor, InspectorState& st) {
     Element& e = st.scratch.elements[*editor.selected];
-    ImGui::Text("%s", e.id.c_str());
+    if (!st.editing) st.element = e.id;
+    ImGui::Text("%s (%s)", e.id.c_str(), type_name(e.kind));
     ImGui::PushID(static_cast<int>(*editor.selected));
     field("x", "x (mm)", &e.at_mm.x(), "%.3f", doc, st);
     field("y", "y (mm)", &e.at_mm.y(), "%.3f", doc, st);
@@ -103,20 +101,54 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
         if (auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
             field("f", "focal length (mm)", &thin->focal_length_mm, "%.2f", doc, st);
             name_field("glass", "glass", &thin->glass, doc, st);
+            field("design", "design wavelength (nm)", &thin->design_wavelength_nm, "%.1f", doc, st);
         }
         if (auto* thick = std::get_if<ThickLens>(&lens->model)) {
             name_field("glass", "glass", &thick->glass, doc, st);
-            field("r1", "front radius (mm)", &thick->front_radius_mm, "%.2f", doc, st);
-            field("r2", "back radius (mm)", &thick->back_radius_mm, "%.2f", doc, st);
+            if (thick->shape.empty()) {
+                field("r1", "front radius (mm)", &thick->front_radius_mm, "%.2f", doc, st);
+                field("r2", "back radius (mm)", &thick->back_radius_mm, "%.2f", doc, st);
+            } else {
+                ImGui::Text("shape: %s", thick->shape.c_str());
+                field("f", "focal length (mm)", &thick->focal_length_mm, "%.2f", doc, st);
+            }
             field("ct", "centre thickness (mm)", &thick->center_thickness_mm, "%.2f", doc, st);
         }
+    } else if (auto* mirror = std::get_if<Mirror>(&e.kind)) {
+        double radius = mirror->radius_of_curvature_mm.value_or(0);
+        const double before = radius;
+        field("roc", "radius of curvature (mm, 0 flat)", &radius, "%.1f", doc, st);
+        if (radius != before) {  // 0 means flat: edited through the optional
+            mirror->radius_of_curvature_mm = radius == 0 ? std::nullopt : std::optional<double>(radius);
+            if (st.editing) doc.preview(st.scratch);
+        }
+        field("retardance", "s - p phase (deg)", &mirror->retardance_deg, "%.2f", doc, st);
+        if (mirror->aim_at) ImGui::Text("aims at %s", mirror->aim_at->c_str());
     } else if (auto* stage = std::get_if<Stage>(&e.kind)) {
         field("position", "position (mm)", &stage->position_mm, "%.3f", doc, st);
         field("axis", "axis (deg)", &stage->axis_deg, "%.2f", doc, st);
+        field("travel_min", "travel from (mm)", &stage->travel_min_mm, "%.2f", doc, st);
+        field("travel_max", "travel to (mm)", &stage->travel_max_mm, "%.2f", doc, st);
+        std::string carries;
+        for (const std::string& c : stage->carries) carries += (carries.empty() ? "" : ", ") + c;
+        ImGui::TextWrapped("carries %s", carries.c_str());
     } else if (auto* crystal = std::get_if<Crystal>(&e.kind)) {
         name_field("material", "material", &crystal->material, doc, st);
         field("length", "length (mm)", &crystal->length_mm, "%.3f", doc, st);
         field("cut", "cut angle (deg)", &crystal->cut_deg, "%.3f", doc, st);
+        static const char* const types[] = {"type-I", "type-II"};
+        int type = crystal->phase_matching == Crystal::PhaseMatching::TypeII ? 1 : 0;
+        if (choice_field("phase matching", &type, types, 2)) {
+            crystal->phase_matching = type ? Crystal::PhaseMatching::TypeII : Crystal::PhaseMatching::TypeI;
+            doc.edit(st.scratch);
+        }
+        static const char* const axes[] = {"vertical", "horizontal"};
+        int axis = crystal->optic_axis_horizontal ? 1 : 0;
+        if (choice_field("optic axis plane", &axis, axes, 2)) {
+            crystal->optic_axis_horizontal = axis == 1;
+            doc.edit(st.scratch);
+        }
+        field("damage_i", "damage (GW/cm², 0 none)", &crystal->damage.intensity_gw_cm2, "%.1f", doc, st);
     } else if (auto* plate = std::get_if<Plate>(&e.kind)) {
         role_field(*plate, doc, st);
         name_field("material", "material", &plate->slab.material, doc, st);
@@ -125,14 +157,32 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
         if (plate->role == R::HalfWave || plate->role == R::QuarterWave || plate->role == R::Polarizer)
             field("fast_axis", plate->role == R::Polarizer ? "transmission axis (deg)" : "fast axis (deg)",
                   &plate->fast_axis_deg, "%.2f", doc, st);
-        if (plate->role == R::HalfWave || plate->role == R::QuarterWave)
+        if (plate->role == R::HalfWave || plate->role == R::QuarterWave) {
             field("design", "design wavelength (nm)", &plate->design_nm, "%.1f", doc, st);
+            name_field("retarder", "retarder material", &plate->retarder_material, doc, st);
+        }
         if (plate->role == R::PolarizingCube || plate->role == R::Polarizer)
             field("extinction", "extinction ratio", &plate->extinction_ratio, "%.0f", doc, st);
+        if (plate->role == R::PolarizingCube) {
+            static const char* const sides[] = {"left", "right"};
+            int side = plate->reflects_left ? 0 : 1;
+            if (choice_field("reflects to", &side, sides, 2)) {
+                plate->reflects_left = side == 0;
+                doc.edit(st.scratch);
+            }
+        }
     } else if (auto* dichroic = std::get_if<Dichroic>(&e.kind)) {
         field("edge", "edge (nm)", &dichroic->edge_nm, "%.1f", doc, st);
+        static const char* const sides[] = {"shorter", "longer"};
+        int side = dichroic->reflects_shorter ? 0 : 1;
+        if (choice_field("reflects", &side, sides, 2)) {
+            dichroic->reflects_shorter = side == 0;
+            doc.edit(st.scratch);
+        }
         name_field("glass", "substrate glass", &dichroic->substrate.material, doc, st);
         field("thickness", "substrate (mm)", &dichroic->substrate.thickness_mm, "%.3f", doc, st);
+    } else if (auto* target = std::get_if<Target>(&e.kind)) {
+        field("damage_i", "damage (GW/cm², 0 none)", &target->damage.intensity_gw_cm2, "%.1f", doc, st);
     }
     if (!std::holds_alternative<Stage>(e.kind)) field("transmission", "transmission", &e.transmission, "%.4f", doc, st);
     // The polarization of each beam after this element (first pass), from the report.
@@ -144,6 +194,52 @@ void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st
                 break;
             }
     ImGui::PopID();
+}
+
+// The beams' numeric fields (key prefix "beam ID "), under a header.
+void beam_fields(edit::Document& doc, InspectorState& st) {
+    const bool open = ImGui::CollapsingHeader("Beams");
+    st.field_rects["beams"] = {ImGui::GetItemRectMin(), ImGui::GetItemRectMax()};
+    if (!open) return;
+    for (size_t i = 0; i < st.scratch.beams.size(); ++i) {
+        BeamSource& b = st.scratch.beams[i];
+        ImGui::PushID(1000 + static_cast<int>(i));
+        ImGui::Text("%s", b.id.c_str());
+        const std::string owner = "beam " + b.id;
+        auto f = [&](const char* key, const char* label, double* value, const char* format) {
+            if (!st.editing) st.element = owner;
+            field((owner + " " + key).c_str(), label, value, format, doc, st);
+        };
+        f("wavelength", "wavelength (nm)", &b.wavelength_nm, "%.2f");
+        f("x", "start x (mm)", &b.start_mm.x(), "%.2f");
+        f("y", "start y (mm)", &b.start_mm.y(), "%.2f");
+        f("direction", "direction (deg)", &b.direction_deg, "%.3f");
+        f("waist_t", "waist t (µm)", &b.waist_um.tangential, "%.1f");
+        f("waist_s", "waist s (µm)", &b.waist_um.sagittal, "%.1f");
+        f("waist_at_t", "waist at, t (mm)", &b.waist_at_mm.tangential, "%.1f");
+        f("waist_at_s", "waist at, s (mm)", &b.waist_at_mm.sagittal, "%.1f");
+        f("pulse", "pulse FWHM (fs)", &b.pulse_fwhm_fs, "%.1f");
+        f("emit", "emission time (fs)", &b.emit_time_fs, "%.1f");
+        f("power", "power (mW)", &b.power_mw, "%.1f");
+        f("rate", "repetition rate (kHz)", &b.repetition_rate_khz, "%.1f");
+        if (b.polarization.kind == Polarization::Kind::Linear) f("pol", "polarization (deg)", &b.polarization.angle_deg, "%.1f");
+        ImGui::PopID();
+    }
+}
+
+}  // namespace
+
+void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& st) {
+    end_stale_edit(doc, editor, st);
+    if (editor.locked) {
+        ImGui::TextWrapped("A solution is previewed: Apply it or go back to edit.");
+        return;
+    }
+    if (!st.editing) st.scratch = doc.layout();
+    st.active_this_frame = false;
+    if (editor.selected && *editor.selected < st.scratch.elements.size()) element_fields(doc, editor, st);
+    else ImGui::TextDisabled("Click an optic to inspect it; drag it to move it (M: measure).");
+    beam_fields(doc, st);
     if (st.editing && !st.active_this_frame) {  // the field lost focus without a deactivation
         doc.finish_gesture(st.gesture);
         st.editing = false;
