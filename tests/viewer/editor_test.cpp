@@ -87,6 +87,14 @@ public:
         io.KeyCtrl = io.KeyShift = false;
         frame();
     }
+    // A click in the middle of an inspector field (its rectangle from the last frame).
+    void click_field(const std::string& key) {
+        REQUIRE(state.inspector.field_rects.count(key) == 1);
+        const rv::ui::FieldRect r = state.inspector.field_rects[key];
+        const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
+        mouse(centre, true);
+        mouse(centre, false);
+    }
     void type(const std::string& text) {
         for (char c : text) {
             ImGui::GetIO().AddInputCharacter(static_cast<unsigned>(c));
@@ -156,11 +164,7 @@ TEST_CASE("an inspector edit changes the report and is one undo step", "[viewer]
     s.mouse(s.screen_of("L2_S"), false);
     REQUIRE(s.state.editor.selected == l2);
     s.frame();
-    REQUIRE(s.state.inspector.field_rects.count("x") == 1);
-    const rv::ui::FieldRect r = s.state.inspector.field_rects["x"];
-    const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
-    s.mouse(centre, true);
-    s.mouse(centre, false);
+    s.click_field("x");
     s.type("322.5");
     s.key(ImGui::GetKeyIndex(ImGuiKey_Enter));
     CHECK(doc.layout().elements[l2].at_mm.x() == 322.5);
@@ -281,10 +285,7 @@ TEST_CASE("a field edit left by clicking the table is kept as one undo step", "[
     s.mouse(s.screen_of("L2_S"), true);
     s.mouse(s.screen_of("L2_S"), false);
     s.frame();
-    const rv::ui::FieldRect r = s.state.inspector.field_rects["x"];
-    const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
-    s.mouse(centre, true);
-    s.mouse(centre, false);
+    s.click_field("x");
     s.type("333");
     const ImVec2 empty = s.state.last_view.to_screen(rv::Vec2(450, 420));  // no optic there
     s.mouse(empty, true);
@@ -324,11 +325,7 @@ TEST_CASE("the inspector edits names and roles and refuses unknown materials", "
     s.mouse(s.screen_of("HWP_P"), false);
     s.frame();
     auto type_into = [&](const char* key, const std::string& text) {
-        REQUIRE(s.state.inspector.field_rects.count(key) == 1);
-        const rv::ui::FieldRect r = s.state.inspector.field_rects[key];
-        const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
-        s.mouse(centre, true);
-        s.mouse(centre, false);
+        s.click_field(key);
         s.key(ImGui::GetKeyIndex(ImGuiKey_A), true);  // Ctrl+A selects the old name
         s.type(text);
         s.key(ImGui::GetKeyIndex(ImGuiKey_Enter));
@@ -362,16 +359,9 @@ TEST_CASE("a beam's power is edited in the inspector", "[viewer][edit]") {
     rv::edit::Document doc(demo());
     Session s(doc);
     const double before_mw = *doc.report().beams[1].target_power_mw;
-    auto click = [&](const char* key) {
-        REQUIRE(s.state.inspector.field_rects.count(key) == 1);
-        const rv::ui::FieldRect r = s.state.inspector.field_rects[key];
-        const ImVec2 c((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
-        s.mouse(c, true);
-        s.mouse(c, false);
-    };
-    click("beams");  // open the header
+    s.click_field("beams");  // open the header
     s.frame();
-    click("beam signal power");
+    s.click_field("beam signal power");
     s.type("150");
     s.key(ImGui::GetKeyIndex(ImGuiKey_Enter));
     CHECK(doc.layout().beams[1].power_mw == 150.0);
