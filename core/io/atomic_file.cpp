@@ -16,11 +16,25 @@ namespace {
     throw std::runtime_error("cannot save " + path.string() + ": " + what + ": " +
                              std::strerror(err));
 }
+// Temporary files of earlier saves of `path` that were killed before their rename.
+void remove_stale_temporaries(const std::filesystem::path& folder, const std::filesystem::path& path) {
+    const std::string prefix = "." + path.filename().string() + ".tmp-";
+    std::error_code ec;
+    const auto now = std::filesystem::file_time_type::clock::now();
+    for (const auto& entry : std::filesystem::directory_iterator(folder, ec)) {
+        const std::string name = entry.path().filename().string();
+        if (name.size() != prefix.size() + 6 || name.compare(0, prefix.size(), prefix) != 0) continue;
+        const auto modified = entry.last_write_time(ec);
+        if (!ec && now - modified > kStaleTemporary) std::filesystem::remove(entry.path(), ec);
+    }
+}
+
 }  // namespace
 
 void write_file_atomically(const std::filesystem::path& path, std::string_view content) {
     const std::filesystem::path folder =
         path.has_parent_path() ? path.parent_path() : std::filesystem::path(".");
+    remove_stale_temporaries(folder, path);
     std::string temp = (folder / ("." + path.filename().string() + ".tmp-XXXXXX")).string();
     const int fd = ::mkstemp(temp.data());
     if (fd < 0) fail(path, "creating a temporary file", errno);

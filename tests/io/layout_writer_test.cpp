@@ -1,6 +1,8 @@
 // Writing layouts: canonical text, round trips, atomic saving.
+#include "io/atomic_file.hpp"
 #include "io/layout_writer.hpp"
 
+#include <chrono>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
@@ -87,5 +89,29 @@ TEST_CASE("saving is atomic and leaves no temporary file", "[writer]") {
     CHECK_THROWS_WITH(rv::save_layout(*r.layout, dir / "missing" / "x.json"),
                       Catch::Matchers::StartsWith("cannot save " + (dir / "missing" / "x.json").string() +
                                                   ": creating a temporary file"));
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("a save removes the stale temporary files of killed saves", "[writer]") {
+    // A save killed before its rename leaves ".NAME.tmp-XXXXXX"; the next save of NAME removes
+    // those older than kStaleTemporary and leaves a young one (another save may be writing it)
+    // and those of other files alone.
+    const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-stale-test";
+    std::filesystem::remove_all(dir);
+    std::filesystem::create_directories(dir);
+    auto touch = [&](const char* name, std::chrono::minutes age) {
+        const std::filesystem::path p = dir / name;
+        { std::ofstream f(p); f << "partial"; }
+        std::filesystem::last_write_time(p, std::filesystem::file_time_type::clock::now() - age);
+        return p;
+    };
+    const auto stale = touch(".copy.json.tmp-abc123", rv::kStaleTemporary + std::chrono::minutes(1));
+    const auto young = touch(".copy.json.tmp-def456", std::chrono::minutes(1));
+    const auto other = touch(".other.json.tmp-ghi789", rv::kStaleTemporary + std::chrono::minutes(1));
+    rv::write_file_atomically(dir / "copy.json", "new");
+    CHECK_FALSE(std::filesystem::exists(stale));
+    CHECK(std::filesystem::exists(young));
+    CHECK(std::filesystem::exists(other));
+    CHECK(slurp(dir / "copy.json") == "new");
     std::filesystem::remove_all(dir);
 }
