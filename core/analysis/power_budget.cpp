@@ -143,6 +143,12 @@ BeamPower trace_power(const Layout& layout, const MaterialLibrary& library, cons
     return run(layout, library, path, caustic, {});
 }
 
+Stokes target_stokes(const Layout& layout, const MaterialLibrary& library, const Path& path, const Caustic& caustic) {
+    Options o;
+    o.follow_branches = false;
+    return run(layout, library, path, caustic, o).at_target;
+}
+
 Stokes target_stokes_with_plate(const Layout& layout, const MaterialLibrary& library, const Path& path,
                                 const Caustic& caustic, size_t plate, double fast_axis_deg) {
     Options o;

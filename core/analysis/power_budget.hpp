@@ -46,6 +46,10 @@ struct BeamPower {
 
 BeamPower trace_power(const Layout& layout, const MaterialLibrary& library, const Path& path, const Caustic& caustic);
 
+// The Stokes vector arriving at the target, without tracing where cube reflections go (the
+// cheap part of trace_power, for choosing the crystal's index before the report's trace).
+Stokes target_stokes(const Layout& layout, const MaterialLibrary& library, const Path& path, const Caustic& caustic);
+
 // The Stokes vector at the target for a beam whose plate (element index) is turned to
 // fast_axis_deg, all else as in the layout (for the wave-plate advice and the solver).
 Stokes target_stokes_with_plate(const Layout& layout, const MaterialLibrary& library, const Path& path,

@@ -55,8 +55,7 @@ std::vector<Path> trace_with_arriving_polarization(const Layout& layout, const M
         const BeamSource& src = layout.beams[p.beam];
         PropagationOptions lean;
         lean.sample_envelope = false;
-        const BeamPower power = trace_power(layout, library, p, propagate_path(layout, p, lean));
-        const PolarizationState s = describe(power.at_target);
+        const PolarizationState s = describe(target_stokes(layout, library, p, propagate_path(layout, p, lean)));
         if (!(s.power > 0)) continue;
         const bool a_now = a_wave_fraction(src.polarization, crystal->optic_axis_horizontal) >= 0.5;
         const bool a_arriving = (crystal->optic_axis_horizontal ? s.v : s.h) / s.power >= 0.5;
