@@ -14,31 +14,38 @@ PlaneAtTarget plane(const GaussianBeam& b) {
 }
 }  // namespace
 
-BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic) {
+BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const BeamsAtTargetPlane& beams) {
     BeamAtTarget out;
-    if (!path.target_hit || !caustic.reaches_target) return out;
+    if (!path.target_hit || !beams.reached) return out;
     const TraceHit& hit = path.hits[*path.target_hit];
     out.reached = true;
     out.path_mm = hit.s_mm;
     out.arrival_fs = arrival_time_fs(layout, path, *path.target_hit);
-    out.tangential = plane(caustic.target_tangential);
-    out.sagittal = plane(caustic.target_sagittal);
-    out.tangential.waist_offset_mm = caustic.target_waist_offset_tangential_mm;
-    out.sagittal.waist_offset_mm = caustic.target_waist_offset_sagittal_mm;
+    out.tangential = plane(beams.tangential);
+    out.sagittal = plane(beams.sagittal);
+    out.tangential.waist_offset_mm = beams.waist_offset_tangential_mm;
+    out.sagittal.waist_offset_mm = beams.waist_offset_sagittal_mm;
     out.hit_mm = hit.point_mm;
     out.direction = hit.direction_in;
     out.index = hit.index_before;
     return out;
 }
 
+BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic) {
+    return beam_at_target(layout, path,
+                          BeamsAtTargetPlane{caustic.reaches_target, caustic.target_tangential, caustic.target_sagittal,
+                                             caustic.target_waist_offset_tangential_mm,
+                                             caustic.target_waist_offset_sagittal_mm});
+}
+
 std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
                                                    TraceCache* cache) {
-    PropagationOptions options;
-    options.sample_envelope = false;
+    TraceCache local;
+    TraceCache& c = cache ? *cache : local;
+    trace_layout(layout, library, c, c.paths);
     std::vector<BeamAtTarget> out;
-    out.reserve(layout.beams.size());
-    for (const Path& path : trace_layout(layout, library, cache))
-        out.push_back(beam_at_target(layout, path, propagate_path(layout, path, options)));
+    out.reserve(c.paths.size());
+    for (const Path& path : c.paths) out.push_back(beam_at_target(layout, path, propagate_to_target(layout, path)));
     return out;
 }
 

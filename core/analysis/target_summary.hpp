@@ -35,6 +35,7 @@ struct BeamAtTarget {
 };
 
 BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic);
+BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const BeamsAtTargetPlane& beams);
 
 // Trace every beam, propagate it without the drawing envelope, and take it at the target: the
 // lean evaluation the solvers repeat (with a TraceCache kept between calls on one layout).

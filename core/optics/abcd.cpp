@@ -30,7 +30,7 @@ RayMatrix curved_interface(double n1, double n2, double radius_mm) {
 }
 
 RayMatrix tilted_interface(double n1, double n2, double aoi_rad, Plane plane) {
-    if (plane == Plane::Sagittal) return plane_interface(n1, n2);
+    if (plane == Plane::Sagittal || aoi_rad == 0.0) return plane_interface(n1, n2);  // the same at normal incidence
     // Snell: n1 sin θ = n2 sin θ'. The beam's tangential width scales by cosθ'/cosθ.
     const double cos_in = std::cos(aoi_rad);
     const double sin_out = n1 * std::sin(aoi_rad) / n2;

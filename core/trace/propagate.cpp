@@ -85,16 +85,55 @@ double locate_waist_mm(const Layout& layout, const Path& path, size_t k, Gaussia
     return d - travelled;
 }
 
+// The source's beams in both planes, at the start of the path.
+void source_beams(const BeamSource& src, GaussianBeam& t, GaussianBeam& s) {
+    t = beam_from_waist(src.waist_um.tangential, src.waist_at_mm.tangential, src.wavelength_nm, 1.0,
+                        src.m2.tangential);
+    s = beam_from_waist(src.waist_um.sagittal, src.waist_at_mm.sagittal, src.wavelength_nm, 1.0, src.m2.sagittal);
+}
+
+// Both planes through one hit's matrices, into the medium after it.
+void cross_hit(const Layout& layout, const TraceHit& hit, GaussianBeam& t, GaussianBeam& s) {
+    const RayMatrix mt = hit_matrix(layout, hit, Plane::Tangential);
+    const RayMatrix ms = hit.interaction == Interaction::ThinLens ? mt : hit_matrix(layout, hit, Plane::Sagittal);
+    t = propagate(t, mt, hit.index_after);
+    s = propagate(s, ms, hit.index_after);
+}
+
 }  // namespace
+
+BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path) {
+    BeamsAtTargetPlane out;
+    if (!path.target_hit) return out;
+    const size_t k = *path.target_hit;
+    GaussianBeam t{}, s{};
+    source_beams(layout.beams[path.beam], t, s);
+    for (size_t i = 0; i <= k && i < path.segments.size(); ++i) {
+        const TraceSegment& seg = path.segments[i];
+        t.index = seg.index;
+        s.index = seg.index;
+        t = translate(t, seg.length_mm);
+        s = translate(s, seg.length_mm);
+        if (i == k) {
+            out.reached = true;
+            break;
+        }
+        cross_hit(layout, path.hits[i], t, s);
+    }
+    if (!out.reached) return out;
+    out.tangential = t;
+    out.sagittal = s;
+    out.waist_offset_tangential_mm = locate_waist_mm(layout, path, k, t, Plane::Tangential);
+    out.waist_offset_sagittal_mm = locate_waist_mm(layout, path, k, s, Plane::Sagittal);
+    return out;
+}
 
 Caustic propagate_path(const Layout& layout, const Path& path, const PropagationOptions& options) {
     const BeamSource& src = layout.beams[path.beam];
     Caustic out;
     out.beam = path.beam;
-    GaussianBeam t = beam_from_waist(src.waist_um.tangential, src.waist_at_mm.tangential,
-                                     src.wavelength_nm, 1.0, src.m2.tangential);
-    GaussianBeam s = beam_from_waist(src.waist_um.sagittal, src.waist_at_mm.sagittal,
-                                     src.wavelength_nm, 1.0, src.m2.sagittal);
+    GaussianBeam t{}, s{};
+    source_beams(src, t, s);
     double s0 = 0;
     const double target_s = path.target_hit ? path.hits[*path.target_hit].s_mm : -1;
 
@@ -140,10 +179,7 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
             out.target_tangential = t;
             out.target_sagittal = s;
         }
-        const RayMatrix mt = hit_matrix(layout, hit, Plane::Tangential);
-        const RayMatrix ms = hit.interaction == Interaction::ThinLens ? mt : hit_matrix(layout, hit, Plane::Sagittal);
-        t = propagate(t, mt, hit.index_after);
-        s = propagate(s, ms, hit.index_after);
+        cross_hit(layout, hit, t, s);
     }
 
     if (out.reaches_target) {

@@ -59,4 +59,14 @@ struct PropagationOptions {
 // Uses the focal lengths and indices the trace stored in each hit.
 Caustic propagate_path(const Layout& layout, const Path& path, const PropagationOptions& options = {});
 
+// Only the beam at the target plane and where its waists form (the same numbers as
+// propagate_path's target_* fields), without the radii and clipping at every hit: what the
+// solvers need.
+struct BeamsAtTargetPlane {
+    bool reached = false;
+    GaussianBeam tangential{}, sagittal{};
+    double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;
+};
+BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path);
+
 }  // namespace rv

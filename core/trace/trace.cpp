@@ -28,30 +28,11 @@ std::string mm_text(double v) {
 }
 std::string point_text(const Vec2& p) { return "(" + mm_text(p.x()) + ", " + mm_text(p.y()) + ") mm"; }
 
-// A surface of an element: a segment through `centre` perpendicular to `normal`.
-struct Surface {
-    Face face = Face::Only;
-    Vec2 centre{0, 0};
-    Vec2 normal{1, 0};
-};
+using Surface = TraceCache::Surface;
+using Placed = TraceCache::Placed;
 
 int surfaces_of(const ElementKind& kind, const Vec2& at, const Vec2& normal, Surface out[3]);
 double slab_thickness(const ElementKind& kind);
-
-// Where every element sits once stages have moved it, how it is turned, its surfaces there
-// and its material (computed once per trace of the layout).
-struct Placed {
-    Vec2 at{0, 0};
-    Vec2 normal{1, 0};
-    double half_aperture = 0;
-    bool traced = true;       // false for stages (no surface)
-    bool aim_pending = false; // an aim_at mirror not reached yet
-    std::optional<size_t> aim_target;
-    Surface surfaces[3];
-    int surface_count = 0;
-    double reach = 0;  // radius of a circle about `at` that holds every surface segment
-    const Material* material = nullptr;  // slab, substrate or lens glass
-};
 
 const std::string* material_name(const ElementKind& kind) {
     if (const auto* p = std::get_if<Plate>(&kind)) return &p->slab.material;
@@ -82,13 +63,21 @@ std::optional<size_t> resolve(const Layout& layout, const std::string& id,
     return slot->second;
 }
 
-std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache) {
-    std::vector<Placed> placed(layout.elements.size());
+// Every element where stages have moved it, into cache.placed (computed once per trace of the
+// layout; the normal and the bounding radius are recomputed only when their inputs changed).
+void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache) {
+    std::vector<Placed>& placed = cache.placed;
+    placed.assign(layout.elements.size(), Placed{});
     cache.resolved.resize(layout.elements.size());
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
+        TraceCache::Resolved& r = cache.resolved[i];
+        if (!(r.normal_deg == e.normal_deg)) {
+            r.normal_deg = e.normal_deg;
+            r.normal = direction_deg(e.normal_deg);
+        }
         placed[i].at = e.at_mm;
-        placed[i].normal = direction_deg(e.normal_deg);
+        placed[i].normal = r.normal;
         placed[i].half_aperture = e.aperture_mm / 2.0;
         placed[i].traced = !std::holds_alternative<Stage>(e.kind);
     }
@@ -114,7 +103,13 @@ std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library, 
             placed[i].aim_pending = placed[i].aim_target.has_value();
         }
         placed[i].surface_count = surfaces_of(kind, placed[i].at, placed[i].normal, placed[i].surfaces);
-        placed[i].reach = std::hypot(placed[i].half_aperture, slab_thickness(kind)) + 1e-6;
+        const double thickness = slab_thickness(kind);
+        if (r.reach_half_aperture_mm != placed[i].half_aperture || r.reach_thickness_mm != thickness) {
+            r.reach_half_aperture_mm = placed[i].half_aperture;
+            r.reach_thickness_mm = thickness;
+            r.reach_mm = std::hypot(placed[i].half_aperture, thickness) + 1e-6;
+        }
+        placed[i].reach = r.reach_mm;
         if (const std::string* name = material_name(kind)) {
             if (r.material_name != *name || !r.material) {
                 r.material_name = *name;
@@ -123,7 +118,6 @@ std::vector<Placed> place(const Layout& layout, const MaterialLibrary& library, 
             placed[i].material = r.material;
         }
     }
-    return placed;
 }
 
 double slab_thickness(const ElementKind& kind) {
@@ -207,25 +201,31 @@ double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
 
 class BeamTracer {
 public:
-    BeamTracer(const Layout& layout, const MaterialLibrary& library, std::vector<Placed>& placed,
-               size_t beam, TraceCache& cache, bool record)
-        : layout_(layout), placed_(placed), beam_(layout.beams[beam]), cache_(cache),
-          memo_(cache.beams[beam]), record_(record) {
+    BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, bool record, Path& out)
+        : layout_(layout), placed_(cache.placed), beam_(layout.beams[beam]), cache_(cache),
+          memo_(cache.beams[beam]), air_(cache.air), path_(out), steps_(memo_.new_steps), record_(record) {
         path_.beam = beam;
-        path_.hits.reserve(24);
-        path_.segments.reserve(24);
-        air_ = library.find("air");
+        path_.segments.clear();
+        path_.hits.clear();
+        path_.findings.clear();
+        path_.target_hit.reset();
+        steps_.clear();
         air_group_index_ = memo_.air_group_index;
-        for (size_t i = 0; i < layout.elements.size(); ++i)
-            if (layout.elements[i].id == layout.target) target_ = i;
-        // How far any element has moved since the steps were recorded (see trace_cache.hpp).
+        target_ = resolve(layout, layout.target, cache.target);
+        // How far any element has moved since the steps were recorded (see trace_cache.hpp),
+        // bounded from above by the largest move plus the largest growth of a bounding circle.
         replaying_ = !memo_.steps.empty();
-        for (size_t i = 0; replaying_ && i < placed.size(); ++i)
-            moved_mm_ = std::max(moved_mm_, (placed[i].at - memo_.placed_at_mm[i]).norm() +
-                                                std::max(0.0, placed[i].reach - memo_.placed_reach_mm[i]));
+        if (replaying_) {
+            double moved2 = 0, grown = 0;
+            for (size_t i = 0; i < placed_.size(); ++i) {
+                moved2 = std::max(moved2, (placed_[i].at - memo_.placed_at_mm[i]).squaredNorm());
+                grown = std::max(grown, placed_[i].reach - memo_.placed_reach_mm[i]);
+            }
+            moved_mm_ = std::sqrt(moved2) + grown;
+        }
     }
 
-    Path run();
+    void run();
 
 private:
     struct Candidate {
@@ -240,6 +240,7 @@ private:
     void record_steps();
     double table_exit(const Vec2& p, const Vec2& d) const;
     Medium slab_medium(size_t element, const Vec2& direction_inside);
+    bool index_follows_direction(size_t element) const;
     void note_material(size_t element, const Material& m);
     void finding(Finding::Kind kind, size_t element, const Vec2& where, double amount,
                  std::string message) {
@@ -256,8 +257,8 @@ private:
     TraceCache& cache_;
     TraceCache::Beam& memo_;  // this beam's material samples and recorded steps
     const Material* air_ = nullptr;
-    Path path_;
-    std::vector<std::pair<Vec2, Vec2>> steps_;  // this trace's steps (start, end)
+    Path& path_;
+    std::vector<std::pair<Vec2, Vec2>>& steps_;  // this trace's steps (start, end)
     bool replaying_ = false;  // every step so far lay within the recorded steps' margin
     bool record_ = true;      // keep the steps for a later trace (only with a caller's cache)
     double moved_mm_ = 0;
@@ -320,12 +321,14 @@ std::optional<BeamTracer::Candidate> BeamTracer::next_hit(const Vec2& p, const V
                                                           double max_dist, size_t step) {
     if (replaying_ && step < memo_.steps.size()) {
         const TraceCache::Step& recorded = memo_.steps[step];
-        if ((p - recorded.from_mm).norm() + moved_mm_ < kTraceMargin_mm) {
+        // |a| + δ < margin, compared as |a|² < (margin − δ)² (no square roots in the loop).
+        const double slack = kTraceMargin_mm - moved_mm_;
+        const double slack2 = slack > 0 ? slack * slack : -1.0;
+        if ((p - recorded.from_mm).squaredNorm() < slack2) {
             std::optional<Candidate> best;
             for (uint32_t i : recorded.candidates) consider(i, p, d, max_dist, best);
             const double reach = best ? best->dist : max_dist;
-            if (std::isfinite(reach) &&
-                (p + reach * d - recorded.to_mm).norm() + moved_mm_ < kTraceMargin_mm) {
+            if (std::isfinite(reach) && (p + reach * d - recorded.to_mm).squaredNorm() < slack2) {
                 ++cache_.replayed_steps;
                 return best;
             }
@@ -401,8 +404,12 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
     });
 }
 
-bool depends_on_direction(const ElementKind& kind, const Material& m) {
-    return std::holds_alternative<Crystal>(kind) && m.symmetry != Symmetry::Isotropic;
+// Whether the beam's index in a slab depends on its direction there: the B wave of a
+// birefringent crystal (slab_medium's choice); the A wave's index does not.
+bool BeamTracer::index_follows_direction(size_t element) const {
+    const auto* c = std::get_if<Crystal>(&layout_.elements[element].kind);
+    return c && placed_[element].material->symmetry != Symmetry::Isotropic &&
+           a_wave_fraction(beam_.polarization, c->optic_axis_horizontal) < 0.5;
 }
 
 void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element) {
@@ -423,7 +430,7 @@ void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> n
     }
 }
 
-Path BeamTracer::run() {
+void BeamTracer::run() {
     Vec2 p = beam_.start_mm;
     Vec2 d = direction_deg(beam_.direction_deg);
     double s_total = 0;
@@ -475,7 +482,8 @@ Path BeamTracer::run() {
         hit.point_mm = h;
         hit.direction_in = d;
         hit.s_mm = s_total;
-        hit.aoi_rad = std::acos(std::min(1.0, std::abs(d.dot(n))));
+        const double cos_aoi = std::abs(d.dot(n));
+        hit.aoi_rad = cos_aoi >= 1.0 ? 0.0 : std::acos(cos_aoi);
         hit.height_mm = c->height;
         hit.half_aperture_mm = pl.half_aperture;
         hit.index_before = medium.index;
@@ -586,7 +594,7 @@ Path BeamTracer::run() {
                                     mm_text(wavelength) + " nm; the ray stops at " + id(e));
                         break;
                     }
-                    const int refinements = depends_on_direction(kind, *pl.material) ? 4 : 0;
+                    const int refinements = index_follows_direction(e) ? 4 : 0;
                     for (int it = 0; it < refinements; ++it) {
                         out = refract(d, n, 1.0, next.index);
                         if (!out) break;
@@ -625,40 +633,53 @@ Path BeamTracer::run() {
         finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p, 0,
                 "never reaches the target " + layout_.target);
     if (record_ && (!replaying_ || steps_.size() != memo_.steps.size())) record_steps();
-    return std::move(path_);
 }
 
-}  // namespace
-
-std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache* cache) {
-    TraceCache local;
-    TraceCache& c = cache ? *cache : local;
+void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& c, std::vector<Path>& paths,
+                  bool record) {
     // Start afresh when the cache was made for another list of elements or beams, or with
     // another material library.
     const size_t n = layout.elements.size();
     bool same = c.library == &library && c.element_kinds.size() == n && c.beams.size() == layout.beams.size();
     for (size_t i = 0; same && i < n; ++i) same = c.element_kinds[i] == layout.elements[i].kind.index();
     if (!same) {
+        std::vector<Path> storage = std::move(c.paths);
         c = TraceCache{};
+        c.paths = std::move(storage);
         c.library = &library;
+        c.air = library.find("air");
         for (const Element& e : layout.elements) c.element_kinds.push_back(e.kind.index());
         c.beams.resize(layout.beams.size());
     }
-    const Material* air = library.find("air");
     for (size_t b = 0; b < layout.beams.size(); ++b) {
         TraceCache::Beam& beam = c.beams[b];
         if (beam.wavelength_nm == layout.beams[b].wavelength_nm && beam.slab.size() == n) continue;
         beam = TraceCache::Beam{};
         beam.wavelength_nm = layout.beams[b].wavelength_nm;
-        beam.air_group_index = sample_index(*air, beam.wavelength_nm).group_index;
+        beam.air_group_index = sample_index(*c.air, beam.wavelength_nm).group_index;
         beam.slab.resize(n);
         beam.crystal.resize(n);
         beam.lens.resize(n);
     }
-    std::vector<Placed> placed = place(layout, library, c);
+    place(layout, library, c);
+    paths.resize(layout.beams.size());
+    for (size_t b = 0; b < layout.beams.size(); ++b) BeamTracer(layout, b, c, record, paths[b]).run();
+}
+
+}  // namespace
+
+void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache, std::vector<Path>& paths) {
+    trace_layout(layout, library, cache, paths, true);
+}
+
+std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache* cache) {
     std::vector<Path> paths;
-    for (size_t b = 0; b < layout.beams.size(); ++b)
-        paths.push_back(BeamTracer(layout, library, placed, b, c, cache != nullptr).run());
+    if (cache) {
+        trace_layout(layout, library, *cache, paths, true);
+    } else {
+        TraceCache local;
+        trace_layout(layout, library, local, paths, false);
+    }
     return paths;
 }
 

@@ -35,4 +35,9 @@ inline constexpr size_t kMaxHitsPerBeam = 64;
 std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library,
                                TraceCache* cache = nullptr);
 
+// The same into `paths` (resized to one per beam), reusing the storage they already hold: the
+// solvers' loop, which then allocates nothing.
+void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
+                  std::vector<Path>& paths);
+
 }  // namespace rv

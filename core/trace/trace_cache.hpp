@@ -19,8 +19,11 @@
 //   among all elements and the steps are recorded again.
 // A cache belongs to one layout's list of elements and beams; trace_layout checks the element
 // kinds and the beams' wavelengths on every use and starts afresh when they differ.
+// It also keeps the working storage of a trace (the placed elements, the new steps, the paths
+// of evaluate_beams_at_target) so that a repeated trace allocates nothing.
 
 #include <cstdint>
+#include <limits>
 #include <optional>
 #include <string>
 #include <vector>
@@ -28,12 +31,34 @@
 #include "layout/layout.hpp"
 #include "materials/material.hpp"
 #include "nonlinear/phase_matching.hpp"
+#include "trace/path.hpp"
 
 namespace rv {
 
 inline constexpr double kTraceMargin_mm = 5.0;
 
 struct TraceCache {
+    // A surface of an element: a segment through `centre` perpendicular to `normal`.
+    struct Surface {
+        Face face = Face::Only;
+        Vec2 centre{0, 0};
+        Vec2 normal{1, 0};
+    };
+    // Where an element sits once stages have moved it, how it is turned, its surfaces there and
+    // its material (set anew on every trace; the tracer turns an aim_at mirror when a beam first
+    // reaches it).
+    struct Placed {
+        Vec2 at{0, 0};
+        Vec2 normal{1, 0};
+        double half_aperture = 0;
+        bool traced = true;        // false for stages (no surface)
+        bool aim_pending = false;  // an aim_at mirror not reached yet
+        std::optional<size_t> aim_target;
+        Surface surfaces[3];
+        int surface_count = 0;
+        double reach = 0;  // radius of a circle about `at` that holds every surface segment
+        const Material* material = nullptr;  // slab, substrate or lens glass
+    };
     struct Medium {
         double index = 1, group_index = 1;
     };
@@ -59,21 +84,31 @@ struct TraceCache {
         std::vector<Tagged<CrystalIndices>> crystal;   // birefringent crystals
         std::vector<Tagged<LensGlass>> lens;           // chromatic and thick lenses
         std::vector<Step> steps;                       // the recorded trace
+        std::vector<std::pair<Vec2, Vec2>> new_steps;  // this trace's steps (start, end)
         std::vector<Vec2> placed_at_mm;                // element positions when it was recorded
         std::vector<double> placed_reach_mm;           // and their bounding-circle radii
     };
     // Names resolved once per element (checked against the layout's names on every use):
     // the elements a stage carries, an aim_at mirror's target, the material by its name.
+    // Also the unit normal of the last normal_deg seen, and the bounding radius of the last
+    // aperture and thickness seen (so that an unchanged element costs no trigonometry).
     struct Resolved {
         std::vector<std::pair<std::string, size_t>> carried;
         std::optional<std::pair<std::string, size_t>> aim_target;
         std::string material_name;
         const Material* material = nullptr;
+        double normal_deg = std::numeric_limits<double>::quiet_NaN();
+        Vec2 normal{1, 0};
+        double reach_half_aperture_mm = -1, reach_thickness_mm = -1, reach_mm = 0;
     };
     std::vector<size_t> element_kinds;  // the variant index of each element
     std::vector<Resolved> resolved;
     const void* library = nullptr;  // the material library the pointers point into
+    const Material* air = nullptr;
+    std::optional<std::pair<std::string, size_t>> target;  // the layout's target element
     std::vector<Beam> beams;
+    std::vector<Placed> placed;
+    std::vector<Path> paths;  // storage for evaluate_beams_at_target's traces
     // How the last traces went (for tests and benchmarks).
     size_t replayed_steps = 0, searched_steps = 0;
 };
