@@ -83,7 +83,7 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
         b.at_target = beam_at_target(layout, p, b.caustic);
         b.confocal_tangential_mm = 2 * b.at_target.tangential.rayleigh_mm;
         b.confocal_sagittal_mm = 2 * b.at_target.sagittal.rayleigh_mm;
-        if (p.target_hit) b.crossing_angle_deg = rad_to_deg(p.hits[*p.target_hit].aoi_rad);
+        if (p.target_hit) b.crossing_angle_deg = rad_to_deg(p.hits[*p.target_hit].aoi_rad());
         // Where the light goes after the target.
         b.unconverted_end = "stops after the target";
         if (!p.hits.empty() && p.hits.back().interaction == Interaction::Absorb)

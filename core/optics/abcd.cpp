@@ -30,10 +30,13 @@ RayMatrix curved_interface(double n1, double n2, double radius_mm) {
 }
 
 RayMatrix tilted_interface(double n1, double n2, double aoi_rad, Plane plane) {
-    if (plane == Plane::Sagittal || aoi_rad == 0.0) return plane_interface(n1, n2);  // the same at normal incidence
+    return tilted_interface(n1, n2, std::cos(aoi_rad), std::sin(aoi_rad), plane);
+}
+
+RayMatrix tilted_interface(double n1, double n2, double cos_in, double sin_in, Plane plane) {
+    if (plane == Plane::Sagittal || sin_in == 0.0) return plane_interface(n1, n2);  // the same at normal incidence
     // Snell: n1 sin θ = n2 sin θ'. The beam's tangential width scales by cosθ'/cosθ.
-    const double cos_in = std::cos(aoi_rad);
-    const double sin_out = n1 * std::sin(aoi_rad) / n2;
+    const double sin_out = n1 * sin_in / n2;
     const double cos_out = std::sqrt(1.0 - sin_out * sin_out);
     RayMatrix m;
     m << cos_out / cos_in, 0.0, 0.0, n1 * cos_in / (n2 * cos_out);
@@ -46,7 +49,11 @@ double mirror_focal_length_mm(double radius_mm, double aoi_rad, Plane plane) {
 }
 
 RayMatrix spherical_mirror(double radius_mm, double aoi_rad, Plane plane) {
-    return thin_lens(mirror_focal_length_mm(radius_mm, aoi_rad, plane));
+    return spherical_mirror_at_cos(radius_mm, std::cos(aoi_rad), plane);
+}
+
+RayMatrix spherical_mirror_at_cos(double radius_mm, double c, Plane plane) {
+    return thin_lens(plane == Plane::Tangential ? radius_mm * c / 2.0 : radius_mm / (2.0 * c));
 }
 
 double effective_focal_length_mm(const RayMatrix& m) {

@@ -40,11 +40,14 @@ RayMatrix curved_interface(double n1, double n2, double radius_mm);
 // Flat interface crossed at angle of incidence aoi_rad (in medium n1), in the given plane.
 // Tangential: [cosθ'/cosθ 0; 0 n1 cosθ/(n2 cosθ')]; sagittal: the normal-incidence matrix.
 RayMatrix tilted_interface(double n1, double n2, double aoi_rad, Plane plane);
+// The same from the cosine and sine of the angle of incidence (as the trace keeps them).
+RayMatrix tilted_interface(double n1, double n2, double cos_aoi, double sin_aoi, Plane plane);
 
 // Spherical mirror of radius_mm (> 0 concave) hit at angle of incidence aoi_rad, unfolded.
 // Effective focal lengths: tangential f = R cos θ / 2, sagittal f = R / (2 cos θ).
 double mirror_focal_length_mm(double radius_mm, double aoi_rad, Plane plane);
 RayMatrix spherical_mirror(double radius_mm, double aoi_rad, Plane plane);
+RayMatrix spherical_mirror_at_cos(double radius_mm, double cos_aoi, Plane plane);
 
 // Focal length of a general system in air: −1/C (infinite for an afocal system).
 double effective_focal_length_mm(const RayMatrix& m);

@@ -3,6 +3,7 @@
 // surfaces it meets in order, and the findings (misses, leaving the table, total internal
 // reflection, …) as data. Positions in mm in the table plane; directions are unit vectors.
 
+#include <cmath>
 #include <optional>
 #include <string>
 #include <vector>
@@ -31,7 +32,10 @@ struct TraceHit {
     Vec2 point_mm{0, 0};
     Vec2 direction_in{1, 0}, direction_out{1, 0};
     double s_mm = 0;          // geometric path length from the beam's start to this hit
-    double aoi_rad = 0;       // angle between the incoming ray and the surface normal
+    // The angle between the incoming ray and the surface normal, kept as its cosine and sine
+    // (what the matrices need; both from the vectors, so accurate near normal incidence).
+    double cos_aoi = 1, sin_aoi = 0;
+    double aoi_rad() const { return std::atan2(sin_aoi, cos_aoi); }
     double height_mm = 0;     // signed distance of the hit from the element's centre line
     double half_aperture_mm = 0;
     double index_before = 1, index_after = 1;  // phase index either side (1 in air)

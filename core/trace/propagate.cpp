@@ -30,10 +30,10 @@ RayMatrix hit_matrix(const Layout& layout, const TraceHit& hit, Plane plane) {
         }
         case Interaction::Reflect:
             if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->radius_of_curvature_mm)
-                return spherical_mirror(*m->radius_of_curvature_mm, hit.aoi_rad, plane);
+                return spherical_mirror_at_cos(*m->radius_of_curvature_mm, hit.cos_aoi, plane);
             return RayMatrix::Identity();
         case Interaction::Refract:
-            return tilted_interface(hit.index_before, hit.index_after, hit.aoi_rad, plane);
+            return tilted_interface(hit.index_before, hit.index_after, hit.cos_aoi, hit.sin_aoi, plane);
         default:
             return RayMatrix::Identity();
     }
@@ -43,7 +43,7 @@ double clipped_fraction(const TraceHit& hit, double w_t_um, double w_s_um) {
     if (hit.interaction == Interaction::TargetPlane || hit.interaction == Interaction::Absorb)
         return 0;
     const double a_mm = std::max(0.0, hit.half_aperture_mm - std::abs(hit.height_mm));
-    const double at = a_mm * std::cos(hit.aoi_rad) * 1e3 / w_t_um;
+    const double at = a_mm * hit.cos_aoi * 1e3 / w_t_um;
     const double as = a_mm * 1e3 / w_s_um;
     return std::exp(-2.0 * std::min(at * at, as * as));
 }
@@ -94,6 +94,10 @@ void source_beams(const BeamSource& src, GaussianBeam& t, GaussianBeam& s) {
 
 // Both planes through one hit's matrices, into the medium after it.
 void cross_hit(const Layout& layout, const TraceHit& hit, GaussianBeam& t, GaussianBeam& s) {
+    if (hit.interaction != Interaction::ThinLens && hit.interaction != Interaction::Refract && !has_power(layout, hit)) {
+        t.index = s.index = hit.index_after;  // an identity matrix: q unchanged
+        return;
+    }
     const RayMatrix mt = hit_matrix(layout, hit, Plane::Tangential);
     const RayMatrix ms = hit.interaction == Interaction::ThinLens ? mt : hit_matrix(layout, hit, Plane::Sagittal);
     t = propagate(t, mt, hit.index_after);

@@ -67,7 +67,7 @@ std::optional<size_t> resolve(const Layout& layout, const std::string& id,
 // layout; the normal and the bounding radius are recomputed only when their inputs changed).
 void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache) {
     std::vector<Placed>& placed = cache.placed;
-    placed.assign(layout.elements.size(), Placed{});
+    placed.resize(layout.elements.size());  // every field is set below
     cache.resolved.resize(layout.elements.size());
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
@@ -80,6 +80,9 @@ void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cac
         placed[i].normal = r.normal;
         placed[i].half_aperture = e.aperture_mm / 2.0;
         placed[i].traced = !std::holds_alternative<Stage>(e.kind);
+        placed[i].aim_pending = false;
+        placed[i].aim_target.reset();
+        placed[i].material = nullptr;
     }
     for (size_t k = 0; k < layout.elements.size(); ++k) {
         if (const auto* s = std::get_if<Stage>(&layout.elements[k].kind)) {
@@ -228,13 +231,16 @@ public:
     void run();
 
 private:
-    struct Candidate {
-        size_t element;
-        Surface surface;
-        double dist, height;
+    struct Candidate {  // a surface crossing; dist = ∞ until one is found
+        size_t element = SIZE_MAX;
+        Face face = Face::Only;
+        Vec2 normal{1, 0};
+        double dist = kInf, height = 0;
+        bool found() const { return element != SIZE_MAX; }
     };
-    void consider(size_t element, const Vec2& p, const Vec2& d, double max_dist,
-                  std::optional<Candidate>& best) const;
+    void consider(size_t element, const Vec2& p, const Vec2& d, double max_dist, Candidate& best) const;
+    void consider_surfaces(size_t element, const Surface* surfaces, int count, const Vec2& p, const Vec2& d,
+                           double max_dist, Candidate& best) const;
     std::optional<Candidate> nearest(const Vec2& p, const Vec2& d, double max_dist) const;
     std::optional<Candidate> next_hit(const Vec2& p, const Vec2& d, double max_dist, size_t step);
     void record_steps();
@@ -258,7 +264,7 @@ private:
     TraceCache::Beam& memo_;  // this beam's material samples and recorded steps
     const Material* air_ = nullptr;
     Path& path_;
-    std::vector<std::pair<Vec2, Vec2>>& steps_;  // this trace's steps (start, end)
+    std::vector<TraceCache::StepTaken>& steps_;  // this trace's steps
     bool replaying_ = false;  // every step so far lay within the recorded steps' margin
     bool record_ = true;      // keep the steps for a later trace (only with a caller's cache)
     double moved_mm_ = 0;
@@ -270,49 +276,55 @@ private:
     std::vector<size_t> out_of_range_noted_;
 };
 
-void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dist,
-                          std::optional<Candidate>& best) const {
-    if (!placed_[i].traced) return;
-    if (inside_ && *inside_ != i) return;  // inside a slab only its own faces count
+void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dist, Candidate& best) const {
     const Placed& pl = placed_[i];
-    // Cheap rejection: a ray that passes the element's bounding circle, or whose circle lies
-    // behind it, cannot meet its surfaces (inside a slab the faces are unbounded).
-    if (!inside_) {
+    if (!pl.traced) return;
+    if (inside_) {
+        if (*inside_ != i) return;  // inside a slab only its own faces count
+    } else {
+        // Cheap rejection: a ray that passes the element's bounding circle, or whose circle lies
+        // behind it, cannot meet its surfaces (inside a slab the faces are unbounded).
         const Vec2 to_centre = pl.at - p;
         const double along = to_centre.dot(d);
         const double across = to_centre.x() * d.y() - to_centre.y() * d.x();
         if (std::abs(across) > pl.reach || along < -pl.reach) return;
+        // Every crossing lies at least along − reach down the ray: none nearer than the best.
+        if (along - pl.reach > best.dist) return;
     }
-    Surface provisional[3];
-    const Surface* s = pl.surfaces;
-    int n = pl.surface_count;
     if (pl.aim_pending) {
         // Provisional orientation: the one that would send this ray, arriving at the centre,
         // to the aimed-at element's centre.
+        Surface provisional[3];
         const Vec2 to_target = (placed_[*pl.aim_target].at - pl.at).normalized();
-        n = surfaces_of(layout_.elements[i].kind, pl.at, (to_target - d).normalized(), provisional);
-        s = provisional;
+        const int n = surfaces_of(layout_.elements[i].kind, pl.at, (to_target - d).normalized(), provisional);
+        consider_surfaces(i, provisional, n, p, d, max_dist, best);
+    } else {
+        consider_surfaces(i, pl.surfaces, pl.surface_count, p, d, max_dist, best);
     }
+}
+
+void BeamTracer::consider_surfaces(size_t i, const Surface* s, int n, const Vec2& p, const Vec2& d,
+                                   double max_dist, Candidate& best) const {
     for (int k = 0; k < n; ++k) {
         if (last_surface_ && last_surface_->first == i && last_surface_->second == s[k].face) continue;
         if (s[k].face == Face::Centre && !inside_) continue;  // the centre plane is inside the crystal
         double dist = 0, height = 0;
         if (!cross_line(p, d, s[k], dist, height)) continue;
         if (dist <= kEps_mm || dist > max_dist + 1e-6) continue;  // on the edge counts
-        if (!inside_ && std::abs(height) > pl.half_aperture) continue;
-        if (!best || dist < best->dist) best = Candidate{i, s[k], dist, height};
+        if (!inside_ && std::abs(height) > placed_[i].half_aperture) continue;
+        if (dist < best.dist) best = Candidate{i, s[k].face, s[k].normal, dist, height};
     }
 }
 
 std::optional<BeamTracer::Candidate> BeamTracer::nearest(const Vec2& p, const Vec2& d,
                                                          double max_dist) const {
-    std::optional<Candidate> best;
+    Candidate best;
     if (inside_) {
         consider(*inside_, p, d, max_dist, best);
-        return best;
+    } else {
+        for (size_t i = 0; i < layout_.elements.size(); ++i) consider(i, p, d, max_dist, best);
     }
-    for (size_t i = 0; i < layout_.elements.size(); ++i) consider(i, p, d, max_dist, best);
-    return best;
+    return best.found() ? std::optional<Candidate>(best) : std::nullopt;
 }
 
 // The next hit: among the recorded step's candidates while the new step stays within the
@@ -325,12 +337,12 @@ std::optional<BeamTracer::Candidate> BeamTracer::next_hit(const Vec2& p, const V
         const double slack = kTraceMargin_mm - moved_mm_;
         const double slack2 = slack > 0 ? slack * slack : -1.0;
         if ((p - recorded.from_mm).squaredNorm() < slack2) {
-            std::optional<Candidate> best;
+            Candidate best;
             for (uint32_t i : recorded.candidates) consider(i, p, d, max_dist, best);
-            const double reach = best ? best->dist : max_dist;
+            const double reach = best.found() ? best.dist : max_dist;
             if (std::isfinite(reach) && (p + reach * d - recorded.to_mm).squaredNorm() < slack2) {
                 ++cache_.replayed_steps;
-                return best;
+                return best.found() ? std::optional<Candidate>(best) : std::nullopt;
             }
         }
     }
@@ -344,11 +356,14 @@ void BeamTracer::record_steps() {
     memo_.steps.resize(steps_.size());
     for (size_t k = 0; k < steps_.size(); ++k) {
         TraceCache::Step& step = memo_.steps[k];
-        step.from_mm = steps_[k].first;
-        step.to_mm = steps_[k].second;
+        step.from_mm = steps_[k].from_mm;
+        step.to_mm = steps_[k].to_mm;
         step.candidates.clear();
+        // The element met comes first, so that it usually gives `consider` its nearest
+        // distance before the others are tried.
+        if (steps_[k].met) step.candidates.push_back(*steps_[k].met);
         for (size_t i = 0; i < placed_.size(); ++i)
-            if (placed_[i].traced &&
+            if (placed_[i].traced && i != steps_[k].met &&
                 distance_to_segment(placed_[i].at, step.from_mm, step.to_mm) <= placed_[i].reach + kTraceMargin_mm)
                 step.candidates.push_back(static_cast<uint32_t>(i));
     }
@@ -445,7 +460,9 @@ void BeamTracer::run() {
         }
         const double exit = inside_ ? kInf : table_exit(p, d);
         const std::optional<Candidate> c = next_hit(p, d, exit, count);
-        if (c || std::isfinite(exit)) steps_.emplace_back(p, p + (c ? c->dist : exit) * d);
+        if (c || std::isfinite(exit))
+            steps_.push_back({p, p + (c ? c->dist : exit) * d,
+                              c ? std::optional<uint32_t>(static_cast<uint32_t>(c->element)) : std::nullopt});
         if (!c) {
             if (inside_) {
                 finding(Finding::Kind::LeftThroughEdge, *inside_, p, 0,
@@ -471,23 +488,23 @@ void BeamTracer::run() {
         const ElementKind& kind = layout_.elements[e].kind;
         Placed& pl = placed_[e];
         if (pl.aim_pending) {  // the first beam to reach an aim_at mirror fixes its orientation
-            pl.normal = c->surface.normal;
+            pl.normal = c->normal;
             pl.aim_pending = false;
             pl.surface_count = surfaces_of(kind, pl.at, pl.normal, pl.surfaces);
         }
-        const Vec2 n = c->surface.normal;
+        const Vec2 n = c->normal;
         TraceHit hit;
         hit.element = e;
-        hit.face = c->surface.face;
+        hit.face = c->face;
         hit.point_mm = h;
         hit.direction_in = d;
         hit.s_mm = s_total;
-        const double cos_aoi = std::abs(d.dot(n));
-        hit.aoi_rad = cos_aoi >= 1.0 ? 0.0 : std::acos(cos_aoi);
+        hit.cos_aoi = std::min(1.0, std::abs(d.dot(n)));
+        hit.sin_aoi = std::min(1.0, std::abs(d.x() * n.y() - d.y() * n.x()));
         hit.height_mm = c->height;
         hit.half_aperture_mm = pl.half_aperture;
         hit.index_before = medium.index;
-        last_surface_ = std::make_pair(e, c->surface.face);
+        last_surface_ = std::make_pair(e, c->face);
         bool stop = false;
 
         if (const auto* lens = std::get_if<Lens>(&kind)) {
@@ -569,11 +586,11 @@ void BeamTracer::run() {
         } else if (is_slab(kind)) {
             const auto* dichroic = std::get_if<Dichroic>(&kind);
             const bool reflects_here =
-                dichroic && c->surface.face == Face::Front &&
+                dichroic && c->face == Face::Front &&
                 (dichroic->reflects_shorter ? wavelength < dichroic->edge_nm
                                             : wavelength > dichroic->edge_nm);
             const bool coming_from_front = d.dot(n) < 0;
-            if (c->surface.face == Face::Centre) {
+            if (c->face == Face::Centre) {
                 hit.interaction = Interaction::TargetPlane;
             } else if (reflects_here && (inside_.has_value() != coming_from_front)) {
                 // Coated face: reflected from outside (front) or inside (from the substrate).

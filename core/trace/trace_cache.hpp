@@ -75,7 +75,11 @@ struct TraceCache {
     };
     struct Step {
         Vec2 from_mm{0, 0}, to_mm{0, 0};
-        std::vector<uint32_t> candidates;
+        std::vector<uint32_t> candidates;  // the element met first (if any) comes first
+    };
+    struct StepTaken {
+        Vec2 from_mm{0, 0}, to_mm{0, 0};
+        std::optional<uint32_t> met;  // the element met at its end (none: the table edge)
     };
     struct Beam {
         double wavelength_nm = 0;
@@ -84,7 +88,7 @@ struct TraceCache {
         std::vector<Tagged<CrystalIndices>> crystal;   // birefringent crystals
         std::vector<Tagged<LensGlass>> lens;           // chromatic and thick lenses
         std::vector<Step> steps;                       // the recorded trace
-        std::vector<std::pair<Vec2, Vec2>> new_steps;  // this trace's steps (start, end)
+        std::vector<StepTaken> new_steps;              // this trace's steps
         std::vector<Vec2> placed_at_mm;                // element positions when it was recorded
         std::vector<double> placed_reach_mm;           // and their bounding-circle radii
     };

@@ -35,7 +35,7 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
             add(hn + ".s_mm", h.s_mm);
             add(hn + ".point_mm.x", h.point_mm.x());
             add(hn + ".point_mm.y", h.point_mm.y());
-            add(hn + ".aoi_rad", h.aoi_rad);
+            add(hn + ".aoi_rad", h.aoi_rad());
             add(hn + ".height_mm", h.height_mm);
             add(hn + ".index_after", h.index_after);
         }

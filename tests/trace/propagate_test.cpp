@@ -64,7 +64,7 @@ TEST_CASE("curved-mirror astigmatism from the traced angle", "[propagate][mirror
            {"id": "T", "type": "target", "normal_deg": 140, "at_mm": [)" + std::to_string(target.x()) + ", " +
             std::to_string(target.y()) + "]}", "T"));
     REQUIRE(t.caustic.reaches_target);
-    CHECK_THAT(t.path.hits[0].aoi_rad, near(th, 1e-12));
+    CHECK_THAT(t.path.hits[0].aoi_rad(), near(th, 1e-12));
     const auto [st, wt] = self(0.3, 300, R * std::cos(th) / 2, 1064e-6);
     const auto [ss, ws] = self(0.3, 300, R / (2 * std::cos(th)), 1064e-6);
     CHECK_THAT(200 + t.caustic.target_waist_offset_tangential_mm, near_rel(st, 1e-6));

@@ -4,6 +4,7 @@
 #include <random>
 
 #include "support/layouts.hpp"
+#include "trace/propagate.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
 
@@ -21,7 +22,12 @@ void require_same_paths(const std::vector<rv::Path>& a, const std::vector<rv::Pa
             REQUIRE(x.element == y.element);
             REQUIRE(x.face == y.face);
             REQUIRE(x.point_mm == y.point_mm);
+            REQUIRE(x.direction_in == y.direction_in);
             REQUIRE(x.direction_out == y.direction_out);
+            REQUIRE(x.aoi_rad() == y.aoi_rad());
+            REQUIRE(x.height_mm == y.height_mm);
+            REQUIRE(x.index_before == y.index_before);
+            REQUIRE(x.lens_index == y.lens_index);
             REQUIRE(x.s_mm == y.s_mm);
             REQUIRE(x.index_after == y.index_after);
             REQUIRE(x.focal_length_mm == y.focal_length_mm);
@@ -69,4 +75,39 @@ TEST_CASE("a cache follows a changed glass and wavelength", "[trace][cache]") {
         if (auto* plate = std::get_if<rv::Plate>(&e.kind)) plate->slab.material = "N-SF11";
     l.beams[0].wavelength_nm = 1064;
     require_same_paths(rv::trace_layout(l, library, &cache), rv::trace_layout(l, library));
+}
+
+// The solvers' lean evaluation (a trace into reused storage, then propagate_to_target) must
+// give the numbers of the full pipeline (a fresh trace, then propagate_path) exactly.
+TEST_CASE("the lean evaluation gives the full pipeline's numbers at the target", "[trace][cache][propagate]") {
+    for (const char* file : {"sfg-bbo.json", "pump-probe.json", "two-beam-microscope.json", "shg-single.json"}) {
+        INFO(file);
+        const rv::Layout base = rv::test::bundled_layout(file);
+        const rv::MaterialLibrary library = rv::material_library_for(base);
+        rv::TraceCache cache;
+        std::vector<rv::Path> reused;
+        std::mt19937 rng(11);
+        std::uniform_real_distribution<double> move(-1.5, 1.5), turn(-0.2, 0.2);
+        for (int trial = 0; trial < 60; ++trial) {
+            rv::Layout l = base;
+            for (rv::Element& e : l.elements) {
+                e.at_mm += rv::Vec2(move(rng), move(rng));
+                e.normal_deg += turn(rng);
+            }
+            rv::trace_layout(l, library, cache, reused);
+            const std::vector<rv::Path> fresh = rv::trace_layout(l, library);
+            require_same_paths(reused, fresh);
+            for (size_t b = 0; b < fresh.size(); ++b) {
+                const rv::Caustic full = rv::propagate_path(l, fresh[b]);
+                const rv::BeamsAtTargetPlane lean = rv::propagate_to_target(l, reused[b]);
+                REQUIRE(lean.reached == full.reaches_target);
+                if (!lean.reached) continue;
+                CHECK(lean.tangential.q_mm == full.target_tangential.q_mm);
+                CHECK(lean.sagittal.q_mm == full.target_sagittal.q_mm);
+                CHECK(lean.tangential.index == full.target_tangential.index);
+                CHECK(lean.waist_offset_tangential_mm == full.target_waist_offset_tangential_mm);
+                CHECK(lean.waist_offset_sagittal_mm == full.target_waist_offset_sagittal_mm);
+            }
+        }
+    }
 }

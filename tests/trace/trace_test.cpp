@@ -41,7 +41,7 @@ TEST_CASE("folded path: path length and exit angle by hand", "[trace]") {
     CHECK_THAT(p.hits[2].s_mm, near(250, 1e-9));
     CHECK_THAT(angle_deg(p.hits[0].direction_out), near(90, 1e-9));
     CHECK_THAT(angle_deg(p.hits[2].direction_in), near(0, 1e-9));
-    CHECK_THAT(rv::rad_to_deg(p.hits[0].aoi_rad), near(45, 1e-9));
+    CHECK_THAT(rv::rad_to_deg(p.hits[0].aoi_rad()), near(45, 1e-9));
 
     // A 30° deviation: normal at 165° turns a beam going along 0° to 2·165 − 0 + 180 = 150°.
     const rv::Layout l2 = layout_from(layout_json(kBeam1064,

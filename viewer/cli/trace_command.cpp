@@ -43,7 +43,7 @@ int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err)
                                 {"interaction", what},
                                 {"s_mm", h.s_mm},
                                 {"at_mm", {h.point_mm.x(), h.point_mm.y()}},
-                                {"aoi_deg", h.aoi_rad * 180 / 3.14159265358979323846},
+                                {"aoi_deg", h.aoi_rad() * 180 / 3.14159265358979323846},
                                 {"radius_um", {{"tangential", c.at_hits[i].radius_tangential_um},
                                                {"sagittal", c.at_hits[i].radius_sagittal_um}}}});
                 continue;
@@ -52,7 +52,7 @@ int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err)
             std::snprintf(line, sizeof line,
                           "  %8.2f mm  %-8s %-13s at (%8.3f, %8.3f)  aoi %5.1f°  w %8.1f / %-8.1f µm\n",
                           h.s_mm, layout->elements[h.element].id.c_str(), what, h.point_mm.x(),
-                          h.point_mm.y(), h.aoi_rad * 180 / 3.14159265358979323846,
+                          h.point_mm.y(), h.aoi_rad() * 180 / 3.14159265358979323846,
                           c.at_hits[i].radius_tangential_um, c.at_hits[i].radius_sagittal_um);
             out << line;
         }
