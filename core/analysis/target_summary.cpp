@@ -42,10 +42,17 @@ std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const M
                                                    TraceCache* cache) {
     TraceCache local;
     TraceCache& c = cache ? *cache : local;
-    trace_layout(layout, library, c, c.paths);
+    const std::vector<Path>& paths = retrace_layout(layout, library, c);
     std::vector<BeamAtTarget> out;
-    out.reserve(c.paths.size());
-    for (const Path& path : c.paths) out.push_back(beam_at_target(layout, path, propagate_to_target(layout, path)));
+    out.reserve(paths.size());
+    for (size_t b = 0; b < paths.size(); ++b) {
+        // The memo may start after the kept hits only if it followed the previous retrace's path.
+        TraceCache::Beam& memo = c.beams[b];
+        const size_t unchanged = memo.propagated_at + 1 == c.retraces ? memo.kept_hits : 0;
+        memo.propagated_at = c.retraces;
+        out.push_back(beam_at_target(layout, paths[b],
+                                     propagate_to_target(layout, paths[b], &memo.propagation, unchanged)));
+    }
     return out;
 }
 

@@ -38,7 +38,8 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Causti
 BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const BeamsAtTargetPlane& beams);
 
 // Trace every beam, propagate it without the drawing envelope, and take it at the target: the
-// lean evaluation the solvers repeat (with a TraceCache kept between calls on one layout).
+// lean evaluation the solvers repeat (with a TraceCache kept between calls on one layout, which
+// re-traces and re-propagates each beam only from the first step a change can have altered).
 std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
                                                    TraceCache* cache = nullptr);
 

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <sstream>
+#include <tuple>
 
 #include "optics/thick_lens.hpp"
 #include "units/constants.hpp"
@@ -106,13 +107,23 @@ void cross_hit(const Layout& layout, const TraceHit& hit, GaussianBeam& t, Gauss
 
 }  // namespace
 
-BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path) {
+BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path, TargetPropagationMemo* memo,
+                                       size_t unchanged_hits) {
     BeamsAtTargetPlane out;
-    if (!path.target_hit) return out;
+    if (!path.target_hit) {
+        if (memo) memo->after_hit.clear();  // it must follow this path, whose hits it never saw
+        return out;
+    }
     const size_t k = *path.target_hit;
     GaussianBeam t{}, s{};
-    source_beams(layout.beams[path.beam], t, s);
-    for (size_t i = 0; i <= k && i < path.segments.size(); ++i) {
+    size_t first = 0;  // the segment to start from, with (t, s) at its start
+    if (memo && unchanged_hits > 0 && !memo->after_hit.empty()) {
+        first = std::min({unchanged_hits, memo->after_hit.size(), k});
+        if (first > 0) std::tie(t, s) = memo->after_hit[first - 1];
+    }
+    if (first == 0) source_beams(layout.beams[path.beam], t, s);
+    if (memo) memo->after_hit.resize(first);
+    for (size_t i = first; i <= k && i < path.segments.size(); ++i) {
         const TraceSegment& seg = path.segments[i];
         t.index = seg.index;
         s.index = seg.index;
@@ -123,6 +134,7 @@ BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path) {
             break;
         }
         cross_hit(layout, path.hits[i], t, s);
+        if (memo) memo->after_hit.emplace_back(t, s);
     }
     if (!out.reached) return out;
     out.tangential = t;

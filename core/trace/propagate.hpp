@@ -67,6 +67,13 @@ struct BeamsAtTargetPlane {
     GaussianBeam tangential{}, sagittal{};
     double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;
 };
-BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path);
+// With a memo, the beams after each hit are kept, and a path whose first `unchanged_hits` hits
+// (and the segments before them) are those of the previous call with this memo, for the same
+// beam source, restarts after them (retrace_layout says how many are unchanged).
+struct TargetPropagationMemo {
+    std::vector<std::pair<GaussianBeam, GaussianBeam>> after_hit;  // tangential, sagittal
+};
+BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path,
+                                       TargetPropagationMemo* memo = nullptr, size_t unchanged_hits = 0);
 
 }  // namespace rv

@@ -194,25 +194,26 @@ const T& cached(TraceCache::Tagged<T>& slot, const Material* material, int varia
     return *slot.value;
 }
 
-// Distance from point c to the segment [a, b].
-double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
+// Distance from point c to the segment [a, b], squared.
+double squared_distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
     const Vec2 ab = b - a;
     const double len2 = ab.squaredNorm();
     const double t = len2 > 0 ? std::clamp((c - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
-    return (a + t * ab - c).norm();
+    return (a + t * ab - c).squaredNorm();
+}
+double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
+    return std::sqrt(squared_distance_to_segment(c, a, b));
 }
 
 class BeamTracer {
 public:
-    BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, bool record, Path& out)
+    // retrace: `out` holds this beam's path from the previous retrace, whose unchanged steps are
+    // kept (see retrace_layout).
+    BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, bool record, bool retrace, Path& out)
         : layout_(layout), placed_(cache.placed), beam_(layout.beams[beam]), cache_(cache),
-          memo_(cache.beams[beam]), air_(cache.air), path_(out), steps_(memo_.new_steps), record_(record) {
+          memo_(cache.beams[beam]), air_(cache.air), path_(out), steps_(memo_.new_steps), record_(record),
+          retrace_(retrace) {
         path_.beam = beam;
-        path_.segments.clear();
-        path_.hits.clear();
-        path_.findings.clear();
-        path_.target_hit.reset();
-        steps_.clear();
         air_group_index_ = memo_.air_group_index;
         target_ = resolve(layout, layout.target, cache.target);
         // How far any element has moved since the steps were recorded (see trace_cache.hpp),
@@ -231,6 +232,16 @@ public:
     void run();
 
 private:
+    struct Resumed {
+        size_t step = 0;
+        Vec2 p{0, 0}, d{1, 0};
+        double s_mm = 0;
+        Medium medium{};
+    };
+    Resumed resume();
+    bool aims_as_before();
+    bool touched_by_change(const TraceCache::StepTaken& step) const;
+
     struct Candidate {  // a surface crossing; dist = ∞ until one is found
         size_t element = SIZE_MAX;
         Face face = Face::Only;
@@ -267,13 +278,13 @@ private:
     std::vector<TraceCache::StepTaken>& steps_;  // this trace's steps
     bool replaying_ = false;  // every step so far lay within the recorded steps' margin
     bool record_ = true;      // keep the steps for a later trace (only with a caller's cache)
+    bool retrace_ = false;    // keep the steps no change can have altered (retrace_layout)
     double moved_mm_ = 0;
     double air_group_index_ = 1.0;
     std::optional<size_t> target_;
     std::optional<size_t> inside_;
     std::optional<std::pair<size_t, Face>> last_surface_;
     std::optional<size_t> expect_;  // the element an aim_at mirror sent the ray to
-    std::vector<size_t> out_of_range_noted_;
 };
 
 void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dist, Candidate& best) const {
@@ -388,9 +399,9 @@ double BeamTracer::table_exit(const Vec2& p, const Vec2& d) const {
 
 void BeamTracer::note_material(size_t element, const Material& m) {
     if (covers(m, beam_.wavelength_nm)) return;
-    for (size_t e : out_of_range_noted_)
+    for (size_t e : memo_.noted)
         if (e == element) return;
-    out_of_range_noted_.push_back(element);
+    memo_.noted.push_back(element);
     std::ostringstream s;
     s << beam_.wavelength_nm << " nm lies outside the range of " << m.name << " ("
       << m.min_wavelength_nm << "–" << m.max_wavelength_nm << " nm); its index is extrapolated";
@@ -445,14 +456,99 @@ void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> n
     }
 }
 
+// Whether every aim_at mirror is as it was when this beam started in the previous retrace
+// (still to be turned, or its normal); the memo then takes the present state.
+bool BeamTracer::aims_as_before() {
+    bool same = true;
+    size_t k = 0;
+    for (const Placed& pl : placed_) {
+        if (!pl.aim_target) continue;
+        const std::pair<bool, Vec2> now(pl.aim_pending, pl.normal);
+        if (k < memo_.aims.size()) {
+            same = same && memo_.aims[k] == now;
+            memo_.aims[k] = now;
+        } else {
+            same = false;
+            memo_.aims.push_back(now);
+        }
+        ++k;
+    }
+    if (k != memo_.aims.size()) same = false;
+    memo_.aims.resize(k);
+    return same;
+}
+
+// Whether an element changed since the previous retrace comes near a step of it, where it was
+// then or where it is now: its bounding circle within reach of the step's segment. A step no
+// changed element comes near started the same way and met the same surfaces, so it repeats.
+bool BeamTracer::touched_by_change(const TraceCache::StepTaken& step) const {
+    for (size_t e : cache_.changed) {
+        const double then = cache_.seen_reach_mm[e] + 1e-6, now = placed_[e].reach + 1e-6;
+        if (squared_distance_to_segment(cache_.seen_at_mm[e], step.from_mm, step.to_mm) <= then * then ||
+            squared_distance_to_segment(placed_[e].at, step.from_mm, step.to_mm) <= now * now)
+            return true;
+    }
+    return false;
+}
+
+// Where this trace starts: at the beam's source, or (retrace) after the previous path's leading
+// steps that no change can have altered, with the tracer's state as it was there.
+BeamTracer::Resumed BeamTracer::resume() {
+    Resumed r{0, beam_.start_mm, direction_deg(beam_.direction_deg), 0, Medium{1.0, air_group_index_}};
+    size_t keep = 0;
+    if (retrace_) {
+        const bool aims_same = aims_as_before();
+        const bool comparable = cache_.retrace_valid && aims_same && memo_.source && *memo_.source == beam_ &&
+                                path_.hits.size() + 1 >= memo_.starts.size() && steps_.size() + 1 >= memo_.starts.size();
+        // The last step of the previous trace is always taken again (it ended the path).
+        while (comparable && keep + 1 < memo_.starts.size() && !touched_by_change(steps_[keep])) ++keep;
+        if (!comparable) memo_.source = beam_;
+    }
+    memo_.kept_hits = keep;
+    if (keep == 0) {
+        path_.segments.clear();
+        path_.hits.clear();
+        path_.findings.clear();
+        path_.target_hit.reset();
+        steps_.clear();
+        memo_.starts.clear();
+        memo_.noted.clear();
+        return r;
+    }
+    const TraceCache::StepStart& st = memo_.starts[keep];
+    for (size_t j = 0; j < keep; ++j)
+        if (const auto& a = memo_.starts[j].aimed) {  // the turn of an aim_at mirror, as then
+            Placed& pl = placed_[a->first];
+            pl.normal = a->second;
+            pl.aim_pending = false;
+            pl.surface_count = surfaces_of(layout_.elements[a->first].kind, pl.at, pl.normal, pl.surfaces);
+        }
+    path_.segments.resize(keep);
+    path_.hits.resize(keep);
+    path_.findings.resize(st.findings);
+    if (path_.target_hit && *path_.target_hit >= keep) path_.target_hit.reset();
+    steps_.resize(keep);
+    memo_.noted.resize(st.noted);
+    inside_ = st.inside;
+    last_surface_ = st.last_surface;
+    expect_ = st.expect;
+    r = Resumed{keep, st.p_mm, st.d, st.s_mm, st.medium};
+    memo_.starts.resize(keep);
+    return r;
+}
+
 void BeamTracer::run() {
-    Vec2 p = beam_.start_mm;
-    Vec2 d = direction_deg(beam_.direction_deg);
-    double s_total = 0;
-    Medium medium{1.0, air_group_index_};
+    const Resumed from = resume();
+    Vec2 p = from.p;
+    Vec2 d = from.d;
+    double s_total = from.s_mm;
+    Medium medium = from.medium;
     const double wavelength = beam_.wavelength_nm;
 
-    for (size_t count = 0;; ++count) {
+    for (size_t count = from.step;; ++count) {
+        if (retrace_)
+            memo_.starts.push_back({p, d, s_total, medium, inside_, last_surface_, expect_, path_.findings.size(),
+                                    memo_.noted.size(), std::nullopt});
         if (count >= kMaxHitsPerBeam) {
             finding(Finding::Kind::TooManyHits, SIZE_MAX, p, 0,
                     "stopped after " + std::to_string(kMaxHitsPerBeam) + " hits");
@@ -491,6 +587,7 @@ void BeamTracer::run() {
             pl.normal = c->normal;
             pl.aim_pending = false;
             pl.surface_count = surfaces_of(kind, pl.at, pl.normal, pl.surfaces);
+            if (retrace_) memo_.starts.back().aimed = std::make_pair(e, pl.normal);
         }
         const Vec2 n = c->normal;
         TraceHit hit;
@@ -652,8 +749,37 @@ void BeamTracer::run() {
     if (record_ && (!replaying_ || steps_.size() != memo_.steps.size())) record_steps();
 }
 
+// Which elements changed since the previous retrace (cache.changed), in the file or where a
+// stage puts them; an aim_at mirror counts as changed when what it aims at did.
+void find_changes(const Layout& layout, TraceCache& c) {
+    const size_t n = layout.elements.size();
+    c.changed.clear();
+    if (!c.retrace_valid || c.seen_elements.size() != n || !(c.seen_table == layout.table) ||
+        c.seen_target != layout.target) {
+        c.retrace_valid = false;
+        c.seen_elements = layout.elements;
+        c.seen_table = layout.table;
+        c.seen_target = layout.target;
+        return;
+    }
+    std::vector<uint8_t> flag(n, 0);
+    for (size_t i = 0; i < n; ++i) {
+        const Element &now = layout.elements[i], &then = c.seen_elements[i];
+        // The numbers that usually change first, then the whole element.
+        if (!(now.at_mm == then.at_mm && now.normal_deg == then.normal_deg && now == then)) {
+            flag[i] = 1;
+            c.seen_elements[i] = layout.elements[i];
+        }
+        if (c.placed[i].at != c.seen_at_mm[i] || c.placed[i].reach != c.seen_reach_mm[i]) flag[i] = 1;
+    }
+    for (size_t i = 0; i < n; ++i)
+        if (c.placed[i].aim_target && flag[*c.placed[i].aim_target]) flag[i] = 1;
+    for (size_t i = 0; i < n; ++i)
+        if (flag[i]) c.changed.push_back(i);
+}
+
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& c, std::vector<Path>& paths,
-                  bool record) {
+                  bool record, bool retrace) {
     // Start afresh when the cache was made for another list of elements or beams, or with
     // another material library.
     const size_t n = layout.elements.size();
@@ -679,23 +805,43 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
         beam.lens.resize(n);
     }
     place(layout, library, c);
+    if (retrace) {
+        find_changes(layout, c);
+    } else {
+        c.retrace_valid = false;
+    }
     paths.resize(layout.beams.size());
-    for (size_t b = 0; b < layout.beams.size(); ++b) BeamTracer(layout, b, c, record, paths[b]).run();
+    for (size_t b = 0; b < layout.beams.size(); ++b) BeamTracer(layout, b, c, record, retrace, paths[b]).run();
+    if (retrace) {
+        c.seen_at_mm.resize(n);
+        c.seen_reach_mm.resize(n);
+        for (size_t i = 0; i < n; ++i) {
+            c.seen_at_mm[i] = c.placed[i].at;
+            c.seen_reach_mm[i] = c.placed[i].reach;
+        }
+        c.retrace_valid = true;
+        ++c.retraces;
+    }
 }
 
 }  // namespace
 
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache, std::vector<Path>& paths) {
-    trace_layout(layout, library, cache, paths, true);
+    trace_layout(layout, library, cache, paths, true, false);
+}
+
+const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache) {
+    trace_layout(layout, library, cache, cache.paths, true, true);
+    return cache.paths;
 }
 
 std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache* cache) {
     std::vector<Path> paths;
     if (cache) {
-        trace_layout(layout, library, *cache, paths, true);
+        trace_layout(layout, library, *cache, paths, true, false);
     } else {
         TraceCache local;
-        trace_layout(layout, library, local, paths, false);
+        trace_layout(layout, library, local, paths, false, false);
     }
     return paths;
 }

@@ -40,4 +40,12 @@ std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& libr
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
                   std::vector<Path>& paths);
 
+// The same into the cache's own paths, keeping from the previous retrace with this cache each
+// path's leading steps that no element changed since then comes near (an element compared
+// whole, and where a stage puts it): a solver that moves one arm's lenses re-traces only that
+// arm from its first moved lens on. cache.beams[b].kept_hits says how many hits were kept.
+// Any other trace with the cache in between, or a changed table, target or beam source, makes
+// it start from the sources. The paths equal a fresh trace's (a test compares them).
+const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache);
+
 }  // namespace rv

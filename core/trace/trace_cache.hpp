@@ -32,6 +32,7 @@
 #include "materials/material.hpp"
 #include "nonlinear/phase_matching.hpp"
 #include "trace/path.hpp"
+#include "trace/propagate.hpp"
 
 namespace rv {
 
@@ -81,6 +82,17 @@ struct TraceCache {
         Vec2 from_mm{0, 0}, to_mm{0, 0};
         std::optional<uint32_t> met;  // the element met at its end (none: the table edge)
     };
+    // The tracer's state at the start of one step of the previous retrace (see retrace_layout).
+    struct StepStart {
+        Vec2 p_mm{0, 0}, d{1, 0};
+        double s_mm = 0;
+        Medium medium{};
+        std::optional<size_t> inside;
+        std::optional<std::pair<size_t, Face>> last_surface;
+        std::optional<size_t> expect;
+        size_t findings = 0, noted = 0;
+        std::optional<std::pair<size_t, Vec2>> aimed;  // an aim_at mirror this step's hit turned
+    };
     struct Beam {
         double wavelength_nm = 0;
         double air_group_index = 1;
@@ -91,6 +103,15 @@ struct TraceCache {
         std::vector<StepTaken> new_steps;              // this trace's steps
         std::vector<Vec2> placed_at_mm;                // element positions when it was recorded
         std::vector<double> placed_reach_mm;           // and their bounding-circle radii
+        // retrace_layout: the previous retrace's step starts, its source, the aim_at mirrors'
+        // state when it began, and how many of its hits the current path kept.
+        std::vector<StepStart> starts;
+        std::vector<size_t> noted;  // elements whose out-of-range index was reported
+        std::optional<BeamSource> source;
+        std::vector<std::pair<bool, Vec2>> aims;
+        size_t kept_hits = 0;
+        TargetPropagationMemo propagation;
+        uint64_t propagated_at = 0;  // the retrace whose path `propagation` followed
     };
     // Names resolved once per element (checked against the layout's names on every use):
     // the elements a stage carries, an aim_at mirror's target, the material by its name.
@@ -112,7 +133,17 @@ struct TraceCache {
     std::optional<std::pair<std::string, size_t>> target;  // the layout's target element
     std::vector<Beam> beams;
     std::vector<Placed> placed;
-    std::vector<Path> paths;  // storage for evaluate_beams_at_target's traces
+    std::vector<Path> paths;  // retrace_layout's paths
+    // retrace_layout: the elements as they were at the previous retrace (and where they were
+    // placed), which of them changed since, and whether that retrace is the last trace made.
+    bool retrace_valid = false;
+    uint64_t retraces = 0;  // how many retraces this cache has made
+    std::vector<Element> seen_elements;
+    std::vector<Vec2> seen_at_mm;
+    std::vector<double> seen_reach_mm;
+    Table seen_table;
+    std::string seen_target;
+    std::vector<size_t> changed;  // indices, this retrace
     // How the last traces went (for tests and benchmarks).
     size_t replayed_steps = 0, searched_steps = 0;
 };

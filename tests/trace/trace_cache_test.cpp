@@ -4,6 +4,7 @@
 #include <random>
 
 #include "support/layouts.hpp"
+#include "analysis/target_summary.hpp"
 #include "trace/propagate.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
@@ -109,5 +110,67 @@ TEST_CASE("the lean evaluation gives the full pipeline's numbers at the target",
                 CHECK(lean.waist_offset_sagittal_mm == full.target_waist_offset_sagittal_mm);
             }
         }
+    }
+}
+
+// retrace_layout keeps the leading steps of the previous retrace that no changed element comes
+// near. Under random sparse edits (the solvers' pattern: one or two optics moved, turned or
+// given another focal length, a stage moved, sometimes a beam or the table changed, sometimes
+// another kind of trace in between) its paths and the evaluation built on them must equal a
+// fresh trace and the full pipeline exactly.
+TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[trace][cache][retrace]") {
+    for (const char* file : {"sfg-bbo.json", "pump-probe.json", "two-beam-microscope.json", "shg-single.json"}) {
+        INFO(file);
+        const rv::Layout base = rv::test::bundled_layout(file);
+        const rv::MaterialLibrary library = rv::material_library_for(base);
+        rv::TraceCache cache;
+        rv::Layout l = base;
+        std::mt19937 rng(23);
+        std::uniform_real_distribution<double> small(-0.6, 0.6), large(-10, 10), unit(0, 1);
+        size_t kept = 0;
+        for (int trial = 0; trial < 400; ++trial) {
+            INFO("trial " << trial);
+            const int edits = 1 + static_cast<int>(rng() % 2);
+            for (int k = 0; k < edits; ++k) {
+                rv::Element& e = l.elements[rng() % l.elements.size()];
+                switch (rng() % 6) {
+                    case 0: e.at_mm += rv::Vec2(small(rng), small(rng)); break;
+                    case 1: e.at_mm += rv::Vec2(large(rng), large(rng)); break;
+                    case 2: e.normal_deg += small(rng); break;
+                    case 3: e.aperture_mm = std::max(1.0, e.aperture_mm + small(rng)); break;
+                    case 4:
+                        if (auto* lens = std::get_if<rv::Lens>(&e.kind)) {
+                            if (auto* i = std::get_if<rv::IdealLens>(&lens->model)) i->focal_length_mm *= 1 + 0.05 * small(rng);
+                            if (auto* c = std::get_if<rv::ThinChromaticLens>(&lens->model)) c->focal_length_mm *= 1 + 0.05 * small(rng);
+                        }
+                        if (auto* stage = std::get_if<rv::Stage>(&e.kind)) stage->position_mm += 5 * small(rng);
+                        break;
+                    default: break;  // nothing changed
+                }
+            }
+            const double what = unit(rng);
+            if (what < 0.03) l.beams[0].waist_um.tangential *= 1.01;
+            else if (what < 0.06) l.beams.back().direction_deg += 0.01;
+            else if (what < 0.08) l.table.width_mm += 1;
+            else if (what < 0.12) rv::trace_layout(l, library, &cache);  // another kind of trace between
+            if (unit(rng) < 0.02) l = base;  // back to the start: everything changes at once
+
+            const std::vector<rv::BeamAtTarget> lean = rv::evaluate_beams_at_target(l, library, &cache);
+            for (const rv::TraceCache::Beam& b : cache.beams) kept += b.kept_hits;
+            const std::vector<rv::Path> fresh = rv::trace_layout(l, library);
+            require_same_paths(cache.paths, fresh);
+            REQUIRE(lean.size() == fresh.size());
+            for (size_t b = 0; b < fresh.size(); ++b) {
+                const rv::BeamAtTarget full = rv::beam_at_target(l, fresh[b], rv::propagate_path(l, fresh[b]));
+                REQUIRE(lean[b].reached == full.reached);
+                CHECK(lean[b].arrival_fs == full.arrival_fs);
+                CHECK(lean[b].tangential.waist_offset_mm == full.tangential.waist_offset_mm);
+                CHECK(lean[b].sagittal.waist_offset_mm == full.sagittal.waist_offset_mm);
+                CHECK(lean[b].tangential.radius_um == full.tangential.radius_um);
+                CHECK(lean[b].sagittal.waist_um == full.sagittal.waist_um);
+                CHECK(lean[b].hit_mm == full.hit_mm);
+            }
+        }
+        CHECK(kept > 0);  // the retrace did keep steps
     }
 }
