@@ -63,28 +63,59 @@ std::optional<size_t> resolve(const Layout& layout, const std::string& id,
     return slot->second;
 }
 
-// Every element where stages have moved it, into cache.placed (computed once per trace of the
-// layout; the normal and the bounding radius are recomputed only when their inputs changed).
-void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache) {
-    std::vector<Placed>& placed = cache.placed;
-    placed.resize(layout.elements.size());  // every field is set below
-    cache.resolved.resize(layout.elements.size());
-    for (size_t i = 0; i < layout.elements.size(); ++i) {
-        const Element& e = layout.elements[i];
-        TraceCache::Resolved& r = cache.resolved[i];
-        if (!(r.normal_deg == e.normal_deg)) {
-            r.normal_deg = e.normal_deg;
-            r.normal = direction_deg(e.normal_deg);
-        }
-        placed[i].at = e.at_mm;
-        placed[i].normal = r.normal;
-        placed[i].half_aperture = e.aperture_mm / 2.0;
-        placed[i].traced = !std::holds_alternative<Stage>(e.kind);
-        placed[i].aim_pending = false;
-        placed[i].aim_target.reset();
-        placed[i].material = nullptr;
+// One element where its stage (if any) has moved it by offset: normal, surfaces, bounding
+// circle, material (the normal and the bounding radius recomputed only when their inputs changed).
+void place_one(const Layout& layout, const MaterialLibrary& library, TraceCache& cache, size_t i, const Vec2& offset) {
+    const Element& e = layout.elements[i];
+    const ElementKind& kind = e.kind;
+    TraceCache::Resolved& r = cache.resolved[i];
+    Placed& pl = cache.placed[i];
+    if (!(r.normal_deg == e.normal_deg)) {
+        r.normal_deg = e.normal_deg;
+        r.normal = direction_deg(e.normal_deg);
     }
-    for (size_t k = 0; k < layout.elements.size(); ++k) {
+    pl.at = e.at_mm + offset;
+    pl.normal = r.normal;
+    pl.half_aperture = e.aperture_mm / 2.0;
+    pl.traced = !std::holds_alternative<Stage>(kind);
+    pl.aim_pending = false;
+    pl.aim_target.reset();
+    pl.material = nullptr;
+    if (const auto* m = std::get_if<Mirror>(&kind); m && m->aim_at) {
+        pl.aim_target = resolve(layout, *m->aim_at, r.aim_target);
+        pl.aim_pending = pl.aim_target.has_value();
+    }
+    pl.surface_count = surfaces_of(kind, pl.at, pl.normal, pl.surfaces);
+    const double thickness = slab_thickness(kind);
+    if (r.reach_half_aperture_mm != pl.half_aperture || r.reach_thickness_mm != thickness) {
+        r.reach_half_aperture_mm = pl.half_aperture;
+        r.reach_thickness_mm = thickness;
+        r.reach_mm = std::hypot(pl.half_aperture, thickness) + 1e-6;
+    }
+    pl.reach = r.reach_mm;
+    if (const std::string* name = material_name(kind)) {
+        if (r.material_name != *name || !r.material) {
+            r.material_name = *name;
+            r.material = library.find(*name);
+        }
+        pl.material = r.material;
+    }
+}
+
+// Every element where stages have moved it, into cache.placed (once per trace of the layout).
+// With `changed` (a retrace): only the elements flagged there, those a stage now moves by
+// another amount (flagged too) and the aim_at mirrors (the tracer turns them) are placed anew;
+// the others keep the placement of the previous trace.
+void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
+           std::vector<uint8_t>* changed = nullptr) {
+    const size_t n = layout.elements.size();
+    cache.placed.resize(n);
+    cache.resolved.resize(n);
+    std::vector<Vec2>& offset = cache.stage_offset_mm;  // where each element's stage moves it
+    std::vector<Vec2>& before = cache.stage_offset_before_mm;
+    std::swap(offset, before);
+    offset.assign(n, Vec2(0, 0));
+    for (size_t k = 0; k < n; ++k) {
         if (const auto* s = std::get_if<Stage>(&layout.elements[k].kind)) {
             auto& carried = cache.resolved[k].carried;
             carried.resize(s->carries.size());
@@ -92,34 +123,19 @@ void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cac
                 std::optional<std::pair<std::string, size_t>> slot;
                 if (!carried[c].first.empty()) slot = carried[c];
                 if (auto i = resolve(layout, s->carries[c], slot)) {
-                    placed[*i].at += s->position_mm * direction_deg(s->axis_deg);
+                    offset[*i] += s->position_mm * direction_deg(s->axis_deg);
                     carried[c] = *slot;
                 }
             }
         }
     }
-    for (size_t i = 0; i < layout.elements.size(); ++i) {
-        const ElementKind& kind = layout.elements[i].kind;
-        TraceCache::Resolved& r = cache.resolved[i];
-        if (const auto* m = std::get_if<Mirror>(&kind); m && m->aim_at) {
-            placed[i].aim_target = resolve(layout, *m->aim_at, r.aim_target);
-            placed[i].aim_pending = placed[i].aim_target.has_value();
+    for (size_t i = 0; i < n; ++i) {
+        if (changed) {
+            if (before.size() != n || offset[i] != before[i]) (*changed)[i] = 1;
+            const auto* m = std::get_if<Mirror>(&layout.elements[i].kind);
+            if (!(*changed)[i] && !(m && m->aim_at)) continue;
         }
-        placed[i].surface_count = surfaces_of(kind, placed[i].at, placed[i].normal, placed[i].surfaces);
-        const double thickness = slab_thickness(kind);
-        if (r.reach_half_aperture_mm != placed[i].half_aperture || r.reach_thickness_mm != thickness) {
-            r.reach_half_aperture_mm = placed[i].half_aperture;
-            r.reach_thickness_mm = thickness;
-            r.reach_mm = std::hypot(placed[i].half_aperture, thickness) + 1e-6;
-        }
-        placed[i].reach = r.reach_mm;
-        if (const std::string* name = material_name(kind)) {
-            if (r.material_name != *name || !r.material) {
-                r.material_name = *name;
-                r.material = library.find(*name);
-            }
-            placed[i].material = r.material;
-        }
+        place_one(layout, library, cache, i, offset[i]);
     }
 }
 
@@ -482,11 +498,16 @@ bool BeamTracer::aims_as_before() {
 // then or where it is now: its bounding circle within reach of the step's segment. A step no
 // changed element comes near started the same way and met the same surfaces, so it repeats.
 bool BeamTracer::touched_by_change(const TraceCache::StepTaken& step) const {
+    // A circle about c of radius r comes within reach of the segment [a, b]; a box test first.
+    auto near = [&](const Vec2& c, double r) {
+        const Vec2 lo = step.from_mm.cwiseMin(step.to_mm), hi = step.from_mm.cwiseMax(step.to_mm);
+        if (c.x() < lo.x() - r || c.x() > hi.x() + r || c.y() < lo.y() - r || c.y() > hi.y() + r) return false;
+        return squared_distance_to_segment(c, step.from_mm, step.to_mm) <= r * r;
+    };
     for (size_t e : cache_.changed) {
         const double then = cache_.seen_reach_mm[e] + 1e-6, now = placed_[e].reach + 1e-6;
-        if (squared_distance_to_segment(cache_.seen_at_mm[e], step.from_mm, step.to_mm) <= then * then ||
-            squared_distance_to_segment(placed_[e].at, step.from_mm, step.to_mm) <= now * now)
-            return true;
+        if (near(placed_[e].at, now)) return true;
+        if ((cache_.seen_at_mm[e] != placed_[e].at || then != now) && near(cache_.seen_at_mm[e], then)) return true;
     }
     return false;
 }
@@ -749,33 +770,38 @@ void BeamTracer::run() {
     if (record_ && (!replaying_ || steps_.size() != memo_.steps.size())) record_steps();
 }
 
-// Which elements changed since the previous retrace (cache.changed), in the file or where a
-// stage puts them; an aim_at mirror counts as changed when what it aims at did.
-void find_changes(const Layout& layout, TraceCache& c) {
+// Which elements differ from the previous retrace's (flags in c.changed_flag; all when there
+// is no previous retrace to compare with, or the table or target changed).
+void compare_elements(const Layout& layout, TraceCache& c) {
     const size_t n = layout.elements.size();
-    c.changed.clear();
+    c.changed_flag.assign(n, 0);
     if (!c.retrace_valid || c.seen_elements.size() != n || !(c.seen_table == layout.table) ||
         c.seen_target != layout.target) {
         c.retrace_valid = false;
         c.seen_elements = layout.elements;
         c.seen_table = layout.table;
         c.seen_target = layout.target;
+        c.changed_flag.assign(n, 1);
         return;
     }
-    std::vector<uint8_t> flag(n, 0);
     for (size_t i = 0; i < n; ++i) {
         const Element &now = layout.elements[i], &then = c.seen_elements[i];
-        // The numbers that usually change first, then the whole element.
-        if (!(now.at_mm == then.at_mm && now.normal_deg == then.normal_deg && now == then)) {
-            flag[i] = 1;
-            c.seen_elements[i] = layout.elements[i];
+        // Element's operator== field by field, the numbers that usually change first.
+        if (!(now.at_mm == then.at_mm && now.normal_deg == then.normal_deg && now.aperture_mm == then.aperture_mm &&
+              now.transmission == then.transmission && now.kind == then.kind && now.id == then.id)) {
+            c.changed_flag[i] = 1;
+            c.seen_elements[i] = now;
         }
-        if (c.placed[i].at != c.seen_at_mm[i] || c.placed[i].reach != c.seen_reach_mm[i]) flag[i] = 1;
     }
-    for (size_t i = 0; i < n; ++i)
-        if (c.placed[i].aim_target && flag[*c.placed[i].aim_target]) flag[i] = 1;
-    for (size_t i = 0; i < n; ++i)
-        if (flag[i]) c.changed.push_back(i);
+}
+
+// The changed elements' indices (cache.changed), after placing: an aim_at mirror counts as
+// changed when what it aims at did.
+void list_changes(TraceCache& c) {
+    c.changed.clear();
+    for (size_t i = 0; i < c.placed.size(); ++i)
+        if (c.changed_flag[i] || (c.placed[i].aim_target && c.changed_flag[*c.placed[i].aim_target]))
+            c.changed.push_back(i);
 }
 
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& c, std::vector<Path>& paths,
@@ -804,11 +830,13 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
         beam.crystal.resize(n);
         beam.lens.resize(n);
     }
-    place(layout, library, c);
     if (retrace) {
-        find_changes(layout, c);
+        compare_elements(layout, c);
+        place(layout, library, c, &c.changed_flag);
+        list_changes(c);
     } else {
         c.retrace_valid = false;
+        place(layout, library, c);
     }
     paths.resize(layout.beams.size());
     for (size_t b = 0; b < layout.beams.size(); ++b) BeamTracer(layout, b, c, record, retrace, paths[b]).run();

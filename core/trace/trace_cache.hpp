@@ -143,7 +143,9 @@ struct TraceCache {
     std::vector<double> seen_reach_mm;
     Table seen_table;
     std::string seen_target;
-    std::vector<size_t> changed;  // indices, this retrace
+    std::vector<uint8_t> changed_flag;  // per element, this retrace
+    std::vector<size_t> changed;        // their indices
+    std::vector<Vec2> stage_offset_mm, stage_offset_before_mm;  // how far stages move each element
     // How the last traces went (for tests and benchmarks).
     size_t replayed_steps = 0, searched_steps = 0;
 };
