@@ -785,12 +785,19 @@ void compare_elements(const Layout& layout, TraceCache& c) {
         return;
     }
     for (size_t i = 0; i < n; ++i) {
-        const Element &now = layout.elements[i], &then = c.seen_elements[i];
-        // Element's operator== field by field, the numbers that usually change first.
-        if (!(now.at_mm == then.at_mm && now.normal_deg == then.normal_deg && now.aperture_mm == then.aperture_mm &&
-              now.transmission == then.transmission && now.kind == then.kind && now.id == then.id)) {
-            c.changed_flag[i] = 1;
-            c.seen_elements[i] = now;
+        const Element& now = layout.elements[i];
+        Element& then = c.seen_elements[i];
+        // Element's operator== field by field; an element only moved or turned (the solvers'
+        // and the Monte Carlo's edits) is noted without copying it whole.
+        const bool same_otherwise = now.aperture_mm == then.aperture_mm && now.transmission == then.transmission &&
+                                    now.kind == then.kind && now.id == then.id;
+        if (same_otherwise && now.at_mm == then.at_mm && now.normal_deg == then.normal_deg) continue;
+        c.changed_flag[i] = 1;
+        if (same_otherwise) {
+            then.at_mm = now.at_mm;
+            then.normal_deg = now.normal_deg;
+        } else {
+            then = now;
         }
     }
 }
