@@ -23,4 +23,17 @@ const Element* Layout::find(const std::string& id) const {
     return nullptr;
 }
 
+Vec2 stage_shift_mm(const Stage& stage) { return stage.position_mm * direction_deg(stage.axis_deg); }
+
+std::vector<Vec2> placed_positions_mm(const Layout& layout) {
+    std::vector<Vec2> at(layout.elements.size());
+    for (size_t i = 0; i < layout.elements.size(); ++i) at[i] = layout.elements[i].at_mm;
+    for (const Element& e : layout.elements)
+        if (const auto* s = std::get_if<Stage>(&e.kind))
+            for (const std::string& id : s->carries)
+                for (size_t i = 0; i < layout.elements.size(); ++i)
+                    if (layout.elements[i].id == id) at[i] += stage_shift_mm(*s);
+    return at;
+}
+
 }  // namespace rv

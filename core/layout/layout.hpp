@@ -279,4 +279,10 @@ struct Layout {
     const Element* find(const std::string& id) const;
 };
 
+// How far a stage moves what it carries: position_mm along axis_deg.
+Vec2 stage_shift_mm(const Stage& stage);
+// Where every element sits once the stages that carry it have moved it (at_mm plus the shift
+// of each stage that names it).
+std::vector<Vec2> placed_positions_mm(const Layout& layout);
+
 }  // namespace rv

@@ -61,26 +61,17 @@ constexpr double kMissed = 1e3;  // residual of a beam that misses the target
 // is not reported as broken.
 constexpr double kReportedViolation_mm = 0.05;
 
-// Where an element sits: its position plus the offset of a stage that carries it.
-Vec2 placed_at(const Layout& l, size_t element) {
-    Vec2 at = l.elements[element].at_mm;
-    for (const Element& e : l.elements)
-        if (const auto* s = std::get_if<Stage>(&e.kind))
-            for (const std::string& id : s->carries)
-                if (id == l.elements[element].id) at += s->position_mm * direction_deg(s->axis_deg);
-    return at;
-}
-
 // How far (mm) a moved element breaks the spacing and table-edge constraints (0: it keeps them),
 // with a sentence for each broken one.
 double violation_mm(const Problem& p, const Layout& l, size_t k, std::vector<std::string>* why) {
     const SolveGoals& g = *p.base.goals.solve;
     const size_t i = p.move_index[k];
-    const Vec2 at = placed_at(l, i);
+    const std::vector<Vec2> placed = placed_positions_mm(l);
+    const Vec2 at = placed[i];
     double v = 0;
     for (size_t j = 0; j < l.elements.size(); ++j) {
         if (j == i || std::holds_alternative<Stage>(l.elements[j].kind)) continue;
-        const double d = (placed_at(l, j) - at).norm();
+        const double d = (placed[j] - at).norm();
         if (d < g.min_spacing_mm) {
             v += g.min_spacing_mm - d;
             if (why && g.min_spacing_mm - d > kReportedViolation_mm)
@@ -348,11 +339,12 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
     // Movers on different arms that could come within min_spacing_mm of each other couple the
     // arms through the spacing constraint: then the arms are not searched apart.
     const double spacing = layout.goals.solve->min_spacing_mm;
+    const std::vector<Vec2> placed = placed_positions_mm(layout);
     for (size_t a = 0; separable && a < p.move_index.size(); ++a)
         for (size_t b = a + 1; separable && b < p.move_index.size(); ++b) {
             if (move_beam[a] == move_beam[b]) continue;
             auto travel = [&](size_t k) { return std::max(std::abs(p.move_range[k].first), std::abs(p.move_range[k].second)); };
-            const double d = (placed_at(layout, p.move_index[a]) - placed_at(layout, p.move_index[b])).norm();
+            const double d = (placed[p.move_index[a]] - placed[p.move_index[b]]).norm();
             if (d - travel(a) - travel(b) < spacing) separable = false;
         }
     std::vector<Candidate> ranked;

@@ -8,18 +8,8 @@ namespace rv {
 
 std::vector<ElementPose> element_poses(const Layout& layout, const std::vector<Path>& paths) {
     std::vector<ElementPose> poses(layout.elements.size());
-    for (size_t i = 0; i < layout.elements.size(); ++i) {
-        const Element& e = layout.elements[i];
-        poses[i] = {e.at_mm, direction_deg(e.normal_deg)};
-    }
-    for (const Element& e : layout.elements) {
-        const auto* s = std::get_if<Stage>(&e.kind);
-        if (!s) continue;
-        const Vec2 axis = direction_deg(s->axis_deg);
-        for (const std::string& id : s->carries)
-            for (size_t i = 0; i < layout.elements.size(); ++i)
-                if (layout.elements[i].id == id) poses[i].at_mm += s->position_mm * axis;
-    }
+    const std::vector<Vec2> at = placed_positions_mm(layout);
+    for (size_t i = 0; i < layout.elements.size(); ++i) poses[i] = {at[i], direction_deg(layout.elements[i].normal_deg)};
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const auto* m = std::get_if<Mirror>(&layout.elements[i].kind);
         if (!m || !m->aim_at) continue;

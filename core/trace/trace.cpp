@@ -123,7 +123,7 @@ void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cac
                 std::optional<std::pair<std::string, size_t>> slot;
                 if (!carried[c].first.empty()) slot = carried[c];
                 if (auto i = resolve(layout, s->carries[c], slot)) {
-                    offset[*i] += s->position_mm * direction_deg(s->axis_deg);
+                    offset[*i] += stage_shift_mm(*s);
                     carried[c] = *slot;
                 }
             }
