@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "analysis/plate_angle_search.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
 #include "nonlinear/overlap.hpp"
@@ -376,15 +377,8 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
         double best = 0, best_value = -1;
         for (int k = 0; k < 180; ++k)
             if (const double v = power_in_need(k); v > best_value) best_value = v, best = k;
-        double lo = best - 1, hi = best + 1;
-        const double g = (std::sqrt(5.0) - 1) / 2;
-        for (int it = 0; it < 40; ++it) {
-            const double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
-            if (power_in_need(x1) > power_in_need(x2)) hi = x2;
-            else lo = x1;
-        }
-        double angle = std::remainder((lo + hi) / 2, 180.0);
-        if (angle < 0) angle += 180;
+        const double angle =
+            refine_plate_angle_deg([&](double deg) { return -power_in_need(deg); }, best, 1.0, 40);
         return std::make_pair(angle, power_in_need(angle));
     };
     const size_t before_target = b.path.target_hit.value_or(b.path.hits.size());

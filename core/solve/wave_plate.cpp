@@ -4,6 +4,7 @@
 #include <cmath>
 #include <vector>
 
+#include "analysis/plate_angle_search.hpp"
 #include "analysis/power_budget.hpp"
 #include "analysis/report.hpp"
 
@@ -63,22 +64,11 @@ WavePlateResult set_wave_plate(const Layout& layout, const MaterialLibrary& libr
     constexpr int kSteps = 720;
     std::vector<double> scan(kSteps);
     for (int k = 0; k < kSteps; ++k) scan[static_cast<size_t>(k)] = cost(0.25 * k);
-    auto refine = [&](double centre) {
-        double lo = centre - 0.25, hi = centre + 0.25;
-        const double g = (std::sqrt(5.0) - 1) / 2;
-        for (int it = 0; it < 50; ++it) {
-            const double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
-            if (cost(x1) < cost(x2)) hi = x2;
-            else lo = x1;
-        }
-        double a = std::remainder((lo + hi) / 2, 180.0);
-        return a < 0 ? a + 180 : a;
-    };
     std::vector<std::pair<double, double>> minima;  // angle, cost
     for (int k = 0; k < kSteps; ++k) {
         const double c = scan[static_cast<size_t>(k)];
         if (c <= scan[static_cast<size_t>((k + kSteps - 1) % kSteps)] && c <= scan[static_cast<size_t>((k + 1) % kSteps)]) {
-            const double a = refine(0.25 * k);
+            const double a = refine_plate_angle_deg(cost, 0.25 * k, 0.25);
             minima.emplace_back(a, cost(a));
         }
     }
