@@ -309,6 +309,9 @@ void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dis
     if (inside_) {
         if (*inside_ != i) return;  // inside a slab only its own faces count
     } else {
+        // The element just left (in air): all its surfaces are planes parallel to the one left,
+        // and the ray leaves on the side away from every one of them, so none lies ahead.
+        if (last_surface_ && last_surface_->first == i) return;
         // Cheap rejection: a ray that passes the element's bounding circle, or whose circle lies
         // behind it, cannot meet its surfaces (inside a slab the faces are unbounded).
         const Vec2 to_centre = pl.at - p;
