@@ -39,11 +39,17 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Causti
 }
 
 std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
-                                                   TraceCache* cache) {
+                                                   TraceCache* cache, bool keep_unchanged) {
     TraceCache local;
     TraceCache& c = cache ? *cache : local;
-    const std::vector<Path>& paths = retrace_layout(layout, library, c);
     std::vector<BeamAtTarget> out;
+    if (!keep_unchanged) {
+        trace_layout(layout, library, c, c.paths);
+        out.reserve(c.paths.size());
+        for (const Path& path : c.paths) out.push_back(beam_at_target(layout, path, propagate_to_target(layout, path)));
+        return out;
+    }
+    const std::vector<Path>& paths = retrace_layout(layout, library, c);
     out.reserve(paths.size());
     for (size_t b = 0; b < paths.size(); ++b) {
         // The memo may start after the kept hits only if it followed the previous retrace's path.

@@ -40,8 +40,10 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const BeamsA
 // Trace every beam, propagate it without the drawing envelope, and take it at the target: the
 // lean evaluation the solvers repeat (with a TraceCache kept between calls on one layout, which
 // re-traces and re-propagates each beam only from the first step a change can have altered).
+// keep_unchanged = false skips that comparison, for a caller that changes every optic each time
+// (the Monte Carlo), where it could keep nothing.
 std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
-                                                   TraceCache* cache = nullptr);
+                                                   TraceCache* cache = nullptr, bool keep_unchanged = true);
 
 struct Mismatch {
     double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;

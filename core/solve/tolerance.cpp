@@ -36,8 +36,8 @@ Spread spread(std::vector<double> v) {
 
 }  // namespace
 
-Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library, TraceCache* cache) {
-    const std::vector<BeamAtTarget> at = evaluate_beams_at_target(layout, library, cache);
+Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library, TraceCache* cache, bool keep_unchanged) {
+    const std::vector<BeamAtTarget> at = evaluate_beams_at_target(layout, library, cache, keep_unchanged);
     Figures f;
     if (at.size() == 1) {
         f.valid = at[0].reached;
@@ -183,7 +183,7 @@ ToleranceReport analyse_tolerances(const Layout& layout, const MaterialLibrary& 
                         e.kind = base.elements[i].kind;  // focal lengths and stage positions
                 }
                 for (const Perturbation& p : perts) apply_perturbation(l, p, p.tolerance * rng.uniform_symmetric());
-                results[k] = evaluate_figures(l, library, &cache);
+                results[k] = evaluate_figures(l, library, &cache, false);  // every optic moved: nothing to keep
             }
         });
     for (std::thread& th : pool) th.join();

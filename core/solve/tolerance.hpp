@@ -27,7 +27,8 @@ struct Figures {
     double waist_offset_mm = 0, waist_ratio = 1, lateral_um = 0, delay_fs = 0, overlap = 0;
 };
 
-Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library, TraceCache* cache = nullptr);
+Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library, TraceCache* cache = nullptr,
+                         bool keep_unchanged = true);
 
 struct Perturbation {
     enum class Kind { Position, Angle, FocalLength, Stage };
