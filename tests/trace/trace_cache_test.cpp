@@ -133,8 +133,9 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
             const int edits = 1 + static_cast<int>(rng() % 2);
             for (int k = 0; k < edits; ++k) {
                 rv::Element& e = l.elements[rng() % l.elements.size()];
-                switch (rng() % 6) {
+                switch (rng() % 7) {
                     case 0: e.at_mm += rv::Vec2(small(rng), small(rng)); break;
+                    case 5: e.at_mm += small(rng) * rv::direction_deg(e.normal_deg); break;  // along its axis
                     case 1: e.at_mm += rv::Vec2(large(rng), large(rng)); break;
                     case 2: e.normal_deg += small(rng); break;
                     case 3: e.aperture_mm = std::max(1.0, e.aperture_mm + small(rng)); break;
