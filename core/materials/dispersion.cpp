@@ -43,8 +43,4 @@ IndexSample absolute_index(const Material& material, const Material& air, double
     return from_derivatives(g, nm_to_um(wavelength_nm), in_range);
 }
 
-double group_delay_fs(double group_index, double length_mm) {
-    return group_index * length_mm / kSpeedOfLight_mm_per_fs;
-}
-
 }  // namespace rv

@@ -234,13 +234,24 @@ public:
         target_ = resolve(layout, layout.target, cache.target);
         // How far any element has moved since the steps were recorded (see trace_cache.hpp),
         // bounded from above by the largest move plus the largest growth of a bounding circle.
+        // In a retrace only the changed elements can have moved since the previous one, so the
+        // bound kept from then is raised by theirs (it may stay larger than needed: still a bound).
         replaying_ = !memo_.steps.empty();
         if (replaying_) {
-            double moved2 = 0, grown = 0;
-            for (size_t i = 0; i < placed_.size(); ++i) {
+            const bool since_last = retrace && cache.retrace_valid && memo_.moved_known;
+            double moved2 = since_last ? memo_.moved2_mm2 : 0, grown = since_last ? memo_.grown_mm : 0;
+            auto widen = [&](size_t i) {
                 moved2 = std::max(moved2, (placed_[i].at - memo_.placed_at_mm[i]).squaredNorm());
                 grown = std::max(grown, placed_[i].reach - memo_.placed_reach_mm[i]);
+            };
+            if (since_last) {
+                for (size_t i : cache.changed) widen(i);
+            } else {
+                for (size_t i = 0; i < placed_.size(); ++i) widen(i);
             }
+            memo_.moved2_mm2 = moved2;
+            memo_.grown_mm = grown;
+            memo_.moved_known = true;
             moved_mm_ = std::sqrt(moved2) + grown;
         }
     }
@@ -397,6 +408,8 @@ void BeamTracer::record_steps() {
                 distance_to_segment(placed_[i].at, step.from_mm, step.to_mm) <= placed_[i].reach + kTraceMargin_mm)
                 step.candidates.push_back(static_cast<uint32_t>(i));
     }
+    memo_.moved2_mm2 = memo_.grown_mm = 0;  // nothing has moved since this recording
+    memo_.moved_known = true;
     memo_.placed_at_mm.resize(placed_.size());
     memo_.placed_reach_mm.resize(placed_.size());
     for (size_t i = 0; i < placed_.size(); ++i) {

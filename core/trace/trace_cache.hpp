@@ -103,6 +103,10 @@ struct TraceCache {
         std::vector<StepTaken> new_steps;              // this trace's steps
         std::vector<Vec2> placed_at_mm;                // element positions when it was recorded
         std::vector<double> placed_reach_mm;           // and their bounding-circle radii
+        // The largest move (squared) and bounding-circle growth of any element since the
+        // recording, as last computed (moved_known: computed since the recording at all).
+        double moved2_mm2 = 0, grown_mm = 0;
+        bool moved_known = false;
         // retrace_layout: the previous retrace's step starts, its source, the aim_at mirrors'
         // state when it began, and how many of its hits the current path kept.
         std::vector<StepStart> starts;
