@@ -276,8 +276,9 @@ private:
         double dist = kInf, height = 0;
         bool found() const { return element != SIZE_MAX; }
     };
-    void consider(size_t element, const Vec2& p, const Vec2& d, double max_dist, Candidate& best) const;
-    void consider_surfaces(size_t element, const Surface* surfaces, int count, const Vec2& p, const Vec2& d,
+    // Hot (every step): inlined into the step search.
+    [[gnu::always_inline]] void consider(size_t element, const Vec2& p, const Vec2& d, double max_dist, Candidate& best) const;
+    [[gnu::always_inline]] void consider_surfaces(size_t element, const Surface* surfaces, int count, const Vec2& p, const Vec2& d,
                            double max_dist, Candidate& best) const;
     std::optional<Candidate> nearest(const Vec2& p, const Vec2& d, double max_dist) const;
     std::optional<Candidate> next_hit(const Vec2& p, const Vec2& d, double max_dist, size_t step);
@@ -314,7 +315,7 @@ private:
     std::optional<size_t> expect_;  // the element an aim_at mirror sent the ray to
 };
 
-void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dist, Candidate& best) const {
+inline void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dist, Candidate& best) const {
     const Placed& pl = placed_[i];
     if (!pl.traced) return;
     if (inside_) {
@@ -344,7 +345,7 @@ void BeamTracer::consider(size_t i, const Vec2& p, const Vec2& d, double max_dis
     }
 }
 
-void BeamTracer::consider_surfaces(size_t i, const Surface* s, int n, const Vec2& p, const Vec2& d,
+inline void BeamTracer::consider_surfaces(size_t i, const Surface* s, int n, const Vec2& p, const Vec2& d,
                                    double max_dist, Candidate& best) const {
     for (int k = 0; k < n; ++k) {
         if (last_surface_ && last_surface_->first == i && last_surface_->second == s[k].face) continue;
@@ -627,7 +628,7 @@ void BeamTracer::run() {
             if (retrace_) memo_.starts.back().aimed = std::make_pair(e, pl.normal);
         }
         const Vec2 n = c->normal;
-        TraceHit hit;
+        TraceHit& hit = path_.hits.emplace_back();  // taken back where the ray stops before it
         hit.element = e;
         hit.face = c->face;
         hit.point_mm = h;
@@ -671,6 +672,7 @@ void BeamTracer::run() {
                 finding(Finding::Kind::MaterialOutOfRange, e, h, 0,
                         "the focal length of " + id(e) + " is not a real number at " + mm_text(wavelength) +
                             " nm (its glass's formula fails there); the ray stops");
+                path_.hits.pop_back();
                 break;
             }
             hit.focal_length_mm = f;
@@ -709,7 +711,6 @@ void BeamTracer::run() {
                 p = pl.at - c->height * perpendicular(n);  // mirrored across the axis
                 hit.direction_out = d;
                 hit.index_after = medium.index;
-                path_.hits.push_back(hit);
                 continue;
             }
         } else if (std::holds_alternative<Target>(kind)) {
@@ -743,6 +744,7 @@ void BeamTracer::run() {
                         finding(Finding::Kind::MaterialOutOfRange, e, h, 0,
                                 "the index of " + placed_[e].material->name + " is not a real number at " +
                                     mm_text(wavelength) + " nm; the ray stops at " + id(e));
+                        path_.hits.pop_back();
                         break;
                     }
                     const int refinements = index_follows_direction(e) ? 4 : 0;
@@ -773,7 +775,6 @@ void BeamTracer::run() {
         }
         hit.direction_out = d;
         hit.index_after = medium.index;
-        path_.hits.push_back(hit);
         if (target_ && e == *target_ && hit.interaction == Interaction::TargetPlane &&
             !path_.target_hit)
             path_.target_hit = path_.hits.size() - 1;
