@@ -10,7 +10,8 @@
 
 namespace rv {
 
-// Arrival time at hit `hit_index` (inclusive of the segments that end there), fs.
+// Arrival time at hit `hit_index` (inclusive of the segments that end there), fs: the trace
+// sums the group delays as it goes (TraceHit::group_delay_fs).
 double arrival_time_fs(const Layout& layout, const Path& path, size_t hit_index);
 
 }  // namespace rv

@@ -32,6 +32,10 @@ struct TraceHit {
     Vec2 point_mm{0, 0};
     Vec2 direction_in{1, 0}, direction_out{1, 0};
     double s_mm = 0;          // geometric path length from the beam's start to this hit
+    // Group delay from the beam's start to this hit, fs: every segment through this one at its
+    // group index (length × n_g / c), plus the lumped glass of the thick singlets before it
+    // (centre thickness × (n_g,glass − n_g,air) / c). Diels & Rudolph (2006) ch. 1.
+    double group_delay_fs = 0;
     // The angle between the incoming ray and the surface normal, kept as its cosine and sine
     // (what the matrices need; both from the vectors, so accurate near normal incidence).
     double cos_aoi = 1, sin_aoi = 0;

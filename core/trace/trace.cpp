@@ -266,6 +266,13 @@ private:
         Medium medium{};
     };
     Resumed resume();
+    // The group delay once past a hit: its own plus its lumped glass (a thick singlet's centre
+    // thickness at the glass's group index less the air's).
+    double delay_after(const TraceHit& hit) const {
+        return hit.lumped_glass_mm > 0
+                   ? hit.group_delay_fs + group_delay_fs(hit.lumped_group_index - air_group_index_, hit.lumped_glass_mm)
+                   : hit.group_delay_fs;
+    }
     bool aims_as_before();
     bool touched_by_change(const TraceCache::StepTaken& step) const;
 
@@ -580,6 +587,9 @@ void BeamTracer::run() {
     Vec2 p = from.p;
     Vec2 d = from.d;
     double s_total = from.s_mm;
+    // Group delay from the start (trace/path.hpp, TraceHit::group_delay_fs): after the kept
+    // steps, that of the last kept hit and its lumped glass.
+    double delay_fs = from.step > 0 ? delay_after(path_.hits[from.step - 1]) : 0.0;
     Medium medium = from.medium;
     const double wavelength = beam_.wavelength_nm;
 
@@ -618,6 +628,7 @@ void BeamTracer::run() {
         const Vec2 h = p + c->dist * d;
         path_.segments.push_back({p, h, c->dist, inside_, medium.index, medium.group_index});
         s_total += c->dist;
+        delay_fs += group_delay_fs(medium.group_index, c->dist);
         const size_t e = c->element;
         const ElementKind& kind = layout_.elements[e].kind;
         Placed& pl = placed_[e];
@@ -634,6 +645,7 @@ void BeamTracer::run() {
         hit.point_mm = h;
         hit.direction_in = d;
         hit.s_mm = s_total;
+        hit.group_delay_fs = delay_fs;
         hit.cos_aoi = std::min(1.0, std::abs(d.dot(n)));
         hit.sin_aoi = std::min(1.0, std::abs(d.x() * n.y() - d.y() * n.x()));
         hit.height_mm = c->height;
@@ -778,6 +790,7 @@ void BeamTracer::run() {
         if (target_ && e == *target_ && hit.interaction == Interaction::TargetPlane &&
             !path_.target_hit)
             path_.target_hit = path_.hits.size() - 1;
+        delay_fs = delay_after(hit);
         if (stop) break;
         p = h;
     }

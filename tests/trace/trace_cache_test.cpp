@@ -30,6 +30,7 @@ void require_same_paths(const std::vector<rv::Path>& a, const std::vector<rv::Pa
             REQUIRE(x.index_before == y.index_before);
             REQUIRE(x.lens_index == y.lens_index);
             REQUIRE(x.s_mm == y.s_mm);
+            REQUIRE(x.group_delay_fs == y.group_delay_fs);
             REQUIRE(x.index_after == y.index_after);
             REQUIRE(x.focal_length_mm == y.focal_length_mm);
             REQUIRE(x.lumped_group_index == y.lumped_group_index);
