@@ -20,7 +20,8 @@
 // A cache belongs to one layout's list of elements and beams; trace_layout checks the element
 // kinds and the beams' wavelengths on every use and starts afresh when they differ.
 // It also keeps the working storage of a trace (the placed elements, the new steps, the paths
-// of evaluate_beams_at_target) so that a repeated trace allocates nothing.
+// of evaluate_beams_at_target) so that a repeated trace allocates nothing, and what a retrace
+// (trace.hpp, retrace_layout) compares with: the elements as last seen, each beam's step starts.
 
 #include <cstdint>
 #include <limits>
@@ -46,8 +47,8 @@ struct TraceCache {
         Vec2 normal{1, 0};
     };
     // Where an element sits once stages have moved it, how it is turned, its surfaces there and
-    // its material (set anew on every trace; the tracer turns an aim_at mirror when a beam first
-    // reaches it).
+    // its material (set anew on every trace, in a retrace only for the changed elements and the
+    // aim_at mirrors; the tracer turns an aim_at mirror when a beam first reaches it).
     struct Placed {
         Vec2 at{0, 0};
         Vec2 normal{1, 0};
