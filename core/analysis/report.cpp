@@ -412,12 +412,11 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
                    ": only " + fmt("%.0f", 100 * a.useful_fraction) + " % of " + b.id + " is " + a.needs;
         return a;
     }
-    const size_t turn = plate;
-    const Plate& p = std::get<Plate>(layout.elements[turn].kind);
-    a.plate = layout.elements[turn].id;
+    const Plate& p = std::get<Plate>(layout.elements[plate].kind);
+    a.plate = layout.elements[plate].id;
     a.plate_now_deg = p.fast_axis_deg;
-    a.plate_best_deg = best_angle(turn).first;
-    const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, turn, a.plate_best_deg);
+    a.plate_best_deg = best_angle(plate).first;
+    const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, plate, a.plate_best_deg);
     a.useful_fraction_best = at_best[0] > 0 ? useful(at_best) / at_best[0] : 0;
     if (src_mw > 0) a.useful_mw_best = src_mw * useful(at_best);
     a.action = "turn " + a.plate + "'s fast axis from " + fmt("%.1f", a.plate_now_deg) + "° to " +

@@ -5,10 +5,9 @@
 // its temporary file (".NAME.tmp-XXXXXX"); the next save of NAME removes those older than
 // kStaleTemporary (a save in progress elsewhere is far younger).
 
+#include <chrono>
 #include <filesystem>
 #include <string_view>
-
-#include <chrono>
 
 namespace rv {
 

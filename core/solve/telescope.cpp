@@ -63,10 +63,11 @@ constexpr double kReportedViolation_mm = 0.05;
 
 // How far (mm) a moved element breaks the spacing and table-edge constraints (0: it keeps them),
 // with a sentence for each broken one.
-double violation_mm(const Problem& p, const Layout& l, size_t k, std::vector<std::string>* why) {
+// `placed`: placed_positions_mm(l).
+double violation_mm(const Problem& p, const Layout& l, const std::vector<Vec2>& placed, size_t k,
+                    std::vector<std::string>* why) {
     const SolveGoals& g = *p.base.goals.solve;
     const size_t i = p.move_index[k];
-    const std::vector<Vec2> placed = placed_positions_mm(l);
     const Vec2 at = placed[i];
     double v = 0;
     for (size_t j = 0; j < l.elements.size(); ++j) {
@@ -96,7 +97,8 @@ Eigen::VectorXd residuals(const Problem& p, const Layout& l, const std::vector<B
         if (i < size) r[i++] = v;
     };
     // Constraints as penalties, 1 per mm of violation (the other residuals are of order 1).
-    for (size_t k = 0; k < p.move_index.size(); ++k) push(violation_mm(p, l, k, nullptr));
+    const std::vector<Vec2> placed = placed_positions_mm(l);
+    for (size_t k = 0; k < p.move_index.size(); ++k) push(violation_mm(p, l, placed, k, nullptr));
     if (const auto& max = p.base.goals.solve->max_path_mm)
         for (size_t b = 0; b < at.size(); ++b)
             if (!p.only_beam || *p.only_beam == b) push(at[b].reached ? std::max(0.0, at[b].path_mm - *max) : 0.0);
@@ -185,7 +187,8 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     const Eigen::VectorXd all = residuals(p, s.layout, at, m);
     const Eigen::Index constraints = residual_count(p, beams) - residual_count_without_constraints(p, beams);
     s.residual = all.tail(all.size() - constraints).norm();
-    for (size_t k = 0; k < p.move_index.size(); ++k) violation_mm(p, s.layout, k, &s.violations);
+    const std::vector<Vec2> placed = placed_positions_mm(s.layout);
+    for (size_t k = 0; k < p.move_index.size(); ++k) violation_mm(p, s.layout, placed, k, &s.violations);
     if (const auto& max = p.base.goals.solve->max_path_mm)
         for (size_t b = 0; b < at.size(); ++b)
             if ((!p.only_beam || *p.only_beam == b) && at[b].reached && at[b].path_mm > *max + 0.01)

@@ -34,7 +34,7 @@ bool Document::acceptable(const Layout& layout, std::string& why) {
 }
 
 void Document::edit(Layout next) {
-    if (gesture_start_) finish_gesture(gesture_);  // an edit ends any gesture (one step each)
+    finish_open_gesture();  // an edit ends any gesture (one step each)
     if (next == layout_) return;
     if (!acceptable(next, last_refusal_)) return;
     undo_.push_back(std::move(layout_));
@@ -45,7 +45,7 @@ void Document::edit(Layout next) {
 }
 
 Document::Gesture Document::begin_gesture() {
-    if (gesture_start_) finish_gesture(gesture_);
+    finish_open_gesture();
     gesture_start_ = layout_;
     gesture_ = next_gesture_++;
     dirty_before_gesture_ = dirty_;
@@ -84,7 +84,7 @@ void Document::cancel_gesture(Gesture g) {
 }
 
 void Document::undo() {
-    if (gesture_start_) finish_gesture(gesture_);
+    finish_open_gesture();
     if (undo_.empty()) return;
     redo_.push_back(std::move(layout_));
     layout_ = std::move(undo_.back());
@@ -94,7 +94,7 @@ void Document::undo() {
 }
 
 void Document::redo() {
-    if (gesture_start_) finish_gesture(gesture_);
+    finish_open_gesture();
     if (redo_.empty()) return;
     undo_.push_back(std::move(layout_));
     layout_ = std::move(redo_.back());
@@ -112,7 +112,7 @@ bool Document::save(std::string& error) {
 }
 
 bool Document::save_as(const std::filesystem::path& path, std::string& error) {
-    if (gesture_start_) finish_gesture(gesture_);  // what is saved is what is shown, as one step
+    finish_open_gesture();  // what is saved is what is shown, as one step
     try {
         save_layout(layout_, path);
     } catch (const std::exception& e) {

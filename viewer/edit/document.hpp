@@ -70,6 +70,8 @@ public:
     bool restore_from(const std::filesystem::path& recovery);
 
 private:
+    // Finishes the gesture in progress, if any (an edit, undo, redo or save ends it as one step).
+    void finish_open_gesture() { finish_gesture(gesture_); }
     void refresh();
 
     Layout layout_;

@@ -43,12 +43,17 @@ void name_field(const char* key, const char* label, std::string* value, edit::Do
     if (!ImGui::IsItemActive()) st.text.erase(key);
 }
 
+// A choice among names (one edit on a choice).
+bool choice_field(const char* label, int* value, const char* const* names, int count) {
+    ImGui::SetNextItemWidth(120);
+    return ImGui::Combo(label, value, names, count);
+}
+
 // A plate's role from a list; one edit on a choice.
 void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
     static const char* const names[] = {"window", "half-wave", "quarter-wave", "polarizing-cube", "polarizer"};
     int role = static_cast<int>(plate.role);
-    ImGui::SetNextItemWidth(120);
-    if (ImGui::Combo("role", &role, names, 5)) {
+    if (choice_field("role", &role, names, 5)) {
         using R = Plate::Role;
         plate.role = static_cast<R>(role);
         const bool wave = plate.role == R::HalfWave || plate.role == R::QuarterWave;
@@ -60,12 +65,6 @@ void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
         if (plate.role != R::PolarizingCube) plate.reflects_left = true;
         doc.edit(st.scratch);
     }
-}
-
-// A choice among names (one edit on a choice).
-bool choice_field(const char* label, int* value, const char* const* names, int count) {
-    ImGui::SetNextItemWidth(120);
-    return ImGui::Combo(label, value, names, count);
 }
 
 // A field edit ends when its field is no longer active, or when something else (a drag, an
