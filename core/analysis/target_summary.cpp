@@ -38,18 +38,12 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Causti
                                              caustic.target_waist_offset_sagittal_mm});
 }
 
-std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
-                                                   TraceCache* cache, bool keep_unchanged) {
-    TraceCache local;
-    TraceCache& c = cache ? *cache : local;
+namespace {
+// The retrace's evaluation; `edited` as retrace_layout takes it.
+std::vector<BeamAtTarget> reevaluate(const Layout& layout, const MaterialLibrary& library, TraceCache& c,
+                                     const std::vector<size_t>* edited) {
     std::vector<BeamAtTarget> out;
-    if (!keep_unchanged) {
-        trace_layout(layout, library, c, c.paths);
-        out.reserve(c.paths.size());
-        for (const Path& path : c.paths) out.push_back(beam_at_target(layout, path, propagate_to_target(layout, path)));
-        return out;
-    }
-    const std::vector<Path>& paths = retrace_layout(layout, library, c);
+    const std::vector<Path>& paths = retrace_layout(layout, library, c, edited);
     out.reserve(paths.size());
     for (size_t b = 0; b < paths.size(); ++b) {
         // The memo may start after the kept hits only if it followed the previous retrace's path.
@@ -60,6 +54,24 @@ std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const M
                                      propagate_to_target(layout, paths[b], &memo.propagation, unchanged)));
     }
     return out;
+}
+}  // namespace
+
+std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
+                                                   TraceCache* cache, bool keep_unchanged) {
+    TraceCache local;
+    TraceCache& c = cache ? *cache : local;
+    if (keep_unchanged) return reevaluate(layout, library, c, nullptr);
+    std::vector<BeamAtTarget> out;
+    trace_layout(layout, library, c, c.paths);
+    out.reserve(c.paths.size());
+    for (const Path& path : c.paths) out.push_back(beam_at_target(layout, path, propagate_to_target(layout, path)));
+    return out;
+}
+
+std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
+                                                   TraceCache& cache, const std::vector<size_t>& edited) {
+    return reevaluate(layout, library, cache, &edited);
 }
 
 Mismatch mismatch_at_target(const BeamAtTarget& a, const BeamAtTarget& b) {

@@ -44,6 +44,10 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const BeamsA
 // (the Monte Carlo), where it could keep nothing.
 std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
                                                    TraceCache* cache = nullptr, bool keep_unchanged = true);
+// The solvers' form: only the elements listed in `edited` can differ from the layout of the
+// previous call with this cache (they alone are compared; see retrace_layout).
+std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const MaterialLibrary& library,
+                                                   TraceCache& cache, const std::vector<size_t>& edited);
 
 struct Mismatch {
     double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;

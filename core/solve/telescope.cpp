@@ -51,8 +51,10 @@ Layout apply(const Problem& p, const std::vector<const CatalogLens*>& choice, co
     return l;
 }
 
-std::vector<BeamAtTarget> evaluate(const Layout& l, const MaterialLibrary& library, TraceCache* cache) {
-    return evaluate_beams_at_target(l, library, cache);
+// One evaluation of a layout that differs from the previous one with this cache (one catalog
+// choice's) in the moved elements' positions only: the retrace compares just those.
+std::vector<BeamAtTarget> evaluate(const Problem& p, const Layout& l, TraceCache& cache) {
+    return evaluate_beams_at_target(l, p.library, cache, p.move_index);
 }
 
 constexpr double kMissed = 1e3;  // residual of a beam that misses the target
@@ -155,7 +157,7 @@ struct Functor {
     int values() const { return static_cast<int>(n_values); }
     int operator()(const Eigen::VectorXd& u, Eigen::VectorXd& f) const {
         place_moves(*p, u, *work);
-        f = residuals(*p, *work, evaluate(*work, p->library, cache), n_values);
+        f = residuals(*p, *work, evaluate(*p, *work, *cache), n_values);
         return 0;
     }
 };
@@ -182,7 +184,7 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     }
     TelescopeSolution s;
     s.layout = apply(p, choice, u);
-    const std::vector<BeamAtTarget> at = evaluate(s.layout, p.library, &cache);
+    const std::vector<BeamAtTarget> at = evaluate(p, s.layout, cache);
     // The figure ranked on is the aim's residual alone; constraints are reported beside it.
     const Eigen::VectorXd all = residuals(p, s.layout, at, m);
     const Eigen::Index constraints = residual_count(p, beams) - residual_count_without_constraints(p, beams);
@@ -202,7 +204,7 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
         // Sensitivity: waist-offset change per mm of this move.
         Layout nudged = s.layout;
         nudged.elements[p.move_index[static_cast<size_t>(k)]].at_mm += 0.1 * p.move_direction[static_cast<size_t>(k)];
-        const std::vector<BeamAtTarget> after = evaluate(nudged, p.library, &cache);
+        const std::vector<BeamAtTarget> after = evaluate(p, nudged, cache);
         for (size_t b = 0; b < at.size(); ++b)
             if (at[b].reached && after[b].reached)
                 s.sensitivity_mm_per_mm = std::max(s.sensitivity_mm_per_mm,

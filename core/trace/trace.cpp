@@ -105,14 +105,28 @@ void place_one(const Layout& layout, const MaterialLibrary& library, TraceCache&
 // Every element where stages have moved it, into cache.placed (once per trace of the layout).
 // With `changed` (a retrace): only the elements flagged there, those a stage now moves by
 // another amount (flagged too) and the aim_at mirrors (the tracer turns them) are placed anew;
-// the others keep the placement of the previous trace.
+// the others keep the placement of the previous trace. `offsets_same`: no stage and no name
+// changed since the previous retrace, so every stage moves what it did by as much, and an
+// unchanged aim_at mirror only needs its turn undone.
 void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
-           std::vector<uint8_t>* changed = nullptr) {
+           std::vector<uint8_t>* changed = nullptr, bool offsets_same = false) {
     const size_t n = layout.elements.size();
     cache.placed.resize(n);
     cache.resolved.resize(n);
     std::vector<Vec2>& offset = cache.stage_offset_mm;  // where each element's stage moves it
     std::vector<Vec2>& before = cache.stage_offset_before_mm;
+    if (changed && offsets_same) {
+        for (size_t i = 0; i < n; ++i) {
+            if ((*changed)[i]) {
+                place_one(layout, library, cache, i, offset[i]);
+            } else if (Placed& pl = cache.placed[i]; pl.aim_target) {
+                pl.normal = cache.resolved[i].normal;
+                pl.aim_pending = true;
+                pl.surface_count = surfaces_of(layout.elements[i].kind, pl.at, pl.normal, pl.surfaces);
+            }
+        }
+        return;
+    }
     std::swap(offset, before);
     offset.assign(n, Vec2(0, 0));
     for (size_t k = 0; k < n; ++k) {
@@ -801,10 +815,12 @@ void BeamTracer::run() {
 }
 
 // Which elements differ from the previous retrace's (flags in c.changed_flag; all when there
-// is no previous retrace to compare with, or the table or target changed).
-void compare_elements(const Layout& layout, TraceCache& c) {
+// is no previous retrace to compare with, or the table or target changed). With `edited`, only
+// the elements listed there are compared: the caller vouches for the others.
+void compare_elements(const Layout& layout, TraceCache& c, const std::vector<size_t>* edited) {
     const size_t n = layout.elements.size();
     c.changed_flag.assign(n, 0);
+    c.stage_or_name_changed = false;
     if (!c.retrace_valid || c.seen_elements.size() != n || !(c.seen_table == layout.table) ||
         c.seen_target != layout.target) {
         c.retrace_valid = false;
@@ -814,21 +830,28 @@ void compare_elements(const Layout& layout, TraceCache& c) {
         c.changed_flag.assign(n, 1);
         return;
     }
-    for (size_t i = 0; i < n; ++i) {
+    auto compare = [&](size_t i) {
         const Element& now = layout.elements[i];
         Element& then = c.seen_elements[i];
         // Element's operator== field by field; an element only moved or turned (the solvers'
         // and the Monte Carlo's edits) is noted without copying it whole.
         const bool same_otherwise = now.aperture_mm == then.aperture_mm && now.transmission == then.transmission &&
                                     now.kind == then.kind && now.id == then.id;
-        if (same_otherwise && now.at_mm == then.at_mm && now.normal_deg == then.normal_deg) continue;
+        if (same_otherwise && now.at_mm == then.at_mm && now.normal_deg == then.normal_deg) return;
         c.changed_flag[i] = 1;
+        if (now.id != then.id || std::holds_alternative<Stage>(now.kind)) c.stage_or_name_changed = true;
         if (same_otherwise) {
             then.at_mm = now.at_mm;
             then.normal_deg = now.normal_deg;
         } else {
             then = now;
         }
+    };
+    if (edited) {
+        for (size_t i : *edited)
+            if (i < n) compare(i);
+    } else {
+        for (size_t i = 0; i < n; ++i) compare(i);
     }
 }
 
@@ -842,7 +865,7 @@ void list_changes(TraceCache& c) {
 }
 
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& c, std::vector<Path>& paths,
-                  bool record, bool retrace) {
+                  bool record, bool retrace, const std::vector<size_t>* edited = nullptr) {
     // Start afresh when the cache was made for another list of elements or beams, or with
     // another material library.
     const size_t n = layout.elements.size();
@@ -868,8 +891,8 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
         beam.lens.resize(n);
     }
     if (retrace) {
-        compare_elements(layout, c);
-        place(layout, library, c, &c.changed_flag);
+        compare_elements(layout, c, edited);
+        place(layout, library, c, &c.changed_flag, c.retrace_valid && !c.stage_or_name_changed);
         list_changes(c);
     } else {
         c.retrace_valid = false;
@@ -895,8 +918,9 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
     trace_layout(layout, library, cache, paths, true, false);
 }
 
-const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache) {
-    trace_layout(layout, library, cache, cache.paths, true, true);
+const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
+                                       const std::vector<size_t>* edited) {
+    trace_layout(layout, library, cache, cache.paths, true, true, edited);
     return cache.paths;
 }
 

@@ -46,6 +46,11 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
 // arm from its first moved lens on. cache.beams[b].kept_hits says how many hits were kept.
 // Any other trace with the cache in between, or a changed table, target or beam source, makes
 // it start from the sources. The paths equal a fresh trace's (a test compares them).
-const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache);
+// `edited`: a caller that knows which elements it may have changed since the previous retrace
+// with this cache (a solver moving a fixed set of optics) lists them, and only those are
+// compared; every other element must be as it was then (its table, target and beams are
+// compared still). Null: every element is compared.
+const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
+                                       const std::vector<size_t>* edited = nullptr);
 
 }  // namespace rv

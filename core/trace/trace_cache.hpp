@@ -149,6 +149,7 @@ struct TraceCache {
     Table seen_table;
     std::string seen_target;
     std::vector<uint8_t> changed_flag;  // per element, this retrace
+    bool stage_or_name_changed = false;  // among them a stage, or an element's id
     std::vector<size_t> changed;        // their indices
     std::vector<Vec2> stage_offset_mm, stage_offset_before_mm;  // how far stages move each element
     // How the last traces went (for tests and benchmarks).

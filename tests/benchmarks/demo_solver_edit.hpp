@@ -11,6 +11,7 @@ struct DemoSolverEdit {
     size_t lens = index_of("L1_S"), crystal = index_of("X");
     Vec2 lens_at_mm = layout.elements[lens].at_mm;
     double crystal_deg = layout.elements[crystal].normal_deg;
+    std::vector<size_t> edited{lens, crystal};  // what a solver making this edit would list
 
     size_t index_of(const char* id) const { return static_cast<size_t>(layout.find(id) - layout.elements.data()); }
 

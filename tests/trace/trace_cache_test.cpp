@@ -1,6 +1,7 @@
 // A trace with a cache kept between calls gives exactly the paths of a fresh trace: the
 // cache's candidate lists (trace/trace_cache.hpp) must never skip an element a full search
 // would meet first. Exact equality, because both take the same arithmetic on the same values.
+#include <numeric>
 #include <random>
 
 #include "support/layouts.hpp"
@@ -124,7 +125,7 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
         INFO(file);
         const rv::Layout base = rv::test::bundled_layout(file);
         const rv::MaterialLibrary library = rv::material_library_for(base);
-        rv::TraceCache cache, plain_cache;
+        rv::TraceCache cache, plain_cache, named_cache;
         rv::Layout l = base;
         std::mt19937 rng(23);
         std::uniform_real_distribution<double> small(-0.6, 0.6), large(-10, 10), unit(0, 1);
@@ -132,8 +133,11 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
         for (int trial = 0; trial < 400; ++trial) {
             INFO("trial " << trial);
             const int edits = 1 + static_cast<int>(rng() % 2);
+            std::vector<size_t> edited;  // what a solver would name (it may name more)
+            if (unit(rng) < 0.2) edited.push_back(rng() % l.elements.size());
             for (int k = 0; k < edits; ++k) {
-                rv::Element& e = l.elements[rng() % l.elements.size()];
+                edited.push_back(rng() % l.elements.size());
+                rv::Element& e = l.elements[edited.back()];
                 switch (rng() % 7) {
                     case 0: e.at_mm += rv::Vec2(small(rng), small(rng)); break;
                     case 5: e.at_mm += small(rng) * rv::direction_deg(e.normal_deg); break;  // along its axis
@@ -154,8 +158,15 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
             if (what < 0.03) l.beams[0].waist_um.tangential *= 1.01;
             else if (what < 0.06) l.beams.back().direction_deg += 0.01;
             else if (what < 0.08) l.table.width_mm += 1;
-            else if (what < 0.12) rv::trace_layout(l, library, &cache);  // another kind of trace between
-            if (unit(rng) < 0.02) l = base;  // back to the start: everything changes at once
+            else if (what < 0.12) {  // another kind of trace between
+                rv::trace_layout(l, library, &cache);
+                rv::trace_layout(l, library, &named_cache);
+            }
+            if (unit(rng) < 0.02) {  // back to the start: everything changes at once
+                l = base;
+                edited.resize(l.elements.size());
+                std::iota(edited.begin(), edited.end(), size_t{0});
+            }
 
             const std::vector<rv::BeamAtTarget> lean = rv::evaluate_beams_at_target(l, library, &cache);
             // The Monte Carlo's way, without the retrace's comparison, gives the same numbers.
@@ -166,6 +177,21 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
                 CHECK(plain[b].tangential.waist_offset_mm == lean[b].tangential.waist_offset_mm);
                 CHECK(plain[b].sagittal.radius_um == lean[b].sagittal.radius_um);
             }
+            // Told which elements were edited, the retrace compares only those: the same numbers.
+            const std::vector<rv::BeamAtTarget> named = rv::evaluate_beams_at_target(l, library, named_cache, edited);
+            REQUIRE(named.size() == lean.size());
+            for (size_t b = 0; b < lean.size(); ++b) {
+                REQUIRE(named[b].reached == lean[b].reached);
+                CHECK(named[b].arrival_fs == lean[b].arrival_fs);
+                CHECK(named[b].path_mm == lean[b].path_mm);
+                CHECK(named[b].tangential.waist_offset_mm == lean[b].tangential.waist_offset_mm);
+                CHECK(named[b].sagittal.waist_offset_mm == lean[b].sagittal.waist_offset_mm);
+                CHECK(named[b].tangential.waist_um == lean[b].tangential.waist_um);
+                CHECK(named[b].sagittal.radius_um == lean[b].sagittal.radius_um);
+                CHECK(named[b].hit_mm == lean[b].hit_mm);
+                CHECK(named[b].direction == lean[b].direction);
+            }
+            require_same_paths(named_cache.paths, cache.paths);
             for (const rv::TraceCache::Beam& b : cache.beams) kept += b.kept_hits;
             const std::vector<rv::Path> fresh = rv::trace_layout(l, library);
             require_same_paths(cache.paths, fresh);
