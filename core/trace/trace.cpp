@@ -536,16 +536,13 @@ bool BeamTracer::aims_as_before() {
 // then or where it is now: its bounding circle within reach of the step's segment. A step no
 // changed element comes near started the same way and met the same surfaces, so it repeats.
 bool BeamTracer::touched_by_change(const TraceCache::StepTaken& step) const {
-    // A circle about c of radius r comes within reach of the segment [a, b]; a box test first.
-    auto near = [&](const Vec2& c, double r) {
-        const Vec2 lo = step.from_mm.cwiseMin(step.to_mm), hi = step.from_mm.cwiseMax(step.to_mm);
-        if (c.x() < lo.x() - r || c.x() > hi.x() + r || c.y() < lo.y() - r || c.y() > hi.y() + r) return false;
-        return squared_distance_to_segment(c, step.from_mm, step.to_mm) <= r * r;
-    };
-    for (size_t e : cache_.changed) {
-        const double then = cache_.seen_reach_mm[e] + 1e-6, now = placed_[e].reach + 1e-6;
-        if (near(placed_[e].at, now)) return true;
-        if ((cache_.seen_at_mm[e] != placed_[e].at || then != now) && near(cache_.seen_at_mm[e], then)) return true;
+    // A circle comes within reach of the segment [a, b]; a box test first.
+    const Vec2 lo = step.from_mm.cwiseMin(step.to_mm), hi = step.from_mm.cwiseMax(step.to_mm);
+    for (const TraceCache::Circle& k : cache_.change_circles) {
+        const Vec2& c = k.centre_mm;
+        const double r = k.radius_mm;
+        if (c.x() < lo.x() - r || c.x() > hi.x() + r || c.y() < lo.y() - r || c.y() > hi.y() + r) continue;
+        if (squared_distance_to_segment(c, step.from_mm, step.to_mm) <= r * r) return true;
     }
     return false;
 }
@@ -856,12 +853,19 @@ void compare_elements(const Layout& layout, TraceCache& c, const std::vector<siz
 }
 
 // The changed elements' indices (cache.changed), after placing: an aim_at mirror counts as
-// changed when what it aims at did.
+// changed when what it aims at did; and the circles they occupy, now and at the previous
+// retrace (when that is there to compare with).
 void list_changes(TraceCache& c) {
     c.changed.clear();
-    for (size_t i = 0; i < c.placed.size(); ++i)
-        if (c.changed_flag[i] || (c.placed[i].aim_target && c.changed_flag[*c.placed[i].aim_target]))
-            c.changed.push_back(i);
+    c.change_circles.clear();
+    for (size_t i = 0; i < c.placed.size(); ++i) {
+        if (!c.changed_flag[i] && !(c.placed[i].aim_target && c.changed_flag[*c.placed[i].aim_target])) continue;
+        c.changed.push_back(i);
+        if (!c.retrace_valid) continue;
+        const double then = c.seen_reach_mm[i] + 1e-6, now = c.placed[i].reach + 1e-6;
+        c.change_circles.push_back({c.placed[i].at, now});
+        if (c.seen_at_mm[i] != c.placed[i].at || then != now) c.change_circles.push_back({c.seen_at_mm[i], then});
+    }
 }
 
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& c, std::vector<Path>& paths,
@@ -901,11 +905,17 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
     paths.resize(layout.beams.size());
     for (size_t b = 0; b < layout.beams.size(); ++b) BeamTracer(layout, b, c, record, retrace, paths[b]).run();
     if (retrace) {
-        c.seen_at_mm.resize(n);
-        c.seen_reach_mm.resize(n);
-        for (size_t i = 0; i < n; ++i) {
+        // After a retrace compared with the previous one, only the changed elements were placed anew.
+        auto see = [&](size_t i) {
             c.seen_at_mm[i] = c.placed[i].at;
             c.seen_reach_mm[i] = c.placed[i].reach;
+        };
+        if (c.retrace_valid) {
+            for (size_t i : c.changed) see(i);
+        } else {
+            c.seen_at_mm.resize(n);
+            c.seen_reach_mm.resize(n);
+            for (size_t i = 0; i < n; ++i) see(i);
         }
         c.retrace_valid = true;
         ++c.retraces;

@@ -151,6 +151,11 @@ struct TraceCache {
     std::vector<uint8_t> changed_flag;  // per element, this retrace
     bool stage_or_name_changed = false;  // among them a stage, or an element's id
     std::vector<size_t> changed;        // their indices
+    struct Circle {
+        Vec2 centre_mm{0, 0};
+        double radius_mm = 0;
+    };
+    std::vector<Circle> change_circles;  // the bounding circles of those, now and before
     std::vector<Vec2> stage_offset_mm, stage_offset_before_mm;  // how far stages move each element
     // How the last traces went (for tests and benchmarks).
     size_t replayed_steps = 0, searched_steps = 0;
