@@ -39,19 +39,25 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Causti
 }
 
 namespace {
-// The retrace's evaluation; `edited` as retrace_layout takes it.
+// The retrace's evaluation; `edited` as retrace_layout takes it. Each path ends at the target
+// unless the waist search needs what lies beyond it: a waist downstream of the target plane
+// (offset >= 0 in either plane) is looked for through the surfaces after it, so such a path is
+// completed and the beam propagated again from the target.
 std::vector<BeamAtTarget> reevaluate(const Layout& layout, const MaterialLibrary& library, TraceCache& c,
                                      const std::vector<size_t>* edited) {
     std::vector<BeamAtTarget> out;
-    const std::vector<Path>& paths = retrace_layout(layout, library, c, edited);
+    const std::vector<Path>& paths = retrace_layout(layout, library, c, {.edited = edited, .stop_at_target = true});
     out.reserve(paths.size());
     for (size_t b = 0; b < paths.size(); ++b) {
         // The memo may start after the kept hits only if it followed the previous retrace's path.
         TraceCache::Beam& memo = c.beams[b];
         const size_t unchanged = memo.propagated_at + 1 == c.retraces ? memo.kept_hits : 0;
         memo.propagated_at = c.retraces;
-        out.push_back(beam_at_target(layout, paths[b],
-                                     propagate_to_target(layout, paths[b], &memo.propagation, unchanged)));
+        BeamsAtTargetPlane at = propagate_to_target(layout, paths[b], &memo.propagation, unchanged);
+        if (at.reached && paths[b].ends_at_target &&
+            (at.waist_offset_tangential_mm >= 0 || at.waist_offset_sagittal_mm >= 0))
+            at = propagate_to_target(layout, trace_past_target(layout, c, b), &memo.propagation, *paths[b].target_hit);
+        out.push_back(beam_at_target(layout, paths[b], at));
     }
     return out;
 }

@@ -86,6 +86,9 @@ struct Path {
     std::vector<TraceHit> hits;
     std::vector<Finding> findings;
     std::optional<size_t> target_hit;  // index into hits where the layout's target was crossed
+    // The trace stopped at the target (a solver's retrace, trace.hpp): nothing after it is here,
+    // neither hits nor findings.
+    bool ends_at_target = false;
 };
 
 }  // namespace rv

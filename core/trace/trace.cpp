@@ -235,14 +235,23 @@ double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
     return std::sqrt(squared_distance_to_segment(c, a, b));
 }
 
+// How a trace goes.
+struct TraceMode {
+    bool record = true;           // keep the steps for a later trace (only with a caller's cache)
+    bool retrace = false;         // keep the steps no change can have altered (retrace_layout)
+    bool stop_at_target = false;  // end the path at the target where that changes no other beam
+    bool go_on = false;           // go on from where the previous retrace of this beam stopped
+};
+
 class BeamTracer {
 public:
     // retrace: `out` holds this beam's path from the previous retrace, whose unchanged steps are
     // kept (see retrace_layout).
-    BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, bool record, bool retrace, Path& out)
+    BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, TraceMode mode, Path& out)
         : layout_(layout), placed_(cache.placed), beam_(layout.beams[beam]), cache_(cache),
-          memo_(cache.beams[beam]), air_(cache.air), path_(out), steps_(memo_.new_steps), record_(record),
-          retrace_(retrace) {
+          memo_(cache.beams[beam]), air_(cache.air), path_(out), steps_(memo_.new_steps), record_(mode.record),
+          retrace_(mode.retrace || mode.go_on), go_on_(mode.go_on),
+          stop_at_target_(mode.stop_at_target && !mode.go_on), last_beam_(beam + 1 == layout.beams.size()) {
         path_.beam = beam;
         air_group_index_ = memo_.air_group_index;
         target_ = resolve(layout, layout.target, cache.target);
@@ -252,7 +261,7 @@ public:
         // bound kept from then is raised by theirs (it may stay larger than needed: still a bound).
         replaying_ = !memo_.steps.empty();
         if (replaying_) {
-            const bool since_last = retrace && cache.retrace_valid && memo_.moved_known;
+            const bool since_last = retrace_ && cache.retrace_valid && memo_.moved_known;
             double moved2 = since_last ? memo_.moved2_mm2 : 0, grown = since_last ? memo_.grown_mm : 0;
             auto widen = [&](size_t i) {
                 moved2 = std::max(moved2, (placed_[i].at - memo_.placed_at_mm[i]).squaredNorm());
@@ -288,6 +297,7 @@ private:
                    : hit.group_delay_fs;
     }
     bool aims_as_before();
+    bool may_stop_at_target() const;
     bool touched_by_change(const TraceCache::StepTaken& step) const;
 
     struct Candidate {  // a surface crossing; dist = ∞ until one is found
@@ -328,6 +338,9 @@ private:
     bool replaying_ = false;  // every step so far lay within the recorded steps' margin
     bool record_ = true;      // keep the steps for a later trace (only with a caller's cache)
     bool retrace_ = false;    // keep the steps no change can have altered (retrace_layout)
+    bool go_on_ = false;      // keep every step of a path that stopped at the target, and go on
+    bool stop_at_target_ = false;
+    bool last_beam_ = false;
     double moved_mm_ = 0;
     double air_group_index_ = 1.0;
     std::optional<size_t> target_;
@@ -532,6 +545,16 @@ bool BeamTracer::aims_as_before() {
     return same;
 }
 
+// Whether this beam, having crossed the target, may end its path there: when the steps after
+// the target could turn no aim_at mirror that a later beam would meet (none is still unturned,
+// or no beam comes after this one); a beam's path thus never depends on where another stopped.
+bool BeamTracer::may_stop_at_target() const {
+    if (last_beam_) return true;
+    for (const Placed& pl : placed_)
+        if (pl.aim_pending) return false;
+    return true;
+}
+
 // Whether an element changed since the previous retrace comes near a step of it, where it was
 // then or where it is now: its bounding circle within reach of the step's segment. A step no
 // changed element comes near started the same way and met the same surfaces, so it repeats.
@@ -552,7 +575,9 @@ bool BeamTracer::touched_by_change(const TraceCache::StepTaken& step) const {
 BeamTracer::Resumed BeamTracer::resume() {
     Resumed r{0, beam_.start_mm, direction_deg(beam_.direction_deg), 0, Medium{1.0, air_group_index_}};
     size_t keep = 0;
-    if (retrace_) {
+    if (go_on_) {
+        keep = memo_.starts.empty() ? 0 : memo_.starts.size() - 1;
+    } else if (retrace_) {
         const bool aims_same = aims_as_before();
         const bool comparable = cache_.retrace_valid && aims_same && memo_.source && *memo_.source == beam_ &&
                                 path_.hits.size() + 1 >= memo_.starts.size() && steps_.size() + 1 >= memo_.starts.size();
@@ -561,6 +586,7 @@ BeamTracer::Resumed BeamTracer::resume() {
         if (!comparable) memo_.source = beam_;
     }
     memo_.kept_hits = keep;
+    path_.ends_at_target = false;
     if (keep == 0) {
         path_.segments.clear();
         path_.hits.clear();
@@ -608,6 +634,10 @@ void BeamTracer::run() {
         if (retrace_)
             memo_.starts.push_back({p, d, s_total, medium, inside_, last_surface_, expect_, path_.findings.size(),
                                     memo_.noted.size(), std::nullopt});
+        if (stop_at_target_ && path_.target_hit && *path_.target_hit + 1 == path_.hits.size() && may_stop_at_target()) {
+            path_.ends_at_target = true;  // the start just noted is where go_on continues
+            break;
+        }
         if (count >= kMaxHitsPerBeam) {
             finding(Finding::Kind::TooManyHits, SIZE_MAX, p, 0,
                     "stopped after " + std::to_string(kMaxHitsPerBeam) + " hits");
@@ -808,7 +838,10 @@ void BeamTracer::run() {
     if (!path_.target_hit)
         finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p, 0,
                 "never reaches the target " + layout_.target);
-    if (record_ && (!replaying_ || steps_.size() != memo_.steps.size())) record_steps();
+    // A path that ended at the target while replaying repeated a prefix of the recorded steps.
+    const bool repeated = replaying_ && (steps_.size() == memo_.steps.size() ||
+                                         (path_.ends_at_target && steps_.size() < memo_.steps.size()));
+    if (record_ && !repeated) record_steps();
 }
 
 // Which elements differ from the previous retrace's (flags in c.changed_flag; all when there
@@ -869,7 +902,8 @@ void list_changes(TraceCache& c) {
 }
 
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& c, std::vector<Path>& paths,
-                  bool record, bool retrace, const std::vector<size_t>* edited = nullptr) {
+                  TraceMode mode, const std::vector<size_t>* edited = nullptr) {
+    const bool retrace = mode.retrace;
     // Start afresh when the cache was made for another list of elements or beams, or with
     // another material library.
     const size_t n = layout.elements.size();
@@ -903,7 +937,7 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
         place(layout, library, c);
     }
     paths.resize(layout.beams.size());
-    for (size_t b = 0; b < layout.beams.size(); ++b) BeamTracer(layout, b, c, record, retrace, paths[b]).run();
+    for (size_t b = 0; b < layout.beams.size(); ++b) BeamTracer(layout, b, c, mode, paths[b]).run();
     if (retrace) {
         // After a retrace compared with the previous one, only the changed elements were placed anew.
         auto see = [&](size_t i) {
@@ -925,22 +959,32 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
 }  // namespace
 
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache, std::vector<Path>& paths) {
-    trace_layout(layout, library, cache, paths, true, false);
+    trace_layout(layout, library, cache, paths, TraceMode{});
 }
 
 const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
-                                       const std::vector<size_t>* edited) {
-    trace_layout(layout, library, cache, cache.paths, true, true, edited);
+                                       const RetraceOptions& options) {
+    trace_layout(layout, library, cache, cache.paths,
+                 TraceMode{.record = true, .retrace = true, .stop_at_target = options.stop_at_target}, options.edited);
     return cache.paths;
+}
+
+const Path& trace_past_target(const Layout& layout, TraceCache& cache, size_t beam) {
+    Path& path = cache.paths.at(beam);
+    if (path.ends_at_target) {
+        BeamTracer(layout, beam, cache, TraceMode{.record = true, .retrace = true, .go_on = true}, path).run();
+        ++cache.traced_past_target;
+    }
+    return path;
 }
 
 std::vector<Path> trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache* cache) {
     std::vector<Path> paths;
     if (cache) {
-        trace_layout(layout, library, *cache, paths, true, false);
+        trace_layout(layout, library, *cache, paths, TraceMode{});
     } else {
         TraceCache local;
-        trace_layout(layout, library, local, paths, false, false);
+        trace_layout(layout, library, local, paths, TraceMode{.record = false});
     }
     return paths;
 }

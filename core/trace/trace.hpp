@@ -46,11 +46,24 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
 // arm from its first moved lens on. cache.beams[b].kept_hits says how many hits were kept.
 // Any other trace with the cache in between, or a changed table, target or beam source, makes
 // it start from the sources. The paths equal a fresh trace's (a test compares them).
-// `edited`: a caller that knows which elements it may have changed since the previous retrace
-// with this cache (a solver moving a fixed set of optics) lists them, and only those are
-// compared; every other element must be as it was then (its table, target and beams are
-// compared still). Null: every element is compared.
+struct RetraceOptions {
+    // A caller that knows which elements it may have changed since the previous retrace with
+    // this cache (a solver moving a fixed set of optics) lists them, and only those are
+    // compared; every other element must be as it was then (the table, target and beams are
+    // compared still). Null: every element is compared.
+    const std::vector<size_t>* edited = nullptr;
+    // End a path where it crosses the target (Path::ends_at_target), for a caller that needs
+    // only what happens up to there; trace_past_target completes it. A beam goes on when its
+    // further steps could turn an aim_at mirror a later beam meets, so that no beam's path
+    // depends on where another stopped.
+    bool stop_at_target = false;
+};
 const std::vector<Path>& retrace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
-                                       const std::vector<size_t>* edited = nullptr);
+                                       const RetraceOptions& options = {});
+
+// The rest of a path of the last retrace that ended at the target (cache.paths[beam]), traced
+// on from there as a full retrace would have traced it; a complete path is returned as it is.
+// The layout must be the one of that retrace.
+const Path& trace_past_target(const Layout& layout, TraceCache& cache, size_t beam);
 
 }  // namespace rv

@@ -159,6 +159,7 @@ struct TraceCache {
     std::vector<Vec2> stage_offset_mm, stage_offset_before_mm;  // how far stages move each element
     // How the last traces went (for tests and benchmarks).
     size_t replayed_steps = 0, searched_steps = 0;
+    size_t traced_past_target = 0;  // paths that ended at the target and were completed
 };
 
 }  // namespace rv

@@ -12,13 +12,26 @@
 
 namespace {
 
+// A path of a that ended at the target must be b's path up to its target crossing, with the
+// findings made up to there; one of b may end there only where a's does.
 void require_same_paths(const std::vector<rv::Path>& a, const std::vector<rv::Path>& b) {
     REQUIRE(a.size() == b.size());
     for (size_t p = 0; p < a.size(); ++p) {
-        REQUIRE(a[p].hits.size() == b[p].hits.size());
-        REQUIRE(a[p].segments.size() == b[p].segments.size());
-        REQUIRE(a[p].findings.size() == b[p].findings.size());
         REQUIRE(a[p].target_hit == b[p].target_hit);
+        if (b[p].ends_at_target) {
+            REQUIRE(a[p].ends_at_target);
+            REQUIRE(a[p].findings.size() == b[p].findings.size());
+        }
+        if (a[p].ends_at_target) {
+            REQUIRE(a[p].target_hit);
+            REQUIRE(a[p].hits.size() == *a[p].target_hit + 1);
+            REQUIRE(a[p].segments.size() == a[p].hits.size());
+            REQUIRE(a[p].findings.size() <= b[p].findings.size());
+        } else {
+            REQUIRE(a[p].hits.size() == b[p].hits.size());
+            REQUIRE(a[p].segments.size() == b[p].segments.size());
+            REQUIRE(a[p].findings.size() == b[p].findings.size());
+        }
         for (size_t k = 0; k < a[p].hits.size(); ++k) {
             const rv::TraceHit &x = a[p].hits[k], &y = b[p].hits[k];
             REQUIRE(x.element == y.element);
@@ -129,7 +142,7 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
         rv::Layout l = base;
         std::mt19937 rng(23);
         std::uniform_real_distribution<double> small(-0.6, 0.6), large(-10, 10), unit(0, 1);
-        size_t kept = 0;
+        size_t kept = 0, ended_at_target = 0;
         for (int trial = 0; trial < 400; ++trial) {
             INFO("trial " << trial);
             const int edits = 1 + static_cast<int>(rng() % 2);
@@ -193,6 +206,7 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
             }
             require_same_paths(named_cache.paths, cache.paths);
             for (const rv::TraceCache::Beam& b : cache.beams) kept += b.kept_hits;
+            for (const rv::Path& p : cache.paths) ended_at_target += p.ends_at_target;
             const std::vector<rv::Path> fresh = rv::trace_layout(l, library);
             require_same_paths(cache.paths, fresh);
             REQUIRE(lean.size() == fresh.size());
@@ -208,5 +222,48 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
             }
         }
         CHECK(kept > 0);  // the retrace did keep steps
+        // Both ways of the evaluation ran: paths ended at the target, and paths completed past
+        // it for a waist downstream of the target plane.
+        CHECK(ended_at_target > 0);
+        CHECK(cache.traced_past_target > 0);
     }
+}
+
+// A solver's retrace ends a path at the target, but not where the rest of it would turn an
+// aim_at mirror that a later beam meets. Here beam A crosses the target T and then turns M
+// towards the dump E; beam B, coming later, meets M from behind as A left it. Had A stopped at
+// T, B would have turned M itself and been sent on to E.
+TEST_CASE("a path ends at the target only where no later beam depends on the rest", "[trace][cache][retrace]") {
+    const rv::Layout l = rv::test::layout_from(rv::test::layout_json(
+        R"({"id": "A", "wavelength_nm": 800, "start_mm": [100, 500], "direction_deg": 0, "waist_um": 500},
+           {"id": "B", "wavelength_nm": 1000, "start_mm": [700, 300], "direction_deg": 135, "waist_um": 500})",
+        R"({"id": "T", "type": "target", "at_mm": [300, 500], "aperture_mm": 20},
+           {"id": "M", "type": "mirror", "at_mm": [500, 500], "aperture_mm": 25, "aim_at": "E"},
+           {"id": "E", "type": "dump", "at_mm": [500, 900], "normal_deg": 270, "aperture_mm": 50})",
+        "T"));
+    const rv::MaterialLibrary library = rv::material_library_for(l);
+    const std::vector<rv::Path> fresh = rv::trace_layout(l, library);
+    REQUIRE(fresh[1].hits.size() == 1);  // B meets the back of M as A turned it
+    CHECK(fresh[1].findings.front().kind == rv::Finding::Kind::HitBackOfOptic);
+    rv::TraceCache cache;
+    for (int k = 0; k < 3; ++k) {  // the first retrace and two that keep every step
+        const std::vector<rv::Path>& paths = rv::retrace_layout(l, library, cache, {.stop_at_target = true});
+        CHECK_FALSE(paths[0].ends_at_target);  // A went on: M was still to be turned
+        require_same_paths(paths, fresh);
+    }
+    // The last beam, and a beam after which no aim_at mirror is left to turn, may stop.
+    const rv::Layout one = rv::test::layout_from(rv::test::layout_json(
+        R"({"id": "A", "wavelength_nm": 800, "start_mm": [100, 500], "direction_deg": 0, "waist_um": 500})",
+        R"({"id": "T", "type": "target", "at_mm": [300, 500], "aperture_mm": 20},
+           {"id": "M", "type": "mirror", "at_mm": [500, 500], "aperture_mm": 25, "aim_at": "E"},
+           {"id": "E", "type": "dump", "at_mm": [500, 900], "normal_deg": 270, "aperture_mm": 50})",
+        "T"));
+    rv::TraceCache single;
+    const std::vector<rv::Path>& ended = rv::retrace_layout(one, library, single, {.stop_at_target = true});
+    CHECK(ended[0].ends_at_target);
+    CHECK(ended[0].hits.size() == 1);
+    // Completed, it is the full trace.
+    rv::trace_past_target(one, single, 0);
+    require_same_paths(single.paths, rv::trace_layout(one, library));
+    CHECK_FALSE(single.paths[0].ends_at_target);
 }
