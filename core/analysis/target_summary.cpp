@@ -71,7 +71,8 @@ std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const M
     std::vector<BeamAtTarget> out;
     trace_layout(layout, library, c, c.paths);
     out.reserve(c.paths.size());
-    for (const Path& path : c.paths) out.push_back(beam_at_target(layout, path, propagate_to_target(layout, path)));
+    for (const Path& path : c.paths)
+        out.push_back(beam_at_target(layout, path, propagate_to_target(layout, path, &c.scratch_propagation)));
     return out;
 }
 

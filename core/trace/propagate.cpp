@@ -57,7 +57,10 @@ bool has_power(const Layout& layout, const TraceHit& hit) {
 }
 
 // Signed path distance from hit k (the target plane, identity matrix) to the real waist.
-double locate_waist_mm(const Layout& layout, const Path& path, size_t k, GaussianBeam q, Plane plane) {
+// `arriving[i]`: the beams (tangential, sagittal) arriving at hit i before its matrix, i < k
+// (a waist upstream is looked for in them, as the forward propagation found them).
+double locate_waist_mm(const Layout& layout, const Path& path, size_t k, GaussianBeam q, Plane plane,
+                       const std::vector<TargetPropagationMemo::Beams>& arriving) {
     const GaussianBeam at_target = q;
     double d = distance_to_waist_mm(q);
     double travelled = 0;
@@ -77,9 +80,7 @@ double locate_waist_mm(const Layout& layout, const Path& path, size_t k, Gaussia
     for (size_t i = k; i > 0; --i) {
         const double gap = path.hits[i].s_mm - path.hits[i - 1].s_mm;
         if (-d <= gap || has_power(layout, path.hits[i - 1])) break;
-        q = translate(q, -gap);  // now just after hit i − 1: undo its matrix
-        q = propagate(q, hit_matrix(layout, path.hits[i - 1], plane).inverse(),
-                      path.hits[i - 1].index_before);
+        q = plane == Plane::Tangential ? arriving[i - 1].first : arriving[i - 1].second;  // before hit i − 1
         travelled += gap;
         d = distance_to_waist_mm(q);
     }
@@ -110,19 +111,24 @@ void cross_hit(const Layout& layout, const TraceHit& hit, GaussianBeam& t, Gauss
 BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path, TargetPropagationMemo* memo,
                                        size_t unchanged_hits) {
     BeamsAtTargetPlane out;
+    TargetPropagationMemo local;
+    TargetPropagationMemo& m = memo ? *memo : local;
+    if (!memo) unchanged_hits = 0;
     if (!path.target_hit) {
-        if (memo) memo->after_hit.clear();  // it must follow this path, whose hits it never saw
+        m.after_hit.clear();  // it must follow this path, whose hits it never saw
+        m.arriving.clear();
         return out;
     }
     const size_t k = *path.target_hit;
     GaussianBeam t{}, s{};
     size_t first = 0;  // the segment to start from, with (t, s) at its start
-    if (memo && unchanged_hits > 0 && !memo->after_hit.empty()) {
-        first = std::min({unchanged_hits, memo->after_hit.size(), k});
-        if (first > 0) std::tie(t, s) = memo->after_hit[first - 1];
+    if (unchanged_hits > 0 && !m.after_hit.empty()) {
+        first = std::min({unchanged_hits, m.after_hit.size(), k});
+        if (first > 0) std::tie(t, s) = m.after_hit[first - 1];
     }
     if (first == 0) source_beams(layout.beams[path.beam], t, s);
-    if (memo) memo->after_hit.resize(first);
+    m.after_hit.resize(first);
+    m.arriving.resize(first);
     for (size_t i = first; i <= k && i < path.segments.size(); ++i) {
         const TraceSegment& seg = path.segments[i];
         t.index = seg.index;
@@ -133,14 +139,15 @@ BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path, T
             out.reached = true;
             break;
         }
+        m.arriving.emplace_back(t, s);
         cross_hit(layout, path.hits[i], t, s);
-        if (memo) memo->after_hit.emplace_back(t, s);
+        m.after_hit.emplace_back(t, s);
     }
     if (!out.reached) return out;
     out.tangential = t;
     out.sagittal = s;
-    out.waist_offset_tangential_mm = locate_waist_mm(layout, path, k, t, Plane::Tangential);
-    out.waist_offset_sagittal_mm = locate_waist_mm(layout, path, k, s, Plane::Sagittal);
+    out.waist_offset_tangential_mm = locate_waist_mm(layout, path, k, t, Plane::Tangential, m.arriving);
+    out.waist_offset_sagittal_mm = locate_waist_mm(layout, path, k, s, Plane::Sagittal, m.arriving);
     return out;
 }
 
@@ -168,6 +175,7 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         GaussianBeam t, s;
     };
     std::vector<SegmentStart> segment_starts;
+    std::vector<TargetPropagationMemo::Beams> arriving;  // at each hit, for the waist search
     for (size_t i = 0; i < path.segments.size(); ++i) {
         const TraceSegment& seg = path.segments[i];
         t.index = seg.index;
@@ -190,6 +198,7 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
                                     hit.point_mm, at.clipped_fraction, m.str()});
         }
         out.at_hits.push_back(at);
+        arriving.emplace_back(t, s);
         if (path.target_hit && *path.target_hit == i) {
             out.reaches_target = true;
             out.target_tangential = t;
@@ -200,8 +209,9 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
 
     if (out.reaches_target) {
         const size_t k = *path.target_hit;
-        out.target_waist_offset_tangential_mm = locate_waist_mm(layout, path, k, out.target_tangential, Plane::Tangential);
-        out.target_waist_offset_sagittal_mm = locate_waist_mm(layout, path, k, out.target_sagittal, Plane::Sagittal);
+        out.target_waist_offset_tangential_mm =
+            locate_waist_mm(layout, path, k, out.target_tangential, Plane::Tangential, arriving);
+        out.target_waist_offset_sagittal_mm = locate_waist_mm(layout, path, k, out.target_sagittal, Plane::Sagittal, arriving);
     }
 
     // Denser samples around the target: `samples_near_target` points over ±3 Rayleigh ranges,

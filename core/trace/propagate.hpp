@@ -71,7 +71,9 @@ struct BeamsAtTargetPlane {
 // (and the segments before them) are those of the previous call with this memo, for the same
 // beam source, restarts after them (retrace_layout says how many are unchanged).
 struct TargetPropagationMemo {
-    std::vector<std::pair<GaussianBeam, GaussianBeam>> after_hit;  // tangential, sagittal
+    using Beams = std::pair<GaussianBeam, GaussianBeam>;  // tangential, sagittal
+    std::vector<Beams> after_hit;  // after each hit before the target, past its matrix
+    std::vector<Beams> arriving;   // arriving at each of those hits, before its matrix
 };
 BeamsAtTargetPlane propagate_to_target(const Layout& layout, const Path& path,
                                        TargetPropagationMemo* memo = nullptr, size_t unchanged_hits = 0);

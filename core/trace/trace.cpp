@@ -1,6 +1,7 @@
 #include "trace/trace.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 #include <sstream>
@@ -215,7 +216,7 @@ using Medium = TraceCache::Medium;
 
 // A sample from the cache when it was taken of the same material, else a fresh one.
 template <class T, class Make>
-const T& cached(TraceCache::Tagged<T>& slot, const Material* material, int variant, Make make) {
+T& cached(TraceCache::Tagged<T>& slot, const Material* material, int variant, Make make) {
     if (!slot.value || slot.material != material || slot.variant != variant) {
         slot.material = material;
         slot.variant = variant;
@@ -712,14 +713,18 @@ void BeamTracer::run() {
                 f = chromatic_focal_length_mm(thin->focal_length_mm, g.design_index, g.index);
             } else {
                 const auto& t = std::get<ThickLens>(lens->model);
-                const auto& g = cached(memo_.lens[e], pl.material, 2, [&] {
+                auto& g = cached(memo_.lens[e], pl.material, 2, [&] {
                     return TraceCache::LensGlass{0, sample_index(*pl.material, wavelength).index, 1,
                                                  absolute_index(*pl.material, *air_, wavelength).group_index};
                 });
                 glass_index = g.index;
                 glass_group_index = g.group_index;
-                f = thick_lens_properties({t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm}, g.index)
-                        .effective_focal_length_mm;
+                const std::array<double, 3> shape{t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm};
+                if (g.efl_shape != shape) {  // the EFL at this glass index, kept for this shape
+                    g.efl_shape = shape;
+                    g.efl_mm = thick_lens_properties({shape[0], shape[1], shape[2]}, g.index).effective_focal_length_mm;
+                }
+                f = g.efl_mm;
             }
             if (!(std::isfinite(f) && f != 0)) {
                 finding(Finding::Kind::MaterialOutOfRange, e, h, 0,

@@ -23,6 +23,7 @@
 // of evaluate_beams_at_target) so that a repeated trace allocates nothing, and what a retrace
 // (trace.hpp, retrace_layout) compares with: the elements as last seen, each beam's step starts.
 
+#include <array>
 #include <cstdint>
 #include <limits>
 #include <optional>
@@ -67,6 +68,10 @@ struct TraceCache {
     struct LensGlass {
         double design_wavelength_nm = 0;
         double index = 1, design_index = 1, group_index = 1;  // absolute group index
+        // A thick singlet's effective focal length at `index`, and the radii and centre
+        // thickness it was computed for (NaN: none yet).
+        std::array<double, 3> efl_shape{std::numeric_limits<double>::quiet_NaN(), 0, 0};
+        double efl_mm = 0;
     };
     template <class T>
     struct Tagged {  // a sample and what it was taken of: the material, and for lenses the
@@ -139,6 +144,7 @@ struct TraceCache {
     std::vector<Beam> beams;
     std::vector<Placed> placed;
     std::vector<Path> paths;  // retrace_layout's paths
+    TargetPropagationMemo scratch_propagation;  // storage for an evaluation without the retrace
     // retrace_layout: the elements as they were at the previous retrace (and where they were
     // placed), which of them changed since, and whether that retrace is the last trace made.
     bool retrace_valid = false;
