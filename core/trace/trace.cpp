@@ -4,6 +4,7 @@
 #include <array>
 #include <cmath>
 #include <limits>
+#include <numeric>
 #include <sstream>
 
 #include "materials/dispersion.hpp"
@@ -58,7 +59,10 @@ std::optional<size_t> resolve(const Layout& layout, const std::string& id,
     if (!slot || slot->first != id || slot->second >= layout.elements.size() ||
         layout.elements[slot->second].id != id) {
         const std::optional<size_t> i = index_of(layout, id);
-        if (!i) return std::nullopt;
+        if (!i) {
+            slot.reset();
+            return std::nullopt;
+        }
         slot = std::make_pair(id, *i);
     }
     return slot->second;
@@ -106,25 +110,25 @@ void place_one(const Layout& layout, const MaterialLibrary& library, TraceCache&
 // Every element where stages have moved it, into cache.placed (once per trace of the layout).
 // With `changed` (a retrace): only the elements flagged there, those a stage now moves by
 // another amount (flagged too) and the aim_at mirrors (the tracer turns them) are placed anew;
-// the others keep the placement of the previous trace. `offsets_same`: no stage and no name
-// changed since the previous retrace, so every stage moves what it did by as much, and an
-// unchanged aim_at mirror only needs its turn undone.
+// the others keep the placement of the previous trace. `links_same`: no stage, name or aim_at
+// changed since the previous retrace, so every stage moves what it did by as much, every aim_at
+// mirror aims where it did, and an unchanged one only needs its turn undone; the changed
+// elements are those listed in cache.changed.
 void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cache,
-           std::vector<uint8_t>* changed = nullptr, bool offsets_same = false) {
+           std::vector<uint8_t>* changed = nullptr, bool links_same = false) {
     const size_t n = layout.elements.size();
     cache.placed.resize(n);
     cache.resolved.resize(n);
     std::vector<Vec2>& offset = cache.stage_offset_mm;  // where each element's stage moves it
     std::vector<Vec2>& before = cache.stage_offset_before_mm;
-    if (changed && offsets_same) {
-        for (size_t i = 0; i < n; ++i) {
-            if ((*changed)[i]) {
-                place_one(layout, library, cache, i, offset[i]);
-            } else if (Placed& pl = cache.placed[i]; pl.aim_target) {
-                pl.normal = cache.resolved[i].normal;
-                pl.aim_pending = true;
-                pl.surface_count = surfaces_of(layout.elements[i].kind, pl.at, pl.normal, pl.surfaces);
-            }
+    if (changed && links_same) {
+        for (size_t i : cache.changed) place_one(layout, library, cache, i, offset[i]);
+        for (size_t i : cache.aim_mirrors) {
+            if ((*changed)[i]) continue;
+            Placed& pl = cache.placed[i];
+            pl.normal = cache.resolved[i].normal;
+            pl.aim_pending = true;
+            pl.surface_count = surfaces_of(layout.elements[i].kind, pl.at, pl.normal, pl.surfaces);
         }
         return;
     }
@@ -152,6 +156,9 @@ void place(const Layout& layout, const MaterialLibrary& library, TraceCache& cac
         }
         place_one(layout, library, cache, i, offset[i]);
     }
+    cache.aim_mirrors.clear();
+    for (size_t i = 0; i < n; ++i)
+        if (cache.placed[i].aim_target) cache.aim_mirrors.push_back(i);
 }
 
 double slab_thickness(const ElementKind& kind) {
@@ -255,7 +262,12 @@ public:
           stop_at_target_(mode.stop_at_target && !mode.go_on), last_beam_(beam + 1 == layout.beams.size()) {
         path_.beam = beam;
         air_group_index_ = memo_.air_group_index;
-        target_ = resolve(layout, layout.target, cache.target);
+        // The target's index holds while the layout's elements keep their names (a retrace
+        // compared the target's name and the names of the changed elements).
+        if (retrace_ && cache.retrace_valid && !cache.links_changed && cache.target)
+            target_ = cache.target->second;
+        else
+            target_ = resolve(layout, layout.target, cache.target);
         // How far any element has moved since the steps were recorded (see trace_cache.hpp),
         // bounded from above by the largest move plus the largest growth of a bounding circle.
         // In a retrace only the changed elements can have moved since the previous one, so the
@@ -849,13 +861,15 @@ void BeamTracer::run() {
     if (record_ && !repeated) record_steps();
 }
 
-// Which elements differ from the previous retrace's (flags in c.changed_flag; all when there
-// is no previous retrace to compare with, or the table or target changed). With `edited`, only
-// the elements listed there are compared: the caller vouches for the others.
+// Which elements differ from the previous retrace's (flags in c.changed_flag, indices in
+// c.changed; all when there is no previous retrace to compare with, or the table or target
+// changed). With `edited`, only the elements listed there are compared: the caller vouches for
+// the others.
 void compare_elements(const Layout& layout, TraceCache& c, const std::vector<size_t>* edited) {
     const size_t n = layout.elements.size();
     c.changed_flag.assign(n, 0);
-    c.stage_or_name_changed = false;
+    c.changed.clear();
+    c.links_changed = false;
     if (!c.retrace_valid || c.seen_elements.size() != n || !(c.seen_table == layout.table) ||
         c.seen_target != layout.target) {
         c.retrace_valid = false;
@@ -863,6 +877,8 @@ void compare_elements(const Layout& layout, TraceCache& c, const std::vector<siz
         c.seen_table = layout.table;
         c.seen_target = layout.target;
         c.changed_flag.assign(n, 1);
+        c.changed.resize(n);
+        std::iota(c.changed.begin(), c.changed.end(), size_t{0});
         return;
     }
     auto compare = [&](size_t i) {
@@ -874,7 +890,12 @@ void compare_elements(const Layout& layout, TraceCache& c, const std::vector<siz
                                     now.kind == then.kind && now.id == then.id;
         if (same_otherwise && now.at_mm == then.at_mm && now.normal_deg == then.normal_deg) return;
         c.changed_flag[i] = 1;
-        if (now.id != then.id || std::holds_alternative<Stage>(now.kind)) c.stage_or_name_changed = true;
+        c.changed.push_back(i);
+        const auto* mirror_now = std::get_if<Mirror>(&now.kind);
+        const auto* mirror_then = std::get_if<Mirror>(&then.kind);
+        if (now.id != then.id || std::holds_alternative<Stage>(now.kind) ||
+            (mirror_now && mirror_then && mirror_now->aim_at != mirror_then->aim_at))
+            c.links_changed = true;
         if (same_otherwise) {
             then.at_mm = now.at_mm;
             then.normal_deg = now.normal_deg;
@@ -890,16 +911,23 @@ void compare_elements(const Layout& layout, TraceCache& c, const std::vector<siz
     }
 }
 
-// The changed elements' indices (cache.changed), after placing: an aim_at mirror counts as
-// changed when what it aims at did; and the circles they occupy, now and at the previous
-// retrace (when that is there to compare with).
-void list_changes(TraceCache& c) {
-    c.changed.clear();
+// The changed elements' indices (cache.changed), after placing: the flagged ones (listed by
+// compare_elements where `links_same`, see place), and an aim_at mirror whose target is one;
+// and the circles they occupy, now and at the previous retrace (when that is there to compare
+// with).
+void list_changes(TraceCache& c, bool links_same) {
+    if (links_same) {
+        for (size_t m : c.aim_mirrors)
+            if (!c.changed_flag[m] && c.changed_flag[*c.placed[m].aim_target]) c.changed.push_back(m);
+    } else {
+        c.changed.clear();
+        for (size_t i = 0; i < c.placed.size(); ++i)
+            if (c.changed_flag[i] || (c.placed[i].aim_target && c.changed_flag[*c.placed[i].aim_target]))
+                c.changed.push_back(i);
+    }
     c.change_circles.clear();
-    for (size_t i = 0; i < c.placed.size(); ++i) {
-        if (!c.changed_flag[i] && !(c.placed[i].aim_target && c.changed_flag[*c.placed[i].aim_target])) continue;
-        c.changed.push_back(i);
-        if (!c.retrace_valid) continue;
+    if (!c.retrace_valid) return;
+    for (size_t i : c.changed) {
         const double then = c.seen_reach_mm[i] + 1e-6, now = c.placed[i].reach + 1e-6;
         c.change_circles.push_back({c.placed[i].at, now});
         if (c.seen_at_mm[i] != c.placed[i].at || then != now) c.change_circles.push_back({c.seen_at_mm[i], then});
@@ -913,7 +941,11 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
     // another material library.
     const size_t n = layout.elements.size();
     bool same = c.library == &library && c.element_kinds.size() == n && c.beams.size() == layout.beams.size();
-    for (size_t i = 0; same && i < n; ++i) same = c.element_kinds[i] == layout.elements[i].kind.index();
+    if (same && retrace && edited && c.retrace_valid) {  // the others are vouched for
+        for (size_t i : *edited) same = same && (i >= n || c.element_kinds[i] == layout.elements[i].kind.index());
+    } else {
+        for (size_t i = 0; same && i < n; ++i) same = c.element_kinds[i] == layout.elements[i].kind.index();
+    }
     if (!same) {
         std::vector<Path> storage = std::move(c.paths);
         c = TraceCache{};
@@ -935,8 +967,9 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
     }
     if (retrace) {
         compare_elements(layout, c, edited);
-        place(layout, library, c, &c.changed_flag, c.retrace_valid && !c.stage_or_name_changed);
-        list_changes(c);
+        const bool links_same = c.retrace_valid && !c.links_changed;
+        place(layout, library, c, &c.changed_flag, links_same);
+        list_changes(c, links_same);
     } else {
         c.retrace_valid = false;
         place(layout, library, c);

@@ -155,7 +155,8 @@ struct TraceCache {
     Table seen_table;
     std::string seen_target;
     std::vector<uint8_t> changed_flag;  // per element, this retrace
-    bool stage_or_name_changed = false;  // among them a stage, or an element's id
+    bool links_changed = false;  // among them a stage, an element's id or a mirror's aim_at
+    std::vector<size_t> aim_mirrors;  // the mirrors with a resolved aim_at
     std::vector<size_t> changed;        // their indices
     struct Circle {
         Vec2 centre_mm{0, 0};

@@ -152,7 +152,7 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
             for (int k = 0; k < edits; ++k) {
                 edited.push_back(rng() % l.elements.size());
                 rv::Element& e = l.elements[edited.back()];
-                switch (rng() % 7) {
+                switch (rng() % 8) {
                     case 0: e.at_mm += rv::Vec2(small(rng), small(rng)); break;
                     case 5: e.at_mm += small(rng) * rv::direction_deg(e.normal_deg); break;  // along its axis
                     case 1: e.at_mm += rv::Vec2(large(rng), large(rng)); break;
@@ -169,6 +169,14 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
                             }
                         }
                         if (auto* stage = std::get_if<rv::Stage>(&e.kind)) stage->position_mm += 5 * small(rng);
+                        break;
+                    case 6:  // what links elements: a mirror's aim_at, an element's name
+                        if (auto* m = std::get_if<rv::Mirror>(&e.kind)) {
+                            const auto& was = std::get<rv::Mirror>(base.elements[edited.back()].kind).aim_at;
+                            m->aim_at = m->aim_at ? std::nullopt : was;
+                        } else if (unit(rng) < 0.3) {
+                            e.id += "'";
+                        }
                         break;
                     default: break;  // nothing changed
                 }
