@@ -571,12 +571,15 @@ bool BeamTracer::may_stop_at_target() const {
 // Whether an element changed since the previous retrace comes near a step of it, where it was
 // then or where it is now: its bounding circle within reach of the step's segment. A step no
 // changed element comes near started the same way and met the same surfaces, so it repeats.
+// The circles are tested widened by kChangeSlack_mm (a stricter test, so still safe), which
+// lets later retraces skip the steps kept here while their circles lie within these (see
+// list_changes).
 bool BeamTracer::touched_by_change(const TraceCache::StepTaken& step) const {
     // A circle comes within reach of the segment [a, b]; a box test first.
     const Vec2 lo = step.from_mm.cwiseMin(step.to_mm), hi = step.from_mm.cwiseMax(step.to_mm);
     for (const TraceCache::Circle& k : cache_.change_circles) {
         const Vec2& c = k.centre_mm;
-        const double r = k.radius_mm;
+        const double r = k.radius_mm + TraceCache::kChangeSlack_mm;
         if (c.x() < lo.x() - r || c.x() > hi.x() + r || c.y() < lo.y() - r || c.y() > hi.y() + r) continue;
         if (squared_distance_to_segment(c, step.from_mm, step.to_mm) <= r * r) return true;
     }
@@ -594,9 +597,18 @@ BeamTracer::Resumed BeamTracer::resume() {
         const bool aims_same = aims_as_before();
         const bool comparable = cache_.retrace_valid && aims_same && memo_.source && *memo_.source == beam_ &&
                                 path_.hits.size() + 1 >= memo_.starts.size() && steps_.size() + 1 >= memo_.starts.size();
+        // The steps kept when the reference circles were tested lie clear of them, widened; while
+        // they hold this retrace's circles, those steps lie clear of these too and need no test.
+        const bool skip =
+            comparable && cache_.circles_within_reference && memo_.reference_keep + 1 <= memo_.starts.size();
+        if (skip) {
+            keep = memo_.reference_keep;
+            ++cache_.reference_skips;
+        }
         // The last step of the previous trace is always taken again (it ended the path).
         while (comparable && keep + 1 < memo_.starts.size() && !touched_by_change(steps_[keep])) ++keep;
         if (!comparable) memo_.source = beam_;
+        if (!skip) memo_.reference_keep = keep;  // tested from the start (or nothing kept)
     }
     memo_.kept_hits = keep;
     path_.ends_at_target = false;
@@ -926,12 +938,28 @@ void list_changes(TraceCache& c, bool links_same) {
                 c.changed.push_back(i);
     }
     c.change_circles.clear();
-    if (!c.retrace_valid) return;
+    c.circles_within_reference = false;
+    if (!c.retrace_valid) {
+        c.reference_circles.reset();
+        return;
+    }
     for (size_t i : c.changed) {
         const double then = c.seen_reach_mm[i] + 1e-6, now = c.placed[i].reach + 1e-6;
         c.change_circles.push_back({c.placed[i].at, now});
         if (c.seen_at_mm[i] != c.placed[i].at || then != now) c.change_circles.push_back({c.seen_at_mm[i], then});
     }
+    // The reference: the circles of the last retrace that tested each path from its start
+    // (resume). Each of this retrace's circles inside one of them, widened as they were tested?
+    if (c.reference_circles) {
+        c.circles_within_reference = true;
+        for (const TraceCache::Circle& k : c.change_circles) {
+            bool inside = false;
+            for (const TraceCache::Circle& w : *c.reference_circles)
+                inside = inside || (k.centre_mm - w.centre_mm).norm() + k.radius_mm <= w.radius_mm + TraceCache::kChangeSlack_mm;
+            c.circles_within_reference = c.circles_within_reference && inside;
+        }
+    }
+    if (!c.circles_within_reference) c.reference_circles = c.change_circles;  // tested from the start now
 }
 
 void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCache& c, std::vector<Path>& paths,

@@ -120,6 +120,7 @@ struct TraceCache {
         std::optional<BeamSource> source;
         std::vector<std::pair<bool, Vec2>> aims;
         size_t kept_hits = 0;
+        size_t reference_keep = 0;  // the steps kept when the reference circles were tested
         TargetPropagationMemo propagation;
         uint64_t propagated_at = 0;  // the retrace whose path `propagation` followed
     };
@@ -163,10 +164,17 @@ struct TraceCache {
         double radius_mm = 0;
     };
     std::vector<Circle> change_circles;  // the bounding circles of those, now and before
+    // Steps are tested against the circles widened by this much; while a retrace's circles lie
+    // inside the reference circles so widened, the steps kept when those were tested
+    // (Beam::reference_keep) stay clear of them and are kept without a test.
+    static constexpr double kChangeSlack_mm = 1.0;
+    std::optional<std::vector<Circle>> reference_circles;
+    bool circles_within_reference = false;
     std::vector<Vec2> stage_offset_mm, stage_offset_before_mm;  // how far stages move each element
     // How the last traces went (for tests and benchmarks).
     size_t replayed_steps = 0, searched_steps = 0;
     size_t traced_past_target = 0;  // paths that ended at the target and were completed
+    size_t reference_skips = 0;     // beams whose kept steps needed no test (reference_circles)
 };
 
 }  // namespace rv

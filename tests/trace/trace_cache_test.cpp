@@ -134,7 +134,7 @@ TEST_CASE("the lean evaluation gives the full pipeline's numbers at the target",
 // another kind of trace in between) its paths and the evaluation built on them must equal a
 // fresh trace and the full pipeline exactly.
 TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[trace][cache][retrace]") {
-    size_t ended_at_target = 0, traced_past_target = 0;
+    size_t ended_at_target = 0, traced_past_target = 0, reference_skips = 0;
     for (const char* file : {"sfg-bbo.json", "pump-probe.json", "two-beam-microscope.json", "shg-single.json"}) {
         INFO(file);
         const rv::Layout base = rv::test::bundled_layout(file);
@@ -144,11 +144,16 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
         std::mt19937 rng(23);
         std::uniform_real_distribution<double> small(-0.6, 0.6), large(-10, 10), unit(0, 1);
         size_t kept = 0;
+        std::vector<size_t> edited;  // what a solver would name (it may name more)
         for (int trial = 0; trial < 400; ++trial) {
             INFO("trial " << trial);
-            const int edits = 1 + static_cast<int>(rng() % 2);
-            std::vector<size_t> edited;  // what a solver would name (it may name more)
-            if (unit(rng) < 0.2) edited.push_back(rng() % l.elements.size());
+            // Now and then a solver's pattern: the same optics moved a little again; else new edits.
+            const bool again = !edited.empty() && unit(rng) < 0.3;
+            if (again)
+                for (size_t i : edited) l.elements[i].at_mm += 0.5 * rv::Vec2(small(rng), small(rng));
+            const int edits = again ? 0 : 1 + static_cast<int>(rng() % 2);
+            if (!again) edited.clear();
+            if (!again && unit(rng) < 0.2) edited.push_back(rng() % l.elements.size());
             for (int k = 0; k < edits; ++k) {
                 edited.push_back(rng() % l.elements.size());
                 rv::Element& e = l.elements[edited.back()];
@@ -237,11 +242,13 @@ TEST_CASE("a retrace keeps only unchanged steps and equals a fresh trace", "[tra
         }
         CHECK(kept > 0);  // the retrace did keep steps
         traced_past_target += cache.traced_past_target;
+        reference_skips += cache.reference_skips;
     }
     // Both ways of the evaluation ran: paths ended at the target, and paths completed past it
     // for a waist downstream of the target plane.
     CHECK(ended_at_target > 0);
     CHECK(traced_past_target > 0);
+    CHECK(reference_skips > 0);  // and kept steps were taken without a test
 }
 
 // A solver's retrace ends a path at the target, but not where the rest of it would turn an
@@ -281,4 +288,30 @@ TEST_CASE("a path ends at the target only where no later beam depends on the res
     rv::trace_past_target(one, single, 0);
     require_same_paths(single.paths, rv::trace_layout(one, library));
     CHECK_FALSE(single.paths[0].ends_at_target);
+}
+
+// The retrace tests its kept steps against the changed optics' circles widened by
+// kChangeSlack_mm, so that a later retrace whose circles lie within those may keep the same
+// steps untested. Here a lens passes 0.5 mm clear of the beam, then 0.6 mm, then moves into it:
+// the last retrace skips the test (its circles lie within the second's, widened) and must still
+// see the beam meet the lens.
+TEST_CASE("a retrace that skips the test of kept steps still sees an optic moved into the beam", "[trace][cache][retrace]") {
+    rv::Layout l = rv::test::layout_from(rv::test::layout_json(
+        R"({"id": "A", "wavelength_nm": 800, "start_mm": [100, 500], "direction_deg": 0, "waist_um": 500})",
+        R"({"id": "L", "type": "lens", "at_mm": [300, 505.5], "aperture_mm": 10, "focal_length_mm": 100},
+           {"id": "T", "type": "target", "at_mm": [600, 500], "aperture_mm": 40})",
+        "T"));
+    const rv::MaterialLibrary library = rv::material_library_for(l);
+    rv::TraceCache cache;
+    const std::vector<size_t> edited{0};
+    size_t skips = 0;
+    for (const double y_mm : {505.5, 505.6, 504.9}) {
+        INFO("lens at y = " << y_mm);
+        l.elements[0].at_mm.y() = y_mm;
+        skips = cache.reference_skips;
+        rv::retrace_layout(l, library, cache, {.edited = &edited});
+        require_same_paths(cache.paths, rv::trace_layout(l, library));
+    }
+    CHECK(cache.reference_skips > skips);  // the last retrace did skip the test
+    CHECK(cache.paths[0].hits.front().element == 0);  // and the beam meets the lens
 }
