@@ -1,10 +1,11 @@
-// A fixed number of solver evaluations of the SFG demo with DemoEvaluateCached's edit
+// A fixed number of evaluations of the SFG demo with the benchmarks' solver edit
 // (demo_solver_edit.hpp), for counting instructions, which vary less than times on a shared
 // machine:
-//   valgrind --tool=callgrind build/release/tests/benchmarks/evaluation_loop 2200
-//   valgrind --tool=callgrind build/release/tests/benchmarks/evaluation_loop 200
-// The difference of the two totals over 2000 is the count per evaluation. A second argument
-// `edited` evaluates as DemoEvaluateEdited does (the edited optics named to the retrace).
+//   valgrind --tool=callgrind build/release/tests/benchmarks/evaluation_loop 2200 edited
+//   valgrind --tool=callgrind build/release/tests/benchmarks/evaluation_loop 200 edited
+// The difference of the two totals over 2000 is the count per evaluation. With `edited` it
+// evaluates as the solvers do (DemoEvaluateEdited: the edited optics named to the retrace),
+// without it as DemoEvaluateCached (every element compared).
 #include <cstdio>
 #include <cstdlib>
 #include <cstring>

@@ -1,6 +1,6 @@
 // One evaluation of the SFG demo: trace both colours, propagate both planes, the numbers at
 // the target (design budget: ≤ 2 µs median without the drawing envelope, as the solvers run
-// it: DemoEvaluateCached).
+// it: DemoEvaluateEdited).
 //
 // Reproduce the README figure:
 //   build/release/tests/benchmarks/rendezvous_benchmarks --benchmark_filter=Demo
