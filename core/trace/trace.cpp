@@ -563,8 +563,8 @@ bool BeamTracer::aims_as_before() {
 // or no beam comes after this one); a beam's path thus never depends on where another stopped.
 bool BeamTracer::may_stop_at_target() const {
     if (last_beam_) return true;
-    for (const Placed& pl : placed_)
-        if (pl.aim_pending) return false;
+    for (size_t i : cache_.aim_mirrors)
+        if (placed_[i].aim_pending) return false;
     return true;
 }
 
