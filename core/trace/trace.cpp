@@ -589,7 +589,6 @@ bool BeamTracer::touched_by_change(const TraceCache::StepTaken& step) const {
 // Where this trace starts: at the beam's source, or (retrace) after the previous path's leading
 // steps that no change can have altered, with the tracer's state as it was there.
 BeamTracer::Resumed BeamTracer::resume() {
-    Resumed r{0, beam_.start_mm, direction_deg(beam_.direction_deg), 0, Medium{1.0, air_group_index_}};
     size_t keep = 0;
     if (go_on_) {
         keep = memo_.starts.empty() ? 0 : memo_.starts.size() - 1;
@@ -620,7 +619,7 @@ BeamTracer::Resumed BeamTracer::resume() {
         steps_.clear();
         memo_.starts.clear();
         memo_.noted.clear();
-        return r;
+        return Resumed{0, beam_.start_mm, direction_deg(beam_.direction_deg), 0, Medium{1.0, air_group_index_}};
     }
     const TraceCache::StepStart& st = memo_.starts[keep];
     for (size_t j = 0; j < keep; ++j)
@@ -639,7 +638,7 @@ BeamTracer::Resumed BeamTracer::resume() {
     inside_ = st.inside;
     last_surface_ = st.last_surface;
     expect_ = st.expect;
-    r = Resumed{keep, st.p_mm, st.d, st.s_mm, st.medium};
+    const Resumed r{keep, st.p_mm, st.d, st.s_mm, st.medium};
     memo_.starts.resize(keep);
     return r;
 }
