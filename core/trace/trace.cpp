@@ -330,7 +330,11 @@ private:
     double table_exit(const Vec2& p, const Vec2& d) const;
     Medium slab_medium(size_t element, const Vec2& direction_inside);
     bool index_follows_direction(size_t element) const;
-    void note_material(size_t element, const Material& m);
+    // A finding (once per element) when the beam's wavelength lies outside the material's range.
+    void note_material(size_t element, const Material& m) {
+        if (!covers(m, beam_.wavelength_nm)) note_out_of_range(element, m);
+    }
+    void note_out_of_range(size_t element, const Material& m);
     void finding(Finding::Kind kind, size_t element, const Vec2& where, double amount,
                  std::string message) {
         path_.findings.push_back({kind, element < layout_.elements.size()
@@ -477,8 +481,7 @@ double BeamTracer::table_exit(const Vec2& p, const Vec2& d) const {
     return s;
 }
 
-void BeamTracer::note_material(size_t element, const Material& m) {
-    if (covers(m, beam_.wavelength_nm)) return;
+void BeamTracer::note_out_of_range(size_t element, const Material& m) {
     for (size_t e : memo_.noted)
         if (e == element) return;
     memo_.noted.push_back(element);
@@ -656,8 +659,8 @@ void BeamTracer::run() {
 
     for (size_t count = from.step;; ++count) {
         if (retrace_)
-            memo_.starts.push_back({p, d, s_total, medium, inside_, last_surface_, expect_, path_.findings.size(),
-                                    memo_.noted.size(), std::nullopt});
+            memo_.starts.emplace_back(p, d, s_total, medium, inside_, last_surface_, expect_, path_.findings.size(),
+                                      memo_.noted.size(), std::nullopt);
         if (stop_at_target_ && path_.target_hit && *path_.target_hit + 1 == path_.hits.size() && may_stop_at_target()) {
             path_.ends_at_target = true;  // the start just noted is where go_on continues
             break;
@@ -689,7 +692,7 @@ void BeamTracer::run() {
                     "leaves " + id(*inside_) + " through its edge");
             break;
         }
-        check_aim(p, d, c->element);
+        if (expect_) check_aim(p, d, c->element);
         const Vec2 h = p + c->dist * d;
         path_.segments.push_back({p, h, c->dist, inside_, medium.index, medium.group_index});
         s_total += c->dist;
