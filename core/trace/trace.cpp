@@ -544,8 +544,8 @@ void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> n
 bool BeamTracer::aims_as_before() {
     bool same = true;
     size_t k = 0;
-    for (const Placed& pl : placed_) {
-        if (!pl.aim_target) continue;
+    for (size_t i : cache_.aim_mirrors) {
+        const Placed& pl = placed_[i];
         const std::pair<bool, Vec2> now(pl.aim_pending, pl.normal);
         if (k < memo_.aims.size()) {
             same = same && memo_.aims[k] == now;
