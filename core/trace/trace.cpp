@@ -6,6 +6,7 @@
 #include <limits>
 #include <numeric>
 #include <sstream>
+#include <utility>
 
 #include "materials/dispersion.hpp"
 #include "nonlinear/phase_matching.hpp"
@@ -342,7 +343,10 @@ private:
                                   where, amount, std::move(message)});
     }
     const std::string& id(size_t e) const { return layout_.elements[e].id; }
-    void check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element);
+    // An aim_at mirror sent the ray towards `want`; the ray from p along d, about to meet
+    // `next` (none: it leaves the table) at distance next_dist, decides whether it got there.
+    void check_aim(size_t want, const Vec2& p, const Vec2& d, std::optional<size_t> next, double next_dist,
+                   bool passes_on);
 
     const Layout& layout_;
     std::vector<Placed>& placed_;
@@ -521,14 +525,19 @@ bool BeamTracer::index_follows_direction(size_t element) const {
            a_wave_fraction(beam_.polarization, c->optic_axis_horizontal) < 0.5;
 }
 
-void BeamTracer::check_aim(const Vec2& p, const Vec2& d, std::optional<size_t> next_element) {
-    if (!expect_) return;
-    const size_t want = *expect_;
-    expect_.reset();
-    if (next_element && *next_element == want) return;
+void BeamTracer::check_aim(size_t want, const Vec2& p, const Vec2& d, std::optional<size_t> next,
+                           double next_dist, bool passes_on) {
+    if (next && *next == want) return;
     const Surface& s0 = placed_[want].surfaces[0];
     double dist = 0, height = 0;
-    if (placed_[want].surface_count > 0 && cross_line(p, d, s0, dist, height) && dist > 0) {
+    const bool crosses = placed_[want].surface_count > 0 && cross_line(p, d, s0, dist, height) && dist > 0;
+    // An optic the light passes through (a lens, a plate, a transmitting dichroic) before the
+    // aimed-at element's plane: the aim is judged on the ray that leaves it.
+    if (next && passes_on && !(crosses && dist < next_dist)) {
+        expect_ = want;
+        return;
+    }
+    if (crosses) {
         const double beyond = std::abs(height) - placed_[want].half_aperture;
         finding(Finding::Kind::MissedOptic, want, p + dist * d, beyond,
                 "misses " + id(want) + " by " + mm_text(beyond) + " mm (crosses its plane " +
@@ -681,7 +690,8 @@ void BeamTracer::run() {
                         "leaves " + id(*inside_) + " through its edge");
                 break;
             }
-            check_aim(p, d, std::nullopt);
+            if (const std::optional<size_t> want = std::exchange(expect_, std::nullopt))
+                check_aim(*want, p, d, std::nullopt, 0, false);
             const Vec2 q = p + exit * d;
             path_.segments.push_back({p, q, exit, std::nullopt, 1.0, air_group_index_});
             finding(Finding::Kind::LeftTable, SIZE_MAX, q, 0, "leaves the table at " + point_text(q));
@@ -692,7 +702,9 @@ void BeamTracer::run() {
                     "leaves " + id(*inside_) + " through its edge");
             break;
         }
-        if (expect_) check_aim(p, d, c->element);
+        // The element the last aim_at mirror sent the ray to, judged once this hit is known.
+        const std::optional<size_t> aimed = std::exchange(expect_, std::nullopt);
+        const Vec2 d_in = d;
         const Vec2 h = p + c->dist * d;
         path_.segments.push_back({p, h, c->dist, inside_, medium.index, medium.group_index});
         s_total += c->dist;
@@ -791,6 +803,7 @@ void BeamTracer::run() {
                 stop = true;
             } else {
                 hit.interaction = Interaction::Retroreflect;
+                if (aimed) check_aim(*aimed, p, d_in, e, c->dist, false);
                 d = -d;
                 p = pl.at - c->height * perpendicular(n);  // mirrored across the axis
                 hit.direction_out = d;
@@ -859,6 +872,12 @@ void BeamTracer::run() {
         }
         hit.direction_out = d;
         hit.index_after = medium.index;
+        if (aimed) {
+            const Interaction i = hit.interaction;
+            const bool passes_on = !stop && (i == Interaction::ThinLens || i == Interaction::Refract ||
+                                             i == Interaction::TargetPlane);
+            check_aim(*aimed, p, d_in, e, c->dist, passes_on);
+        }
         if (target_ && e == *target_ && hit.interaction == Interaction::TargetPlane &&
             !path_.target_hit)
             path_.target_hit = path_.hits.size() - 1;
