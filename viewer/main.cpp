@@ -28,11 +28,12 @@ int main(int argc, char** argv) {
     report_cmd->add_flag("--markdown", report.markdown, "print Markdown for a lab notebook");
     report_cmd->add_flag("--check", report.check, "exit with status 3 when the verdict is not met");
 
-    std::string check_layout;
+    rv::cli::CheckOptions check;
     CLI::App* check_cmd = app.add_subcommand(
         "check", "Read and trace a layout; list every error and finding (exit 2 on errors).\n"
                  "Example: rendezvous check layouts/pump-probe.json");
-    check_cmd->add_option("layout", check_layout, "layout file (JSON)")->required();
+    check_cmd->add_option("layout", check.layout, "layout file (JSON)")->required();
+    check_cmd->add_flag("--json", check.json, "one JSON object: the findings as report --json lists them");
 
     rv::cli::FormatOptions format;
     CLI::App* format_cmd = app.add_subcommand(
@@ -166,7 +167,7 @@ int main(int argc, char** argv) {
         return 2;
     }
     if (*report_cmd) return rv::cli::run_report(report, std::cout, std::cerr);
-    if (*check_cmd) return rv::cli::run_check(check_layout, std::cout, std::cerr);
+    if (*check_cmd) return rv::cli::run_check(check, std::cout, std::cerr);
     if (*format_cmd) return rv::cli::run_format(format, std::cout, std::cerr);
     if (*trace_cmd) return rv::cli::run_trace(trace, std::cout, std::cerr);
     if (*render_cmd) return rv::cli::run_render(render, std::cout, std::cerr);

@@ -15,6 +15,7 @@ bool entering_slab(const TraceHit& h) { return h.interaction == Interaction::Ref
 struct Followed {
     std::string where;
     bool leaves_table = false;
+    Vec2 exit_mm{0, 0};  // where it leaves the table
     std::vector<Vec2> points_mm;
 };
 
@@ -36,15 +37,15 @@ Followed follow(const Layout& layout, const MaterialLibrary& library, size_t bea
             s.precision(0);
             s << "leaves the table at (" << f.where_mm.x() << ", " << f.where_mm.y() << ") mm";
             if (!p.hits.empty()) s << " after " << l.elements[p.hits.back().element].id;
-            return {s.str(), true, points};
+            return {s.str(), true, f.where_mm, points};
         }
     if (!p.hits.empty()) {
         const Element& last = l.elements[p.hits.back().element];
         return {std::string(std::holds_alternative<Dump>(last.kind) ? "into " : "stops at ") + last.id +
                     (std::holds_alternative<Dump>(last.kind) ? " (dump)" : ""),
-                false, points};
+                false, {0, 0}, points};
     }
-    return {"goes nowhere traced", false, points};
+    return {"goes nowhere traced", false, {0, 0}, points};
 }
 
 struct Options {
@@ -108,6 +109,7 @@ BeamPower run(const Layout& layout, const MaterialLibrary& library, const Path& 
                         Followed f = follow(layout, library, path.beam, centre + 1e-3 * side, side);
                         loss.goes_to = f.where;
                         loss.leaves_table = f.leaves_table;
+                        loss.exit_mm = f.exit_mm;
                         loss.branch_mm = std::move(f.points_mm);
                     }
                     if (loss.fraction > 1e-12) out.losses.push_back(loss);

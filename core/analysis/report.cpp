@@ -24,21 +24,6 @@ std::string fmt(const char* format, double a) {
 }
 
 
-const char* finding_code(Finding::Kind k) {
-    switch (k) {
-        case Finding::Kind::MissedOptic: return "missed-optic";
-        case Finding::Kind::LeftTable: return "left-table";
-        case Finding::Kind::TotalInternalReflection: return "total-internal-reflection";
-        case Finding::Kind::HitBackOfOptic: return "back-of-optic";
-        case Finding::Kind::LeftThroughEdge: return "left-through-edge";
-        case Finding::Kind::NoTarget: return "no-target";
-        case Finding::Kind::TooManyHits: return "too-many-hits";
-        case Finding::Kind::MaterialOutOfRange: return "material-range";
-        case Finding::Kind::Clipping: return "clipping";
-    }
-    return "finding";
-}
-
 // The trace picks a crystal's index (o or e) from the beam's source polarization. When the wave
 // plates and cubes before the target crystal turn a beam to the other wave, trace again with a
 // source polarization of that wave, so that the index, the refraction and the timing in the
@@ -86,13 +71,15 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
         b.confocal_sagittal_mm = 2 * b.at_target.sagittal.rayleigh_mm;
         if (p.target_hit) b.crossing_angle_deg = rad_to_deg(p.hits[*p.target_hit].aoi_rad());
         // Where the light goes after the target.
-        b.unconverted_end = "stops after the target";
         if (!p.hits.empty() && p.hits.back().interaction == Interaction::Absorb)
-            b.unconverted_end = "absorbed in dump " + layout.elements[p.hits.back().element].id;
-        for (const Finding& f : p.findings)
-            if (f.kind != Finding::Kind::MaterialOutOfRange && f.kind != Finding::Kind::NoTarget &&
-                f.kind != Finding::Kind::MissedOptic)
-                b.unconverted_end = f.message;
+            b.absorbed_in = layout.elements[p.hits.back().element].id;
+        // What ended the trace past the target: its last finding there, if any (the trace stops
+        // at the first finding that ends a ray).
+        if (p.target_hit)
+            for (const Finding& f : p.findings)
+                if (f.kind != Finding::Kind::MaterialOutOfRange && f.kind != Finding::Kind::NoTarget &&
+                    f.kind != Finding::Kind::MissedOptic)
+                    b.end_after_target = f;
         if (envelope) {  // the full report: power, polarization and pulse figures as well
             const BeamSource& src = layout.beams[p.beam];
             b.power = trace_power(layout, library, p, b.caustic);
@@ -241,11 +228,15 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const double l1 = b1.wavelength_nm, l2 = b2.wavelength_nm;
     PhaseMatchingReport r;
     r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
+    r.sum_frequency = !shg;
+    r.first_beam = i;
+    r.second_beam = j;
     r.output_nm = sum_frequency_nm(l1, l2);
     const double a1 = a_fraction_at_target(beams[i], b1, xc);
     const double a2 = a_fraction_at_target(beams[j], b2, xc);
     const PrincipalPlane plane = xc.principal_plane;
     const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
+    r.mixing = type;
     r.type = type_text(type);
     const WavePolarities w = polarities(type);
     r.first_needs_a = w.wave1 == Polarity::A;
@@ -362,7 +353,8 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
     PolarizationAdvice a;
     a.beam = b.id;
     const bool needs_h = needs_a != xc.optic_axis_horizontal;  // A = o is H when the axis plane is vertical
-    a.needs = std::string(needs_a ? "o" : "e") + (needs_h ? " (horizontal)" : " (vertical)");
+    a.needs_a = needs_a;
+    a.needs_horizontal = needs_h;
     const PolarizationState& s = b.at_target_polarization;
     auto useful = [&](const Stokes& st) { return needs_h ? (st[0] + st[1]) / 2 : (st[0] - st[1]) / 2; };
     a.useful_fraction = s.power > 0 ? useful(b.power.at_target) / s.power : 0;
@@ -407,22 +399,44 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
         }
     }
     if (plate == kNone) {
-        a.action = "add a half-wave plate" +
-                   (last_polarizer ? " after " + layout.elements[*last_polarizer].id : std::string()) +
-                   ": only " + fmt("%.0f", 100 * a.useful_fraction) + " % of " + b.id + " is " + a.needs;
+        a.advice = PolarizationAdvice::Advice::AddHalfWavePlate;
+        if (last_polarizer) a.after_polarizer = layout.elements[*last_polarizer].id;
         return a;
     }
     const Plate& p = std::get<Plate>(layout.elements[plate].kind);
+    a.advice = PolarizationAdvice::Advice::TurnPlate;
     a.plate = layout.elements[plate].id;
     a.plate_now_deg = p.fast_axis_deg;
     a.plate_best_deg = best_angle(plate).first;
-    const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, plate, a.plate_best_deg);
+    const Stokes at_best = target_stokes_with_plate(layout, library, b.path, b.caustic, plate, *a.plate_best_deg);
     a.useful_fraction_best = at_best[0] > 0 ? useful(at_best) / at_best[0] : 0;
     if (src_mw > 0) a.useful_mw_best = src_mw * useful(at_best);
-    a.action = "turn " + a.plate + "'s fast axis from " + fmt("%.1f", a.plate_now_deg) + "° to " +
-               fmt("%.1f", a.plate_best_deg) + "°: " + fmt("%.0f", 100 * a.useful_fraction) + " % → " +
-               fmt("%.0f", 100 * a.useful_fraction_best) + " % of " + b.id + " in " + a.needs;
     return a;
+}
+
+std::string needed_polarization_text(const PolarizationAdvice& a) {
+    return std::string(a.needs_a ? "o" : "e") + (a.needs_horizontal ? " (horizontal)" : " (vertical)");
+}
+
+std::string polarization_advice_text(const PolarizationAdvice& a) {
+    const std::string needs = needed_polarization_text(a);
+    switch (a.advice) {
+        case PolarizationAdvice::Advice::None: return "";
+        case PolarizationAdvice::Advice::AddHalfWavePlate:
+            return "add a half-wave plate" + (a.after_polarizer ? " after " + *a.after_polarizer : std::string()) +
+                   ": only " + fmt("%.0f", 100 * a.useful_fraction) + " % of " + a.beam + " is " + needs;
+        case PolarizationAdvice::Advice::TurnPlate:
+            return "turn " + a.plate.value_or("") + "'s fast axis from " + fmt("%.1f", a.plate_now_deg.value_or(0)) +
+                   "° to " + fmt("%.1f", a.plate_best_deg.value_or(0)) + "°: " + fmt("%.0f", 100 * a.useful_fraction) +
+                   " % → " + fmt("%.0f", 100 * a.useful_fraction_best.value_or(0)) + " % of " + a.beam + " in " + needs;
+    }
+    return "";
+}
+
+std::string after_target_text(const ReportBeam& b) {
+    if (!b.absorbed_in.empty()) return "absorbed in dump " + b.absorbed_in;
+    if (b.end_after_target) return finding_text(*b.end_after_target);
+    return "stops after the target";
 }
 
 RendezvousReport build_report(const Layout& layout, const MaterialLibrary& library) {
@@ -437,20 +451,37 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     const bool both = r.beams.size() >= 2 && r.beams[0].at_target.reached && r.beams[1].at_target.reached;
 
     for (const ReportBeam& b : r.beams) {
-        for (const Finding& f : b.path.findings) r.warnings.push_back({finding_code(f.kind), b.id + ": " + f.message, f.element});
-        for (const Finding& f : b.caustic.findings) r.warnings.push_back({finding_code(f.kind), b.id + ": " + f.message, f.element});
+        auto add = [&](Finding f) {
+            f.beam = b.id;
+            r.findings.push_back(std::move(f));
+        };
+        // Light that leaves the table after the target is said once, as `unterminated` below.
+        const bool leaves_after_target = b.end_after_target && b.end_after_target->kind == Finding::Kind::LeftTable;
+        for (const Finding& f : b.path.findings)
+            if (!(leaves_after_target && f.kind == Finding::Kind::LeftTable)) add(f);
+        for (const Finding& f : b.caustic.findings) add(f);
         const double w0 = std::min(b.at_target.tangential.waist_um, b.at_target.sagittal.waist_um);
-        if (b.at_target.reached && w0 < 2 * nm_to_um(b.wavelength_nm))
-            r.warnings.push_back({"paraxial", b.id + ": the waist (" + fmt("%.2f", w0) + " µm) is below two wavelengths; the paraxial Gaussian model is unreliable there", layout.target});
-        if (b.unconverted_end.rfind("leaves the table", 0) == 0)
-            r.warnings.push_back({"unterminated", b.id + ": light after the target " + b.unconverted_end + "; put a beam dump in its path", ""});
+        const double two_wavelengths_um = 2 * nm_to_um(b.wavelength_nm);
+        if (b.at_target.reached && w0 < two_wavelengths_um) {
+            Finding f{Finding::Kind::Paraxial, layout.target};
+            f.amount = w0;
+            f.limit = two_wavelengths_um;
+            add(f);
+        }
+        if (leaves_after_target) {
+            Finding f{Finding::Kind::Unterminated};
+            f.where_mm = b.end_after_target->where_mm;
+            add(f);
+        }
         if (const std::string kind = invisible_kind(b.wavelength_nm); !kind.empty())
             r.invisible.push_back(fmt("%.0f nm", b.wavelength_nm) + " (" + b.id + "): " + kind);
         for (const PowerLoss& loss : b.power.losses)
-            if (loss.leaves_table && loss.fraction > 1e-3)
-                r.warnings.push_back({"stray-beam", b.id + ": " + fmt("%.1f", 100 * loss.fraction) + " % reflected by " +
-                                                        loss.element + " " + loss.goes_to + "; put a beam dump in its path",
-                                      loss.element});
+            if (loss.leaves_table && loss.fraction > 1e-3) {
+                Finding f{Finding::Kind::StrayBeam, loss.element};
+                f.amount = loss.fraction;
+                f.where_mm = loss.exit_mm;
+                add(f);
+            }
         // Damage: the peak intensity and fluence at the target plane, and at the waist when the
         // waist lies inside the crystal, against the maker's threshold given in the file.
         const DamageThreshold* damage = nullptr;
@@ -462,16 +493,19 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
             PulseFigures worst = *b.pulse_at_target;
             const double offset = std::abs(b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2;
             if (b.pulse_at_waist && crystal && offset <= crystal->length_mm / 2) worst = *b.pulse_at_waist;
-            if (damage->intensity_gw_cm2 > 0 && worst.peak_intensity_w_cm2 > damage->intensity_gw_cm2 * 1e9)
-                r.warnings.push_back({"damage", b.id + ": peak intensity " + fmt("%.3g", worst.peak_intensity_w_cm2 * 1e-9) +
-                                                    " GW/cm² in " + layout.target + " exceeds its damage threshold " +
-                                                    fmt("%.3g", damage->intensity_gw_cm2) + " GW/cm²",
-                                      layout.target});
-            if (damage->fluence_j_cm2 > 0 && worst.peak_fluence_j_cm2 > damage->fluence_j_cm2)
-                r.warnings.push_back({"damage", b.id + ": peak fluence " + fmt("%.3g", worst.peak_fluence_j_cm2) + " J/cm² in " +
-                                                    layout.target + " exceeds its damage threshold " +
-                                                    fmt("%.3g", damage->fluence_j_cm2) + " J/cm²",
-                                      layout.target});
+            const double threshold_w_cm2 = damage->intensity_gw_cm2 * 1e9;
+            if (damage->intensity_gw_cm2 > 0 && worst.peak_intensity_w_cm2 > threshold_w_cm2) {
+                Finding f{Finding::Kind::DamageIntensity, layout.target};
+                f.amount = worst.peak_intensity_w_cm2;
+                f.limit = threshold_w_cm2;
+                add(f);
+            }
+            if (damage->fluence_j_cm2 > 0 && worst.peak_fluence_j_cm2 > damage->fluence_j_cm2) {
+                Finding f{Finding::Kind::DamageFluence, layout.target};
+                f.amount = worst.peak_fluence_j_cm2;
+                f.limit = damage->fluence_j_cm2;
+                add(f);
+            }
         }
     }
     // Thin glass lenses carry no thickness, so their glass is missing from the timing
@@ -479,7 +513,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     if (both && layout.beams[0].pulse_fwhm_fs > 0 && layout.beams[1].pulse_fwhm_fs > 0)
         for (const Element& e : layout.elements)
             if (const auto* lens = std::get_if<Lens>(&e.kind); lens && std::holds_alternative<ThinChromaticLens>(lens->model))
-                r.warnings.push_back({"thin-lens-timing", e.id + ": a thin lens adds no glass to the delay; give its radii and centre thickness to count it", e.id});
+                r.findings.push_back({Finding::Kind::ThinLensTiming, e.id});
     if (both) {
         r.mismatch = mismatch_at_target(r.beams[0].at_target, r.beams[1].at_target);
         const double b1 = r.beams[0].confocal_tangential_mm + r.beams[0].confocal_sagittal_mm;
@@ -504,7 +538,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
             if (!r.phase_matching.empty() && r.phase_matching.front().outside_index_data.empty()) {
                 const PhaseMatchingReport& first = r.phase_matching.front();
                 const bool sfg = r.beams.size() >= 2 && both;
-                const bool type_ii_shg = !sfg && first.type.rfind("type-II", 0) == 0;
+                const bool type_ii_shg = !sfg && first.mixing != MixingType::TypeI && first.mixing != MixingType::TypeI_BBA;
                 if (!type_ii_shg)
                     for (size_t i = 0; i < (sfg ? 2u : r.beams.size()); ++i)
                         if (r.beams[i].at_target.reached && r.beams[i].power.reached)

@@ -12,6 +12,7 @@
 #include "analysis/target_summary.hpp"
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
+#include "nonlinear/phase_matching.hpp"
 #include "trace/path.hpp"
 #include "trace/propagate.hpp"
 
@@ -25,7 +26,10 @@ struct ReportBeam {
     BeamAtTarget at_target;
     double confocal_tangential_mm = 0, confocal_sagittal_mm = 0;  // 2 z_R in the medium
     double crossing_angle_deg = 0;  // chief ray to the target's normal at the target plane
-    std::string unconverted_end;    // where the light goes after the target, in words
+    // Where the light goes after the target: absorbed in a dump (its id), ended by a finding
+    // (it leaves the table, meets the back of a mirror …), or neither (the trace stops there).
+    std::string absorbed_in;
+    std::optional<Finding> end_after_target;
     // Power and polarization along the path (analysis/power_budget.hpp), fractions of the
     // source power; absolute figures where the file gives power_mw (and the pulse figures
     // where it also gives repetition_rate_khz and pulse_fwhm_fs).
@@ -40,14 +44,20 @@ struct ReportBeam {
 // which way to turn a wave plate when it has not.
 struct PolarizationAdvice {
     std::string beam;
-    std::string needs;          // "o (horizontal)" …
-    double useful_fraction = 0; // of the power at the target, in the needed polarization
+    bool needs_a = true;           // the crystal's A (ordinary) wave, else its B (extraordinary) wave
+    bool needs_horizontal = true;  // which is horizontal (else vertical) as the crystal is set
+    double useful_fraction = 0;    // of the power at the target, in the needed polarization
     std::optional<double> useful_mw;
-    std::string plate;          // the wave plate to turn ("" when there is none to turn)
-    double plate_now_deg = 0, plate_best_deg = 0;
-    double useful_fraction_best = 0;  // with the plate at plate_best_deg (of the power at the target then)
+    enum class Advice {
+        None,              // the polarization suits (or nothing on the path can change it)
+        TurnPlate,         // turn `plate` from plate_now_deg to plate_best_deg
+        AddHalfWavePlate,  // no wave plate to turn: add one (after `after_polarizer`, if any)
+    } advice = Advice::None;
+    std::optional<std::string> plate;  // TurnPlate: the wave plate to turn
+    std::optional<double> plate_now_deg, plate_best_deg;
+    std::optional<double> useful_fraction_best;  // with the plate at plate_best_deg (of the power at the target then)
     std::optional<double> useful_mw_best;
-    std::string action;         // what to do, in words ("" when nothing)
+    std::optional<std::string> after_polarizer;  // AddHalfWavePlate: the last polarizer or cube before the target
     // Every wave plate on the beam's path before the target: its angle now, and the angle that
     // gives the most power in the needed polarization at the target (fractions of the source).
     struct PlateSetting {
@@ -57,6 +67,9 @@ struct PolarizationAdvice {
     };
     std::vector<PlateSetting> plates;
 };
+// "o (horizontal)" …, and the advice in words ("" when none).
+std::string needed_polarization_text(const PolarizationAdvice& a);
+std::string polarization_advice_text(const PolarizationAdvice& a);
 
 struct OverlapReport {
     double spatial = 0;             // transverse intensity overlap at the target centre
@@ -85,6 +98,9 @@ struct GroupVelocityMismatch {
 
 struct PhaseMatchingReport {
     std::string process;      // "SFG of pump + signal", "SHG of pump"
+    bool sum_frequency = false;   // SFG of the two beams, else the SHG of first_beam
+    size_t first_beam = 0, second_beam = 0;  // indices into the report's beams (equal for SHG)
+    MixingType mixing = MixingType::TypeI;
     std::string type;         // "type-I (ooe)" …
     double output_nm = 0;
     bool phase_matchable = false;
@@ -141,12 +157,6 @@ struct Verdict {
     std::vector<VerdictFigure> figures;
 };
 
-struct ReportWarning {
-    std::string code;     // "clipping", "missed-optic", "left-table", "paraxial", …
-    std::string message;
-    std::string element;  // element id or ""
-};
-
 struct RendezvousReport {
     std::string layout_name, target;
     bool target_is_crystal = false;
@@ -160,10 +170,15 @@ struct RendezvousReport {
     std::vector<FocusingReport> focusing;
     std::vector<PolarizationAdvice> polarization;
     Verdict verdict;
-    std::vector<ReportWarning> warnings;
+    // Every finding of the trace, the propagation and the report, each with its beam (JSON
+    // `warnings`, the command `check` and the viewer's list all show exactly these).
+    std::vector<Finding> findings;
     std::vector<std::string> invisible;  // "1030 nm (pump): near infrared" …
 };
 
 RendezvousReport build_report(const Layout& layout, const MaterialLibrary& library);
+
+// Where a beam's light goes after the target, in words ("absorbed in dump D1", …).
+std::string after_target_text(const ReportBeam& beam);
 
 }  // namespace rv

@@ -8,6 +8,7 @@
 #include <string>
 #include <vector>
 
+#include "findings/finding.hpp"
 #include "layout/layout.hpp"
 #include "materials/material.hpp"
 
@@ -59,25 +60,6 @@ struct TraceSegment {
     std::optional<size_t> inside;  // the slab element the segment runs in; none = air
     double index = 1.0;            // phase index for the Gaussian beam (air: 1, see design.md)
     double group_index = 1.0;      // absolute group index for timing (air: Ciddor 1996)
-};
-
-struct Finding {
-    enum class Kind {
-        MissedOptic,            // an aimed-at optic not reached; amount = mm beyond its aperture
-        LeftTable,              // the ray left the table; where = the edge crossing
-        TotalInternalReflection,
-        HitBackOfOptic,         // a mirror or retroreflector met from behind
-        LeftThroughEdge,        // left a slab through its side
-        NoTarget,               // the layout's target was never crossed
-        TooManyHits,
-        MaterialOutOfRange,     // a wavelength outside a material's fitted range
-        Clipping,               // set by propagation: power lost at an aperture above threshold
-    };
-    Kind kind;
-    std::string element;  // element id, "" when none
-    Vec2 where_mm{0, 0};
-    double amount = 0;    // mm for misses, a fraction for clipping
-    std::string message;  // one plain sentence
 };
 
 struct Path {

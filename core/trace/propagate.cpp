@@ -2,7 +2,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <sstream>
 #include <tuple>
 
 #include "optics/thick_lens.hpp"
@@ -190,12 +189,20 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         BeamAtHit at{hit.s_mm, radius_um(t), radius_um(s), 0};
         at.clipped_fraction = clipped_fraction(hit, at.radius_tangential_um, at.radius_sagittal_um);
         if (at.clipped_fraction > options.clipping_warning_fraction) {
-            std::ostringstream m;
-            m.precision(3);
-            m << "clipped at " << layout.elements[hit.element].id << ": " << at.clipped_fraction * 100
-              << " % of the power falls outside its aperture";
-            out.findings.push_back({Finding::Kind::Clipping, layout.elements[hit.element].id,
-                                    hit.point_mm, at.clipped_fraction, m.str()});
+            // One finding per optic (a slab's two faces clip alike): the larger loss.
+            const std::string& id = layout.elements[hit.element].id;
+            Finding* f = nullptr;
+            for (Finding& g : out.findings)
+                if (g.kind == Finding::Kind::Clipping && g.element == id) f = &g;
+            if (!f) {
+                f = &out.findings.emplace_back();
+                f->kind = Finding::Kind::Clipping;
+                f->element = id;
+            }
+            if (at.clipped_fraction > f->amount) {
+                f->where_mm = hit.point_mm;
+                f->amount = at.clipped_fraction;
+            }
         }
         out.at_hits.push_back(at);
         arriving.emplace_back(t, s);

@@ -5,7 +5,6 @@
 #include <cmath>
 #include <limits>
 #include <numeric>
-#include <sstream>
 #include <utility>
 
 #include "materials/dispersion.hpp"
@@ -21,15 +20,6 @@ namespace {
 constexpr double kEps_mm = 1e-9;
 constexpr double kInf = std::numeric_limits<double>::infinity();
 
-
-std::string mm_text(double v) {
-    std::ostringstream s;
-    s.setf(std::ios::fixed);
-    s.precision(2);
-    s << v;
-    return s.str();
-}
-std::string point_text(const Vec2& p) { return "(" + mm_text(p.x()) + ", " + mm_text(p.y()) + ") mm"; }
 
 using Surface = TraceCache::Surface;
 using Placed = TraceCache::Placed;
@@ -336,11 +326,14 @@ private:
         if (!covers(m, beam_.wavelength_nm)) note_out_of_range(element, m);
     }
     void note_out_of_range(size_t element, const Material& m);
-    void finding(Finding::Kind kind, size_t element, const Vec2& where, double amount,
-                 std::string message) {
-        path_.findings.push_back({kind, element < layout_.elements.size()
-                                            ? layout_.elements[element].id : std::string(),
-                                  where, amount, std::move(message)});
+    // A finding about `element` (SIZE_MAX: none); the caller fills in the kind's numbers.
+    Finding& finding(Finding::Kind kind, size_t element, const Vec2& where, double amount = 0) {
+        Finding& f = path_.findings.emplace_back();
+        f.kind = kind;
+        if (element < layout_.elements.size()) f.element = layout_.elements[element].id;
+        f.where_mm = where;
+        f.amount = amount;
+        return f;
     }
     const std::string& id(size_t e) const { return layout_.elements[e].id; }
     // An aim_at mirror sent the ray towards `want`; the ray from p along d, about to meet
@@ -489,10 +482,11 @@ void BeamTracer::note_out_of_range(size_t element, const Material& m) {
     for (size_t e : memo_.noted)
         if (e == element) return;
     memo_.noted.push_back(element);
-    std::ostringstream s;
-    s << beam_.wavelength_nm << " nm lies outside the range of " << m.name << " ("
-      << m.min_wavelength_nm << "–" << m.max_wavelength_nm << " nm); its index is extrapolated";
-    finding(Finding::Kind::MaterialOutOfRange, element, placed_[element].at, 0, s.str());
+    Finding& f = finding(Finding::Kind::MaterialOutOfRange, element, placed_[element].at);
+    f.material = m.name;
+    f.wavelength_nm = beam_.wavelength_nm;
+    f.range_min_nm = m.min_wavelength_nm;
+    f.range_max_nm = m.max_wavelength_nm;
 }
 
 // Phase and group index of the beam inside a slab, for a ray running along direction_inside.
@@ -539,12 +533,9 @@ void BeamTracer::check_aim(size_t want, const Vec2& p, const Vec2& d, std::optio
     }
     if (crosses) {
         const double beyond = std::abs(height) - placed_[want].half_aperture;
-        finding(Finding::Kind::MissedOptic, want, p + dist * d, beyond,
-                "misses " + id(want) + " by " + mm_text(beyond) + " mm (crosses its plane " +
-                    mm_text(std::abs(height)) + " mm from its centre)");
+        finding(Finding::Kind::MissedOptic, want, p + dist * d, beyond).crossing_mm = std::abs(height);
     } else {
-        finding(Finding::Kind::MissedOptic, want, placed_[want].at, 0,
-                "never reaches " + id(want) + ", which the previous mirror aims at");
+        finding(Finding::Kind::MissedOptic, want, placed_[want].at);
     }
 }
 
@@ -675,8 +666,7 @@ void BeamTracer::run() {
             break;
         }
         if (count >= kMaxHitsPerBeam) {
-            finding(Finding::Kind::TooManyHits, SIZE_MAX, p, 0,
-                    "stopped after " + std::to_string(kMaxHitsPerBeam) + " hits");
+            finding(Finding::Kind::TooManyHits, SIZE_MAX, p, static_cast<double>(kMaxHitsPerBeam));
             break;
         }
         const double exit = inside_ ? kInf : table_exit(p, d);
@@ -686,20 +676,18 @@ void BeamTracer::run() {
                               c ? std::optional<uint32_t>(static_cast<uint32_t>(c->element)) : std::nullopt});
         if (!c) {
             if (inside_) {
-                finding(Finding::Kind::LeftThroughEdge, *inside_, p, 0,
-                        "leaves " + id(*inside_) + " through its edge");
+                finding(Finding::Kind::LeftThroughEdge, *inside_, p);
                 break;
             }
             if (const std::optional<size_t> want = std::exchange(expect_, std::nullopt))
                 check_aim(*want, p, d, std::nullopt, 0, false);
             const Vec2 q = p + exit * d;
             path_.segments.push_back({p, q, exit, std::nullopt, 1.0, air_group_index_});
-            finding(Finding::Kind::LeftTable, SIZE_MAX, q, 0, "leaves the table at " + point_text(q));
+            finding(Finding::Kind::LeftTable, SIZE_MAX, q);
             break;
         }
         if (inside_ && std::abs(c->height) > placed_[*inside_].half_aperture) {
-            finding(Finding::Kind::LeftThroughEdge, *inside_, p + c->dist * d, 0,
-                    "leaves " + id(*inside_) + " through its edge");
+            finding(Finding::Kind::LeftThroughEdge, *inside_, p + c->dist * d);
             break;
         }
         // The element the last aim_at mirror sent the ray to, judged once this hit is known.
@@ -765,9 +753,9 @@ void BeamTracer::run() {
                 f = g.efl_mm;
             }
             if (!(std::isfinite(f) && f != 0)) {
-                finding(Finding::Kind::MaterialOutOfRange, e, h, 0,
-                        "the focal length of " + id(e) + " is not a real number at " + mm_text(wavelength) +
-                            " nm (its glass's formula fails there); the ray stops");
+                Finding& f = finding(Finding::Kind::NoRealIndex, e, h);
+                f.material = pl.material ? pl.material->name : std::string();
+                f.wavelength_nm = wavelength;
                 path_.hits.pop_back();
                 break;
             }
@@ -786,7 +774,7 @@ void BeamTracer::run() {
             }
         } else if (const auto* mirror = std::get_if<Mirror>(&kind)) {
             if (d.dot(n) >= 0) {
-                finding(Finding::Kind::HitBackOfOptic, e, h, 0, "meets the back of mirror " + id(e));
+                finding(Finding::Kind::HitBackOfOptic, e, h).element_type = type_name(kind);
                 stop = true;
             } else {
                 hit.interaction = Interaction::Reflect;
@@ -798,8 +786,7 @@ void BeamTracer::run() {
             }
         } else if (std::holds_alternative<Retroreflector>(kind)) {
             if (d.dot(n) >= 0) {
-                finding(Finding::Kind::HitBackOfOptic, e, h, 0,
-                        "meets the back of retroreflector " + id(e));
+                finding(Finding::Kind::HitBackOfOptic, e, h).element_type = type_name(kind);
                 stop = true;
             } else {
                 hit.interaction = Interaction::Retroreflect;
@@ -838,9 +825,9 @@ void BeamTracer::run() {
                     // index that depends on it (extraordinary wave): a few fixed-point steps.
                     next = slab_medium(e, d);
                     if (!(std::isfinite(next.index) && next.index > 0)) {
-                        finding(Finding::Kind::MaterialOutOfRange, e, h, 0,
-                                "the index of " + placed_[e].material->name + " is not a real number at " +
-                                    mm_text(wavelength) + " nm; the ray stops at " + id(e));
+                        Finding& f = finding(Finding::Kind::NoRealIndex, e, h);
+                        f.material = placed_[e].material->name;
+                        f.wavelength_nm = wavelength;
                         path_.hits.pop_back();
                         break;
                     }
@@ -855,8 +842,7 @@ void BeamTracer::run() {
                     out = refract(d, n, medium.index, 1.0);
                 }
                 if (!out) {
-                    finding(Finding::Kind::TotalInternalReflection, e, h, 0,
-                            "total internal reflection in " + id(e));
+                    finding(Finding::Kind::TotalInternalReflection, e, h);
                     stop = true;
                 } else {
                     d = *out;
@@ -886,8 +872,7 @@ void BeamTracer::run() {
         p = h;
     }
     if (!path_.target_hit)
-        finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p, 0,
-                "never reaches the target " + layout_.target);
+        finding(Finding::Kind::NoTarget, target_.value_or(SIZE_MAX), p).element = layout_.target;
     // A path that ended at the target while replaying repeated a prefix of the recorded steps.
     const bool repeated = replaying_ && (steps_.size() == memo_.steps.size() ||
                                          (path_.ends_at_target && steps_.size() < memo_.steps.size()));

@@ -195,10 +195,10 @@ TEST_CASE("a damage threshold below the peak intensity is a warning", "[polariza
                  R"({"id": "T", "type": "target", "at_mm": [500, 500], "damage_intensity_gw_cm2": 0.01})");
     const rv::RendezvousReport r = report(layout_from(json));
     bool warned = false;
-    for (const rv::ReportWarning& w : r.warnings) warned = warned || w.code == "damage";
+    for (const rv::Finding& f : r.findings) warned = warned || f.kind == rv::Finding::Kind::DamageIntensity;
     CHECK(warned);
     const rv::RendezvousReport safe = report(layout_from(hwp_cube(0)));
-    for (const rv::ReportWarning& w : safe.warnings) CHECK(w.code != "damage");
+    for (const rv::Finding& f : safe.findings) CHECK(f.kind != rv::Finding::Kind::DamageIntensity);
 }
 
 TEST_CASE("the report says which way to turn a wave plate for the crystal's polarization", "[polarization]") {
@@ -218,12 +218,15 @@ TEST_CASE("the report says which way to turn a wave plate for the crystal's pola
     const rv::RendezvousReport r = report(l);
     REQUIRE(r.polarization.size() == 1);
     const rv::PolarizationAdvice& a = r.polarization.front();
-    CHECK(a.needs == "o (horizontal)");
+    CHECK(rv::needed_polarization_text(a) == "o (horizontal)");
     CHECK_THAT(a.useful_fraction, near(0.5, 1e-6));
+    CHECK(a.advice == rv::PolarizationAdvice::Advice::TurnPlate);
     CHECK(a.plate == "HWP");
-    CHECK_THAT(std::remainder(a.plate_best_deg, 90.0), near(0.0, 0.01));
-    CHECK_THAT(a.useful_fraction_best, near(1.0, 1e-6));
-    CHECK(a.action.find("turn HWP's fast axis from 22.5°") == 0);
+    REQUIRE(a.plate_best_deg);
+    CHECK_THAT(std::remainder(*a.plate_best_deg, 90.0), near(0.0, 0.01));
+    REQUIRE(a.useful_fraction_best);
+    CHECK_THAT(*a.useful_fraction_best, near(1.0, 1e-6));
+    CHECK(rv::polarization_advice_text(a).find("turn HWP's fast axis from 22.5°") == 0);
     CHECK_FALSE(r.verdict.phase.met);  // half of the fundamental is e: the polarizations do not suit
 }
 

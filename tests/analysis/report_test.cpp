@@ -141,7 +141,7 @@ TEST_CASE("the safety block names the invisible beams and where the light ends",
     REQUIRE(r.invisible.size() == 3);
     CHECK(r.invisible[0] == "1030 nm (pump): near infrared, reaches the retina");
     CHECK(r.invisible[2] == "390.0 nm (SHG of signal): ultraviolet");
-    for (const rv::ReportBeam& b : r.beams) CHECK(b.unconverted_end == "absorbed in dump D1");
+    for (const rv::ReportBeam& b : r.beams) CHECK(rv::after_target_text(b) == "absorbed in dump D1");
 }
 
 TEST_CASE("a waist below two wavelengths is a paraxial warning", "[report]") {
@@ -150,7 +150,7 @@ TEST_CASE("a waist below two wavelengths is a paraxial warning", "[report]") {
     REQUIRE(r.layout);
     const rv::RendezvousReport rep = report(*r.layout);
     size_t paraxial = 0;
-    for (const rv::ReportWarning& w : rep.warnings) paraxial += w.code == "paraxial";
+    for (const rv::Finding& f : rep.findings) paraxial += f.kind == rv::Finding::Kind::Paraxial;
     CHECK(paraxial == 2);
 }
 

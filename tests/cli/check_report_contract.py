@@ -59,7 +59,7 @@ if target["type"] == "crystal":
         need(report, "phase_matching." + key)
 warnings = need(report, "warnings")
 for w in warnings or []:
-    for key in ["code", "message", "element"]:
+    for key in ["code", "severity", "beam", "element", "message"]:
         need(w, key)
 if missing:
     sys.exit("missing contract keys: " + ", ".join(missing))

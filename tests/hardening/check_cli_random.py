@@ -17,9 +17,13 @@ import tempfile
 # value (phase_matching.outside_index_data says so).
 # Power, pulse and intensity figures are null when the file gives no power_mw (or no repetition
 # rate or pulse length).
+# A finding's beam or element is null when it concerns none; the polarization advice's plate
+# figures are null when there is no plate to turn.
 MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offset_fs",
                "walk_apart_mm", "delta_k_l", "sinc2_now", "source_mw", "power_mw", "useful_mw",
-               "peak_intensity_w_cm2", "peak_fluence_j_cm2", "peak_intensity_at_waist_w_cm2"}
+               "peak_intensity_w_cm2", "peak_fluence_j_cm2", "peak_intensity_at_waist_w_cm2",
+               "beam", "element", "location", "plate", "plate_now_deg", "plate_best_deg",
+               "useful_fraction_best", "useful_mw_best"}
 
 
 def reject_constant(name):

@@ -74,8 +74,8 @@ std::vector<std::string> report_texts(const rv::RendezvousReport& r) {
     std::vector<std::string> t = {r.verdict.space.summary, r.verdict.space.action,
                                   r.verdict.time.summary,  r.verdict.time.action,
                                   r.verdict.phase.summary, r.verdict.phase.action};
-    for (const rv::ReportWarning& w : r.warnings) t.push_back(w.message);
-    for (const rv::ReportBeam& b : r.beams) t.push_back(b.unconverted_end);
+    for (const rv::Finding& f : r.findings) t.push_back(rv::finding_line(f));
+    for (const rv::ReportBeam& b : r.beams) t.push_back(rv::after_target_text(b));
     for (const rv::PhaseMatchingReport& p : r.phase_matching) t.push_back(p.polarization_note);
     for (const std::string& s : r.invisible) t.push_back(s);
     return t;
@@ -111,7 +111,7 @@ TEST_CASE("every number of the report of a random layout is finite", "[hardening
         for (const std::string& text : report_texts(r))
             if (has_non_finite_text(text)) FAIL_CHECK("non-finite number in text: " << text);
         reached_both += both_reach(r);
-        with_findings += !r.warnings.empty();
+        with_findings += !r.findings.empty();
     }
     // The generator must give both kinds of layout, or the properties below test little.
     CHECK(reached_both >= kLayouts / 4);

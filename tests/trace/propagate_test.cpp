@@ -112,7 +112,7 @@ TEST_CASE("clipping at an aperture", "[propagate][clipping]") {
     CHECK_THAT(t.caustic.at_hits[0].clipped_fraction, near(std::exp(-2.0), 1e-12));
     CHECK_THAT(1 - t.caustic.at_hits[0].clipped_fraction, near(0.865, 0.0005));
     REQUIRE(!t.caustic.findings.empty());
-    CHECK(t.caustic.findings[0].message == "clipped at A: 13.5 % of the power falls outside its aperture");
+    CHECK(rv::finding_text(t.caustic.findings[0]) == "clipped at A: 13.5 % of the power falls outside its aperture");
 
     const Traced tilted = run(layout_json(
         R"({"id": "b", "wavelength_nm": 1064, "start_mm": [0, 500], "direction_deg": 0, "waist_um": 1000, "waist_at_mm": 100})",

@@ -4,8 +4,9 @@
 #include <numeric>
 #include <random>
 
-#include "support/layouts.hpp"
 #include "analysis/target_summary.hpp"
+#include "findings/finding_json.hpp"
+#include "support/layouts.hpp"
 #include "trace/propagate.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
@@ -51,7 +52,7 @@ void require_same_paths(const std::vector<rv::Path>& a, const std::vector<rv::Pa
         }
         for (size_t k = 0; k < a[p].segments.size(); ++k)
             REQUIRE(a[p].segments[k].group_index == b[p].segments[k].group_index);
-        for (size_t k = 0; k < a[p].findings.size(); ++k) REQUIRE(a[p].findings[k].message == b[p].findings[k].message);
+        for (size_t k = 0; k < a[p].findings.size(); ++k) REQUIRE(rv::finding_json(a[p].findings[k]) == rv::finding_json(b[p].findings[k]));
     }
 }
 

@@ -133,8 +133,8 @@ TEST_CASE("findings are data: leaving the table, too many hits, the back of a mi
         const rv::Path p = trace(l)[0];
         REQUIRE(p.findings.size() == 2);
         CHECK(p.findings[0].kind == rv::Finding::Kind::LeftTable);
-        CHECK(p.findings[0].message == "leaves the table at (1000.00, 0.00) mm");
-        CHECK(p.findings[1].message == "never reaches the target T");
+        CHECK(rv::finding_text(p.findings[0]) == "leaves the table at (1000.00, 0.00) mm");
+        CHECK(rv::finding_text(p.findings[1]) == "never reaches the target T");
     }
     {  // Two mirrors face to face: the ray bounces until the hit limit.
         const rv::Layout l = layout_from(layout_json(
@@ -152,7 +152,7 @@ TEST_CASE("findings are data: leaving the table, too many hits, the back of a mi
                {"id": "T", "type": "target", "at_mm": [200, 0]})", "T"));
         const rv::Path p = trace(l)[0];
         REQUIRE(!p.findings.empty());
-        CHECK(p.findings[0].message == "meets the back of mirror M");
+        CHECK(rv::finding_text(p.findings[0]) == "meets the back of mirror M");
     }
 }
 
@@ -168,7 +168,7 @@ TEST_CASE("an aimed mirror hit off centre misses a small optic and says by how m
     REQUIRE(!p.findings.empty());
     CHECK(p.findings[0].kind == rv::Finding::Kind::MissedOptic);
     CHECK_THAT(p.findings[0].amount, near(3.0, 1e-9));
-    CHECK(p.findings[0].message == "misses X by 3.00 mm (crosses its plane 4.00 mm from its centre)");
+    CHECK(rv::finding_text(p.findings[0]) == "misses X by 3.00 mm (crosses its plane 4.00 mm from its centre)");
 }
 
 TEST_CASE("a wavelength outside a crystal's Sellmeier range is a finding", "[trace][findings]") {
@@ -179,7 +179,7 @@ TEST_CASE("a wavelength outside a crystal's Sellmeier range is a finding", "[tra
     const rv::Path p = trace(l)[0];
     REQUIRE(p.target_hit);
     REQUIRE(has_finding(p, rv::Finding::Kind::MaterialOutOfRange));
-    CHECK(p.findings[0].message ==
+    CHECK(rv::finding_text(p.findings[0]) ==
           "532 nm lies outside the range of BBO:Zhang2000 (640–3180 nm); its index is extrapolated");
 }
 
@@ -191,7 +191,7 @@ TEST_CASE("every bundled layout loads and traces and both beams reach the target
         for (const rv::Path& p : trace(*r.layout)) {
             CAPTURE(r.layout->beams[p.beam].id);
             CHECK(p.target_hit.has_value());
-            for (const rv::Finding& f : p.findings) UNSCOPED_INFO(f.message);
+            for (const rv::Finding& f : p.findings) UNSCOPED_INFO(rv::finding_text(f));
             CHECK(p.findings.empty());
         }
     }

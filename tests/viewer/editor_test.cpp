@@ -251,13 +251,13 @@ TEST_CASE("clicking a finding selects its element", "[viewer][edit]") {
     Session s(doc);
     // The demo's findings name thin lenses (their glass is missing from the timing).
     REQUIRE_FALSE(s.state.finding_rects.empty());
-    REQUIRE_FALSE(doc.report().warnings.empty());
+    REQUIRE_FALSE(doc.report().findings.empty());
     const auto [lo, hi] = s.state.finding_rects.front();
     const ImVec2 centre((lo.x + hi.x) / 2, (lo.y + hi.y) / 2);
     s.mouse(centre, true);
     s.mouse(centre, false);
     REQUIRE(s.state.editor.selected.has_value());
-    CHECK(doc.layout().elements[*s.state.editor.selected].id == doc.report().warnings.front().element);
+    CHECK(doc.layout().elements[*s.state.editor.selected].id == doc.report().findings.front().element);
 }
 
 TEST_CASE("recent files keep the newest first once each", "[viewer][edit]") {

@@ -17,7 +17,12 @@ struct ReportOptions {
 };
 int run_report(const ReportOptions& options, std::ostream& out, std::ostream& err);
 
-int run_check(const std::string& layout, std::ostream& out, std::ostream& err);
+struct CheckOptions {
+    std::string layout;
+    bool json = false;
+};
+// Every finding of the layout's report, located; exit 0 even with findings (2 on bad input).
+int run_check(const CheckOptions& options, std::ostream& out, std::ostream& err);
 
 struct FormatOptions {
     std::string layout;

@@ -9,6 +9,7 @@
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "cli/safety_notice.hpp"
+#include "findings/finding_json.hpp"
 #include "io/layout_reader.hpp"
 
 namespace rv::cli {
@@ -86,7 +87,7 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                                 {"clipping", w.clipped_fraction}});
         }
         json beam = {{"wavelength_nm", b.wavelength_nm}, {"reaches_target", b.at_target.reached},
-                     {"elements", elements}, {"unconverted_light", b.unconverted_end}};
+                     {"elements", elements}, {"unconverted_light", after_target_text(b)}};
         if (b.at_target.reached) {
             const BeamAtTarget& t = b.at_target;
             beam["path_mm"] = t.path_mm;
@@ -134,11 +135,14 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
     }
     json advice = json::array();
     for (const PolarizationAdvice& a : r.polarization)
-        advice.push_back({{"beam", a.beam}, {"needs", a.needs}, {"useful_fraction", a.useful_fraction},
-                          {"useful_mw", optional_number(a.useful_mw)}, {"plate", a.plate},
-                          {"plate_now_deg", a.plate_now_deg}, {"plate_best_deg", a.plate_best_deg},
-                          {"useful_fraction_best", a.useful_fraction_best}, {"action", a.action},
-                          {"wave_plates", plate_settings_json(a)}});
+        advice.push_back({{"beam", a.beam}, {"needs", needed_polarization_text(a)},
+                          {"useful_fraction", a.useful_fraction}, {"useful_mw", optional_number(a.useful_mw)},
+                          {"plate", a.plate ? json(*a.plate) : json(nullptr)},
+                          {"plate_now_deg", optional_number(a.plate_now_deg)},
+                          {"plate_best_deg", optional_number(a.plate_best_deg)},
+                          {"useful_fraction_best", optional_number(a.useful_fraction_best)},
+                          {"useful_mw_best", optional_number(a.useful_mw_best)},
+                          {"action", polarization_advice_text(a)}, {"wave_plates", plate_settings_json(a)}});
     out["polarization"] = advice;
     if (!r.phase_matching.empty()) {
         out["phase_matching"] = phase_json(r.phase_matching.front());
@@ -152,11 +156,10 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                             {"walkoff_parameter", f.walkoff_parameter}});
     out["focusing"] = focusing;
     json warnings = json::array();
-    for (const ReportWarning& w : r.warnings)
-        warnings.push_back({{"code", w.code}, {"message", w.message}, {"element", w.element}});
+    for (const Finding& f : r.findings) warnings.push_back(finding_json(f));
     out["warnings"] = warnings;
     json unconverted = json::array();
-    for (const ReportBeam& b : r.beams) unconverted.push_back(b.id + ": " + b.unconverted_end);
+    for (const ReportBeam& b : r.beams) unconverted.push_back(b.id + ": " + after_target_text(b));
     out["safety"] = {{"invisible", r.invisible}, {"unconverted", unconverted},
                      {"cautions", safety_cautions()}};
     return out;
@@ -188,12 +191,13 @@ void print_power(const RendezvousReport& r, std::ostream& out) {
                 << (l.goes_to.empty() ? "" : ", " + l.goes_to) << "\n";
     }
     for (const PolarizationAdvice& a : r.polarization) {
-        out << "  " << a.beam << " needs " << a.needs << ": " << percent(a.useful_fraction) << " of it is";
+        const std::string needs = needed_polarization_text(a), action = polarization_advice_text(a);
+        out << "  " << a.beam << " needs " << needs << ": " << percent(a.useful_fraction) << " of it is";
         if (a.useful_mw) out << " (" << fmt("%.1f", *a.useful_mw) << " mW)";
-        out << (a.action.empty() ? "" : "; " + a.action) << "\n";
+        out << (action.empty() ? "" : "; " + action) << "\n";
         for (const PolarizationAdvice::PlateSetting& p : a.plates) {
             out << "    " << p.plate << " at " << fmt("%.1f", p.now_deg) << "°: " << percent(p.useful_now)
-                << " of the source in " << a.needs << "; the most, " << percent(p.useful_best) << ", at "
+                << " of the source in " << needs << "; the most, " << percent(p.useful_best) << ", at "
                 << fmt("%.1f", p.best_deg) << "°\n";
         }
     }
@@ -278,13 +282,13 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
                 << ", walk-off parameter B = " << fmt("%.2f", f.walkoff_parameter) << "\n";
         if (r.confocal_ratio) out << "  confocal parameters b1/b2 = " << fmt("%.3f", *r.confocal_ratio) << " (1 = matched)\n";
     }
-    if (!r.warnings.empty()) {
+    if (!r.findings.empty()) {
         out << "\nFindings\n";
-        for (const ReportWarning& w : r.warnings) out << "  [" << w.code << "] " << w.message << "\n";
+        for (const Finding& f : r.findings) out << "  [" << finding_code(f.kind) << "] " << finding_line(f) << "\n";
     }
     out << "\nSafety\n";
     for (const std::string& s : r.invisible) out << "  invisible: " << s << "\n";
-    for (const ReportBeam& b : r.beams) out << "  after the target, " << b.id << ": " << b.unconverted_end << "\n";
+    for (const ReportBeam& b : r.beams) out << "  after the target, " << b.id << ": " << after_target_text(b) << "\n";
     out << "\n" << safety_notice_text();
 }
 
@@ -329,13 +333,13 @@ void print_markdown(const RendezvousReport& r, std::ostream& out) {
                 << fmt("%.3f", p.theta_now_deg) << " | " << fmt("%+.3f", p.rotate_by_deg) << " | "
                 << fmt("%.3f", p.sinc2_now) << " | " << fmt("%.1f", p.walkoff_mrad) << " |\n";
     }
-    if (!r.warnings.empty()) {
+    if (!r.findings.empty()) {
         out << "\n## Findings\n\n";
-        for (const ReportWarning& w : r.warnings) out << "- `" << w.code << "` " << w.message << "\n";
+        for (const Finding& f : r.findings) out << "- `" << finding_code(f.kind) << "` " << finding_line(f) << "\n";
     }
     out << "\n## Safety\n\n";
     for (const std::string& s : r.invisible) out << "- Invisible: " << s << "\n";
-    for (const ReportBeam& b : r.beams) out << "- After the target, " << b.id << ": " << b.unconverted_end << "\n";
+    for (const ReportBeam& b : r.beams) out << "- After the target, " << b.id << ": " << after_target_text(b) << "\n";
     for (const std::string& c : safety_cautions()) out << "- " << c << "\n";
 }
 

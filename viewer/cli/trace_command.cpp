@@ -5,6 +5,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "findings/finding_json.hpp"
 #include "io/layout_reader.hpp"
 #include "trace/propagate.hpp"
 #include "trace/trace.hpp"
@@ -57,14 +58,12 @@ int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err)
             out << line;
         }
         nlohmann::json findings = nlohmann::json::array();
-        for (const Finding& f : p.findings) {
-            if (options.json) findings.push_back(f.message);
-            else out << "  finding: " << f.message << "\n";
-        }
-        for (const Finding& f : c.findings) {
-            if (options.json) findings.push_back(f.message);
-            else out << "  finding: " << f.message << "\n";
-        }
+        for (const std::vector<Finding>* list : {&p.findings, &c.findings})
+            for (Finding f : *list) {
+                f.beam = id;
+                if (options.json) findings.push_back(finding_json(f));
+                else out << "  finding: [" << finding_code(f.kind) << "] " << finding_text(f) << "\n";
+            }
         doc[id] = {{"hits", hits}, {"findings", findings}};
     }
     if (options.json) out << doc.dump(2) << "\n";

@@ -104,19 +104,21 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
         }
     }
     for (const PolarizationAdvice& a : r.polarization)
-        if (!a.action.empty()) ImGui::TextWrapped("-> %s", a.action.c_str());
-    if (!r.warnings.empty()) {
+        if (const std::string action = polarization_advice_text(a); !action.empty()) ImGui::TextWrapped("-> %s", action.c_str());
+    if (!r.findings.empty()) {
         ImGui::Spacing();
         ImGui::TextUnformatted("Findings (click one to select its element)");
         ImGui::Separator();
-        for (size_t k = 0; k < r.warnings.size(); ++k) {
-            const ReportWarning& w = r.warnings[k];
+        for (size_t k = 0; k < r.findings.size(); ++k) {
+            const Finding& f = r.findings[k];
+            const std::string line = finding_line(f);
             ImGui::PushID(static_cast<int>(k));
             ImGui::PushTextWrapPos(0);
-            if (ImGui::Selectable(("[" + w.code + "] " + w.message).c_str(), false) && select && !w.element.empty())
+            if (ImGui::Selectable(("[" + std::string(finding_code(f.kind)) + "] " + line).c_str(), false) && select &&
+                !f.element.empty())
                 for (size_t i = 0; i < layout.elements.size(); ++i)
-                    if (layout.elements[i].id == w.element) *select = i;
-            if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", w.message.c_str());
+                    if (layout.elements[i].id == f.element) *select = i;
+            if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", line.c_str());
             if (finding_rects) finding_rects->emplace_back(ImGui::GetItemRectMin(), ImGui::GetItemRectMax());
             ImGui::PopTextWrapPos();
             ImGui::PopID();
