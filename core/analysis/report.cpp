@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "analysis/crystal_waves.hpp"
 #include "analysis/plate_angle_search.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
@@ -24,43 +25,12 @@ std::string fmt(const char* format, double a) {
 }
 
 
-// The trace picks a crystal's index (o or e) from the beam's source polarization. When the wave
-// plates and cubes before the target crystal turn a beam to the other wave, trace again with a
-// source polarization of that wave, so that the index, the refraction and the timing in the
-// crystal follow the light that arrives (the power trace keeps the real source).
-std::vector<Path> trace_with_arriving_polarization(const Layout& layout, const MaterialLibrary& library) {
-    std::vector<Path> paths = trace_layout(layout, library);
-    const Element* target = layout.find(layout.target);
-    const Crystal* crystal = target ? std::get_if<Crystal>(&target->kind) : nullptr;
-    const Material* m = crystal ? library.find(crystal->material) : nullptr;
-    if (!m || m->symmetry == Symmetry::Isotropic) return paths;
-    Layout adjusted = layout;
-    bool changed = false;
-    for (const Path& p : paths) {
-        if (!p.target_hit) continue;
-        const BeamSource& src = layout.beams[p.beam];
-        PropagationOptions lean;
-        lean.sample_envelope = false;
-        const PolarizationState s = describe(target_stokes(layout, library, p, propagate_path(layout, p, lean)));
-        if (!(s.power > 0)) continue;
-        const bool a_now = a_wave_fraction(src.polarization, crystal->optic_axis_horizontal) >= 0.5;
-        const bool a_arriving = (crystal->optic_axis_horizontal ? s.v : s.h) / s.power >= 0.5;
-        if (a_now == a_arriving) continue;
-        // A source polarization that gives the arriving wave: A is vertical when the axis plane is
-        // horizontal, horizontal otherwise.
-        const bool horizontal = a_arriving != crystal->optic_axis_horizontal;
-        adjusted.beams[p.beam].polarization = {horizontal ? Polarization::Kind::Horizontal : Polarization::Kind::Vertical, 0};
-        changed = true;
-    }
-    return changed ? trace_layout(adjusted, library) : paths;
-}
-
 std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary& library,
                                     bool envelope) {
     PropagationOptions options;
     options.sample_envelope = envelope;
     std::vector<ReportBeam> beams;
-    for (const Path& p : trace_with_arriving_polarization(layout, library)) {
+    for (const Path& p : trace_arriving_waves(layout, library)) {
         ReportBeam b;
         b.id = layout.beams[p.beam].id;
         b.wavelength_nm = layout.beams[p.beam].wavelength_nm;
@@ -101,45 +71,11 @@ double delay_of(const std::vector<ReportBeam>& b) {
     return b[0].at_target.arrival_fs - b[1].at_target.arrival_fs;
 }
 
-std::optional<OverlapReport> overlap_of(const Layout& layout, const std::vector<ReportBeam>& b,
-                                        double delay_fs) {
+std::optional<OverlapReport> overlap_of(const Layout& layout, const std::vector<ReportBeam>& b) {
     if (b.size() < 2 || !b[0].at_target.reached || !b[1].at_target.reached) return std::nullopt;
-    const BeamAtTarget& x = b[0].at_target;
-    const BeamAtTarget& y = b[1].at_target;
-    // Offsets across the bisector of the two chief rays and the crystal's extent averaged over
-    // both paths, so that the figure does not depend on which beam is listed first.
-    const Vec2 across = perpendicular((x.direction + y.direction).normalized());
-    const double d0_um = mm_to_um((y.hit_mm - x.hit_mm).dot(across));
-    const double tilt = std::atan2(x.direction.x() * y.direction.y() - x.direction.y() * y.direction.x(),
-                                   x.direction.dot(y.direction));
-    OverlapReport o;
-    o.spatial = transverse_overlap_1d(x.tangential.radius_um, y.tangential.radius_um, d0_um) *
-                transverse_overlap_1d(x.sagittal.radius_um, y.sagittal.radius_um, 0);
-    // Along the crystal: from its entrance to its exit face (relative to the centre plane),
-    // the mean of the two beams' paths.
-    double from = 0, to = 0;
-    for (const ReportBeam* beam : {&b[0], &b[1]}) {
-        const Path& p = beam->path;
-        const size_t k = *p.target_hit;
-        if (k > 0 && k + 1 < p.hits.size() && p.hits[k].face == Face::Centre) {
-            from += (p.hits[k - 1].s_mm - p.hits[k].s_mm) / 2;
-            to += (p.hits[k + 1].s_mm - p.hits[k].s_mm) / 2;
-        }
-    }
-    const int n = from < to ? 41 : 1;
-    double sum = 0;
-    for (int i = 0; i < n; ++i) {
-        const double z = n == 1 ? 0 : from + (to - from) * i / (n - 1);
-        auto r = [z](const GaussianBeam& q) { return radius_um(propagate(q, free_space(z))); };
-        const double d = d0_um + mm_to_um(tilt * z);
-        sum += transverse_overlap_1d(r(b[0].caustic.target_tangential), r(b[1].caustic.target_tangential), d) *
-               transverse_overlap_1d(r(b[0].caustic.target_sagittal), r(b[1].caustic.target_sagittal), 0);
-    }
-    o.spatial_along_crystal = sum / n;
-    const double t1 = layout.beams[0].pulse_fwhm_fs, t2 = layout.beams[1].pulse_fwhm_fs;
-    if (t1 > 0 && t2 > 0) o.temporal = temporal_overlap(t1, t2, delay_fs);
-    o.combined = o.spatial_along_crystal * o.temporal.value_or(1.0);
-    return o;
+    const OverlapFigures f =
+        overlap_at_target(b[0].at_target, b[1].at_target, layout.beams[0].pulse_fwhm_fs, layout.beams[1].pulse_fwhm_fs);
+    return OverlapReport{f.spatial, f.spatial_along_crystal, f.temporal, f.combined};
 }
 
 std::optional<StageReport> stage_of(const Layout& layout, const MaterialLibrary& library,
@@ -519,7 +455,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         const double b1 = r.beams[0].confocal_tangential_mm + r.beams[0].confocal_sagittal_mm;
         const double b2 = r.beams[1].confocal_tangential_mm + r.beams[1].confocal_sagittal_mm;
         r.confocal_ratio = b1 / b2;
-        r.overlap = overlap_of(layout, r.beams, r.mismatch->delay_fs);
+        r.overlap = overlap_of(layout, r.beams);
         r.stage = stage_of(layout, library, r.beams);
     }
 

@@ -2,7 +2,9 @@
 
 #include <cmath>
 
+#include "analysis/crystal_waves.hpp"
 #include "analysis/timing.hpp"
+#include "nonlinear/overlap.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
 
@@ -28,6 +30,11 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const BeamsA
     out.hit_mm = hit.point_mm;
     out.direction = hit.direction_in;
     out.index = hit.index_before;
+    out.q_tangential = beams.tangential;
+    out.q_sagittal = beams.sagittal;
+    const Element& target = layout.elements[hit.element];
+    if (const auto* crystal = std::get_if<Crystal>(&target.kind); crystal && hit.face == Face::Centre)
+        out.half_crystal_path_mm = crystal->length_mm / 2 / std::max(hit.cos_aoi, 1e-12);
     return out;
 }
 
@@ -45,6 +52,7 @@ namespace {
 // completed and the beam propagated again from the target.
 std::vector<BeamAtTarget> reevaluate(const Layout& layout, const MaterialLibrary& library, TraceCache& c,
                                      const std::vector<size_t>* edited) {
+    prepare_crystal_waves(c, layout, library);
     std::vector<BeamAtTarget> out;
     const std::vector<Path>& paths = retrace_layout(layout, library, c, {.edited = edited, .stop_at_target = true});
     out.reserve(paths.size());
@@ -68,6 +76,7 @@ std::vector<BeamAtTarget> evaluate_beams_at_target(const Layout& layout, const M
     TraceCache local;
     TraceCache& c = cache ? *cache : local;
     if (keep_unchanged) return reevaluate(layout, library, c, nullptr);
+    prepare_crystal_waves(c, layout, library);
     std::vector<BeamAtTarget> out;
     trace_layout(layout, library, c, c.paths);
     out.reserve(c.paths.size());
@@ -93,6 +102,40 @@ Mismatch mismatch_at_target(const BeamAtTarget& a, const BeamAtTarget& b) {
     m.angle_mrad = 1e3 * std::atan2(std::abs(cross), a.direction.dot(b.direction));
     m.delay_fs = a.arrival_fs - b.arrival_fs;
     return m;
+}
+
+OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y, double t1_fs, double t2_fs) {
+    // Offsets across the bisector of the two chief rays and the crystal's extent averaged over
+    // both paths, so that the figure does not depend on which beam is listed first.
+    const Vec2 across = perpendicular((x.direction + y.direction).normalized());
+    const double d0_um = mm_to_um((y.hit_mm - x.hit_mm).dot(across));
+    const double tilt = std::atan2(x.direction.x() * y.direction.y() - x.direction.y() * y.direction.x(),
+                                   x.direction.dot(y.direction));
+    OverlapFigures o;
+    o.spatial = transverse_overlap_1d(x.tangential.radius_um, y.tangential.radius_um, d0_um) *
+                transverse_overlap_1d(x.sagittal.radius_um, y.sagittal.radius_um, 0);
+    // The mean over z in [−h, h] by 8-point Gauss–Legendre quadrature (nodes and weights:
+    // Abramowitz & Stegun, Handbook of Mathematical Functions, Table 25.4): the integrand is
+    // smooth on the scale of the crystal, and the Monte Carlo evaluates it per sample.
+    static constexpr double kNode[4] = {0.1834346424956498, 0.5255324099163290, 0.7966664774136267, 0.9602898564975363};
+    static constexpr double kWeight[4] = {0.3626837833783620, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763};
+    auto at = [&](double z) {
+        auto r = [z](const GaussianBeam& q) { return radius_um(propagate(q, free_space(z))); };
+        const double d = d0_um + mm_to_um(tilt * z);
+        return transverse_overlap_1d(r(x.q_tangential), r(y.q_tangential), d) *
+               transverse_overlap_1d(r(x.q_sagittal), r(y.q_sagittal), 0);
+    };
+    const double half_mm = (x.half_crystal_path_mm + y.half_crystal_path_mm) / 2;
+    if (half_mm > 0) {
+        double mean = 0;
+        for (int i = 0; i < 4; ++i) mean += kWeight[i] * (at(half_mm * kNode[i]) + at(-half_mm * kNode[i])) / 2;
+        o.spatial_along_crystal = mean;
+    } else {
+        o.spatial_along_crystal = at(0);
+    }
+    if (t1_fs > 0 && t2_fs > 0) o.temporal = temporal_overlap(t1_fs, t2_fs, x.arrival_fs - y.arrival_fs);
+    o.combined = o.spatial_along_crystal * o.temporal.value_or(1.0);
+    return o;
 }
 
 }  // namespace rv

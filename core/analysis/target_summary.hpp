@@ -32,6 +32,10 @@ struct BeamAtTarget {
     Vec2 hit_mm{0, 0};        // chief-ray crossing of the target plane
     Vec2 direction{1, 0};
     double index = 1;         // phase index of the medium at the target
+    GaussianBeam q_tangential{}, q_sagittal{};  // at the target plane
+    // Half the chief ray's path inside the target crystal (its centre plane lies midway between
+    // its parallel faces): (L/2)/cos θ_inside; 0 when the target is not a crystal.
+    double half_crystal_path_mm = 0;
 };
 
 BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const Caustic& caustic);
@@ -60,5 +64,26 @@ struct Mismatch {
 
 // Both beams must have reached the target.
 Mismatch mismatch_at_target(const BeamAtTarget& first, const BeamAtTarget& second);
+
+// The overlap of the two beams at the target, defined once for the report, the solvers and the
+// tolerance run (README, "Overlap"):
+//   spatial: the transverse intensity overlap of the two Gaussians at the target plane, per
+//            plane (nonlinear/overlap.hpp), the tangential one offset by the distance between the
+//            chief-ray crossings across the bisector of the two chief rays;
+//   spatial_along_crystal: the same averaged along the crystal from its entrance to its exit
+//            (each beam propagated there in the crystal, the offset growing with the angle
+//            between the chief rays; the extent is the mean of the two beams' paths inside), by
+//            8-point Gauss–Legendre quadrature; at the target plane alone for a target that is
+//            not a crystal;
+//   temporal: the cross-correlation factor of the two pulses at the delay (both lengths given);
+//   combined: spatial_along_crystal × temporal (or × 1).
+struct OverlapFigures {
+    double spatial = 0;
+    double spatial_along_crystal = 0;
+    std::optional<double> temporal;
+    double combined = 0;
+};
+OverlapFigures overlap_at_target(const BeamAtTarget& first, const BeamAtTarget& second, double first_pulse_fwhm_fs,
+                                 double second_pulse_fwhm_fs);
 
 }  // namespace rv

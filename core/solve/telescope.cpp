@@ -8,6 +8,7 @@
 #include <cmath>
 #include <thread>
 
+#include "analysis/crystal_waves.hpp"
 #include "analysis/target_summary.hpp"
 #include "trace/trace.hpp"
 
@@ -25,6 +26,9 @@ struct Problem {
     std::vector<double> goal_um;  // per beam, 0 = none
     SolveGoals::Aim aim;
     std::optional<size_t> only_beam;  // residuals of this beam only (one arm searched alone)
+    // The wave each beam travels as in the crystal, from the layout as given (analysis/
+    // crystal_waves.hpp): lens swaps and moves do not change the polarization.
+    std::vector<std::optional<Polarization>> crystal_polarization = {};
 };
 
 double move_of(const Problem& p, size_t k, double u) {
@@ -173,6 +177,8 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     }
     Layout work = apply(p, choice, u);
     TraceCache cache;
+    cache.crystal_polarization = p.crystal_polarization;
+    cache.crystal_polarization_known = true;
     if (n > 0) {
         Functor f{&p, &work, &cache, n, m};
         Eigen::NumericalDiff<Functor> diff(f);
@@ -277,7 +283,8 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
         return result;
     }
     const SolveGoals& goals = *layout.goals.solve;
-    Problem p{layout, library, {}, {}, {}, {}, {}, goals.aim, std::nullopt};
+    Problem p{layout, library, {}, {}, {}, {}, {}, goals.aim, std::nullopt,
+              arriving_crystal_polarizations(layout, library, trace_layout(layout, library))};
     auto index_of = [&](const std::string& id) {
         for (size_t i = 0; i < layout.elements.size(); ++i)
             if (layout.elements[i].id == id) return i;

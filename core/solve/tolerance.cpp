@@ -4,6 +4,7 @@
 #include <cmath>
 #include <thread>
 
+#include "analysis/crystal_waves.hpp"
 #include "analysis/target_summary.hpp"
 #include "nonlinear/overlap.hpp"
 #include "trace/poses.hpp"
@@ -52,11 +53,7 @@ Figures evaluate_figures(const Layout& layout, const MaterialLibrary& library, T
     f.waist_ratio = m.waist_ratio;
     f.lateral_um = m.lateral_um;
     f.delay_fs = m.delay_fs;
-    const double d = mm_to_um((at[1].hit_mm - at[0].hit_mm).dot(Vec2(-at[0].direction.y(), at[0].direction.x())));
-    const double spatial = transverse_overlap_1d(at[0].tangential.radius_um, at[1].tangential.radius_um, d) *
-                           transverse_overlap_1d(at[0].sagittal.radius_um, at[1].sagittal.radius_um, 0);
-    const double t1 = layout.beams[0].pulse_fwhm_fs, t2 = layout.beams[1].pulse_fwhm_fs;
-    f.overlap = spatial * (t1 > 0 && t2 > 0 ? temporal_overlap(t1, t2, m.delay_fs) : 1.0);
+    f.overlap = overlap_at_target(at[0], at[1], layout.beams[0].pulse_fwhm_fs, layout.beams[1].pulse_fwhm_fs).combined;
     return f;
 }
 
@@ -173,6 +170,7 @@ ToleranceReport analyse_tolerances(const Layout& layout, const MaterialLibrary& 
             // the sample number only, not on the thread that draws it).
             Layout l = base;
             TraceCache cache;
+            prepare_crystal_waves(cache, base, library);  // the nominal layout's waves for every sample
             for (size_t k = static_cast<size_t>(t); k < samples; k += static_cast<size_t>(n_threads)) {
                 SplitMix64 rng{seed ^ (0x5851f42d4c957f2dULL * (k + 1))};
                 for (size_t i : touched) {

@@ -247,7 +247,11 @@ public:
     // retrace: `out` holds this beam's path from the previous retrace, whose unchanged steps are
     // kept (see retrace_layout).
     BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, TraceMode mode, Path& out)
-        : layout_(layout), placed_(cache.placed), beam_(layout.beams[beam]), cache_(cache),
+        : layout_(layout), placed_(cache.placed), beam_(layout.beams[beam]),
+          wave_polarization_(beam < cache.crystal_polarization.size() && cache.crystal_polarization[beam]
+                                 ? *cache.crystal_polarization[beam]
+                                 : layout.beams[beam].polarization),
+          cache_(cache),
           memo_(cache.beams[beam]), air_(cache.air), path_(out), steps_(memo_.new_steps), record_(mode.record),
           retrace_(mode.retrace || mode.go_on), go_on_(mode.go_on),
           stop_at_target_(mode.stop_at_target && !mode.go_on), last_beam_(beam + 1 == layout.beams.size()) {
@@ -344,6 +348,7 @@ private:
     const Layout& layout_;
     std::vector<Placed>& placed_;
     const BeamSource& beam_;
+    const Polarization wave_polarization_;  // what picks its wave in a birefringent crystal
     TraceCache& cache_;
     TraceCache::Beam& memo_;  // this beam's material samples and recorded steps
     const Material* air_ = nullptr;
@@ -499,7 +504,7 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
         // B wave at its angle ψ to the reference axis (trace/crystal_axes.hpp).
         const CrystalIndices& x = cached(memo_.crystal[element], &m, static_cast<int>(c->principal_plane),
                                          [&] { return crystal_indices(m, nm, c->principal_plane); });
-        const bool a_wave = a_wave_fraction(beam_.polarization, c->optic_axis_horizontal) >= 0.5;
+        const bool a_wave = a_wave_fraction(wave_polarization_, c->optic_axis_horizontal) >= 0.5;
         const double psi = a_wave ? 0.0
                                   : angle_to_reference_axis_rad(placed_[element].normal, deg_to_rad(c->cut_deg),
                                                                 c->optic_axis_horizontal, dir);
@@ -516,7 +521,7 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
 bool BeamTracer::index_follows_direction(size_t element) const {
     const auto* c = std::get_if<Crystal>(&layout_.elements[element].kind);
     return c && placed_[element].material->symmetry != Symmetry::Isotropic &&
-           a_wave_fraction(beam_.polarization, c->optic_axis_horizontal) < 0.5;
+           a_wave_fraction(wave_polarization_, c->optic_axis_horizontal) < 0.5;
 }
 
 void BeamTracer::check_aim(size_t want, const Vec2& p, const Vec2& d, std::optional<size_t> next,
@@ -598,6 +603,7 @@ BeamTracer::Resumed BeamTracer::resume() {
     } else if (retrace_) {
         const bool aims_same = aims_as_before();
         const bool comparable = cache_.retrace_valid && aims_same && memo_.source && *memo_.source == beam_ &&
+                                memo_.wave_polarization == wave_polarization_ &&
                                 path_.hits.size() + 1 >= memo_.starts.size() && steps_.size() + 1 >= memo_.starts.size();
         // The steps kept when the reference circles were tested lie clear of them, widened; while
         // they hold this retrace's circles, those steps lie clear of these too and need no test.
@@ -609,7 +615,10 @@ BeamTracer::Resumed BeamTracer::resume() {
         }
         // The last step of the previous trace is always taken again (it ended the path).
         while (comparable && keep + 1 < memo_.starts.size() && !touched_by_change(steps_[keep])) ++keep;
-        if (!comparable) memo_.source = beam_;
+        if (!comparable) {
+            memo_.source = beam_;
+            memo_.wave_polarization = wave_polarization_;
+        }
         if (!skip) memo_.reference_keep = keep;  // tested from the start (or nothing kept)
     }
     memo_.kept_hits = keep;
@@ -982,8 +991,12 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
     }
     if (!same) {
         std::vector<Path> storage = std::move(c.paths);
+        std::vector<std::optional<Polarization>> waves = std::move(c.crystal_polarization);
+        const bool waves_known = c.crystal_polarization_known;
         c = TraceCache{};
         c.paths = std::move(storage);
+        c.crystal_polarization = std::move(waves);  // the caller's, not a trace's memory
+        c.crystal_polarization_known = waves_known;
         c.library = &library;
         c.air = library.find("air");
         for (const Element& e : layout.elements) c.element_kinds.push_back(e.kind.index());

@@ -118,6 +118,7 @@ struct TraceCache {
         std::vector<StepStart> starts;
         std::vector<size_t> noted;  // elements whose out-of-range index was reported
         std::optional<BeamSource> source;
+        Polarization wave_polarization;  // the crystal_polarization it was traced with
         std::vector<std::pair<bool, Vec2>> aims;
         size_t kept_hits = 0;
         size_t reference_keep = 0;  // the steps kept when the reference circles were tested
@@ -143,6 +144,12 @@ struct TraceCache {
     const Material* air = nullptr;
     std::optional<std::pair<std::string, size_t>> target;  // the layout's target element
     std::vector<Beam> beams;
+    // The polarization each beam has in birefringent crystals, which picks its wave there (o or
+    // e), by beam; none (or a shorter list): the source's. Wave plates and cubes before a
+    // crystal can turn one into the other: analysis/crystal_waves.hpp fills this in from the
+    // polarization that arrives, so that every evaluation traces the wave the crystal sees.
+    std::vector<std::optional<Polarization>> crystal_polarization;
+    bool crystal_polarization_known = false;  // filled in for this layout (evaluate_beams_at_target)
     std::vector<Placed> placed;
     std::vector<Path> paths;  // retrace_layout's paths
     TargetPropagationMemo scratch_propagation;  // storage for an evaluation without the retrace
