@@ -2,6 +2,8 @@
 #include "solve/telescope.hpp"
 
 #include <cmath>
+#include <set>
+#include <sstream>
 
 #include "analysis/target_summary.hpp"
 #include "support/layouts.hpp"
@@ -125,6 +127,16 @@ TEST_CASE("the bundled lens catalog reads", "[solve][catalog]") {
                                                           rv::MaterialLibrary::builtin());
     CHECK(c.diagnostics.empty());
     CHECK(c.lenses.size() == 112);
+    // Our own descriptive ids, each used once: kind, diameter and focal length (f-50 for -50 mm).
+    std::set<std::string> ids;
+    for (const rv::CatalogLens& lens : c.lenses) {
+        CHECK(ids.insert(lens.id).second);
+        const rv::ThickLens* thick = std::get_if<rv::ThickLens>(&lens.lens.model);
+        std::ostringstream id;
+        id << (!thick ? "achromat" : thick->shape == "convex-plano" ? "plano-convex" : "plano-concave") << "-"
+           << lens.diameter_mm << "mm-f" << lens.focal_length_mm;
+        CHECK(lens.id == id.str());
+    }
 }
 
 TEST_CASE("searching the arms apart finds the best solutions of the full search", "[solve]") {
