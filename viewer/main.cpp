@@ -9,6 +9,18 @@
 #include "cli/load.hpp"
 #include "window/window.hpp"
 
+// The help of every command that writes a file: what the one writer does (io/atomic_file.hpp).
+constexpr const char* kWriting =
+    "Writing a file: it is replaced atomically (a temporary file beside it, flushed,\n"
+    "read back, then renamed over it) and keeps its permissions; a symbolic link is\n"
+    "written through to its target and stays a link. Refused with exit status 2,\n"
+    "nothing written: a device, FIFO, socket or directory; a file with other hard\n"
+    "links (the rename would part it from them); the input layout itself, by any path\n"
+    "or link (write elsewhere, then move the file over it; format replaces its input\n"
+    "only with --in-place); a layout holding NaN or infinity. A layout file must read\n"
+    "back as a layout before it replaces anything. \"-\" writes a layout to stdout.\n"
+    "Exit status: 0 success, 2 bad input.";
+
 int main(int argc, char** argv) {
     CLI::App app{"Rendezvous: plan two-colour beam combining (focus, size, timing, phase matching).",
                  "rendezvous"};
@@ -40,8 +52,11 @@ int main(int argc, char** argv) {
         "format", "Rewrite a layout in canonical form.\n"
                   "Example: rendezvous format mine.json --in-place");
     format_cmd->add_option("layout", format.layout, "layout file (JSON)")->required();
-    format_cmd->add_option("-o,--output", format.output, "write here (atomically) instead of stdout");
-    format_cmd->add_flag("--in-place", format.in_place, "replace the layout file (atomically)");
+    format_cmd->add_option("-o,--output", format.output,
+                           "write here instead of stdout (- is stdout; not the input)");
+    format_cmd->add_flag("--in-place", format.in_place,
+                         "replace the layout file itself (through a link, its target)");
+    format_cmd->footer(kWriting);
 
     rv::cli::TraceOptions trace;
     CLI::App* trace_cmd = app.add_subcommand(
@@ -65,7 +80,11 @@ int main(int argc, char** argv) {
                      "Example: rendezvous calibrate sfg.json --zero 29.84 --write sfg-calibrated.json");
     calibrate_cmd->add_option("layout", calibrate.layout, "layout file (JSON)")->required();
     calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->required();
-    calibrate_cmd->add_option("--write", calibrate.output, "the new layout file (written atomically)")->required();
+    calibrate_cmd
+        ->add_option("--write", calibrate.output,
+                     "the new layout file (- is stdout, the summary then on stderr)")
+        ->required();
+    calibrate_cmd->footer(kWriting);
 
     rv::cli::SolveCommandOptions solve;
     CLI::App* solve_cmd = app.add_subcommand(
@@ -74,7 +93,9 @@ int main(int argc, char** argv) {
     solve_cmd->add_option("layout", solve.layout, "layout file (JSON)")->required();
     solve_cmd->add_option("--catalog", solve.catalog, "lens catalog (default: the built-in generic one)");
     solve_cmd->add_option("--top", solve.top, "how many solutions to list")->check(CLI::Range(1, 100));
-    solve_cmd->add_option("--write", solve.output, "write the best solution here (atomically)");
+    solve_cmd->add_option("--write", solve.output,
+                          "write the best solution here (- is stdout, the ranking then on stderr)");
+    solve_cmd->footer(kWriting);
 
     rv::cli::ToleranceOptions tolerance;
     CLI::App* tolerance_cmd = app.add_subcommand(
@@ -93,13 +114,18 @@ int main(int argc, char** argv) {
     polarize_cmd->add_option("--plate", polarize.plate, "id of the half- or quarter-wave plate to turn")->required();
     polarize_cmd->add_option("--beam", polarize.beam, "the beam, when both pass the plate");
     polarize_cmd->add_option("--power-mw", polarize.power_mw, "wanted power at the target (mW)")->check(CLI::NonNegativeNumber);
-    polarize_cmd->add_option("--write", polarize.output, "write the layout with the plate turned here (atomically)");
+    polarize_cmd->add_option("--write", polarize.output,
+                             "write the layout with the plate turned here (- is stdout)");
+    polarize_cmd->footer(kWriting);
     rv::cli::BalanceOptions balance;
     CLI::App* balance_cmd = app.add_subcommand(
         "balance", "Put the stage where the delay is zero; say what fixed path to add when it cannot.\n"
                    "Example: rendezvous balance layouts/sfg-bbo.json --write sfg-balanced.json");
     balance_cmd->add_option("layout", balance.layout, "layout file (JSON)")->required();
-    balance_cmd->add_option("--write", balance.output, "write the balanced layout here (atomically)");
+    balance_cmd->add_option(
+        "--write", balance.output,
+        "write the balanced layout here (- is stdout, the summary then on stderr)");
+    balance_cmd->footer(kWriting);
 
     rv::cli::SweepOptions sweep;
     CLI::App* sweep_cmd = app.add_subcommand(
@@ -119,8 +145,9 @@ int main(int argc, char** argv) {
                   "Example: rendezvous render layouts/sfg-bbo.json --png sfg.png --svg sfg.svg");
     render_cmd->add_option("layout", render.layout, "layout file (JSON)");
     render_cmd->add_flag("--demo", render.demo, "use the SFG demo built into the program");
-    render_cmd->add_option("--png", render.png, "write the frame here as PNG (atomically)");
-    render_cmd->add_option("--svg", render.svg, "write the table here as SVG (atomically)");
+    render_cmd->add_option("--png", render.png, "write the frame here as PNG");
+    render_cmd->add_option("--svg", render.svg, "write the table here as SVG");
+    render_cmd->footer(kWriting);
     render_cmd->add_option("--size", render_size, "frame size WxH in pixels (default 1600x1000)");
     render_cmd->add_option("--threads", render.threads, "rasterizer threads (the image is the same)")->check(CLI::Range(1, 16));
 

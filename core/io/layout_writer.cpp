@@ -2,8 +2,10 @@
 
 #include <cmath>
 #include <nlohmann/json.hpp>
+#include <stdexcept>
 
 #include "io/atomic_file.hpp"
+#include "io/layout_reader.hpp"
 
 namespace rv {
 
@@ -164,9 +166,8 @@ std::string inline_text(const ojson& v) {
     return v.dump();
 }
 
-}  // namespace
-
-std::string write_layout(const Layout& layout) {
+// The layout as a JSON tree, keys in the documented order.
+ojson layout_json(const Layout& layout) {
     ojson root;
     root["format"] = "rendezvous-layout";
     root["version"] = 1;
@@ -241,7 +242,30 @@ std::string write_layout(const Layout& layout) {
         goals["solve"] = j;
     }
     if (!goals.empty()) root["goals"] = goals;
+    return root;
+}
 
+// The JSON pointer of the first number in `v` that is NaN or infinite, or "".
+std::string first_non_finite(const ojson& v, const std::string& pointer) {
+    if (v.is_number_float() && !std::isfinite(v.get<double>()))
+        return pointer.empty() ? "/" : pointer;
+    if (v.is_object())
+        for (const auto& item : v.items())
+            if (std::string p = first_non_finite(item.value(), pointer + "/" + item.key());
+                !p.empty())
+                return p;
+    if (v.is_array())
+        for (size_t i = 0; i < v.size(); ++i)
+            if (std::string p = first_non_finite(v[i], pointer + "/" + std::to_string(i));
+                !p.empty())
+                return p;
+    return "";
+}
+
+}  // namespace
+
+std::string write_layout(const Layout& layout) {
+    const ojson root = layout_json(layout);
     std::string out = "{\n";
     size_t i = 0;
     for (const auto& item : root.items()) {
@@ -260,8 +284,27 @@ std::string write_layout(const Layout& layout) {
     return out + "}\n";
 }
 
-void save_layout(const Layout& layout, const std::filesystem::path& path) {
-    write_file_atomically(path, write_layout(layout));
+std::string unwritable_reason(const Layout& layout) {
+    const std::string pointer = first_non_finite(layout_json(layout), "");
+    if (pointer.empty()) return "";
+    return "the layout holds a value that is not a finite number (NaN or infinity) at " + pointer +
+           ", which a layout file cannot hold";
+}
+
+std::string unreadable_reason(std::string_view text) {
+    const LayoutReadResult r = read_layout(text);
+    for (const Diagnostic& d : r.diagnostics)
+        if (d.severity == Diagnostic::Severity::Error)
+            return printable_text((d.pointer.empty() ? "" : d.pointer + ": ") + d.message,
+                                  kMaxShownChars);
+    return r.layout ? "" : "it is not a layout";
+}
+
+void save_layout(const Layout& layout, const std::filesystem::path& path, SafeWriteRules rules) {
+    if (const std::string why = unwritable_reason(layout); !why.empty())
+        throw std::runtime_error("cannot write " + path.string() + ": " + why);
+    rules.check_read_back = unreadable_reason;
+    write_file_safely(path, write_layout(layout), rules);
 }
 
 }  // namespace rv

@@ -86,9 +86,10 @@ TEST_CASE("saving is atomic and leaves no temporary file", "[writer]") {
     for (auto it = std::filesystem::directory_iterator(dir); it != std::filesystem::directory_iterator(); ++it) ++files;
     CHECK(files == 1);
     // A folder that does not exist: a clear error naming the path, nothing written.
-    CHECK_THROWS_WITH(rv::save_layout(*r.layout, dir / "missing" / "x.json"),
-                      Catch::Matchers::StartsWith("cannot save " + (dir / "missing" / "x.json").string() +
-                                                  ": creating a temporary file"));
+    CHECK_THROWS_WITH(
+        rv::save_layout(*r.layout, dir / "missing" / "x.json"),
+        Catch::Matchers::StartsWith("cannot write " + (dir / "missing" / "x.json").string() +
+                                    ": creating a temporary file"));
     std::filesystem::remove_all(dir);
 }
 
@@ -108,7 +109,7 @@ TEST_CASE("a save removes the stale temporary files of killed saves", "[writer]"
     const auto stale = touch(".copy.json.tmp-abc123", rv::kStaleTemporary + std::chrono::minutes(1));
     const auto young = touch(".copy.json.tmp-def456", std::chrono::minutes(1));
     const auto other = touch(".other.json.tmp-ghi789", rv::kStaleTemporary + std::chrono::minutes(1));
-    rv::write_file_atomically(dir / "copy.json", "new");
+    rv::write_file_safely(dir / "copy.json", "new");
     CHECK_FALSE(std::filesystem::exists(stale));
     CHECK(std::filesystem::exists(young));
     CHECK(std::filesystem::exists(other));

@@ -19,10 +19,14 @@ int run_calibrate(const CalibrateOptions& options, std::ostream& out, std::ostre
         err << options.layout << ": error: " << e.what() << "\n";
         return 2;
     }
-    if (!save_layout_or_report(c->layout, options.output, err)) return 2;
-    out << "stage " << c->stage << ": zero measured at " << options.zero_mm << " mm; the model put "
+    if (!save_layout_or_report(c->layout, options.output, keep_input(options.layout), out, err))
+        return 2;
+    // With --write -, standard output holds the layout alone.
+    (options.output == "-" ? err : out)
+        << "stage " << c->stage << ": zero measured at " << options.zero_mm << " mm; the model put "
         << c->emission_offset_fs << " fs of delay there, now written into " << c->layout.beams[0].id
-        << "'s emit_time_fs (" << c->layout.beams[0].emit_time_fs << " fs) in " << options.output << "\n";
+        << "'s emit_time_fs (" << c->layout.beams[0].emit_time_fs << " fs) in "
+        << (options.output == "-" ? "standard output" : options.output) << "\n";
     return 0;
 }
 

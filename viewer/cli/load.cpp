@@ -14,14 +14,35 @@ std::optional<Layout> load_layout(const std::string& path, std::ostream& err) {
     return r.layout;
 }
 
-bool save_layout_or_report(const Layout& layout, const std::string& path, std::ostream& err) {
+bool save_layout_or_report(const Layout& layout, const std::string& path,
+                           const SafeWriteRules& rules, std::ostream& out, std::ostream& err) {
+    if (path == "-") {
+        // The same checks as a file's, so that what is printed reads back too.
+        const std::string text = write_layout(layout);
+        std::string why = unwritable_reason(layout);
+        if (why.empty()) why = unreadable_reason(text);
+        if (!why.empty()) {
+            err << "rendezvous: cannot write standard output: " << why << "\n";
+            return false;
+        }
+        out << text << std::flush;
+        return true;
+    }
     try {
-        save_layout(layout, path);
+        save_layout(layout, path, rules);
         return true;
     } catch (const std::runtime_error& e) {
-        err << "rendezvous: error: " << e.what() << "\n";
+        err << "rendezvous: " << e.what() << "\n";
         return false;
     }
+}
+
+SafeWriteRules keep_input(const std::string& input) {
+    SafeWriteRules rules;
+    rules.must_not_be = input;
+    rules.how_to_replace_it =
+        "to replace it on purpose, write elsewhere and then move that file over it";
+    return rules;
 }
 
 Layout demo_layout() {

@@ -20,20 +20,23 @@ int run_polarize(const PolarizeOptions& o, std::ostream& out, std::ostream& err)
         err << o.layout << ": error: " << r.error << "\n";
         return 2;
     }
+    // With --write -, standard output holds the layout alone: the summary goes to stderr.
+    std::ostream& say = o.output == "-" ? err : out;
     char line[320];
     std::snprintf(line, sizeof line, "%s: fast axis %.2f° → %.2f°; %s at the target %.2f → %.2f mW", o.plate.c_str(),
                   r.angle_before_deg, r.angle_deg, r.beam.c_str(), r.power_before_mw, r.power_mw);
-    out << line;
+    say << line;
     if (r.useful_before_mw > 0 || r.useful_mw > 0) {
         std::snprintf(line, sizeof line, ", in the polarization the crystal needs %.2f → %.2f mW", r.useful_before_mw,
                       r.useful_mw);
-        out << line;
+        say << line;
     }
-    out << "\n";
-    if (!r.reached) out << "the wanted power cannot be reached with this plate; this is the closest\n";
+    say << "\n";
+    if (!r.reached)
+        say << "the wanted power cannot be reached with this plate; this is the closest\n";
     if (!o.output.empty()) {
-        if (!save_layout_or_report(r.layout, o.output, err)) return 2;
-        out << "wrote " << o.output << "\n";
+        if (!save_layout_or_report(r.layout, o.output, keep_input(o.layout), out, err)) return 2;
+        if (o.output != "-") say << "wrote " << o.output << "\n";
     }
     return 0;
 }

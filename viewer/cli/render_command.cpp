@@ -18,17 +18,21 @@ int run_render(const RenderOptions& o, std::ostream& out, std::ostream& err) {
     if (!layout) return 2;
     const RendezvousReport report = build_report(*layout, material_library_for(*layout));
     const scene::Scene scene = scene::build_scene(*layout, report);
+    // An image never replaces the layout it was drawn from.
+    const SafeWriteRules rules = o.demo ? SafeWriteRules{} : keep_input(o.layout);
     try {
         if (!o.png.empty()) {
-            render::save_png(render::render_frame(*layout, report, scene, o.width, o.height, o.threads), o.png);
+            render::save_png(
+                render::render_frame(*layout, report, scene, o.width, o.height, o.threads), o.png,
+                rules);
             out << "wrote " << o.png << " (" << o.width << "x" << o.height << ")\n";
         }
         if (!o.svg.empty()) {
-            write_file_atomically(o.svg, scene::write_svg(scene));
+            write_file_safely(o.svg, scene::write_svg(scene), rules);
             out << "wrote " << o.svg << "\n";
         }
     } catch (const std::runtime_error& e) {
-        err << "rendezvous: error: " << e.what() << "\n";
+        err << "rendezvous: " << e.what() << "\n";  // "cannot write PATH: REASON"
         return 2;
     }
     return 0;

@@ -33,26 +33,30 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
         err << o.layout << ": error: " << r.error << "\n";
         return 2;
     }
+    // With --write -, standard output holds the layout alone: the ranking goes to stderr.
+    std::ostream& say = o.output == "-" ? err : out;
     char line[256];
     std::snprintf(line, sizeof line, "%zu combination(s) searched in %.2f s; best %zu:\n", r.combinations, seconds,
                   r.solutions.size());
-    out << line;
+    say << line;
     for (size_t i = 0; i < r.solutions.size(); ++i) {
         const TelescopeSolution& s = r.solutions[i];
         std::snprintf(line, sizeof line, "%2zu. residual %.3g, sensitivity %.3g mm/mm, total move %.2f mm:", i + 1,
                       s.residual, s.sensitivity_mm_per_mm, s.total_move_mm);
-        out << line;
-        for (const auto& [id, lens] : s.swaps) out << " " << id << " = " << lens << ";";
+        say << line;
+        for (const auto& [id, lens] : s.swaps) say << " " << id << " = " << lens << ";";
         for (const auto& [id, move] : s.moves_mm) {
             std::snprintf(line, sizeof line, " move %s by %+.3f mm;", id.c_str(), move);
-            out << line;
+            say << line;
         }
-        out << "\n";
-        for (const std::string& v : s.violations) out << "      breaks a constraint: " << v << "\n";
+        say << "\n";
+        for (const std::string& v : s.violations) say << "      breaks a constraint: " << v << "\n";
     }
     if (!o.output.empty() && !r.solutions.empty()) {
-        if (!save_layout_or_report(r.solutions.front().layout, o.output, err)) return 2;
-        out << "wrote the best solution to " << o.output << "\n";
+        if (!save_layout_or_report(r.solutions.front().layout, o.output, keep_input(o.layout), out,
+                                   err))
+            return 2;
+        if (o.output != "-") say << "wrote the best solution to " << o.output << "\n";
     }
     return 0;
 }

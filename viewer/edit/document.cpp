@@ -2,7 +2,6 @@
 
 #include <system_error>
 
-#include "io/atomic_file.hpp"
 #include "io/layout_reader.hpp"
 #include "io/layout_writer.hpp"
 
@@ -114,9 +113,9 @@ bool Document::save(std::string& error) {
 bool Document::save_as(const std::filesystem::path& path, std::string& error) {
     finish_open_gesture();  // what is saved is what is shown, as one step
     try {
-        save_layout(layout_, path);
+        save_layout(layout_, path);  // through a link to its target; never over the link itself
     } catch (const std::exception& e) {
-        error = "cannot save " + path.string() + ": " + e.what();
+        error = e.what();  // "cannot write PATH: REASON"
         return false;
     }
     std::error_code ignored;
@@ -135,9 +134,10 @@ std::filesystem::path Document::recovery_path_for(const std::optional<std::files
 bool Document::autosave(std::string& error) {
     if (!dirty_) return true;
     try {
-        write_file_atomically(recovery_path(), write_layout(layout_));
+        // Checked like a save: a recovery file always reads back.
+        save_layout(layout_, recovery_path());
     } catch (const std::exception& e) {
-        error = "cannot write the recovery file " + recovery_path().string() + ": " + e.what();
+        error = std::string("the recovery file: ") + e.what();
         return false;
     }
     return true;

@@ -56,7 +56,8 @@ public:
     void undo();
     void redo();
 
-    // Atomic saves (core/io/atomic_file); false with `error` set when the file cannot be written.
+    // Saves through core/io/atomic_file.hpp (atomic, through links, read back); false with `error`
+    // set when the file cannot be written.
     bool save(std::string& error);
     bool save_as(const std::filesystem::path& path, std::string& error);
 

@@ -39,7 +39,7 @@ bool save_recent(const std::filesystem::path& file, const std::vector<std::strin
         std::filesystem::create_directories(file.parent_path(), ec);
         std::string text;
         for (const std::string& p : list) text += p + "\n";
-        write_file_atomically(file, text);
+        write_file_safely(file, text);
         return true;
     } catch (const std::exception&) {
         return false;

@@ -9,7 +9,8 @@ namespace rv::render {
 
 std::string export_document(const edit::Document& doc, const std::filesystem::path& path, bool svg, int threads) {
     try {
-        if (svg) write_file_atomically(path, scene::write_svg(doc.scene()));
+        if (svg)
+            write_file_safely(path, scene::write_svg(doc.scene()));
         else save_png(render_frame(doc.layout(), doc.report(), doc.scene(), 1600, 1000, threads), path);
     } catch (const std::exception& e) {
         return std::string("cannot export: ") + e.what();

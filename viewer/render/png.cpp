@@ -20,9 +20,11 @@ std::vector<std::uint8_t> encode_png(const Framebuffer& fb) {
     return out;
 }
 
-void save_png(const Framebuffer& fb, const std::filesystem::path& path) {
+void save_png(const Framebuffer& fb, const std::filesystem::path& path,
+              const SafeWriteRules& rules) {
     const std::vector<std::uint8_t> bytes = encode_png(fb);
-    write_file_atomically(path, std::string_view(reinterpret_cast<const char*>(bytes.data()), bytes.size()));
+    write_file_safely(
+        path, std::string_view(reinterpret_cast<const char*>(bytes.data()), bytes.size()), rules);
 }
 
 }  // namespace rv::render
