@@ -25,7 +25,7 @@ struct PowerLoss {
     std::string goes_to;  // cube reflections: where the reflected beam ends; "" otherwise
     bool leaves_table = false;  // a reflected beam that leaves the table (a stray beam)
     Vec2 exit_mm{0, 0};         // where it leaves the table
-    std::vector<Vec2> branch_mm;  // cube reflections: the traced path of the reflected beam
+    std::vector<Vec2> branch_mm = {};  // cube reflections: the traced path of the reflected beam
 };
 
 struct WavePlatePass {

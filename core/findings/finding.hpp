@@ -40,16 +40,16 @@ struct Finding {
     };
 
     Kind kind = Kind::NoTarget;
-    std::string element;     // element id, "" when none
+    std::string element = {};  // element id, "" when none
     Vec2 where_mm{0, 0};
     double amount = 0;       // by kind, see above
     double limit = 0;        // by kind, see above
-    std::optional<double> crossing_mm;  // MissedOptic
-    std::string material;    // MaterialOutOfRange, NoRealIndex: the material's name
+    std::optional<double> crossing_mm = {};  // MissedOptic
+    std::string material = {};  // MaterialOutOfRange, NoRealIndex: the material's name
     double wavelength_nm = 0;                        // MaterialOutOfRange, NoRealIndex
     double range_min_nm = 0, range_max_nm = 0;       // MaterialOutOfRange
-    std::string element_type;  // HitBackOfOptic: the element's type name ("mirror", …)
-    std::string beam;          // the beam's id; set by the report (a path knows its beam by index)
+    std::string element_type = {};  // HitBackOfOptic: the element's type name ("mirror", …)
+    std::string beam = {};     // the beam's id; set by the report (a path knows its beam by index)
 };
 
 // The stable code printed and written for each kind ("missed-optic", …), and its severity.

@@ -55,7 +55,11 @@ std::string format_diagnostic(const Diagnostic& d, std::string_view file) {
     std::string out(file);
     if (d.line > 0) out += ":" + std::to_string(d.line) + ":" + std::to_string(d.column);
     out += d.severity == Diagnostic::Severity::Error ? ": error: " : ": warning: ";
-    if (!d.pointer.empty()) out += printable_text(d.pointer, kMaxShownChars) + ": ";
+    if (!d.pointer.empty()) {
+        out += printable_text(d.pointer, kMaxShownChars);
+        if (!d.subject.empty()) out += " (" + printable_text(d.subject, kMaxShownChars) + ")";
+        out += ": ";
+    }
     out += printable_text(d.message, kMaxShownChars);
     return out;
 }

@@ -1,6 +1,6 @@
 #pragma once
 // A located problem in an input: what a user sees when a file or a value is wrong.
-// Rendered as "FILE: error: /elements/3/focal_length_mm: must be non-zero (got 0)", or with
+// Rendered as "FILE: error: /elements/3/focal_length_mm (L2): must be non-zero (got 0)", or with
 // "FILE:LINE:COLUMN: error: ..." for syntax errors, where the pointer is unknown.
 
 #include <string>
@@ -16,6 +16,7 @@ struct Diagnostic {
     int line = 0;         // 1-based; 0 when not known
     int column = 0;
     std::string message;  // one plain sentence: what was expected, what was found
+    std::string subject = {};  // the id of the element or beam the pointer lies in, "" when none
     bool operator==(const Diagnostic&) const = default;
 };
 
@@ -28,8 +29,8 @@ bool has_errors(const Diagnostics& diagnostics);
 inline constexpr size_t kMaxShownChars = 300;
 std::string printable_text(std::string_view text, size_t max_chars);
 
-// "FILE: error: POINTER: MESSAGE" (or "FILE:LINE:COL: error: MESSAGE"), pointer and message
-// through printable_text.
+// "FILE: error: POINTER (SUBJECT): MESSAGE" (or "FILE:LINE:COL: error: MESSAGE"), pointer,
+// subject and message through printable_text.
 std::string format_diagnostic(const Diagnostic& d, std::string_view file);
 
 }  // namespace rv

@@ -151,6 +151,20 @@ std::optional<double> FieldReader::number(const std::string& key, Need need,
     return check_number(*v, pointer(key), rule);
 }
 
+std::optional<double> FieldReader::wavelength_nm(const std::string& key, Need need) {
+    const std::optional<double> v = number(key, need, positive());
+    if (!v || (*v >= kMinWavelength_nm && *v <= kMaxWavelength_nm)) return v;
+    // A unit slip: the same number in µm or pm would be a wavelength.
+    std::string likely;
+    if (*v * 1e3 >= kMinWavelength_nm && *v * 1e3 <= kMaxWavelength_nm)
+        likely = " — micrometres? " + number_text(*v) + " µm is " + number_text(*v * 1e3) + " nm";
+    else if (*v * 1e-3 >= kMinWavelength_nm && *v * 1e-3 <= kMaxWavelength_nm)
+        likely = " — picometres? " + number_text(*v) + " pm is " + number_text(*v * 1e-3) + " nm";
+    error(key, "must be a wavelength between " + number_text(kMinWavelength_nm) + " and " +
+                   number_text(kMaxWavelength_nm) + " nm (got " + number_text(*v) + likely + ")");
+    return std::nullopt;
+}
+
 std::optional<std::string> FieldReader::string(const std::string& key, Need need) {
     const nlohmann::json* v = get(key, need, nlohmann::json::value_t::string, "a string");
     if (!v) return std::nullopt;

@@ -20,6 +20,9 @@ enum class Need { Required, Optional };
 // A rule a number must obey: returns "" when it does, else what it must be ("must be positive").
 using NumberRule = std::function<std::string(double)>;
 inline constexpr double kSmallestPositive = 1e-9;  // in the unit of the field
+// The wavelengths a layout may use: vacuum ultraviolet to the mid infrared, wider than any
+// bundled material's data (common practice: tabletop sources and their harmonics).
+inline constexpr double kMinWavelength_nm = 150, kMaxWavelength_nm = 20000;
 NumberRule positive();  // > 0 and at least kSmallestPositive
 NumberRule non_zero();
 NumberRule at_least(double minimum);
@@ -49,6 +52,9 @@ public:
     std::string pointer(const std::string& key) const { return child_pointer(pointer_, key); }
 
     std::optional<double> number(const std::string& key, Need need, const NumberRule& rule = {});
+    // A wavelength in nm, within [kMinWavelength_nm, kMaxWavelength_nm]; outside it, the
+    // message names the unit the number was likely written in ("0.8 — micrometres?").
+    std::optional<double> wavelength_nm(const std::string& key, Need need);
     std::optional<std::string> string(const std::string& key, Need need);
     std::optional<std::string> choice(const std::string& key, Need need,
                                       const std::vector<std::string>& options);

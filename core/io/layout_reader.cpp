@@ -223,7 +223,7 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     FieldReader f(v, ptr, "a beam", out_);
     BeamSource b;
     b.id = f.string("id", Need::Required).value_or("");
-    b.wavelength_nm = f.number("wavelength_nm", Need::Required, positive()).value_or(0);
+    b.wavelength_nm = f.wavelength_nm("wavelength_nm", Need::Required).value_or(0);
     b.start_mm = f.point("start_mm", Need::Required).value_or(Vec2(0, 0));
     b.direction_deg = f.number("direction_deg", Need::Required).value_or(0);
     b.waist_um = f.plane_pair("waist_um", Need::Required, positive()).value_or(PlanePair{});
@@ -266,7 +266,7 @@ std::optional<std::string> Reader::material_name(FieldReader& f, const std::stri
     if (!name) return std::nullopt;
     if (library_.find(*name)) return name;
     std::string message = "unknown material \"" + *name + "\"";
-    if (const auto near = closest_name(*name, library_.names()))
+    if (const auto near = closest_catalogue_name(*name, library_.names()))
         message += "; did you mean \"" + *near + "\"?";
     f.error(key, message);
     return std::nullopt;
@@ -283,14 +283,14 @@ std::optional<Lens> Reader::read_lens(FieldReader& f) {
             return focal ? std::optional<Lens>(Lens{IdealLens{*focal}}) : std::nullopt;
         }
         const auto glass = material_name(f, "glass");
-        const double design = f.number("design_wavelength_nm", Need::Optional, positive()).value_or(587.6);
+        const double design = f.wavelength_nm("design_wavelength_nm", Need::Optional).value_or(587.6);
         if (!focal || !glass) return std::nullopt;
         return Lens{ThinChromaticLens{*focal, *glass, design}};
     }
     ThickLens t;
     const auto glass = material_name(f, "glass");
     const auto thickness = f.number("center_thickness_mm", Need::Required, positive());
-    t.design_wavelength_nm = f.number("design_wavelength_nm", Need::Optional, positive()).value_or(587.6);
+    t.design_wavelength_nm = f.wavelength_nm("design_wavelength_nm", Need::Optional).value_or(587.6);
     constexpr double flat = std::numeric_limits<double>::infinity();
     if (f.has("shape")) {
         f.forbid_together("front_radius_mm", "shape");
@@ -348,7 +348,7 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
     }
     if (type == "dichroic") {
         Dichroic d;
-        d.edge_nm = f.number("edge_nm", Need::Required, positive()).value_or(0);
+        d.edge_nm = f.wavelength_nm("edge_nm", Need::Required).value_or(0);
         d.reflects_shorter = f.choice("reflects", Need::Required, {"shorter", "longer"})
                                  .value_or("shorter") == "shorter";
         if (const json* s = f.object("substrate", Need::Required)) {
@@ -389,8 +389,8 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
         p.fast_axis_deg = f.number("fast_axis_deg", Need::Optional).value_or(0);
         if (wave) {
             p.retarder_thickness_um = f.number("retarder_thickness_um", Need::Optional, positive()).value_or(0);
-            p.design_nm = f.number("design_nm", p.retarder_thickness_um > 0 ? Need::Optional : Need::Required,
-                                   positive()).value_or(0);
+            p.design_nm = f.wavelength_nm("design_nm", p.retarder_thickness_um > 0 ? Need::Optional : Need::Required)
+                              .value_or(0);
             if (f.has("retarder_material")) {
                 p.retarder_material = material_name(f, "retarder_material").value_or("");
                 const Material* m = library_.find(p.retarder_material);
@@ -525,11 +525,21 @@ void Reader::check_references(const json& doc, Layout& layout) {
         return child_pointer(child_pointer("/elements", index_of[id]), key);
     };
     auto is_element = [&](const std::string& id) { return layout.find(id) != nullptr; };
+    // "no element has id …", with the closest id when it looks like a typo.
+    std::vector<std::string> ids;
+    for (const auto& [id, i] : index_of) ids.push_back(id);
+    size_t suggestions = 0;  // a hostile file's thousands of bad references get no search each
+    auto no_element = [&](const std::string& id) {
+        std::string m = "no element has id \"" + id + "\"";
+        if (id.size() <= 64 && ++suggestions <= 20)
+            if (const auto near = closest_name(id, ids)) m += "; did you mean \"" + *near + "\"?";
+        return m;
+    };
     std::map<std::string, std::string> carried_by;
     for (const Element& e : layout.elements) {
         if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->aim_at) {
             if (!index_of.count(*m->aim_at))
-                error(pointer_of(e.id, "aim_at"), "no element has id \"" + *m->aim_at + "\"");
+                error(pointer_of(e.id, "aim_at"), no_element(*m->aim_at));
             else if (*m->aim_at == e.id)
                 error(pointer_of(e.id, "aim_at"), "a mirror cannot aim at itself");
             else if (is_element(*m->aim_at) && std::holds_alternative<Stage>(layout.find(*m->aim_at)->kind))
@@ -542,7 +552,7 @@ void Reader::check_references(const json& doc, Layout& layout) {
                 if (c == e.id) {
                     error(ptr, "a stage cannot carry itself");
                 } else if (!index_of.count(c)) {
-                    error(ptr, "no element has id \"" + c + "\"");
+                    error(ptr, no_element(c));
                 } else if (is_element(c) && std::holds_alternative<Stage>(layout.find(c)->kind)) {
                     error(ptr, "a stage cannot carry another stage (\"" + c + "\")");
                 } else if (carried_by.count(c)) {
@@ -555,7 +565,7 @@ void Reader::check_references(const json& doc, Layout& layout) {
     }
     if (!layout.target.empty()) {
         if (!index_of.count(layout.target)) {
-            error("/target", "no element has id \"" + layout.target + "\"");
+            error("/target", no_element(layout.target));
         } else if (const Element* t = layout.find(layout.target);
                    t && !std::holds_alternative<Crystal>(t->kind) &&
                    !std::holds_alternative<Target>(t->kind)) {
@@ -567,14 +577,14 @@ void Reader::check_references(const json& doc, Layout& layout) {
         for (const auto& [id, range] : layout.goals.solve->move) {
             (void)range;
             const std::string ptr = child_pointer("/goals/solve/move", id);
-            if (!index_of.count(id)) error(ptr, "no element has id \"" + id + "\"");
+            if (!index_of.count(id)) error(ptr, no_element(id));
             else if (is_element(id) && std::holds_alternative<Stage>(layout.find(id)->kind))
                 error(ptr, "\"" + id + "\" is a stage; move it with its position_mm");
         }
         for (size_t i = 0; i < layout.goals.solve->swap.size(); ++i) {
             const std::string& id = layout.goals.solve->swap[i];
             const std::string ptr = child_pointer("/goals/solve/swap", i);
-            if (!index_of.count(id)) error(ptr, "no element has id \"" + id + "\"");
+            if (!index_of.count(id)) error(ptr, no_element(id));
             else if (is_element(id) && !std::holds_alternative<Lens>(layout.find(id)->kind))
                 error(ptr, "\"" + id + "\" is not a lens; only lenses can be swapped");
         }
@@ -631,6 +641,26 @@ void line_and_column(std::string_view text, size_t byte, int& line, int& column)
     }
 }
 
+// Each diagnostic inside /elements/N or /beams/N names that element's or beam's id (when it has
+// a string id), so that "/elements/5" reads "/elements/5 (L2_S)".
+void name_subjects(const json& doc, Diagnostics& diagnostics) {
+    if (!doc.is_object()) return;
+    for (Diagnostic& d : diagnostics) {
+        for (const char* list : {"elements", "beams"}) {
+            const std::string prefix = std::string("/") + list + "/";
+            if (d.pointer.rfind(prefix, 0) != 0) continue;
+            const size_t end = d.pointer.find('/', prefix.size());
+            const std::string index = d.pointer.substr(prefix.size(), end == std::string::npos ? std::string::npos : end - prefix.size());
+            if (index.empty() || index.size() > 9 || index.find_first_not_of("0123456789") != std::string::npos) continue;
+            const auto it = doc.find(list);
+            const size_t i = std::stoul(index);
+            if (it == doc.end() || !it->is_array() || i >= it->size()) continue;
+            const json& item = (*it)[i];
+            if (item.is_object() && item.contains("id") && item["id"].is_string()) d.subject = item["id"].get<std::string>();
+        }
+    }
+}
+
 std::string too_large(std::uintmax_t bytes) {
     return "the file has " + std::to_string(bytes) + " bytes; a layout may have at most " +
            std::to_string(kMaxLayoutBytes) + " (16 MiB)";
@@ -669,6 +699,7 @@ LayoutReadResult read_layout(std::string_view text) {
     }
     Reader reader(result.diagnostics);
     result.layout = reader.read(doc);
+    name_subjects(doc, result.diagnostics);
     return result;
 }
 
