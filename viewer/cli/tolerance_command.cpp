@@ -3,11 +3,13 @@
 #include <cstdio>
 #include <ostream>
 #include <thread>
+#include <vector>
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "io/layout_reader.hpp"
 #include "solve/tolerance.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::cli {
 
@@ -29,17 +31,33 @@ int run_tolerance(const ToleranceOptions& o, std::ostream& out, std::ostream& er
     out << line;
     out << "Sensitivity (per mm, per mrad, or per unit fraction of focal length)\n"
         << "  perturbation                 tol       d waist offset  d waist ratio  d lateral um  d delay fs   d overlap\n";
+    // Each sensitivity column's scale, for the shared zero rule (units/number_text.hpp): a
+    // finite difference of a figure that does not change prints 0, not its rounding residue.
+    const auto figure_columns = {&Figures::waist_offset_mm, &Figures::waist_ratio, &Figures::lateral_um,
+                                 &Figures::delay_fs, &Figures::overlap};
+    std::vector<double> scale;
+    for (double Figures::*figure : figure_columns) {
+        std::vector<double> column;
+        for (const SensitivityRow& s : r.sensitivity) column.push_back(s.per_unit.*figure);
+        scale.push_back(column_scale(column));
+    }
     for (const SensitivityRow& s : r.sensitivity) {
-        std::snprintf(line, sizeof line, "  %-28s %-9.3g %+-15.4g %+-14.4g %+-13.4g %+-12.4g %+.4g\n", s.label.c_str(),
-                      s.tolerance, s.per_unit.waist_offset_mm, s.per_unit.waist_ratio, s.per_unit.lateral_um,
-                      s.per_unit.delay_fs, s.per_unit.overlap);
+        std::vector<std::string> cells;
+        size_t c = 0;
+        for (double Figures::*figure : figure_columns) cells.push_back(format_number("%+.4g", s.per_unit.*figure, scale[c++]));
+        std::snprintf(line, sizeof line, "  %-28s %-9s %-15s %-14s %-13s %-12s %s\n", s.label.c_str(),
+                      format_number("%.3g", s.tolerance).c_str(), cells[0].c_str(), cells[1].c_str(), cells[2].c_str(),
+                      cells[3].c_str(), cells[4].c_str());
         out << line;
     }
     std::snprintf(line, sizeof line, "\nMonte Carlo: %zu samples (seed %llu), %zu missed the target, %.2f s on %d threads\n",
                   r.samples, static_cast<unsigned long long>(o.seed), r.failed, seconds, threads);
     out << line << "  figure             nominal      5 %          50 %         95 %\n";
     auto row = [&](const char* name, double nominal, const Spread& s) {
-        std::snprintf(line, sizeof line, "  %-18s %-12.4g %-12.4g %-12.4g %-12.4g\n", name, nominal, s.p5, s.p50, s.p95);
+        const double row_scale = column_scale({nominal, s.p5, s.p50, s.p95});
+        auto cell = [&](double v) { return format_number("%.4g", v, row_scale); };
+        std::snprintf(line, sizeof line, "  %-18s %-12s %-12s %-12s %-12s\n", name, cell(nominal).c_str(),
+                      cell(s.p5).c_str(), cell(s.p50).c_str(), cell(s.p95).c_str());
         out << line;
     };
     row("waist offset mm", r.nominal.waist_offset_mm, r.waist_offset_mm);
