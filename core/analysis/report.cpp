@@ -2,7 +2,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 
 #include "analysis/crystal_waves.hpp"
 #include "analysis/plate_angle_search.hpp"
@@ -13,16 +12,15 @@
 #include "trace/crystal_axes.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
+#include "units/number_text.hpp"
 
 namespace rv {
 
 namespace {
 
-std::string fmt(const char* format, double a) {
-    char buf[96];
-    std::snprintf(buf, sizeof buf, format, a);
-    return buf;
-}
+// Every number of the report's sentences by the shared rule (units/number_text.hpp): no "-0",
+// no residue such as 1e-13 for a zero, "n/a" for NaN.
+std::string fmt(const char* format, double a) { return format_number(format, a); }
 
 
 std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary& library,
@@ -560,8 +558,8 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         v.time.met = std::abs(d) <= t.max_delay_xcorr * xcorr;
         add_figure(v, "delay / cross-correlation", std::abs(d) / xcorr, t.max_delay_xcorr, false,
                    "|arrival of beam 1 − beam 2| over sqrt(τ1² + τ2²), the FWHM of the two pulses' cross-correlation");
-        v.time.summary = "delay " + fmt("%+.1f", d) + " fs = " + fmt("%.2f", std::abs(d) / xcorr) +
-                         " of the cross-correlation width (" + fmt("%.0f", xcorr) + " fs)";
+        v.time.summary = "delay " + format_duration_fs(d, true) + " = " + fmt("%.2f", std::abs(d) / xcorr) +
+                         " of the cross-correlation width (" + format_duration_fs(xcorr) + ")";
         if (!v.time.met) {
             if (r.stage && r.stage->zero_in_travel)
                 v.time.action = "move stage " + r.stage->id + " by " + fmt("%+.3f", r.stage->move_mm) + " mm (to " +
@@ -579,9 +577,11 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     } else if (both) {
         v.time.met = false;
         v.time.summary = "not evaluated: give pulse_fwhm_fs for both beams";
+    } else if (r.beams.size() == 1) {
+        v.time.applies = false;
+        v.time.summary = "one beam: no delay to match";
     } else {
-        v.time.met = r.beams.size() == 1;
-        v.time.summary = r.beams.size() == 1 ? "one beam: no delay to match" : "a beam does not reach the target";
+        v.time.summary = "a beam does not reach the target";
     }
 
     if (!r.phase_matching.empty()) {
@@ -605,12 +605,24 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
             if (!p.polarizations_suit)
                 v.phase.action += (v.phase.action.empty() ? "" : "; ") + p.polarization_note;
         }
+    } else if (r.target_is_crystal) {
+        v.phase.summary = "the crystal's material is isotropic or the beams miss it";
     } else {
-        v.phase.met = !r.target_is_crystal;
-        v.phase.summary = r.target_is_crystal ? "the crystal's material is isotropic or the beams miss it"
-                                              : "the target is not a crystal: no phase matching";
+        v.phase.applies = false;
+        v.phase.summary = "the target is not a crystal";
     }
     return r;
 }
+
+const char* verdict_state_text(const VerdictLine& l) {
+    if (!l.applies) return "n/a";
+    return l.met ? "met" : "NOT MET";
+}
+
+std::string verdict_line_text(const VerdictLine& l) {
+    return std::string(verdict_state_text(l)) + (l.applies ? "  " : " — ") + l.summary;
+}
+
+bool verdict_passes(const VerdictLine& l) { return !l.applies || l.met; }
 
 }  // namespace rv

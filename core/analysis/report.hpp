@@ -137,10 +137,17 @@ struct FocusingReport {
 };
 
 struct VerdictLine {
-    bool met = false;
-    std::string summary;  // the number behind it
-    std::string action;   // what to do ("" when met)
+    bool applies = true;  // false when the question does not arise (phase without a crystal)
+    bool met = false;     // only when it applies
+    std::string summary;  // the number behind it, or why it does not apply
+    std::string action;   // what to do ("" when met or not applicable)
 };
+// "met", "NOT MET" or "n/a".
+const char* verdict_state_text(const VerdictLine& l);
+// The state and the summary in one line: "met  θ_pm …", "n/a — the target is not a crystal".
+std::string verdict_line_text(const VerdictLine& l);
+// What `report --check` asks of each line: met, or not applicable.
+bool verdict_passes(const VerdictLine& l);
 
 // One figure behind the verdict with its limit (goals.verdict): met within the limit, near
 // within 1.5 × the limit (or, for a minimum, above limit/1.5), not met beyond.

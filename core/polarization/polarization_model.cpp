@@ -105,24 +105,27 @@ PolarizationState describe(const Stokes& s) {
     p.v = (s[0] - s[1]) / 2;
     const double polarized = s.tail<3>().norm();
     p.degree = s[0] > 0 ? std::min(1.0, polarized / s[0]) : 0;
-    p.azimuth_deg = rad_to_deg(0.5 * std::atan2(s[2], s[1]));
-    if (p.azimuth_deg <= -90 + 1e-9) p.azimuth_deg += 180;
     p.ellipticity_deg = polarized > 0 ? rad_to_deg(0.5 * std::asin(std::clamp(s[3] / polarized, -1.0, 1.0))) : 0;
+    if (p.degree >= kUnpolarizedDegree && std::abs(p.ellipticity_deg) < kCircularEllipticityDeg) {
+        double azimuth = rad_to_deg(0.5 * std::atan2(s[2], s[1]));
+        if (azimuth <= -90 + 1e-9) azimuth += 180;
+        p.azimuth_deg = azimuth;
+    }
     return p;
 }
 
 std::string describe_text(const PolarizationState& p) {
     char text[96];
-    if (p.degree < 0.05) return "unpolarized";
+    if (p.degree < kUnpolarizedDegree) return "unpolarized";
     const char* partly = p.degree < 0.95 ? "partly polarized, " : "";
-    if (std::abs(p.ellipticity_deg) > 44) {
+    if (!p.azimuth_deg) {  // |χ| ≥ kCircularEllipticityDeg
         std::snprintf(text, sizeof text, "%scircular (%s)", partly, p.ellipticity_deg > 0 ? "right" : "left");
-    } else if (std::abs(p.ellipticity_deg) < 1) {
-        if (std::abs(p.azimuth_deg) < 0.5) std::snprintf(text, sizeof text, "%shorizontal", partly);
-        else if (std::abs(std::abs(p.azimuth_deg) - 90) < 0.5) std::snprintf(text, sizeof text, "%svertical", partly);
-        else std::snprintf(text, sizeof text, "%slinear at %.1f°", partly, p.azimuth_deg);
+    } else if (const double azimuth = *p.azimuth_deg; std::abs(p.ellipticity_deg) < 1) {
+        if (std::abs(azimuth) < 0.5) std::snprintf(text, sizeof text, "%shorizontal", partly);
+        else if (std::abs(std::abs(azimuth) - 90) < 0.5) std::snprintf(text, sizeof text, "%svertical", partly);
+        else std::snprintf(text, sizeof text, "%slinear at %.1f°", partly, azimuth);
     } else {
-        std::snprintf(text, sizeof text, "%selliptical, axis %.1f°, ellipticity %.1f°", partly, p.azimuth_deg,
+        std::snprintf(text, sizeof text, "%selliptical, axis %.1f°, ellipticity %.1f°", partly, azimuth,
                       p.ellipticity_deg);
     }
     return text;

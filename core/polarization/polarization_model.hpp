@@ -50,10 +50,17 @@ JonesMatrix mirror_jones(double retardance_rad);
 std::optional<double> retardance_waves(const Plate& plate, double wavelength_nm, const MaterialLibrary& library);
 
 // The state a Stokes vector describes: power in H and V, degree of polarization, azimuth of
-// the polarization ellipse (from H towards V, in (−90°, 90°]) and ellipticity angle (±45° circular).
+// the polarization ellipse (from H towards V, in (−90°, 90°]) and ellipticity angle χ (±45°
+// circular). Circular light has no azimuth: none is given for |χ| ≥ kCircularEllipticityDeg
+// (44°: axes within tan 44° = 0.966 of each other, common practice for "circular"), nor for
+// light polarized less than kUnpolarizedDegree (5 %).
+inline constexpr double kCircularEllipticityDeg = 44;
+inline constexpr double kUnpolarizedDegree = 0.05;
 struct PolarizationState {
     double power = 0, h = 0, v = 0;
-    double degree = 0, azimuth_deg = 0, ellipticity_deg = 0;
+    double degree = 0;
+    std::optional<double> azimuth_deg;
+    double ellipticity_deg = 0;
 };
 PolarizationState describe(const Stokes& s);
 std::string describe_text(const PolarizationState& p);  // "linear at 22.5°", "circular (right)", …

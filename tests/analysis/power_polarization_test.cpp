@@ -275,3 +275,29 @@ TEST_CASE("circular handedness follows the rotation of the real field", "[polari
     CHECK(rv::describe_text(rv::describe(rv::source_stokes({rv::Polarization::Kind::CircularRight, 0}, 1))) ==
           "circular (right)");
 }
+
+TEST_CASE("circular light is described with no azimuth", "[polarization]") {
+    // Issue 14 item 7: the azimuth of a circle means nothing. The threshold |χ| ≥ 44° (axes
+    // within tan 44° = 0.966 of each other) is our stated choice (common practice).
+    auto state = [](double ellipticity_deg, double azimuth_deg, double degree) {
+        const double c = rv::deg_to_rad(2 * ellipticity_deg), a = rv::deg_to_rad(2 * azimuth_deg);
+        return rv::describe(rv::Stokes(1, degree * std::cos(c) * std::cos(a), degree * std::cos(c) * std::sin(a),
+                                       degree * std::sin(c)));
+    };
+    const rv::PolarizationState right = state(45, 0, 1);
+    CHECK_FALSE(right.azimuth_deg.has_value());
+    CHECK(rv::describe_text(right) == "circular (right)");
+    const rv::PolarizationState nearly = state(-44.5, 30, 1);
+    CHECK_FALSE(nearly.azimuth_deg.has_value());
+    CHECK(rv::describe_text(nearly) == "circular (left)");
+    CHECK(rv::describe_text(state(44.5, 30, 0.5)) == "partly polarized, circular (right)");
+    const rv::PolarizationState elliptical = state(43, 30, 1);
+    REQUIRE(elliptical.azimuth_deg.has_value());
+    CHECK_THAT(*elliptical.azimuth_deg, near(30.0, 1e-9));
+    CHECK(rv::describe_text(elliptical) == "elliptical, axis 30.0°, ellipticity 43.0°");
+    CHECK(rv::describe_text(state(0, 22.5, 1)) == "linear at 22.5°");
+    // Unpolarized light has no azimuth either.
+    const rv::PolarizationState unpolarized = rv::describe(rv::Stokes(1, 0.01, 0, 0));
+    CHECK_FALSE(unpolarized.azimuth_deg.has_value());
+    CHECK(rv::describe_text(unpolarized) == "unpolarized");
+}

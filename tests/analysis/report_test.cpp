@@ -7,6 +7,7 @@
 #include "units/constants.hpp"
 
 #include <cmath>
+#include <cstdio>
 
 #include "support/layouts.hpp"
 
@@ -181,4 +182,45 @@ TEST_CASE("calibrating time zero predicts the new zero after a window is added",
     const double extra_fs = rv::group_delay_fs(ng - ng_air, 2.0);
     CHECK_THAT(after.stage->zero_delay_mm - calibrated.stage->zero_delay_mm,
                near(extra_fs / -after.stage->delay_per_mm_fs, 1e-6));
+}
+
+TEST_CASE("a verdict line that does not apply says n/a and passes the check", "[report][verdict]") {
+    // Issue 14 item 7: phase for a target that is not a crystal is not "met"; time with one beam
+    // has no delay to match.
+    const rv::RendezvousReport microscope = report(rv::test::bundled_layout("two-beam-microscope.json"));
+    const rv::VerdictLine& phase = microscope.verdict.phase;
+    CHECK_FALSE(phase.applies);
+    CHECK(std::string(rv::verdict_state_text(phase)) == "n/a");
+    CHECK(rv::verdict_line_text(phase) == "n/a — the target is not a crystal");
+    CHECK(phase.action.empty());
+    CHECK(rv::verdict_passes(phase));
+    CHECK(microscope.verdict.time.applies);
+
+    const rv::Layout one_beam = layout_from(rv::test::layout_json(
+        R"({"id": "b", "wavelength_nm": 800, "start_mm": [0, 500], "direction_deg": 0, "waist_um": 800})",
+        R"({"id": "T", "type": "target", "at_mm": [500, 500]})", "T"));
+    const rv::RendezvousReport single = report(one_beam);
+    CHECK(rv::verdict_line_text(single.verdict.time) == "n/a — one beam: no delay to match");
+    CHECK(rv::verdict_passes(single.verdict.time));
+
+    // A crystal target keeps a real phase verdict.
+    const rv::RendezvousReport sfg = report(demo());
+    CHECK(sfg.verdict.phase.applies);
+    CHECK(std::string(rv::verdict_state_text(sfg.verdict.phase)) == (sfg.verdict.phase.met ? "met" : "NOT MET"));
+    rv::VerdictLine failing;
+    CHECK_FALSE(rv::verdict_passes(failing));
+}
+
+TEST_CASE("a delay above 10 ps is said in ps in the time verdict", "[report][verdict]") {
+    // Issue 14 item 7: 52 ps reads "+52.xxx ps", not "+52345.6 fs".
+    rv::Layout l = demo();
+    const double before_fs = report(l).mismatch->delay_fs;
+    l.beams[0].emit_time_fs += 52000;  // beam 0 arrives 52 ps later
+    const rv::RendezvousReport r = report(l);
+    const double delay_fs = r.mismatch->delay_fs;
+    CHECK_THAT(delay_fs - before_fs, near(52000, 1e-6));
+    char expected[64];
+    std::snprintf(expected, sizeof expected, "delay %+.3f ps = ", delay_fs * 1e-3);
+    CHECK(r.verdict.time.summary.rfind(expected, 0) == 0);
+    CHECK(r.verdict.time.summary.find(" fs = ") == std::string::npos);
 }

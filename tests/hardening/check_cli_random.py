@@ -19,11 +19,21 @@ import tempfile
 # rate or pulse length).
 # A finding's beam or element is null when it concerns none; the polarization advice's plate
 # figures are null when there is no plate to turn.
+# Issue 14 item 7 (README, The report): a verdict line's met when it does not apply and its action
+# when there is none; the phase-matching angle's figures without phase matching; the index data
+# note when there is none (incidence_now_deg too outside the data); spatial_along_crystal for a
+# target that is not a crystal; azimuth_deg of circular or unpolarized light; a loss's goes_to
+# when it goes nowhere traced; the polarization and power fraction when the power trace did not
+# reach the target.
 MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offset_fs",
                "walk_apart_mm", "delta_k_l", "sinc2_now", "source_mw", "power_mw", "useful_mw",
                "peak_intensity_w_cm2", "peak_fluence_j_cm2", "peak_intensity_at_waist_w_cm2",
                "beam", "element", "location", "plate", "plate_now_deg", "plate_best_deg",
-               "useful_fraction_best", "useful_mw_best"}
+               "useful_fraction_best", "useful_mw_best",
+               "met", "action", "theta_pm_deg", "incidence_now_deg", "incidence_needed_deg", "rotate_by_deg",
+               "rotation_axis", "walkoff_mrad", "internal_fwhm", "external_fwhm", "spectral_acceptance_fwhm_nm",
+               "outside_index_data", "spatial_along_crystal", "azimuth_deg", "goes_to", "polarization",
+               "power_fraction"}
 
 
 def reject_constant(name):

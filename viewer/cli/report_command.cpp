@@ -11,6 +11,7 @@
 #include "cli/safety_notice.hpp"
 #include "findings/finding_json.hpp"
 #include "io/layout_reader.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::cli {
 
@@ -18,46 +19,55 @@ namespace {
 
 using nlohmann::json;
 
-std::string fmt(const char* format, double v) {
-    char buf[96];
-    std::snprintf(buf, sizeof buf, format, v);
-    return buf;
-}
+// Every number of the text and Markdown by the shared rule (units/number_text.hpp).
+std::string fmt(const char* format, double v) { return format_number(format, v); }
 
 json planes(double t, double s) { return {{"tangential", t}, {"sagittal", s}}; }
 json optional_number(const std::optional<double>& v) { return v ? json(*v) : json(nullptr); }
+// Absent text is null, never "".
+json optional_text(const std::string& s) { return s.empty() ? json(nullptr) : json(s); }
+// `met` is null when the line does not apply (`applies` false: phase without a crystal).
 json verdict_json(const VerdictLine& l) {
-    return {{"met", l.met}, {"summary", l.summary}, {"action", l.action}};
+    return {{"applies", l.applies}, {"met", l.applies ? json(l.met) : json(nullptr)}, {"summary", l.summary},
+            {"action", optional_text(l.action)}};
 }
 
 json phase_json(const PhaseMatchingReport& p) {
     json gvm = json::array();
     for (const GroupVelocityMismatch& g : p.gvm)
         gvm.push_back({{"between", g.between}, {"fs_per_mm", g.fs_per_mm}, {"walk_apart_mm", optional_number(g.walk_apart_mm)}});
+    // Outside the index data nothing but the geometry is computed; without phase matching, no
+    // figure of the phase-matching angle (PhaseMatchingReport): those are null, not 0.
+    const bool indexed = p.outside_index_data.empty();
+    auto if_indexed = [&](double v) { return indexed ? json(v) : json(nullptr); };
+    auto if_matchable = [&](double v) { return p.phase_matchable ? json(v) : json(nullptr); };
     return {{"process", p.process}, {"type", p.type}, {"output_nm", p.output_nm},
-            {"phase_matchable", p.phase_matchable}, {"theta_pm_deg", p.theta_pm_deg},
-            {"theta_now_deg", p.theta_now_deg}, {"incidence_now_deg", p.incidence_now_deg},
-            {"incidence_needed_deg", p.incidence_needed_deg}, {"rotate_by_deg", p.rotate_by_deg},
-            {"rotation_axis", p.rotation_axis},
-            {"delta_k_l", p.outside_index_data.empty() ? json(p.delta_k_l) : json(nullptr)},
-            {"sinc2_now", p.outside_index_data.empty() ? json(p.sinc2_now) : json(nullptr)},
-            {"outside_index_data", p.outside_index_data},
-            {"walkoff_mrad", p.walkoff_mrad},
-            {"angular_acceptance_mrad", {{"internal_fwhm", p.angular_acceptance_internal_mrad},
-                                         {"external_fwhm", p.angular_acceptance_external_mrad}}},
-            {"spectral_acceptance_fwhm_nm", p.spectral_acceptance_nm}, {"gvm", gvm},
+            {"phase_matchable", p.phase_matchable}, {"theta_pm_deg", if_matchable(p.theta_pm_deg)},
+            {"theta_now_deg", p.theta_now_deg}, {"incidence_now_deg", if_indexed(p.incidence_now_deg)},
+            {"incidence_needed_deg", if_matchable(p.incidence_needed_deg)},
+            {"rotate_by_deg", if_matchable(p.rotate_by_deg)}, {"rotation_axis", optional_text(p.rotation_axis)},
+            {"delta_k_l", if_indexed(p.delta_k_l)}, {"sinc2_now", if_indexed(p.sinc2_now)},
+            {"outside_index_data", optional_text(p.outside_index_data)},
+            {"walkoff_mrad", if_matchable(p.walkoff_mrad)},
+            {"angular_acceptance_mrad", {{"internal_fwhm", if_matchable(p.angular_acceptance_internal_mrad)},
+                                         {"external_fwhm", if_matchable(p.angular_acceptance_external_mrad)}}},
+            {"spectral_acceptance_fwhm_nm", if_matchable(p.spectral_acceptance_nm)}, {"gvm", gvm},
             {"polarizations_suit", p.polarizations_suit}, {"polarization_note", p.polarization_note}};
 }
 
-json polarization_json(const PolarizationState& s) {
+// Null when the power trace did not reach the target; azimuth_deg null for circular or
+// unpolarized light (describe in polarization_model.hpp).
+json polarization_json(const ReportBeam& b) {
+    if (!b.power.reached) return nullptr;
+    const PolarizationState& s = b.at_target_polarization;
     return {{"state", describe_text(s)}, {"horizontal_fraction", s.h}, {"vertical_fraction", s.v},
-            {"degree", s.degree}, {"azimuth_deg", s.azimuth_deg}, {"ellipticity_deg", s.ellipticity_deg}};
+            {"degree", s.degree}, {"azimuth_deg", optional_number(s.azimuth_deg)}, {"ellipticity_deg", s.ellipticity_deg}};
 }
 
 json power_json(const Layout& layout, const ReportBeam& b) {
     json losses = json::array();
     for (const PowerLoss& l : b.power.losses)
-        losses.push_back({{"element", l.element}, {"what", l.what}, {"fraction", l.fraction}, {"goes_to", l.goes_to}});
+        losses.push_back({{"element", l.element}, {"what", l.what}, {"fraction", l.fraction}, {"goes_to", optional_text(l.goes_to)}});
     json plates = json::array();
     for (const WavePlatePass& p : b.power.plates)
         plates.push_back({{"id", p.id}, {"retardance_waves", p.retardance_waves},
@@ -101,12 +111,12 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                 {"hit_mm", {t.hit_mm.x(), t.hit_mm.y()}},
                 {"angle_deg", b.crossing_angle_deg},
                 {"index", t.index},
-                {"power_fraction", b.power.at_target[0]},
+                {"power_fraction", b.power.reached ? json(b.power.at_target[0]) : json(nullptr)},
                 {"power_mw", optional_number(b.target_power_mw)},
                 {"peak_intensity_w_cm2", b.pulse_at_target ? json(b.pulse_at_target->peak_intensity_w_cm2) : json(nullptr)},
                 {"peak_fluence_j_cm2", b.pulse_at_target ? json(b.pulse_at_target->peak_fluence_j_cm2) : json(nullptr)},
                 {"peak_intensity_at_waist_w_cm2", b.pulse_at_waist ? json(b.pulse_at_waist->peak_intensity_w_cm2) : json(nullptr)},
-                {"polarization", polarization_json(b.at_target_polarization)}};
+                {"polarization", polarization_json(b)}};
         }
         beam["power"] = power_json(layout, b);
         beams[b.id] = beam;
@@ -122,8 +132,9 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                            {"waist_ratio", m.waist_ratio}, {"confocal_ratio", optional_number(r.confocal_ratio)},
                            {"lateral_um", m.lateral_um}, {"angle_mrad", m.angle_mrad}, {"delay_fs", m.delay_fs}};
     }
-    if (r.overlap)
-        out["overlap"] = {{"spatial", r.overlap->spatial}, {"spatial_along_crystal", r.overlap->spatial_along_crystal},
+    if (r.overlap)  // along a crystal only when the target is one
+        out["overlap"] = {{"spatial", r.overlap->spatial},
+                          {"spatial_along_crystal", r.target_is_crystal ? json(r.overlap->spatial_along_crystal) : json(nullptr)},
                           {"temporal", optional_number(r.overlap->temporal)}, {"combined", r.overlap->combined}};
     if (r.stage) {
         const StageReport& s = *r.stage;
@@ -142,7 +153,7 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                           {"plate_best_deg", optional_number(a.plate_best_deg)},
                           {"useful_fraction_best", optional_number(a.useful_fraction_best)},
                           {"useful_mw_best", optional_number(a.useful_mw_best)},
-                          {"action", polarization_advice_text(a)}, {"wave_plates", plate_settings_json(a)}});
+                          {"action", optional_text(polarization_advice_text(a))}, {"wave_plates", plate_settings_json(a)}});
     out["polarization"] = advice;
     if (!r.phase_matching.empty()) {
         out["phase_matching"] = phase_json(r.phase_matching.front());
@@ -164,8 +175,6 @@ json to_json(const Layout& layout, const RendezvousReport& r) {
                      {"cautions", safety_cautions()}};
     return out;
 }
-
-const char* mark(const VerdictLine& l) { return l.met ? "met" : "NOT MET"; }
 
 std::string percent(double fraction) { return fmt("%.1f", 100 * fraction) + " %"; }
 
@@ -208,8 +217,7 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
     out << "Verdict\n";
     for (const auto& [name, line] : {std::pair{"space", &r.verdict.space}, std::pair{"time", &r.verdict.time},
                                      std::pair{"phase", &r.verdict.phase}}) {
-        out << "  " << name << (std::string(7 - std::string(name).size(), ' ')) << mark(*line) << "  "
-            << line->summary << "\n";
+        out << "  " << name << (std::string(7 - std::string(name).size(), ' ')) << verdict_line_text(*line) << "\n";
         if (!line->action.empty()) out << "         -> " << line->action << "\n";
     }
     out << "\nAt the target (t = tangential, in the table plane; s = sagittal)\n"
@@ -221,10 +229,11 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
             std::snprintf(line, sizeof line, "  %-10s %-8.1f does not reach the target\n", b.id.c_str(), b.wavelength_nm);
         else
             std::snprintf(line, sizeof line,
-                          "  %-10s %-8.1f %-9.2f %-12.4f %6.1f/%-8.1f %6.2f/%-8.2f %+7.3f/%-+12.3f %6.3f/%.3f\n",
+                          "  %-10s %-8.1f %-9.2f %-12.4f %6.1f/%-8.1f %6.2f/%-8.2f %7s/%-12s %6.3f/%.3f\n",
                           b.id.c_str(), b.wavelength_nm, t.path_mm, t.arrival_fs * 1e-3, t.tangential.radius_um,
                           t.sagittal.radius_um, t.tangential.waist_um, t.sagittal.waist_um,
-                          t.tangential.waist_offset_mm, t.sagittal.waist_offset_mm, t.tangential.rayleigh_mm,
+                          fmt("%+.3f", t.tangential.waist_offset_mm).c_str(),  // signed: never "-0.000"
+                          fmt("%+.3f", t.sagittal.waist_offset_mm).c_str(), t.tangential.rayleigh_mm,
                           t.sagittal.rayleigh_mm);
         out << line;
     }
@@ -235,11 +244,14 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
             << "  waist offset " << fmt("%+.3f", m.waist_offset_mm) << " mm, waist ratio " << fmt("%.3f", m.waist_ratio)
             << ", confocal ratio " << fmt("%.3f", r.confocal_ratio.value_or(0)) << ", lateral "
             << fmt("%.1f", m.lateral_um) << " µm, angle " << fmt("%.3f", m.angle_mrad) << " mrad\n"
-            << "  delay (" << r.beams[0].id << " − " << r.beams[1].id << ") " << fmt("%+.1f", m.delay_fs) << " fs\n";
+            << "  delay (" << r.beams[0].id << " − " << r.beams[1].id << ") " << format_duration_fs(m.delay_fs, true) << "\n";
     }
     if (r.overlap) {
-        out << "\nOverlap  spatial " << fmt("%.3f", r.overlap->spatial) << "  along the crystal "
-            << fmt("%.3f", r.overlap->spatial_along_crystal) << "  temporal "
+        out << "\nOverlap  spatial "
+            << (r.target_is_crystal ? fmt("%.3f", r.overlap->spatial) + "  along the crystal " +
+                                          fmt("%.3f", r.overlap->spatial_along_crystal)
+                                    : fmt("%.3f", r.overlap->spatial) + " at the target plane")
+            << "  temporal "
             << (r.overlap->temporal ? fmt("%.3f", *r.overlap->temporal) : std::string("n/a")) << "  combined "
             << fmt("%.3f", r.overlap->combined) << "\n";
     }
@@ -251,7 +263,7 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
             << " fs per mm\n";
         if (s.measured_zero_mm)
             out << "  measured zero at " << fmt("%.3f", *s.measured_zero_mm) << " mm: the model puts "
-                << fmt("%+.1f", *s.emission_offset_fs) << " fs of delay there (an emission offset it does not know)\n";
+                << format_duration_fs(*s.emission_offset_fs, true) << " of delay there (an emission offset it does not know)\n";
     }
     for (const PhaseMatchingReport& p : r.phase_matching) {
         out << "\nPhase matching: " << p.process << " → " << fmt("%.2f", p.output_nm) << " nm, " << p.type << "\n";
@@ -297,7 +309,7 @@ void print_markdown(const RendezvousReport& r, std::ostream& out) {
         << "| | state | numbers | action |\n|---|---|---|---|\n";
     for (const auto& [name, line] : {std::pair{"space", &r.verdict.space}, std::pair{"time", &r.verdict.time},
                                      std::pair{"phase", &r.verdict.phase}})
-        out << "| " << name << " | " << mark(*line) << " | " << line->summary << " | " << line->action << " |\n";
+        out << "| " << name << " | " << verdict_state_text(*line) << " | " << line->summary << " | " << line->action << " |\n";
     out << "\n## At the target\n\n| beam | λ (nm) | path (mm) | arrival (ps) | waist t/s (µm) | waist offset t/s (mm) | Rayleigh t/s (mm) |\n"
         << "|---|---|---|---|---|---|---|\n";
     for (const ReportBeam& b : r.beams) {
@@ -313,12 +325,14 @@ void print_markdown(const RendezvousReport& r, std::ostream& out) {
             << fmt("%.3f", t.sagittal.rayleigh_mm) << " |\n";
     }
     if (r.mismatch)
-        out << "\nDelay (" << r.beams[0].id << " − " << r.beams[1].id << "): " << fmt("%+.1f", r.mismatch->delay_fs)
-            << " fs. Lateral offset " << fmt("%.1f", r.mismatch->lateral_um) << " µm, angle "
+        out << "\nDelay (" << r.beams[0].id << " − " << r.beams[1].id << "): " << format_duration_fs(r.mismatch->delay_fs, true)
+            << ". Lateral offset " << fmt("%.1f", r.mismatch->lateral_um) << " µm, angle "
             << fmt("%.3f", r.mismatch->angle_mrad) << " mrad.\n";
     if (r.overlap)
-        out << "\nOverlap: spatial " << fmt("%.3f", r.overlap->spatial) << ", along the crystal "
-            << fmt("%.3f", r.overlap->spatial_along_crystal) << ", temporal "
+        out << "\nOverlap: spatial " << fmt("%.3f", r.overlap->spatial)
+            << (r.target_is_crystal ? ", along the crystal " + fmt("%.3f", r.overlap->spatial_along_crystal)
+                                    : std::string(" at the target plane"))
+            << ", temporal "
             << (r.overlap->temporal ? fmt("%.3f", *r.overlap->temporal) : std::string("n/a")) << ", combined "
             << fmt("%.3f", r.overlap->combined) << ".\n";
     if (r.stage)
@@ -357,7 +371,8 @@ int run_report(const ReportOptions& options, std::ostream& out, std::ostream& er
     if (options.json) out << to_json(*layout, r).dump(2) << "\n";
     else if (options.markdown) print_markdown(r, out);
     else print_text(r, out);
-    if (options.check && !(r.verdict.space.met && r.verdict.time.met && r.verdict.phase.met)) return 3;
+    const Verdict& v = r.verdict;
+    if (options.check && !(verdict_passes(v.space) && verdict_passes(v.time) && verdict_passes(v.phase))) return 3;
     return 0;
 }
 

@@ -128,11 +128,11 @@ void add_glyph(Scene& s, const Vec2& at, const Vec2& direction, const Stokes& st
     const PolarizationState p = describe(stokes);
     if (!(p.power > 1e-6)) return;
     const Colour c{60, 60, 70, 255};
-    if (p.degree < 0.05 || std::abs(p.ellipticity_deg) > 20) {
+    if (!p.azimuth_deg || std::abs(p.ellipticity_deg) > 20) {  // unpolarized, circular or nearly
         s.shapes.push_back(circle(at, 4.0, c, 0.6));
         return;
     }
-    const double psi = deg_to_rad(p.azimuth_deg);
+    const double psi = deg_to_rad(*p.azimuth_deg);
     const Vec2 across = perpendicular(direction);
     if (std::abs(std::cos(psi)) > 0.15) {
         const double h = 8.0 * std::abs(std::cos(psi));

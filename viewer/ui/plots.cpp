@@ -8,6 +8,7 @@
 
 #include "scene/wavelength_colour.hpp"
 #include "ui/plot_axes.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::ui {
 
@@ -107,7 +108,7 @@ void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout
     const double span = std::max(2 * std::hypot(tau1, tau2), std::abs(d) + 1.5 * std::max(tau1, tau2));
     const double centre = -d / 2;
     char title[128];
-    std::snprintf(title, sizeof title, "Pulses at the target: delay %+.1f fs", d);
+    std::snprintf(title, sizeof title, "Pulses at the target: delay %s", format_duration_fs(d, true).c_str());
     const PlotAxes a = draw_axes(draw, origin, size, centre - span, centre + span, 0, 1.1,
                                  "fs from the first beam's arrival", "intensity", title);
     draw->PushClipRect(a.min_px, a.max_px, true);

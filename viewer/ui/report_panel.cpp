@@ -3,15 +3,23 @@
 #include <imgui.h>
 
 #include "polarization/polarization_model.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::ui {
 
 namespace {
 
-const ImVec4 kMet(0.10f, 0.55f, 0.20f, 1), kNear(0.80f, 0.55f, 0.05f, 1), kNotMet(0.80f, 0.15f, 0.10f, 1);
+const ImVec4 kMet(0.10f, 0.55f, 0.20f, 1), kNear(0.80f, 0.55f, 0.05f, 1), kNotMet(0.80f, 0.15f, 0.10f, 1),
+    kNotApplicable(0.45f, 0.45f, 0.50f, 1);
 
 void verdict_line(const char* name, const VerdictLine& l) {
-    ImGui::TextColored(l.met ? kMet : kNotMet, "%-6s %s", name, l.met ? "met" : "NOT MET");
+    const ImVec4 colour = !l.applies ? kNotApplicable : l.met ? kMet : kNotMet;
+    if (!l.applies) {  // "phase  n/a — the target is not a crystal": the reason is the line
+        ImGui::TextColored(colour, "%-6s %s", name, verdict_line_text(l).c_str());
+        ImGui::Spacing();
+        return;
+    }
+    ImGui::TextColored(colour, "%-6s %s", name, verdict_state_text(l));
     ImGui::TextWrapped("%s", l.summary.c_str());
     if (!l.action.empty()) ImGui::TextWrapped("-> %s", l.action.c_str());
     ImGui::Spacing();
@@ -79,7 +87,7 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
         }
         ImGui::EndTable();
     }
-    if (r.mismatch) ImGui::Text("delay %+.1f fs", r.mismatch->delay_fs);
+    if (r.mismatch) ImGui::Text("delay %s", format_duration_fs(r.mismatch->delay_fs, true).c_str());
     if (r.overlap) ImGui::Text("overlap %.3f (spatial %.3f)", r.overlap->combined, r.overlap->spatial_along_crystal);
     if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
