@@ -16,6 +16,9 @@ namespace rv {
 struct SweepPoint {
     double value;
     RendezvousReport report;
+    // A stage position beyond the stage's travel: evaluated all the same, as if the stage could
+    // reach it, and marked so (the travel itself is not swept past its position).
+    bool outside_travel = false;
 };
 
 struct SweepResult {

@@ -82,15 +82,40 @@ TEST_CASE("a sweep of an unknown id or field is refused with a located message",
         REQUIRE(s.diagnostics.size() == 1);
         return rv::format_diagnostic(s.diagnostics[0], "sfg.json");
     };
-    CHECK(message("Q", "at_mm[0]") == "sfg.json: error: no beam or element has id \"Q\"");
+    CHECK(message("NOSUCH", "at_mm[0]") == "sfg.json: error: no beam or element has id \"NOSUCH\"");
+    // A mistyped id or field: the closest existing one (issue 14 item 6).
+    CHECK(message("S2", "position_mm") == "sfg.json: error: no beam or element has id \"S2\"; did you mean \"S1\"?");
+    CHECK(message("S1", "positon_mm") ==
+          "sfg.json: error: /elements/7/positon_mm (S1): \"S1\" has no \"positon_mm\" in the layout; did you mean \"position_mm\"?");
+    CHECK(message("pump", "waist_mu") ==
+          "sfg.json: error: /beams/0/waist_mu (pump): \"pump\" has no \"waist_mu\" in the layout; did you mean \"waist_um\"?");
     CHECK(message("X", "focal_length_mm") ==
-          "sfg.json: error: /elements/17/focal_length_mm: \"X\" has no \"focal_length_mm\" in the layout (give it a value first)");
-    CHECK(message("X", "material") == "sfg.json: error: /elements/17/material: \"material\" is not a number");
+          "sfg.json: error: /elements/17/focal_length_mm (X): \"X\" has no \"focal_length_mm\" in the layout (give it a value first)");
+    CHECK(message("X", "material") == "sfg.json: error: /elements/17/material (X): \"material\" is not a number");
     CHECK(message("X", "at_mm[x]") == "sfg.json: error: expected FIELD or FIELD[INDEX] with a whole number INDEX, found \"at_mm[x]\"");
-    CHECK(message("X", "at_mm[2]") == "sfg.json: error: /elements/17/at_mm: no element [2] in \"at_mm\"");
+    CHECK(message("X", "at_mm[2]") == "sfg.json: error: /elements/17/at_mm (X): no element [2] in \"at_mm\"");
     // A value the layout refuses stops the sweep with the reader's message.
     const rv::SweepResult bad = rv::sweep_field(l, "X", "length_mm", -1, 1, 2);
     REQUIRE(!bad.diagnostics.empty());
     CHECK(rv::format_diagnostic(bad.diagnostics[0], "sfg.json") ==
           "sfg.json: error: /elements/17/length_mm (X): must be positive (got -1) (at length_mm = -1.000000)");
+}
+
+TEST_CASE("a sweep past the stage travel evaluates every point and marks those outside", "[sweep]") {
+    // Issue 14 item 6: S1 travels 0–50 mm; 40, 50 lie inside, 60 beyond. The point beyond is the
+    // model's figure as if the stage went there: the delay keeps changing linearly.
+    rv::Layout l = demo();
+    const rv::SweepResult s = rv::sweep_field(l, "S1", "position_mm", 40, 60, 3);
+    REQUIRE(s.diagnostics.empty());
+    REQUIRE(s.points.size() == 3);
+    CHECK_FALSE(s.points[0].outside_travel);
+    CHECK_FALSE(s.points[1].outside_travel);
+    CHECK(s.points[2].outside_travel);
+    const double d0 = s.points[0].report.mismatch->delay_fs, d1 = s.points[1].report.mismatch->delay_fs;
+    const double d2 = s.points[2].report.mismatch->delay_fs;
+    CHECK_THAT(d2 - d1, near(d1 - d0, 1e-6));
+    // The point beyond reports the stage where the sweep put it.
+    CHECK(s.points[2].report.stage->position_mm == 60);
+    // Other fields are not widened: a value the layout refuses still stops the sweep.
+    REQUIRE_FALSE(rv::sweep_field(l, "S1", "travel_mm[1]", 5, 6, 2).diagnostics.empty());
 }

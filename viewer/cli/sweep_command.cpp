@@ -1,13 +1,43 @@
 // rendezvous sweep: one field of the layout against the report's figures.
 #include <cmath>
-#include <cstdio>
 #include <ostream>
 
 #include "analysis/sweep.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::cli {
+
+namespace {
+
+// The figures of one point, in the order of the header; NaN where a figure does not exist.
+std::vector<double> figures_of(const SweepPoint& p) {
+    std::vector<double> row{p.value};
+    for (const ReportBeam& b : p.report.beams) {
+        row.push_back(b.at_target.reached ? (b.at_target.tangential.waist_um + b.at_target.sagittal.waist_um) / 2 : NAN);
+        row.push_back(b.at_target.reached ? (b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2 : NAN);
+    }
+    const std::optional<Mismatch>& m = p.report.mismatch;
+    row.push_back(m ? m->waist_offset_mm : NAN);
+    row.push_back(m ? m->waist_ratio : NAN);
+    row.push_back(m ? m->lateral_um : NAN);
+    row.push_back(m ? m->delay_fs : NAN);
+    const std::optional<OverlapReport>& ov = p.report.overlap;
+    row.push_back(ov ? ov->spatial_along_crystal : NAN);
+    row.push_back(ov && ov->temporal ? *ov->temporal : NAN);
+    row.push_back(ov ? ov->combined : NAN);
+    row.push_back(p.report.phase_matching.empty() ? NAN : p.report.phase_matching.front().sinc2_now);
+    return row;
+}
+
+// The stage whose position the sweep varies, if it does.
+const Stage* swept_stage(const Layout& layout, const std::string& id, const std::string& field) {
+    const Element* e = layout.find(id);
+    return e && field == "position_mm" ? std::get_if<Stage>(&e->kind) : nullptr;
+}
+
+}  // namespace
 
 int run_sweep(const SweepOptions& o, std::ostream& out, std::ostream& err) {
     const std::optional<Layout> layout = load_layout(o.layout, err);
@@ -17,40 +47,41 @@ int run_sweep(const SweepOptions& o, std::ostream& out, std::ostream& err) {
         err << "rendezvous: error: --vary expects ID.FIELD, as in L2_P.at_mm[0] (got \"" << o.vary << "\")\n";
         return 2;
     }
-    const SweepResult r = sweep_field(*layout, o.vary.substr(0, dot), o.vary.substr(dot + 1), o.from, o.to, o.steps);
+    const std::string id = o.vary.substr(0, dot), field = o.vary.substr(dot + 1);
+    const SweepResult r = sweep_field(*layout, id, field, o.from, o.to, o.steps);
     if (!r.diagnostics.empty()) {
         for (const Diagnostic& d : r.diagnostics) err << format_diagnostic(d, o.layout) << "\n";
         return 2;
     }
+    const Stage* stage = swept_stage(*layout, id, field);
     const char* sep = o.csv ? "," : "  ";
     out << o.vary;
     for (const BeamSource& b : layout->beams)
         out << sep << b.id << "_waist_um" << sep << b.id << "_waist_offset_mm";
     out << sep << "waist_offset_mm" << sep << "waist_ratio" << sep << "lateral_um" << sep << "delay_fs" << sep
-        << "overlap_spatial" << sep << "overlap_temporal" << sep << "overlap_combined" << sep << "sinc2_now\n";
-    for (const SweepPoint& p : r.points) {
-        char buf[64];
-        auto put = [&](double v) {
-            std::snprintf(buf, sizeof buf, "%.6g", v);
-            out << sep << buf;
-        };
-        std::snprintf(buf, sizeof buf, "%.6g", p.value);
-        out << buf;
-        for (const ReportBeam& b : p.report.beams) {
-            put(b.at_target.reached ? (b.at_target.tangential.waist_um + b.at_target.sagittal.waist_um) / 2 : NAN);
-            put(b.at_target.reached ? (b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2 : NAN);
-        }
-        const bool m = p.report.mismatch.has_value();
-        put(m ? p.report.mismatch->waist_offset_mm : NAN);
-        put(m ? p.report.mismatch->waist_ratio : NAN);
-        put(m ? p.report.mismatch->lateral_um : NAN);
-        put(m ? p.report.mismatch->delay_fs : NAN);
-        const bool ov = p.report.overlap.has_value();
-        put(ov ? p.report.overlap->spatial_along_crystal : NAN);
-        put(ov && p.report.overlap->temporal ? *p.report.overlap->temporal : NAN);
-        put(ov ? p.report.overlap->combined : NAN);
-        put(p.report.phase_matching.empty() ? NAN : p.report.phase_matching.front().sinc2_now);
+        << "overlap_spatial" << sep << "overlap_temporal" << sep << "overlap_combined" << sep << "sinc2_now"
+        << (stage ? std::string(sep) + "in_travel" : "") << "\n";
+    std::vector<std::vector<double>> rows;
+    for (const SweepPoint& p : r.points) rows.push_back(figures_of(p));
+    // Each column's scale, for the shared zero rule (units/number_text.hpp).
+    std::vector<double> scale(rows.front().size());
+    for (size_t c = 0; c < scale.size(); ++c) {
+        std::vector<double> column;
+        for (const std::vector<double>& row : rows) column.push_back(row[c]);
+        scale[c] = column_scale(column);
+    }
+    bool any_outside = false;
+    for (size_t i = 0; i < rows.size(); ++i) {
+        for (size_t c = 0; c < rows[i].size(); ++c) out << (c ? sep : "") << format_number("%.6g", rows[i][c], scale[c]);
+        if (stage) out << sep << (r.points[i].outside_travel ? "no" : "yes");
         out << "\n";
+        any_outside = any_outside || r.points[i].outside_travel;
+    }
+    if (any_outside) {
+        // With --csv the note goes to stderr, so that standard output stays one table.
+        (o.csv ? err : out) << "in_travel no: beyond " << id << "'s travel [" << format_number("%g", stage->travel_min_mm)
+                            << ", " << format_number("%g", stage->travel_max_mm)
+                            << "] mm, which the stage cannot reach; those rows are the model's figures as if it could\n";
     }
     return 0;
 }
