@@ -443,7 +443,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         }
     }
     // Thin glass lenses carry no thickness, so their glass is missing from the timing
-    // (about 1.5–1.8 ps per mm, physics.md §7): say so where it matters, with two pulsed beams.
+    // (about 1.5–1.8 ps per mm, docs/physics.md §7): say so where it matters, with two pulsed beams.
     if (both && layout.beams[0].pulse_fwhm_fs > 0 && layout.beams[1].pulse_fwhm_fs > 0)
         for (const Element& e : layout.elements)
             if (const auto* lens = std::get_if<Lens>(&e.kind); lens && std::holds_alternative<ThinChromaticLens>(lens->model))

@@ -3,7 +3,7 @@
 // version 1). Units as in the file: mm, nm, µm, fs, degrees; angles counter-clockwise from +x
 // in the table plane (x right, y up, top view).
 //
-// Geometry conventions (design.md, "Layout format"):
+// Geometry conventions (docs/physics.md §0.2):
 // * at_mm is an element's reference point, normal_deg the direction of its surface normal
 //   (for a lens or target: its axis, either sign). The aperture is a segment of aperture_mm
 //   centred on at_mm, perpendicular to the normal.

@@ -4,7 +4,7 @@
 // with ξ = L/b the crystal length over the confocal parameter b = 2 z_R (in the crystal) and
 // σ = b Δk/2. Walk-off parameter B = ρ √(L k1)/2.
 // Reference: G. D. Boyd and D. A. Kleinman, J. Appl. Phys. 39, 3597 (1968); optimum
-// ξ = 2.84, h_m = 1.068 (physics.md §5, confirmed there numerically).
+// ξ = 2.84, h_m = 1.068 (docs/physics.md §5; our integration reproduces it).
 
 namespace rv {
 

@@ -17,7 +17,7 @@
 //   phase matching n3/λ3 = n1/λ1 + n2/λ2; type I closed form
 //   sin²ψ = (N⁻² − p3⁻²)/(q3⁻² − p3⁻²), N = λ3 (n_A1/λ1 + n_A2/λ2); type II by root finding;
 //   Δk = 2π (n3/λ3 − n1/λ1 − n2/λ2); walk-off of a B wave tan ρ = ½ n_B² (q⁻² − p⁻²) sin 2ψ;
-//   acceptance: FWHM of sinc²(ΔkL/2) at ΔkL = 5.5662 (physics.md §0), so
+//   acceptance: FWHM of sinc²(ΔkL/2) at ΔkL = 5.5662 (docs/physics.md §0.1), so
 //   Δψ_int = 5.5662/(L |∂Δk/∂ψ|) and Δλ1 = 5.5662/(L |∂Δk/∂λ1|) (SHG: λ3 = λ1/2 follows;
 //   SFG: λ2 fixed);  GVM_ij = (n_g,i − n_g,j)/c.
 // Wavelengths in nm, lengths in mm, angles in radians.

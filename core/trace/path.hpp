@@ -58,7 +58,7 @@ struct TraceSegment {
     Vec2 from_mm{0, 0}, to_mm{0, 0};
     double length_mm = 0;
     std::optional<size_t> inside;  // the slab element the segment runs in; none = air
-    double index = 1.0;            // phase index for the Gaussian beam (air: 1, see design.md)
+    double index = 1.0;            // phase index for the Gaussian beam (air: 1, docs/physics.md §0.3)
     double group_index = 1.0;      // absolute group index for timing (air: Ciddor 1996)
 };
 

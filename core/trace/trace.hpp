@@ -17,7 +17,7 @@
 // * A mirror with aim_at is oriented when the first beam (in file order) reaches it, so that
 //   a ray arriving at its centre would be sent to the aimed-at element's centre.
 // Refractive indices of glasses are the catalogue values relative to air (air is n = 1 for
-// geometry, design.md); group indices are absolute (air by Ciddor 1996).
+// geometry, docs/physics.md §0.3); group indices are absolute (air by Ciddor 1996).
 
 #include <vector>
 
