@@ -34,7 +34,7 @@ TEST_CASE("balancing puts the stage at zero delay", "[balance]") {
 
 TEST_CASE("a zero outside the travel asks for fixed path in the early arm", "[balance]") {
     // With the stage at the end of its travel the pump still arrives late, so the signal arm
-    // needs Δs = |Δt| c / n_g,air more air path (group delay in air, physics.md §7).
+    // needs Δs = |Δt| c / n_g,air more air path (group delay in air, docs/physics.md §7).
     rv::Layout l = demo();
     stage(l).travel_max_mm = 25;
     const rv::MaterialLibrary lib = rv::material_library_for(l);
@@ -59,7 +59,7 @@ TEST_CASE("a sweep reproduces single reports at its points", "[sweep]") {
     CHECK(s.points[1].value == 30);
     CHECK(s.points[1].report.mismatch->delay_fs == single.mismatch->delay_fs);
     CHECK(s.points[1].report.overlap->combined == single.overlap->combined);
-    // Stage travel changes the delay linearly, 2 n_g,air/c per mm (physics.md §7).
+    // Stage travel changes the delay linearly, 2 n_g,air/c per mm (docs/physics.md §7).
     const double d0 = s.points[0].report.mismatch->delay_fs, d2 = s.points[2].report.mismatch->delay_fs;
     CHECK_THAT((d2 - d0) / 2, near(single.stage->delay_per_mm_fs, 1e-6));
 }

@@ -26,7 +26,7 @@ rv::Element& element(rv::Layout& l, const std::string& id) {
 }  // namespace
 
 TEST_CASE("moving the stage to the reported zero leaves no delay", "[report][stage]") {
-    // The stage figure is a retroreflector double pass: 2 n_g,air/c per mm (physics.md §7,
+    // The stage figure is a retroreflector double pass: 2 n_g,air/c per mm (docs/physics.md §7,
     // 6.673 ps/mm at 800 nm; here 1030 nm in the moving arm).
     rv::Layout l = demo();
     const rv::RendezvousReport r = report(l);
@@ -159,7 +159,7 @@ TEST_CASE("calibrating time zero predicts the new zero after a window is added",
     // The lab finds overlap at a reading 0.4 mm from the model's zero; after calibration the
     // model agrees there. Adding 2 mm of fused silica at normal incidence to the pump arm then
     // moves the zero by the glass's extra group delay t (n_g − n_g,air)/c divided by the
-    // stage's delay per mm (physics.md §7).
+    // stage's delay per mm (docs/physics.md §7).
     const rv::Layout l = demo();
     const rv::MaterialLibrary lib = rv::material_library_for(l);
     const double model_zero = report(l).stage->zero_delay_mm;

@@ -26,7 +26,7 @@ double arrival(const std::string& elements, double nm) {
 }  // namespace
 
 TEST_CASE("a tilted plate delays the pulse by L[n_g − n_g,air cos(θ − θ')]/c", "[timing]") {
-    // physics.md §7 (dichroic substrate in transmission, derived there): 1 mm fused silica at
+    // docs/physics.md §7 (dichroic substrate in transmission, derived there): 1 mm fused silica at
     // 45°, 800 nm: 1.92837 ps with the catalogue (air-relative) group index; this tool uses the
     // absolute index n_rel·n_air (§3.1 note), about 1.5 fs more.
     const std::string target = R"({"id": "T", "type": "target", "at_mm": [200, 500], "aperture_mm": 50})";
@@ -45,7 +45,7 @@ TEST_CASE("a tilted plate delays the pulse by L[n_g − n_g,air cos(θ − θ')]
 }
 
 TEST_CASE("one mm of retroreflector stage travel is 6.673150 ps at 800 nm", "[timing][stage]") {
-    // physics.md §7: Δt = 2 n_g,air d / c; 6.673 150 ps per mm in standard air at 800 nm
+    // docs/physics.md §7: Δt = 2 n_g,air d / c; 6.673 150 ps per mm in standard air at 800 nm
     // (Ciddor 1996, n_g = 1.000 27997).
     auto with_stage = [](double position) {
         return arrival(R"({"id": "M1", "type": "mirror", "at_mm": [100, 500], "normal_deg": 135},

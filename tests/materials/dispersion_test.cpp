@@ -14,17 +14,17 @@ using rv::test::material;
 
 TEST_CASE("GVD of fused silica and N-BK7 at 800 nm against published values", "[dispersion]") {
     // Published: 361 fs² per 10 mm of fused silica and 446 fs² per 10 mm of N-BK7 at 800 nm
-    // (advancedfemtotech.com material-dispersion table [S8]; Abramczyk 2005 p. 107 [S9]:
+    // (docs/physics.md §3.4: advancedfemtotech.com material-dispersion table; Abramczyk 2005 p. 107:
     // fused silica 360 fs²/cm), i.e. 36.1 and 44.6 fs²/mm.
     CHECK_THAT(rv::sample_index(material("fused-silica"), 800).gvd_fs2_per_mm, near(36.1, 0.1));
     CHECK_THAT(rv::sample_index(material("N-BK7"), 800).gvd_fs2_per_mm, near(44.6, 0.1));
-    // [S8]: BBO o-ray 75 fs² per mm at 800 nm (matches the Kato 1986 set).
+    // The same table: BBO o-ray 75 fs² per mm at 800 nm (matches the Kato 1986 set).
     CHECK_THAT(rv::sample_index(material("BBO"), 800, rv::Axis::Ordinary).gvd_fs2_per_mm,
                near(75.0, 0.5));
 }
 
 TEST_CASE("group index and GVD and TOD against the computed table", "[dispersion]") {
-    // physics.md §3.4 (computed there by finite differences of the §3.1 formulas);
+    // docs/physics.md §3.4 (values computed by finite differences of the §3.1 formulas);
     // n_g = n − λ dn/dλ, GVD = λ³/(2πc²) d²n/dλ², TOD = −λ⁴/(4π²c³)(3n'' + λn''')
     // (Diels & Rudolph, Ultrashort Laser Pulse Phenomena, ch. 1).
     struct Row { const char* name; double nm, n, ng, gvd, tod; };
@@ -45,7 +45,7 @@ TEST_CASE("group index and GVD and TOD against the computed table", "[dispersion
         CHECK_THAT(s.index, near(r.n, 1e-6));
         CHECK_THAT(s.group_index, near(r.ng, 2e-6));
         CHECK_THAT(s.gvd_fs2_per_mm, near(r.gvd, r.gvd > 100 ? 0.06 : 0.006));
-        // physics.md made its TOD column by third finite differences (step 1e-4 µm), which
+        // The reference TOD values came from third finite differences (step 1e-4 µm), which
         // carry about 0.5 % of noise; hence 1.5 % here, and the exact check below.
         CHECK_THAT(s.tod_fs3_per_mm, near_rel(r.tod, 0.015));
     }
@@ -53,7 +53,7 @@ TEST_CASE("group index and GVD and TOD against the computed table", "[dispersion
     // on the same formula gives 41.147087 fs³/mm at 1030 nm and 151.34087 at 1550 nm.
     CHECK_THAT(rv::sample_index(material("fused-silica"), 1030).tod_fs3_per_mm, near(41.147087, 1e-5));
     CHECK_THAT(rv::sample_index(material("fused-silica"), 1550).tod_fs3_per_mm, near(151.34087, 1e-4));
-    // Air (Ciddor 1996) at 800 nm: n_g = 1.000280, GVD 0.021 fs²/mm (physics.md §3.4).
+    // Air (Ciddor 1996) at 800 nm: n_g = 1.000280, GVD 0.021 fs²/mm (docs/physics.md §3.4).
     const rv::IndexSample air = rv::sample_index(material("air"), 800);
     CHECK_THAT(air.group_index, near(1.000280, 1e-6));
     CHECK_THAT(air.gvd_fs2_per_mm, near(0.021, 0.0006));
@@ -85,7 +85,7 @@ TEST_CASE("closed-form derivatives agree with finite differences", "[dispersion]
 }
 
 TEST_CASE("group delay through glass and air", "[dispersion][delay]") {
-    // physics.md §7 (computed there): 1 mm of glass, group delay in ps, and the extra over
+    // docs/physics.md §7 (computed from it): 1 mm of glass, group delay in ps, and the extra over
     // the same length of standard air (Ciddor); τ_g = n_g L / c with c exact (BIPM).
     struct Row { const char* name; double nm, group_ps, extra_ps; };
     const rv::Material& air = material("air");
@@ -99,18 +99,18 @@ TEST_CASE("group delay through glass and air", "[dispersion][delay]") {
         CHECK_THAT(glass_fs * 1e-3, near(r.group_ps, 1e-5));
         CHECK_THAT((glass_fs - air_fs) * 1e-3, near(r.extra_ps, 1e-5));
     }
-    // Phase delay of 1 mm fused silica at 800 nm: n L / c = 4.84774 ps (physics.md §7).
+    // Phase delay of 1 mm fused silica at 800 nm: n L / c = 4.84774 ps (docs/physics.md §7).
     CHECK_THAT(rv::group_delay_fs(rv::sample_index(material("fused-silica"), 800).index, 1.0) * 1e-3,
                near(4.84774, 1e-5));
     // 1 mm of vacuum = 3.335 641 ps; of standard air 3.336 575 ps at 800 nm and 3.336 564 ps at
-    // 1064 nm (physics.md §0, §7).
+    // 1064 nm (docs/physics.md §0.1, §7).
     CHECK_THAT(rv::group_delay_fs(1.0, 1.0), near(3335.641, 1e-3));
     CHECK_THAT(rv::group_delay_fs(rv::sample_index(air, 800).group_index, 1.0), near(3336.575, 1e-3));
     CHECK_THAT(rv::group_delay_fs(rv::sample_index(air, 1064).group_index, 1.0), near(3336.564, 1e-3));
 }
 
 TEST_CASE("differential group delay between colours through 5 mm of glass", "[dispersion][delay]") {
-    // physics.md §7 table: τ_g(short λ) − τ_g(long λ) through 5 mm, computed there.
+    // docs/physics.md §7: τ_g(short λ) − τ_g(long λ) through 5 mm, computed from it.
     struct Row { const char* name; double short_nm, long_nm, fs; };
     for (const Row& r : {Row{"N-BK7", 780, 1030, 106.97}, Row{"N-BK7", 532, 1064, 471.84},
                          Row{"N-BK7", 400, 800, 958.40}, Row{"fused-silica", 780, 1030, 85.15},
@@ -124,7 +124,7 @@ TEST_CASE("differential group delay between colours through 5 mm of glass", "[di
 }
 
 TEST_CASE("absolute index of an air-relative glass", "[dispersion]") {
-    // physics.md §3.1 glass-catalogue note: n_abs = n_rel · n_air (Ciddor standard air).
+    // docs/physics.md §3.1 glass-catalogue note: n_abs = n_rel · n_air (Ciddor standard air).
     const rv::Material& bk7 = material("N-BK7");
     const rv::Material& air = material("air");
     const rv::IndexSample rel = rv::sample_index(bk7, 800), a = rv::sample_index(air, 800);

@@ -13,16 +13,16 @@ double n_at(const char* name, double nm, rv::Axis axis = rv::Axis::X) {
 }  // namespace
 
 TEST_CASE("glass indices against the catalogue n_d", "[materials]") {
-    // SCHOTT data sheet N-BK7: n_d = 1.5168 (d line, 587.56 nm); refractiveindex.info [S2].
+    // SCHOTT data sheet N-BK7: n_d = 1.5168 (d line, 587.56 nm); refractiveindex.info.
     CHECK_THAT(n_at("N-BK7", 587.56), near(1.5168, 5e-5));
-    // Fused silica (Malitson 1965): n_d = 1.45846 (refractiveindex.info [S2]).
+    // Fused silica (Malitson 1965): n_d = 1.45846 (refractiveindex.info).
     CHECK_THAT(n_at("fused-silica", 587.56), near(1.45846, 1e-5));
     // SCHOTT data sheet N-SF11: n_d = 1.78472.
     CHECK_THAT(n_at("N-SF11", 587.56), near(1.78472, 1e-5));
 }
 
 TEST_CASE("indices against the tabulated values", "[materials]") {
-    // physics.md §3.2, computed there from the coefficients of §3.1 (refractiveindex.info
+    // docs/physics.md §3.2, computed from the coefficients of §3.1 (refractiveindex.info
     // database files of each source), to ±1e-5.
     struct Row { const char* name; double n588, n633, n800, n1064; };
     for (const Row& r : {Row{"N-BK7", 1.516800, 1.515089, 1.510776, 1.506635},
@@ -35,14 +35,14 @@ TEST_CASE("indices against the tabulated values", "[materials]") {
         CHECK_THAT(n_at(r.name, 800), near(r.n800, 1e-5));
         CHECK_THAT(n_at(r.name, 1064), near(r.n1064, 1e-5));
     }
-    // H. H. Li 1980 CaF2 (physics.md §3.2).
+    // H. H. Li 1980 CaF2 (docs/physics.md §3.2).
     CHECK_THAT(n_at("CaF2:Li1980", 587.56), near(1.433880, 1e-5));
     CHECK_THAT(n_at("CaF2:Li1980", 800), near(1.430572, 1e-5));
     CHECK_THAT(n_at("CaF2:Li1980", 1064), near(1.428528, 1e-5));
 }
 
 TEST_CASE("standard air: Ciddor 1996 and Peck & Reeder 1972", "[materials][air]") {
-    // physics.md §3.2, (n − 1)·1e8, computed there from Ciddor, Appl. Opt. 35, 1566 (1996)
+    // docs/physics.md §3.2, (n − 1)·1e8, computed from Ciddor, Appl. Opt. 35, 1566 (1996)
     // and Peck & Reeder, JOSA 62, 958 (1972).
     struct Row { double nm, ciddor, peck; };
     for (const Row& r : {Row{587.56, 27717.5, 27716.0}, Row{632.8, 27653.3, 27651.8},
@@ -54,8 +54,8 @@ TEST_CASE("standard air: Ciddor 1996 and Peck & Reeder 1972", "[materials][air]"
 }
 
 TEST_CASE("BBO ordinary and extraordinary indices in four published sets", "[materials][bbo]") {
-    // physics.md §3.2 (computed from Eimerl 1987, Kato 1986, Zhang 2000, Tamošauskas 2018);
-    // Wikipedia "Beta barium borate" [S4] gives n_o = 1.65, n_e = 1.54 at 1064 nm.
+    // docs/physics.md §3.2 (computed from Eimerl 1987, Kato 1986, Zhang 2000, Tamošauskas 2018);
+    // Wikipedia "Beta barium borate" gives n_o = 1.65, n_e = 1.54 at 1064 nm.
     struct Row { const char* set; double no532, ne532, no1064, ne1064; };
     for (const Row& r : {Row{"BBO:Eimerl1987", 1.67497, 1.55551, 1.65513, 1.54256},
                          Row{"BBO:Kato1986", 1.67421, 1.55466, 1.65452, 1.53919},
@@ -74,8 +74,8 @@ TEST_CASE("BBO ordinary and extraordinary indices in four published sets", "[mat
 }
 
 TEST_CASE("LBO and KTP principal indices at 1064 nm", "[materials]") {
-    // physics.md §3.2: LBO (Chen 1989 / Hanson & Dick 1991) 1.56555, 1.59063, 1.60558;
-    // KTP (Kato & Takaoka 2002) 1.73793, 1.74547, 1.82967, and the vendor sheet [S7]
+    // docs/physics.md §3.2: LBO (Chen 1989 / Hanson & Dick 1991) 1.56555, 1.59063, 1.60558;
+    // KTP (Kato & Takaoka 2002) 1.73793, 1.74547, 1.82967, and a vendor sheet
     // 1.7377, 1.7453, 1.8297 within 2e-4.
     CHECK_THAT(n_at("LBO", 1064, rv::Axis::X), near(1.56555, 1e-5));
     CHECK_THAT(n_at("LBO", 1064, rv::Axis::Y), near(1.59063, 1e-5));

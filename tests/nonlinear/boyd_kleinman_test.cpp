@@ -9,14 +9,14 @@ using rv::test::near;
 
 TEST_CASE("h_m at the optimum focusing", "[boyd-kleinman]") {
     // Boyd & Kleinman, J. Appl. Phys. 39, 3597 (1968): ξ = 2.84 gives h_m = 1.068 (from memory;
-    // confirmed numerically in physics.md §5: 1.06772 at σ_m = 0.5736).
+    // reproduced numerically from docs/physics.md §5: 1.06772 at σ_m = 0.5736).
     const rv::BoydKleinmanOptimum o = rv::boyd_kleinman_optimum(2.84);
     CHECK_THAT(o.h_m, near(1.068, 0.0005));
     CHECK_THAT(o.sigma_m, near(0.5736, 0.002));
 }
 
 TEST_CASE("the table of h_m", "[boyd-kleinman]") {
-    // physics.md §5 (computed there with scipy quad and bounded optimisation).
+    // docs/physics.md §5 (computed with scipy quad and bounded optimisation).
     struct Row { double xi, h_m, sigma_m; };
     for (const Row& r : {Row{0.5, 0.4631, 0.955}, Row{1, 0.7761, 0.861}, Row{2, 1.0304, 0.682},
                          Row{5, 0.9790, 0.406}, Row{10, 0.7198, 0.243}, Row{20, 0.4512, 0.136}}) {
@@ -27,12 +27,12 @@ TEST_CASE("the table of h_m", "[boyd-kleinman]") {
     }
     // Weak focusing limit h → ξ for ξ ≪ 1 at σ = 0 (Boyd & Kleinman 1968).
     CHECK_THAT(rv::boyd_kleinman_h(0, 0.01), near(0.01, 1e-5));
-    // The σ = 0 column of physics.md §5: h(0, 2.84) = 0.5347.
+    // σ = 0, computed from docs/physics.md §5: h(0, 2.84) = 0.5347.
     CHECK_THAT(rv::boyd_kleinman_h(0, 2.84), near(0.5347, 1e-4));
 }
 
 TEST_CASE("walk-off parameter", "[boyd-kleinman]") {
-    // physics.md §5: ρ = 0.05562 rad, k1 = 9770 /mm: B = 2.75 (L = 1 mm), 3.89 (2), 6.15 (5), 8.69 (10).
+    // docs/physics.md §5: ρ = 0.05562 rad, k1 = 9770 /mm: B = 2.75 (L = 1 mm), 3.89 (2), 6.15 (5), 8.69 (10).
     CHECK_THAT(rv::walkoff_parameter(0.05562, 1, 9770), near(2.75, 0.005));
     CHECK_THAT(rv::walkoff_parameter(0.05562, 2, 9770), near(3.89, 0.005));
     CHECK_THAT(rv::walkoff_parameter(0.05562, 5, 9770), near(6.15, 0.005));

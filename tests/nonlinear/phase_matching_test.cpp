@@ -23,12 +23,12 @@ TEST_CASE("generated wavelengths", "[phase-matching]") {
     CHECK_THAT(rv::sum_frequency_nm(1064, 1064), near(532, 1e-9));
     CHECK_THAT(rv::sum_frequency_nm(832, 832), near(416, 1e-9));
     CHECK_THAT(rv::sum_frequency_nm(1064, 832), near(466, 1.0));
-    // physics.md §4.1 (computed there): 1030 + 780 nm → 443.867 nm.
+    // docs/physics.md §4.1 (computed from it): 1030 + 780 nm → 443.867 nm.
     CHECK_THAT(rv::sum_frequency_nm(1030, 780), near(443.867, 5e-4));
 }
 
 TEST_CASE("type-I BBO angles for each Sellmeier set", "[phase-matching][bbo]") {
-    // physics.md §4.3 (closed form, computed there from Eimerl 1987, Kato 1986, Zhang 2000,
+    // docs/physics.md §4.3 (closed form, computed from Eimerl 1987, Kato 1986, Zhang 2000,
     // Tamošauskas 2018), ±0.02°.
     struct Row { double l1, l2, eimerl, kato, zhang, tam; };
     for (const Row& r : {Row{1064, 1064, 22.88, 22.78, 22.85, 22.83},
@@ -45,7 +45,7 @@ TEST_CASE("type-I BBO angles for each Sellmeier set", "[phase-matching][bbo]") {
 
 TEST_CASE("handbook type-I BBO angles", "[phase-matching][bbo]") {
     // Dmitriev, Gurzadyan & Nikogosyan, Handbook of Nonlinear Optical Crystals (1999) and
-    // vendor sheets (from memory in physics.md §4.2): 22.8° for 1064 nm SHG, 29.2° for 800 nm,
+    // vendor sheets (from memory, docs/physics.md §4.2): 22.8° for 1064 nm SHG, 29.2° for 800 nm,
     // 47.6° for 532 → 266 nm; the default set (Kato 1986) within 0.1°.
     CHECK_THAT(pm_deg("BBO", 1064, 1064), near(22.8, 0.1));
     CHECK_THAT(pm_deg("BBO", 800, 800), near(29.2, 0.1));
@@ -53,7 +53,7 @@ TEST_CASE("handbook type-I BBO angles", "[phase-matching][bbo]") {
 }
 
 TEST_CASE("type-II BBO angles", "[phase-matching][bbo]") {
-    // physics.md §4.2 and §4.3 (computed there; Eimerl / Kato): SHG 1064 eoe 32.55 / 32.84
+    // docs/physics.md §4.2 and §4.3 (computed from them; Eimerl / Kato): SHG 1064 eoe 32.55 / 32.84
     // (published 32.9°, from memory); SFG 1030 + 780 oee 40.88 / 41.19, eoe 34.79 / 35.19;
     // SHG 800: 41.98 / 42.35.
     using M = rv::MixingType;
@@ -69,7 +69,7 @@ TEST_CASE("type-II BBO angles", "[phase-matching][bbo]") {
 }
 
 TEST_CASE("walk-off of the extraordinary wave", "[phase-matching][bbo]") {
-    // physics.md §4.2: type-I 1064 nm SHG, ≈ 3.2° ≈ 56 mrad (from memory), computed 3.187°
+    // docs/physics.md §4.2: type-I 1064 nm SHG, ≈ 3.2° ≈ 56 mrad (from memory), computed 3.187°
     // with Kato 1986; §4.3: 1030 nm SHG 3.25°, 1030 + 780 nm SFG 3.58° (Kato).
     const rv::Material& bbo = crystal("BBO");
     const double th = *rv::phase_matching_angle_rad(bbo, 1064, 1064, rv::MixingType::TypeI);
@@ -82,7 +82,7 @@ TEST_CASE("walk-off of the extraordinary wave", "[phase-matching][bbo]") {
 }
 
 TEST_CASE("acceptance and group-velocity mismatch", "[phase-matching][bbo]") {
-    // physics.md §4.4 (Kato 1986; computed there): internal FWHM angular acceptance × L,
+    // docs/physics.md §4.4 (Kato 1986; computed from it): internal FWHM angular acceptance × L,
     // GVM 1/v_g3 − 1/v_gi, and the SHG spectral acceptance × L. L = 10 mm gives per-cm values.
     using M = rv::MixingType;
     const rv::Material& bbo = crystal("BBO");
@@ -91,8 +91,8 @@ TEST_CASE("acceptance and group-velocity mismatch", "[phase-matching][bbo]") {
     CHECK_THAT(a.angular_internal_fwhm_mrad, near(0.512, 0.002));
     CHECK_THAT(a.spectral_fwhm_nm, near(1.96, 0.01));
     CHECK_THAT(rv::group_velocity_mismatch_fs_per_mm(bbo, 1064, 1064, M::TypeI, th, 3, 1), near(85.3, 0.1));
-    // physics.md §4.2: × n_o gives 0.85 mrad·cm (computed there), which the vendor sheet's
-    // 0.8 mrad·cm [S5] matches as an external FWHM; its definition is unstated, hence ±0.06.
+    // docs/physics.md §4.2: × n_o gives 0.85 mrad·cm (computed), which the vendor sheet's
+    // 0.8 mrad·cm matches as an external FWHM; its definition is unstated, hence ±0.06.
     CHECK_THAT(a.angular_internal_fwhm_mrad * 1.65452, near(0.85, 0.01));
     CHECK_THAT(a.angular_internal_fwhm_mrad * 1.65452, near(0.8, 0.06));
 
@@ -122,7 +122,7 @@ TEST_CASE("delta k vanishes at the phase-matching angle and not elsewhere", "[ph
 }
 
 TEST_CASE("LBO type-I SHG of 1064 nm in the XY plane", "[phase-matching][lbo]") {
-    // Recomputed independently (a few lines of Python, closed form of physics.md §4.1 with the
+    // Recomputed independently (a few lines of Python, closed form of docs/physics.md §4.1 with the
     // Chen 1989 / Hanson & Dick 1991 coefficients of §3.1): φ = 11.759°. Handbooks and vendor
     // sheets quote 11.4–11.8° at room temperature (from memory).
     const double phi = pm_deg("LBO", 1064, 1064);
@@ -132,7 +132,7 @@ TEST_CASE("LBO type-I SHG of 1064 nm in the XY plane", "[phase-matching][lbo]") 
 
 TEST_CASE("the type-I closed form agrees with delta k in every principal plane", "[phase-matching][lbo]") {
     // The closed form sin²ψ = (N⁻² − p⁻²)/(q⁻² − p⁻²) and the direct Δk = 2π(n3/λ3 − n1/λ1 −
-    // n2/λ2) are separate code paths (physics.md §4.1): Δk must vanish at the closed-form angle.
+    // n2/λ2) are separate code paths (docs/physics.md §4.1): Δk must vanish at the closed-form angle.
     using P = rv::PrincipalPlane;
     const rv::Material& lbo = crystal("LBO");
     size_t found = 0;

@@ -9,7 +9,7 @@ using rv::test::near_rel;
 
 TEST_CASE("free-space q against the closed forms", "[gaussian]") {
     // Kogelnik & Li, Appl. Opt. 5, 1550 (1966): w(z) = w0 √(1 + (z/zR)²), R = z (1 + (zR/z)²),
-    // ψ = arctan(z/zR); check values computed in shared/reference/physics.md §1.1
+    // ψ = arctan(z/zR); check values computed from them (docs/physics.md §1.1)
     // for w0 = 100 µm at 1064 nm in air.
     const rv::GaussianBeam at_waist = rv::beam_from_waist(100.0, 0.0, 1064.0);
     CHECK_THAT(rv::rayleigh_range_mm(at_waist), near(29.52625, 1e-5));
@@ -48,7 +48,7 @@ TEST_CASE("M² by the embedded-Gaussian convention", "[gaussian]") {
 }
 
 TEST_CASE("a waist inside a medium", "[gaussian]") {
-    // physics.md §1.4 (computed there): w0 = 30 µm at 1064 nm in BBO with n_o = 1.65452 has
+    // docs/physics.md §1.4 (computed from it): w0 = 30 µm at 1064 nm in BBO with n_o = 1.65452 has
     // z_R = 2.6574 mm in air and 4.3967 mm in the crystal (z_R = π n w0² / λ0).
     CHECK_THAT(rv::rayleigh_range_mm(rv::beam_from_waist(30.0, 0.0, 1064.0)), near(2.6574, 1e-4));
     CHECK_THAT(rv::rayleigh_range_mm(rv::beam_from_waist(30.0, 0.0, 1064.0, 1.65452)),

@@ -28,14 +28,14 @@ SelfResult self_equation(double w0_mm, double s_mm, double f_mm, double lambda_m
 struct Case {
     const char* name;
     double lambda_nm, w0_mm, s_mm, f_mm, m2;
-    double image_mm, waist_um, rayleigh_mm;  // printed values, physics.md §1.3 (computed there)
+    double image_mm, waist_um, rayleigh_mm;  // values computed from docs/physics.md §1.3
     double image_tol_mm, waist_tol_um, rayleigh_tol_mm;
 };
 
 }  // namespace
 
 TEST_CASE("thin-lens focusing agrees with Self's equation", "[gaussian][self]") {
-    // Worked examples A–E of shared/reference/physics.md §1.3 (Self 1983; values computed there
+    // Worked examples A–E of Self's equation, docs/physics.md §1.3 (Self 1983; values computed from it
     // and cross-checked by matrices), each given to the precision printed.
     const Case cases[] = {
         {"A", 1064, 1.0, 500, 100, 1.0, 100.45, 33.562, 3.3258, 0.005, 0.0005, 0.00005},

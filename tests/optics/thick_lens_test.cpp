@@ -10,7 +10,7 @@ using rv::test::near_rel;
 
 TEST_CASE("thick biconvex singlet: matrix and EFL and back focal distance", "[thick-lens]") {
     // Lensmaker's formula for a thick lens (e.g. Hecht, Optics, §6.2):
-    // 1/f = (n−1)[1/R1 − 1/R2 + (n−1)t/(n R1 R2)]; check values computed in physics.md §2 for
+    // 1/f = (n−1)[1/R1 − 1/R2 + (n−1)t/(n R1 R2)]; check values computed from docs/physics.md §2 for
     // N-BK7 at 1064 nm (n = 1.506635), R1 = +100, R2 = −100, t = 5 mm.
     const rv::ThickSinglet lens{100.0, -100.0, 5.0};
     const double n = 1.506635;
@@ -41,8 +41,8 @@ TEST_CASE("plano-convex singlet: flat face and principal planes", "[thick-lens]"
 }
 
 TEST_CASE("chromatic focal shift of thin singlets", "[thick-lens][chromatic]") {
-    // f(λ) = f(λ0)(n(λ0) − 1)/(n(λ) − 1) from the lensmaker formula; table of physics.md §3.5
-    // (computed there from the Sellmeier sets of §3.1) for f(1064 nm) = 100.000 mm.
+    // f(λ) = f(λ0)(n(λ0) − 1)/(n(λ) − 1) from the lensmaker formula; docs/physics.md §3.5
+    // (values computed from the Sellmeier sets of §3.1) for f(1064 nm) = 100.000 mm.
     struct Row { const char* glass; double f532, f780, f800, f1030, f1550; };
     const rv::MaterialLibrary& lib = rv::MaterialLibrary::builtin();
     for (const Row& r : {Row{"N-BK7", 97.529, 99.110, 99.189, 99.910, 101.195},

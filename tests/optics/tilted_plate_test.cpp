@@ -10,9 +10,9 @@ using rv::test::near;
 using rv::test::near_rel;
 
 TEST_CASE("tilted plate: lateral displacement and effective lengths", "[plate]") {
-    // d = t sinθ [1 − cosθ/√(n² − sin²θ)] (standard plate formula, from memory in physics.md);
-    // L_s = t/(n cosθ'), L_t = t cos²θ/(n cos³θ') (derived in physics.md §2.1 from the tilted
-    // interface matrices; Kogelnik et al. 1972 for the Brewster case); values computed there.
+    // d = t sinθ [1 − cosθ/√(n² − sin²θ)] (standard plate formula, from memory; docs/physics.md §2.1);
+    // L_s = t/(n cosθ'), L_t = t cos²θ/(n cos³θ') (derived in docs/physics.md §2.1 from the tilted
+    // interface matrices; Kogelnik et al. 1972 for the Brewster case); values computed from them.
     struct Row { double t, aoi_deg, n, d, ls, lt; };
     for (const Row& r : {Row{3, 45, 1.5, 0.98743, 2.26779, 1.45786},
                          Row{3, 45, 1.506635, 0.99383, 2.25497, 1.44599},
@@ -32,10 +32,10 @@ TEST_CASE("tilted plate: lateral displacement and effective lengths", "[plate]")
         CHECK_THAT(mt(1, 1), near(1.0, 1e-12));
         CHECK_THAT(mt(1, 0), near(0.0, 1e-15));
     }
-    // physics.md §2.1: the astigmatic waist separation L_s − L_t = 0.80992 mm for the first plate.
+    // docs/physics.md §2.1: the astigmatic waist separation L_s − L_t = 0.80992 mm for the first plate.
     const rv::TiltedPlate p = rv::tilted_plate(3, 1.5, rv::deg_to_rad(45));
     CHECK_THAT(p.sagittal_length_mm - p.tangential_length_mm, near(0.80992, 1e-5));
-    // physics.md §7: the 1 mm fused-silica plate at 45° has glass path 1.14462 mm and replaces
+    // docs/physics.md §7: the 1 mm fused-silica plate at 45° has glass path 1.14462 mm and replaces
     // 1.10090 mm of air along the original direction.
     const rv::TiltedPlate fs = rv::tilted_plate(1, 1.453317, rv::deg_to_rad(45));
     CHECK_THAT(fs.glass_path_mm, near(1.14462, 1e-5));

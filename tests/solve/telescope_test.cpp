@@ -44,7 +44,7 @@ std::string kepler(double f2, double l2_x, double target_x, double goal_um) {
 
 TEST_CASE("a Kepler telescope of the right magnification is found", "[solve]") {
     // Truth: f1 = 50, f2 = 150 at the afocal spacing f1 + f2 = 200 mm (Kepler telescope of
-    // magnification f2/f1 = 3, physics.md §2); the target sits at the waist this makes and the
+    // magnification f2/f1 = 3, docs/physics.md §2); the target sits at the waist this makes and the
     // goal is its size. The solver starts from f2 = 100 in the wrong place and must recover
     // f2 = 150 at 300 mm with a relative residual ≤ 1e-6.
     const rv::Layout truth = layout_from(kepler(150, 300, 700, 100));

@@ -33,7 +33,7 @@ TEST_CASE("a seed gives the same result on any number of threads", "[tolerance]"
 }
 
 TEST_CASE("sensitivities of the stage and a lens are what the physics says", "[tolerance]") {
-    // A retroreflector stage changes the delay by 2 n_g,air/c per mm (physics.md §7): about
+    // A retroreflector stage changes the delay by 2 n_g,air/c per mm (docs/physics.md §7): about
     // −6673 fs per mm here (moving S1 shortens the pump arm). Moving the target crystal along
     // the beam by δ moves both waist offsets by −δ, so their difference does not change.
     const rv::Layout l = rv::test::bundled_layout("sfg-bbo.json");

@@ -37,7 +37,7 @@ std::pair<double, double> self(double w0_mm, double s, double f, double lambda_m
 }  // namespace
 
 TEST_CASE("a straight layout agrees with Self's equation", "[propagate][self]") {
-    // physics.md §1.3 example A (Self 1983): 1064 nm, w0 = 1 mm, s = 500 mm, f = 100 mm →
+    // docs/physics.md §1.3 example A (Self 1983): 1064 nm, w0 = 1 mm, s = 500 mm, f = 100 mm →
     // waist 100.45 mm after the lens, 33.562 µm.
     const Traced t = run(layout_json(
         R"({"id": "b", "wavelength_nm": 1064, "start_mm": [0, 0], "direction_deg": 0, "waist_um": 1000})",
@@ -74,7 +74,7 @@ TEST_CASE("curved-mirror astigmatism from the traced angle", "[propagate][mirror
 }
 
 TEST_CASE("a tilted plate in the path acts as its effective lengths", "[propagate][plate]") {
-    // physics.md §2.1: between its faces the plate is free space of L_t = t cos²θ/(n cos³θ')
+    // docs/physics.md §2.1: between its faces the plate is free space of L_t = t cos²θ/(n cos³θ')
     // tangentially and L_s = t/(n cosθ') sagittally (tilted_plate_matrix, checked against
     // those formulas in optics/tilted_plate_test.cpp). A converging beam crosses N-BK7 3 mm at 45°.
     const Traced t = run(layout_json(
@@ -94,14 +94,14 @@ TEST_CASE("a tilted plate in the path acts as its effective lengths", "[propagat
         CHECK_THAT(got.q_mm.real(), near(q.q_mm.real(), 1e-9));
         CHECK_THAT(got.q_mm.imag(), near(q.q_mm.imag(), 1e-9));
     }
-    // The astigmatic split of the waists equals L_s − L_t (physics.md §2.1).
+    // The astigmatic split of the waists equals L_s − L_t (docs/physics.md §2.1).
     const rv::TiltedPlate p = rv::tilted_plate(3, n, rv::kPi / 4);
     CHECK_THAT(t.caustic.target_waist_offset_tangential_mm - t.caustic.target_waist_offset_sagittal_mm,
                near(p.sagittal_length_mm - p.tangential_length_mm, 1e-9));
 }
 
 TEST_CASE("clipping at an aperture", "[propagate][clipping]") {
-    // Power outside a circular aperture of radius a: exp(−2a²/w²) (practice.md §2 rule [S8]:
+    // Power outside a circular aperture of radius a: exp(−2a²/w²) (docs/physics.md §1.6; docs/practice.md §2.1:
     // D = 2w transmits 86.5 %). At 45° the aperture seen in the table plane shrinks by cos 45°.
     // The aperture at normal incidence is a lens of negligible power (f = 1e9 mm).
     const Traced t = run(layout_json(
@@ -135,7 +135,7 @@ TEST_CASE("the envelope is sampled along the path and densely near the target", 
 }
 
 TEST_CASE("two colours through one N-BK7 lens focus apart by the chromatic shift", "[propagate][chromatic]") {
-    // physics.md §1.5 (computed there): a thin N-BK7 lens with f(1064) = 100 mm (so
+    // docs/physics.md §1.5 (computed from it): a thin N-BK7 lens with f(1064) = 100 mm (so
     // f(587.6) = 100·(n(1064) − 1)/(n_d − 1)); collimated beams, w0 = 1.000 mm at the lens:
     // 1064 nm → waist at 99.8854 mm, 33.8488 µm, z_R 3.3829 mm;
     // 532 nm → f 97.5287 mm, waist at 97.5021 mm, 16.5133 µm, z_R 1.6103 mm.

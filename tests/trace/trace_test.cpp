@@ -56,7 +56,7 @@ TEST_CASE("folded path: path length and exit angle by hand", "[trace]") {
 TEST_CASE("dichroic routing by wavelength", "[trace][dichroic]") {
     // Edge 800 nm, reflects shorter: 532 nm turns by 90°, 1064 nm crosses the 3 mm fused-silica
     // substrate at 45° and is displaced by t sinθ [1 − cosθ/√(n² − sin²θ)] (plate formula,
-    // physics.md §2.1) with n(1064) of Malitson 1965.
+    // docs/physics.md §2.1) with n(1064) of Malitson 1965.
     const rv::Layout l = layout_from(layout_json(
         std::string(kBeam1064At500) + R"(, {"id": "g", "wavelength_nm": 532, "start_mm": [0, 500], "direction_deg": 0, "waist_um": 500})",
         R"({"id": "DM", "type": "dichroic", "at_mm": [100, 500], "normal_deg": 135, "edge_nm": 800, "reflects": "shorter", "substrate": {"glass": "fused-silica", "thickness_mm": 3}},
@@ -67,7 +67,7 @@ TEST_CASE("dichroic routing by wavelength", "[trace][dichroic]") {
     const rv::TraceHit& ir = p[0].hits[*p[0].target_hit];
     const double n = 1.449631, th = rv::kPi / 4;
     const double shift = 3 * std::sin(th) * (1 - std::cos(th) / std::sqrt(n * n - std::sin(th) * std::sin(th)));
-    CHECK_THAT(ir.point_mm.y(), near(500 - shift, 2e-6));  // n given to 6 decimals in physics.md
+    CHECK_THAT(ir.point_mm.y(), near(500 - shift, 2e-6));  // n above is rounded to 6 decimals
     CHECK_THAT(angle_deg(ir.direction_in), near(0, 1e-9));
     REQUIRE(p[1].hits.size() >= 2);
     CHECK(l.elements[p[1].hits[0].element].id == "DM");
@@ -92,7 +92,7 @@ TEST_CASE("a decentred thin lens steers the ray by -h/f", "[trace][lens]") {
 }
 
 TEST_CASE("a retroreflector on a stage changes the path by twice the motion", "[trace][stage]") {
-    // Double pass of a retroreflector delay line (physics.md §7; practice.md rule of thumb).
+    // Double pass of a retroreflector delay line (docs/physics.md §7; docs/practice.md §2.5).
     auto path_for = [](double position) {
         const std::string stage = std::to_string(position);
         const rv::Layout l = layout_from(layout_json(kBeam1064,
@@ -112,7 +112,7 @@ TEST_CASE("a retroreflector on a stage changes the path by twice the motion", "[
 }
 
 TEST_CASE("a tilted plate shifts the ray as the published formula says", "[trace][plate]") {
-    // d = t sinθ [1 − cosθ/√(n² − sin²θ)] (physics.md §2.1); N-BK7 3 mm at 30°, n(1064) from
+    // d = t sinθ [1 − cosθ/√(n² − sin²θ)] (docs/physics.md §2.1); N-BK7 3 mm at 30°, n(1064) from
     // the SCHOTT Sellmeier set: the transmitted ray is parallel and displaced by d.
     const rv::Layout l = layout_from(layout_json(kBeam1064At500,
         R"({"id": "P", "type": "plate", "at_mm": [50, 500], "normal_deg": 150, "material": "N-BK7", "thickness_mm": 3},

@@ -41,7 +41,7 @@ size_t count_colour(const unsigned char* rgba, int w, int h, rv::scene::Colour c
 }  // namespace
 
 TEST_CASE("CIE 1931 colour matching by the analytic fit", "[colour]") {
-    // Wyman, Sloan & Shirley, JCGT 2(2), 2013; check values computed in physics.md §8.
+    // Wyman, Sloan & Shirley, JCGT 2(2), 2013; check values computed from docs/physics.md §8.
     struct Row { double nm, x, y, z; };
     for (const Row& r : {Row{532, 0.1820, 0.8893, 0.0374}, Row{555, 0.5173, 0.9980, 0.0057},
                          Row{633, 0.5951, 0.2350, 0.0000}}) {
@@ -55,7 +55,7 @@ TEST_CASE("CIE 1931 colour matching by the analytic fit", "[colour]") {
 
 TEST_CASE("beam colours: visible from the wavelength, invisible dashed", "[colour]") {
     // 532 nm looks green (its sRGB green channel dominates); 633 nm red. Beams outside
-    // 400–700 nm are drawn dashed in false colours (physics.md §8: common practice), two
+    // 400–700 nm are drawn dashed in false colours (docs/physics.md §8: common practice), two
     // infrared wavelengths in different ones.
     const rv::scene::BeamStyle green = rv::scene::beam_style(532);
     CHECK(green.visible);
