@@ -93,6 +93,7 @@ int main(int argc, char** argv) {
     solve_cmd->add_option("layout", solve.layout, "layout file (JSON)")->required();
     solve_cmd->add_option("--catalog", solve.catalog, "lens catalog (default: the built-in generic one)");
     solve_cmd->add_option("--top", solve.top, "how many solutions to list")->check(CLI::Range(1, 100));
+    solve_cmd->add_flag("--json", solve.json, "one JSON object (docs/schemas/solve.schema.json) instead of the ranking");
     solve_cmd->add_option("--write", solve.output,
                           "write the best solution here (- is stdout, the ranking then on stderr)");
     solve_cmd->footer(kWriting);
@@ -103,6 +104,7 @@ int main(int argc, char** argv) {
                      "Example: rendezvous tolerance layouts/sfg-bbo.json --samples 100000 --seed 7");
     tolerance_cmd->add_option("layout", tolerance.layout, "layout file (JSON)")->required();
     tolerance_cmd->add_option("--samples", tolerance.samples, "Monte Carlo samples")->check(CLI::Range(1, 10000000));
+    tolerance_cmd->add_flag("--json", tolerance.json, "one JSON object (docs/schemas/tolerance.schema.json) instead of the tables");
     tolerance_cmd->add_option("--seed", tolerance.seed, "random seed (the result depends on it only)");
 
     rv::cli::PolarizeOptions polarize;
@@ -114,6 +116,7 @@ int main(int argc, char** argv) {
     polarize_cmd->add_option("--plate", polarize.plate, "id of the half- or quarter-wave plate to turn")->required();
     polarize_cmd->add_option("--beam", polarize.beam, "the beam, when both pass the plate");
     polarize_cmd->add_option("--power-mw", polarize.power_mw, "wanted power at the target (mW)")->check(CLI::NonNegativeNumber);
+    polarize_cmd->add_flag("--json", polarize.json, "one JSON object (docs/schemas/polarize.schema.json) instead of the text");
     polarize_cmd->add_option("--write", polarize.output,
                              "write the layout with the plate turned here (- is stdout)");
     polarize_cmd->footer(kWriting);
@@ -122,6 +125,7 @@ int main(int argc, char** argv) {
         "balance", "Put the stage where the delay is zero; say what fixed path to add when it cannot.\n"
                    "Example: rendezvous balance layouts/sfg-bbo.json --write sfg-balanced.json");
     balance_cmd->add_option("layout", balance.layout, "layout file (JSON)")->required();
+    balance_cmd->add_flag("--json", balance.json, "one JSON object (docs/schemas/balance.schema.json) instead of the text");
     balance_cmd->add_option(
         "--write", balance.output,
         "write the balanced layout here (- is stdout, the summary then on stderr)");
@@ -136,6 +140,7 @@ int main(int argc, char** argv) {
     sweep_cmd->add_option("--from", sweep.from, "first value")->required();
     sweep_cmd->add_option("--to", sweep.to, "last value")->required();
     sweep_cmd->add_option("--steps", sweep.steps, "number of values (≥ 2)")->check(CLI::Range(2, 100000));
+    sweep_cmd->add_flag("--json", sweep.json, "one JSON object (docs/schemas/sweep.schema.json) instead of the table");
     sweep_cmd->add_flag("--csv", sweep.csv, "comma-separated output");
 
     rv::cli::RenderOptions render;

@@ -51,6 +51,7 @@ WavePlateResult set_wave_plate(const Layout& layout, const MaterialLibrary& libr
     std::optional<bool> needs_h;
     for (const PolarizationAdvice& a : report.polarization)
         if (a.beam == beam->id) needs_h = a.needs_horizontal;
+    out.crystal_needs_known = needs_h.has_value();
     const double scale = source_mw > 0 ? source_mw : 1.0;
     auto at = [&](double deg) { return target_stokes_with_plate(layout, library, beam->path, beam->caustic, plate, deg); };
     auto useful = [&](const Stokes& s) { return needs_h ? scale * (*needs_h ? (s[0] + s[1]) / 2 : (s[0] - s[1]) / 2) : 0.0; };

@@ -25,6 +25,7 @@ struct WavePlateResult {
     double angle_before_deg = 0, angle_deg = 0;
     double power_before_mw = 0, power_mw = 0;        // at the target
     double useful_before_mw = 0, useful_mw = 0;      // in the polarization the crystal needs (0 without one)
+    bool crystal_needs_known = false;                 // the report knows that polarization (useful_* apply)
     bool reached = true;                              // the wanted power is within 0.1 % (or no power asked)
     Layout layout;                                    // with the plate turned
 };

@@ -23,38 +23,55 @@ layouts = [f for f in sorted(glob.glob(os.path.join(top, "layouts", "*.json")))
            if os.path.basename(f) not in ("lenses.json", "schema.json")]
 layouts += sorted(glob.glob(os.path.join(top, "tests", "layouts", "findings", "*.json")))
 
-# command (with its arguments before the layout) -> schema; each run on every layout.
-COMMANDS = [
-    (["report"], ["--json"], "report.schema.json"),
-    (["check"], ["--json"], "check.schema.json"),
-    (["trace"], ["--json"], "trace.schema.json"),
+def layout_file(*parts):
+    return os.path.join(top, *parts)
+
+# (arguments, schema): every command that speaks JSON, on every layout it applies to.
+RUNS = []
+for layout in layouts:
+    RUNS += [(["report", layout, "--json"], "report.schema.json"),
+             (["check", layout, "--json"], "check.schema.json"),
+             (["trace", layout, "--json"], "trace.schema.json")]
+for name in ("sfg-bbo.json", "pump-probe.json", "two-beam-microscope.json", "shg-single.json"):
+    RUNS.append((["tolerance", layout_file("layouts", name), "--samples", "300", "--json"], "tolerance.schema.json"))
+for name in ("sfg-bbo.json", "pump-probe.json"):
+    RUNS.append((["balance", layout_file("layouts", name), "--json"], "balance.schema.json"))
+RUNS += [
+    (["polarize", layout_file("layouts", "sfg-bbo.json"), "--plate", "HWP_P", "--json"], "polarize.schema.json"),
+    (["polarize", layout_file("layouts", "shg-single.json"), "--plate", "HWP", "--power-mw", "1000", "--json"], "polarize.schema.json"),
+    (["sweep", layout_file("layouts", "sfg-bbo.json"), "--vary", "S1.position_mm", "--from", "-5", "--to", "32", "--steps", "5", "--json"], "sweep.schema.json"),
+    (["sweep", layout_file("layouts", "shg-single.json"), "--vary", "X.normal_deg", "--from", "-82", "--to", "-78", "--steps", "3", "--json"], "sweep.schema.json"),
+    (["solve", layout_file("tests", "layouts", "solve", "plate-before-crystal.json"), "--json"], "solve.schema.json"),
 ]
 
 failures = 0
 runs = 0
-for before, after, schema_id in COMMANDS:
+for args, schema_id in RUNS:
     schema = store[schema_id]
     resolver = jsonschema.RefResolver(base_uri="", referrer=schema, store=store)
     validator = jsonschema.Draft202012Validator(schema, resolver=resolver)
-    for layout in layouts:
-        cmd = [rv, *before, layout, *after]
-        p = subprocess.run(cmd, capture_output=True, text=True, timeout=120)
-        runs += 1
-        name = " ".join(before) + " " + os.path.basename(layout)
-        if p.returncode != 0:
-            print(f"FAIL {name}: exit {p.returncode}: {p.stderr.strip()}")
-            failures += 1
-            continue
-        try:
-            doc = json.loads(p.stdout)
-        except json.JSONDecodeError as e:
-            print(f"FAIL {name}: not one JSON object: {e}")
-            failures += 1
-            continue
-        errors = sorted(validator.iter_errors(doc), key=lambda e: list(e.path))
-        for e in errors[:5]:
-            print(f"FAIL {name}: /{'/'.join(map(str, e.path))}: {e.message[:200]}")
-        failures += bool(errors)
+    p = subprocess.run([rv, *args], capture_output=True, text=True, timeout=120)
+    runs += 1
+    name = " ".join(os.path.basename(a) for a in args)
+    if p.returncode != 0:
+        print(f"FAIL {name}: exit {p.returncode}: {p.stderr.strip()}")
+        failures += 1
+        continue
+    try:
+        doc = json.loads(p.stdout)
+    except json.JSONDecodeError as e:
+        print(f"FAIL {name}: not one JSON object: {e}")
+        failures += 1
+        continue
+    errors = sorted(validator.iter_errors(doc), key=lambda e: list(e.path))
+    for e in errors[:5]:
+        print(f"FAIL {name}: /{'/'.join(map(str, e.path))}: {e.message[:200]}")
+    failures += bool(errors)
+used = {schema_id for _, schema_id in RUNS} | {"finding.schema.json"}
+for unused in sorted(set(store) - used):
+    print(f"FAIL docs/schemas/{unused} is validated by no run")
+    failures += 1
+
 # The schemas can fail: documents with one mistake each are rejected.
 report_validator = jsonschema.Draft202012Validator(
     store["report.schema.json"], resolver=jsonschema.RefResolver(base_uri="", referrer=store["report.schema.json"], store=store))

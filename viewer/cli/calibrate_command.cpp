@@ -6,6 +6,7 @@
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "io/layout_reader.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::cli {
 
@@ -23,9 +24,10 @@ int run_calibrate(const CalibrateOptions& options, std::ostream& out, std::ostre
         return 2;
     // With --write -, standard output holds the layout alone.
     (options.output == "-" ? err : out)
-        << "stage " << c->stage << ": zero measured at " << options.zero_mm << " mm; the model put "
-        << c->emission_offset_fs << " fs of delay there, now written into " << c->layout.beams[0].id
-        << "'s emit_time_fs (" << c->layout.beams[0].emit_time_fs << " fs) in "
+        << "stage " << c->stage << ": zero measured at " << format_number("%.4f", options.zero_mm)
+        << " mm; the model put " << format_duration_fs(c->emission_offset_fs) << " of delay there, now written into "
+        << c->layout.beams[0].id << "'s emit_time_fs (" << format_number("%.3f", c->layout.beams[0].emit_time_fs)
+        << " fs) in "
         << (options.output == "-" ? "standard output" : options.output) << "\n";
     return 0;
 }

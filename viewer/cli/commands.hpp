@@ -50,6 +50,7 @@ struct SolveCommandOptions {
     std::string catalog;  // "" = the built-in generic catalog
     std::string output;   // write the best solution here
     int top = 5;
+    bool json = false;    // one JSON object (docs/schemas/solve.schema.json) instead of the ranking
 };
 int run_solve(const SolveCommandOptions& options, std::ostream& out, std::ostream& err);
 
@@ -57,18 +58,21 @@ struct ToleranceOptions {
     std::string layout;
     size_t samples = 10000;
     std::uint64_t seed = 1;
+    bool json = false;  // one JSON object (docs/schemas/tolerance.schema.json) instead of the tables
 };
 int run_tolerance(const ToleranceOptions& options, std::ostream& out, std::ostream& err);
 
 struct BalanceOptions {
     std::string layout;
     std::string output;  // "" = print only
+    bool json = false;   // one JSON object (docs/schemas/balance.schema.json) instead of the text
 };
 int run_balance(const BalanceOptions& options, std::ostream& out, std::ostream& err);
 
 struct PolarizeOptions {
     std::string layout, plate, beam, output;
     double power_mw = -1;  // < 0: the most power in the polarization the crystal needs
+    bool json = false;     // one JSON object (docs/schemas/polarize.schema.json) instead of the text
 };
 int run_polarize(const PolarizeOptions& options, std::ostream& out, std::ostream& err);
 
@@ -78,6 +82,7 @@ struct SweepOptions {
     double from = 0, to = 0;
     int steps = 11;
     bool csv = false;
+    bool json = false;  // one JSON object (docs/schemas/sweep.schema.json) instead of the table
 };
 // A value the sweep cannot compute is printed as nan (a beam that misses the target).
 int run_sweep(const SweepOptions& options, std::ostream& out, std::ostream& err);

@@ -1,6 +1,7 @@
 // rendezvous polarize: turn a wave plate for a wanted power at the target, or for the most power
 // in the polarization the crystal needs; the result as a new layout on request.
 #include <cstdio>
+#include <nlohmann/json.hpp>
 #include <ostream>
 
 #include "cli/commands.hpp"
@@ -11,6 +12,10 @@
 namespace rv::cli {
 
 int run_polarize(const PolarizeOptions& o, std::ostream& out, std::ostream& err) {
+    if (o.json && o.output == "-") {
+        err << "rendezvous: --json and --write - would both print to standard output; write the layout to a file\n";
+        return 2;
+    }
     const std::optional<Layout> layout = load_layout(o.layout, err);
     if (!layout) return 2;
     WavePlateGoal goal{o.plate, o.beam, std::nullopt};
@@ -19,6 +24,25 @@ int run_polarize(const PolarizeOptions& o, std::ostream& out, std::ostream& err)
     if (!r.error.empty()) {
         err << o.layout << ": error: " << r.error << "\n";
         return 2;
+    }
+    if (o.json) {
+        using nlohmann::json;
+        if (!o.output.empty() && !save_layout_or_report(r.layout, o.output, keep_input(o.layout), out, err)) return 2;
+        auto useful = [&](double mw) { return r.crystal_needs_known ? json(mw) : json(nullptr); };
+        out << json{{"layout", o.layout},
+                    {"plate", o.plate},
+                    {"beam", r.beam},
+                    {"angle_before_deg", r.angle_before_deg},
+                    {"angle_deg", r.angle_deg},
+                    {"power_before_mw", r.power_before_mw},
+                    {"power_mw", r.power_mw},
+                    {"useful_before_mw", useful(r.useful_before_mw)},
+                    {"useful_mw", useful(r.useful_mw)},
+                    {"reached", r.reached},
+                    {"wrote", o.output.empty() ? json(nullptr) : json(o.output)}}
+                   .dump(2)
+            << "\n";
+        return 0;
     }
     // With --write -, standard output holds the layout alone: the summary goes to stderr.
     std::ostream& say = o.output == "-" ? err : out;

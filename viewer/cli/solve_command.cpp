@@ -1,6 +1,7 @@
 // rendezvous solve: stock lenses and positions for the goals, ranked; the best as a new layout.
 #include <chrono>
 #include <cstdio>
+#include <nlohmann/json.hpp>
 #include <ostream>
 
 #include "cli/commands.hpp"
@@ -12,6 +13,10 @@
 namespace rv::cli {
 
 int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err) {
+    if (o.json && o.output == "-") {
+        err << "rendezvous: --json and --write - would both print to standard output; write the layout to a file\n";
+        return 2;
+    }
     const std::optional<Layout> layout = load_layout(o.layout, err);
     if (!layout) return 2;
     const MaterialLibrary library = material_library_for(*layout);
@@ -32,6 +37,31 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
     if (!r.error.empty()) {
         err << o.layout << ": error: " << r.error << "\n";
         return 2;
+    }
+    if (o.json) {
+        using nlohmann::json;
+        if (!o.output.empty() && !r.solutions.empty() &&
+            !save_layout_or_report(r.solutions.front().layout, o.output, keep_input(o.layout), out, err))
+            return 2;
+        json solutions = json::array();
+        for (const TelescopeSolution& s : r.solutions) {
+            json swaps = json::array(), moves = json::array();
+            for (const auto& [id, lens] : s.swaps) swaps.push_back({{"element", id}, {"part", lens}});
+            for (const auto& [id, move] : s.moves_mm) moves.push_back({{"element", id}, {"move_mm", move}});
+            solutions.push_back({{"residual", s.residual},
+                                 {"sensitivity_mm_per_mm", s.sensitivity_mm_per_mm},
+                                 {"total_move_mm", s.total_move_mm},
+                                 {"swaps", swaps},
+                                 {"moves", moves},
+                                 {"violations", s.violations}});
+        }
+        out << json{{"layout", o.layout},
+                    {"combinations", r.combinations},
+                    {"solutions", solutions},
+                    {"wrote", o.output.empty() || r.solutions.empty() ? json(nullptr) : json(o.output)}}
+                   .dump(2)
+            << "\n";
+        return 0;
     }
     // With --write -, standard output holds the layout alone: the ranking goes to stderr.
     std::ostream& say = o.output == "-" ? err : out;

@@ -1,5 +1,6 @@
 // rendezvous sweep: one field of the layout against the report's figures.
 #include <cmath>
+#include <nlohmann/json.hpp>
 #include <ostream>
 
 #include "analysis/sweep.hpp"
@@ -54,6 +55,27 @@ int run_sweep(const SweepOptions& o, std::ostream& out, std::ostream& err) {
         return 2;
     }
     const Stage* stage = swept_stage(*layout, id, field);
+    if (o.json) {
+        using nlohmann::json;
+        // The same figures as the table's columns, by name; null where a figure does not exist.
+        std::vector<std::string> names;
+        for (const BeamSource& b : layout->beams) {
+            names.push_back(b.id + "_waist_um");
+            names.push_back(b.id + "_waist_offset_mm");
+        }
+        for (const char* n : {"waist_offset_mm", "waist_ratio", "lateral_um", "delay_fs", "overlap_spatial",
+                              "overlap_temporal", "overlap_combined", "sinc2_now"})
+            names.push_back(n);
+        json points = json::array();
+        for (const SweepPoint& p : r.points) {
+            const std::vector<double> row = figures_of(p);
+            json point = {{"value", row[0]}, {"in_travel", stage ? json(!p.outside_travel) : json(nullptr)}};
+            for (size_t c = 1; c < row.size(); ++c) point[names[c - 1]] = std::isfinite(row[c]) ? json(row[c]) : json(nullptr);
+            points.push_back(std::move(point));
+        }
+        out << json{{"layout", o.layout}, {"vary", o.vary}, {"points", points}}.dump(2) << "\n";
+        return 0;
+    }
     const char* sep = o.csv ? "," : "  ";
     out << o.vary;
     for (const BeamSource& b : layout->beams)

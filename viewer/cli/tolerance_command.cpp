@@ -1,6 +1,7 @@
 // rendezvous tolerance: sensitivities and a Monte Carlo run of the build tolerances.
 #include <chrono>
 #include <cstdio>
+#include <nlohmann/json.hpp>
 #include <ostream>
 #include <thread>
 #include <vector>
@@ -25,6 +26,31 @@ int run_tolerance(const ToleranceOptions& o, std::ostream& out, std::ostream& er
         return 2;
     }
     const Tolerances& t = layout->goals.tolerance;
+    if (o.json) {
+        using nlohmann::json;
+        auto figures = [](const Figures& f) {
+            return json{{"waist_offset_mm", f.waist_offset_mm}, {"waist_ratio", f.waist_ratio},
+                        {"lateral_um", f.lateral_um}, {"delay_fs", f.delay_fs}, {"overlap", f.overlap}};
+        };
+        auto spread = [](const Spread& s) { return json{{"p5", s.p5}, {"p50", s.p50}, {"p95", s.p95}}; };
+        json sensitivity = json::array();
+        for (const SensitivityRow& s : r.sensitivity)
+            sensitivity.push_back({{"perturbation", s.label}, {"tolerance", s.tolerance}, {"per_unit", figures(s.per_unit)}});
+        out << json{{"layout", o.layout},
+                    {"tolerances", {{"position_mm", t.position_mm}, {"angle_mrad", t.angle_mrad},
+                                    {"focal_length_fraction", t.focal_length_fraction}, {"stage_mm", t.stage_mm}}},
+                    {"nominal", figures(r.nominal)},
+                    {"sensitivity", sensitivity},
+                    {"monte_carlo", {{"samples", r.samples}, {"seed", o.seed}, {"missed_target", r.failed},
+                                     {"waist_offset_mm", spread(r.waist_offset_mm)}, {"waist_ratio", spread(r.waist_ratio)},
+                                     {"lateral_um", spread(r.lateral_um)}, {"delay_fs", spread(r.delay_fs)},
+                                     {"overlap", spread(r.overlap)}}},
+                    {"fine_adjustment", r.most_sensitive.empty() ? json(nullptr) : json(r.most_sensitive)},
+                    {"fine_adjustment_share", r.most_sensitive.empty() ? json(nullptr) : json(r.most_sensitive_share)}}
+                   .dump(2)
+            << "\n";
+        return 0;
+    }
     char line[256];
     std::snprintf(line, sizeof line, "Tolerances (uniform, ±): position %.3g mm, angle %.3g mrad, focal length %.3g %%, stage %.3g mm\n\n",
                   t.position_mm, t.angle_mrad, 100 * t.focal_length_fraction, t.stage_mm);
