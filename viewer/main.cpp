@@ -156,6 +156,28 @@ int main(int argc, char** argv) {
     render_cmd->add_option("--size", render_size, "frame size WxH in pixels (default 1600x1000)");
     render_cmd->add_option("--threads", render.threads, "rasterizer threads (the image is the same)")->check(CLI::Range(1, 16));
 
+    rv::cli::SheetOptions sheet;
+    CLI::App* sheet_cmd = app.add_subcommand(
+        "sheet", "The build sheet: the parts list (each part's specification and count), then every optic's\n"
+                 "breadboard hole (column, row from the table's lower-left corner, the first hole half a pitch\n"
+                 "in), its offset from that hole in mm and its angle, beam by beam in the order the light meets\n"
+                 "them, then the optics no beam meets.\n"
+                 "Example: rendezvous sheet layouts/sfg-bbo.json --svg sfg-sheet.svg");
+    sheet_cmd->add_option("layout", sheet.layout, "layout file (JSON)")->required();
+    sheet_cmd->add_option("--svg", sheet.svg,
+                          "draw the table at 1:1 on A4 pages: page 1 is FILE (NAME.svg), the others\n"
+                          "NAME-2.svg, NAME-3.svg, ... beside it");
+    sheet_cmd->add_flag("--markdown", sheet.markdown, "print Markdown for a lab notebook");
+    sheet_cmd->add_flag("--json", sheet.json, "print one JSON object instead of text");
+    sheet_cmd->footer(std::string(
+        "Pages: one SVG file per A4 page (210 x 297 mm, portrait or landscape, whichever needs\n"
+        "fewer pages), each sized in mm so that printing it at 100 % (actual size, no fit to page)\n"
+        "gives the table at its real size. A 15 mm margin holds the crop marks at the tile's\n"
+        "corners, the page's place (column from the left, row from the front, the table area it\n"
+        "covers), the neighbouring pages' numbers and a 100 mm bar to check the scale. Pages are\n"
+        "numbered row by row from the front-left corner; trim at the crop marks and butt the\n"
+        "pages edge to edge. At most 200 pages: a larger table is refused (exit 2).\n") + kWriting);
+
     std::string view_layout;
     rv::window::WindowOptions window_options;
     CLI::App* view_cmd = app.add_subcommand(
@@ -188,6 +210,8 @@ int main(int argc, char** argv) {
             throw CLI::ValidationError("report", "give either a layout file or --demo");
         if (*format_cmd && format.in_place && !format.output.empty())
             throw CLI::ValidationError("format", "--in-place and --output exclude each other");
+        if (*sheet_cmd && sheet.json && sheet.markdown)
+            throw CLI::ValidationError("sheet", "--json and --markdown exclude each other");
     } catch (const CLI::CallForHelp& e) {
         return app.exit(e);
     } catch (const CLI::CallForAllHelp& e) {
@@ -218,6 +242,7 @@ int main(int argc, char** argv) {
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);
     if (*caustic_cmd) return rv::cli::run_caustic(caustic_layout, std::cout, std::cerr);
+    if (*sheet_cmd) return rv::cli::run_sheet(sheet, std::cout, std::cerr);
     std::cout << app.help();
     return 0;
 }

@@ -99,4 +99,13 @@ int run_render(const RenderOptions& options, std::ostream& out, std::ostream& er
 // The sampled beam radius along each path, as CSV: beam,s_mm,radius_tangential_um,radius_sagittal_um
 int run_caustic(const std::string& layout, std::ostream& out, std::ostream& err);
 
+struct SheetOptions {
+    std::string layout;
+    std::string svg;  // "" = no drawing; else page 1 here, the others beside it as NAME-2.svg, …
+    bool markdown = false;
+    bool json = false;
+};
+// The build sheet: parts list, each optic's hole, offset and angle in placement order.
+int run_sheet(const SheetOptions& options, std::ostream& out, std::ostream& err);
+
 }  // namespace rv::cli

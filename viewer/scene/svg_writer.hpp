@@ -9,4 +9,10 @@ namespace rv::scene {
 
 std::string write_svg(const Scene& scene);
 
+// Pieces of SVG text shared by the writers: "#rrggbb", a number with 3 decimals, and text with
+// &, <, > and " escaped for an attribute or an element.
+std::string svg_rgb(const Colour& c);
+std::string svg_number(double v);
+std::string svg_escape(const std::string& s);
+
 }  // namespace rv::scene
