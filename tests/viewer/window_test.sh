@@ -10,6 +10,9 @@ dir=$(mktemp -d)
 trap 'rm -rf "$dir"' EXIT
 export XDG_CONFIG_HOME="$dir/config"   # the recent-files list goes here, not into the user's config
 # The viewer closes itself after 400 frames; the screenshot is taken while it is open.
+# Started from an empty folder: the window's own settings must not land in it.
+mkdir "$dir/cwd"
+cd "$dir/cwd"
 xvfb-run -a -s '-screen 0 1280x800x24' sh -c "
   \"$bin\" view \"$layout\" --quit-after-frames 400 &
   pid=\$!
@@ -18,6 +21,7 @@ xvfb-run -a -s '-screen 0 1280x800x24' sh -c "
   wait \$pid
 "
 test -s "$dir/shot.png"
+test -z "$(ls -A "$dir/cwd")" || { echo "the viewer left files in the folder it was started from:"; ls -A "$dir/cwd"; exit 1; }
 # Colours present in the screenshot, as hex (ImageMagick's own convert, not a stand-in).
 /usr/bin/convert "$dir/shot.png" -depth 8 -format %c histogram:info:- > "$dir/colours.txt"
 colours=$(wc -l < "$dir/colours.txt")

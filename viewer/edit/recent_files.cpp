@@ -1,19 +1,15 @@
 #include "edit/recent_files.hpp"
 
 #include <algorithm>
-#include <cstdlib>
 #include <fstream>
 #include <system_error>
 
+#include "edit/config_folder.hpp"
 #include "io/atomic_file.hpp"
 
 namespace rv::edit {
 
-std::filesystem::path recent_files_path() {
-    if (const char* xdg = std::getenv("XDG_CONFIG_HOME"); xdg && *xdg) return std::filesystem::path(xdg) / "rendezvous" / "recent.txt";
-    if (const char* home = std::getenv("HOME"); home && *home) return std::filesystem::path(home) / ".config" / "rendezvous" / "recent.txt";
-    return "rendezvous-recent.txt";
-}
+std::filesystem::path recent_files_path() { return user_config_file("recent.txt"); }
 
 std::vector<std::string> load_recent(const std::filesystem::path& file) {
     std::vector<std::string> list;

@@ -5,11 +5,14 @@
 #include <backends/imgui_impl_glfw.h>
 #include <imgui.h>
 
+#include <filesystem>
 #include <memory>
 #include <ostream>
+#include <string>
 
 #include "analysis/report.hpp"
 #include "cli/load.hpp"
+#include "edit/config_folder.hpp"
 #include "edit/recent_files.hpp"
 #include "io/layout_reader.hpp"
 #include "io/lens_catalog.hpp"
@@ -54,6 +57,14 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
 
     IMGUI_CHECKVERSION();
     ImGui::CreateContext();
+    // Dear ImGui's own window settings live with the user's configuration, never in the folder
+    // the program was started from (edit/config_folder.hpp).
+    const std::string ini_file = edit::user_config_file("imgui.ini").string();
+    {
+        std::error_code ec;
+        std::filesystem::create_directories(std::filesystem::path(ini_file).parent_path(), ec);
+    }
+    ImGui::GetIO().IniFilename = ini_file.c_str();  // read by ImGui until the context is destroyed
     render::Texture font;
     render::configure_context(font);
     ImGui_ImplGlfw_InitForOther(window, true);
