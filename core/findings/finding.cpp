@@ -1,17 +1,13 @@
 #include "findings/finding.hpp"
 
-#include <cmath>
-#include <cstdio>
+#include "units/number_text.hpp"
 
 namespace rv {
 
 namespace {
 
-std::string printf_text(const char* format, double v) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, format, v);
-    return buf;
-}
+// Every number through the shared rule (units/number_text.hpp): no residue, no -0, no NaN.
+std::string printf_text(const char* format, double v) { return format_number(format, v); }
 std::string mm2(double v) { return printf_text("%.2f", v); }
 std::string point_text(const Vec2& p) { return "(" + mm2(p.x()) + ", " + mm2(p.y()) + ") mm"; }
 std::string shortest(double v) { return printf_text("%.6g", v); }
