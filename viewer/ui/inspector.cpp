@@ -72,8 +72,8 @@ void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
 void end_stale_edit(edit::Document& doc, const EditorState& editor, InspectorState& st) {
     if (!st.editing) return;
     bool owner_there = false;
-    if (st.element.rfind("beam ", 0) == 0) {
-        for (const BeamSource& b : doc.layout().beams) owner_there = owner_there || "beam " + b.id == st.element;
+    if (st.editing_beam) {
+        for (const BeamSource& b : doc.layout().beams) owner_there = owner_there || b.id == st.element;
     } else {
         owner_there = editor.selected && *editor.selected < doc.layout().elements.size() &&
                       doc.layout().elements[*editor.selected].id == st.element;
@@ -86,7 +86,10 @@ void end_stale_edit(edit::Document& doc, const EditorState& editor, InspectorSta
 
 void element_fields(edit::Document& doc, const EditorState& editor, InspectorState& st) {
     Element& e = st.scratch.elements[*editor.selected];
-    if (!st.editing) st.element = e.id;
+    if (!st.editing) {
+        st.element = e.id;
+        st.editing_beam = false;
+    }
     ImGui::Text("%s (%s)", e.id.c_str(), type_name(e.kind));
     ImGui::PushID(static_cast<int>(*editor.selected));
     field("x", "x (mm)", &e.at_mm.x(), "%.3f", doc, st);
@@ -206,7 +209,10 @@ void beam_fields(edit::Document& doc, InspectorState& st) {
         ImGui::Text("%s", b.id.c_str());
         const std::string owner = "beam " + b.id;
         auto f = [&](const char* key, const char* label, double* value, const char* format) {
-            if (!st.editing) st.element = owner;
+            if (!st.editing) {
+                st.element = b.id;
+                st.editing_beam = true;
+            }
             field((owner + " " + key).c_str(), label, value, format, doc, st);
         };
         f("wavelength", "wavelength (nm)", &b.wavelength_nm, "%.2f");

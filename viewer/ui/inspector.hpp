@@ -20,7 +20,8 @@ struct InspectorState {
     Layout scratch;        // the layout the fields edit (the document's, while none is active)
     bool editing = false;  // a field is active: its gesture is open
     edit::Document::Gesture gesture = 0;
-    std::string element;   // the id of the element being edited
+    std::string element;   // the id of the element or beam being edited
+    bool editing_beam = false;  // `element` names a beam, not an element
     bool active_this_frame = false;
     std::map<std::string, FieldRect> field_rects;  // last frame's field rectangles, for interface tests
     std::map<std::string, std::string> text;       // text fields being typed in (material names)
