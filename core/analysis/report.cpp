@@ -7,7 +7,6 @@
 #include "analysis/plate_angle_search.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
-#include "nonlinear/overlap.hpp"
 #include "nonlinear/phase_matching.hpp"
 #include "trace/crystal_axes.hpp"
 #include "trace/trace.hpp"

@@ -6,7 +6,6 @@
 
 #include "analysis/crystal_waves.hpp"
 #include "analysis/target_summary.hpp"
-#include "nonlinear/overlap.hpp"
 #include "trace/poses.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"

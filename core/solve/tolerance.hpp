@@ -4,7 +4,7 @@
 // perturbation at once, each uniform in ±its tolerance, goals.tolerance).
 //
 // Figures: waist offset (mm, beam 2 − beam 1), waist ratio, lateral offset (µm), delay (fs) and
-// the overlap at the target centre (transverse × temporal, nonlinear/overlap.hpp). With one beam
+// the combined overlap (analysis/target_summary.hpp overlap_at_target, the report's). With one beam
 // only its waist offset from the target centre is used.
 // Perturbations: every optic's position along the beam at it, its rotation in the table plane
 // (an aim_at mirror is turned from the orientation the trace gave it), every lens's focal
