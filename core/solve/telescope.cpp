@@ -190,6 +190,9 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     }
     TelescopeSolution s;
     s.layout = apply(p, choice, u);
+    // The positions as the file will hold them (0.001 mm), judged as such.
+    for (size_t i : p.move_index)
+        for (int c = 0; c < 2; ++c) s.layout.elements[i].at_mm[c] = std::round(s.layout.elements[i].at_mm[c] * 1e3) / 1e3;
     const std::vector<BeamAtTarget> at = evaluate(p, s.layout, cache);
     // The figure ranked on is the aim's residual alone; constraints are reported beside it.
     const Eigen::VectorXd all = residuals(p, s.layout, at, m);
@@ -204,7 +207,8 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
                                        " mm, more than max_path_mm");
     for (size_t k = 0; k < p.swap_index.size(); ++k) s.swaps.emplace_back(p.base.elements[p.swap_index[k]].id, choice[k]->id);
     for (Eigen::Index k = 0; k < n; ++k) {
-        const double move = move_of(p, static_cast<size_t>(k), u[k]);
+        const size_t e = p.move_index[static_cast<size_t>(k)];
+        const double move = (s.layout.elements[e].at_mm - p.base.elements[e].at_mm).dot(p.move_direction[static_cast<size_t>(k)]);
         s.moves_mm.emplace_back(p.base.elements[p.move_index[static_cast<size_t>(k)]].id, move);
         s.total_move_mm += std::abs(move);
         // Sensitivity: waist-offset change per mm of this move.

@@ -52,8 +52,9 @@ TEST_CASE("the solver optimizes the wave the report then judges", "[one-evaluati
     CHECK_THAT(lean[0].sagittal.waist_offset_mm, near(judged.sagittal.waist_offset_mm, 1e-9));
     CHECK_THAT(lean[0].tangential.rayleigh_mm, near(judged.tangential.rayleigh_mm, 1e-9));
     CHECK_THAT(lean[0].index, near(judged.index, 1e-12));
-    // …and the report finds the focus where the solver put it: at the crystal's centre.
-    CHECK(std::abs(judged.tangential.waist_offset_mm + judged.sagittal.waist_offset_mm) / 2 < 1e-4);
+    // …and the report finds the focus where the solver put it: at the crystal's centre, to
+    // within what rounding the lens position to 0.001 mm for the file moves it.
+    CHECK(std::abs(judged.tangential.waist_offset_mm + judged.sagittal.waist_offset_mm) / 2 < 2e-3);
 
     // The case is one where the wave matters: traced with the source's polarization (the
     // extraordinary wave) the same layout puts the waist measurably elsewhere.

@@ -42,6 +42,8 @@ RUNS += [
     (["sweep", layout_file("layouts", "sfg-bbo.json"), "--vary", "S1.position_mm", "--from", "-5", "--to", "32", "--steps", "5", "--json"], "sweep.schema.json"),
     (["sweep", layout_file("layouts", "shg-single.json"), "--vary", "X.normal_deg", "--from", "-82", "--to", "-78", "--steps", "3", "--json"], "sweep.schema.json"),
     (["solve", layout_file("tests", "layouts", "solve", "plate-before-crystal.json"), "--json"], "solve.schema.json"),
+    (["solve", layout_file("layouts", "sfg-bbo.json"), "--json"], "solve.schema.json"),
+    (["solve", layout_file("layouts", "shg-single.json"), "--json"], "solve.schema.json"),
 ]
 
 failures = 0

@@ -110,6 +110,7 @@ TEST_CASE("the solver is deterministic whatever the thread count", "[solve]") {
 
 TEST_CASE("the solver says why it cannot start", "[solve]") {
     rv::Layout l = rv::test::bundled_layout("sfg-bbo.json");
+    l.goals.solve.reset();
     CHECK(rv::solve_telescopes(l, rv::material_library_for(l), {}).error ==
           "the layout has no goals.solve: name what may move or be swapped");
     rv::SolveGoals goals;

@@ -1,25 +1,81 @@
 // rendezvous solve: stock lenses and positions for the goals, ranked; the best as a new layout.
 #include <chrono>
+#include <cmath>
 #include <cstdio>
 #include <nlohmann/json.hpp>
 #include <ostream>
 
+#include "analysis/report.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "cli/progress_bar.hpp"
 #include "io/layout_reader.hpp"
+#include "solve/default_solve_goals.hpp"
 #include "solve/telescope.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::cli {
+
+namespace {
+
+// The best solution as the file will hold it: without the default goals when they were used.
+Layout as_written(const TelescopeSolution& s, bool default_goals) {
+    Layout l = s.layout;
+    if (default_goals) l.goals.solve.reset();
+    return l;
+}
+
+// Each beam at the target in the written layout: the waist's distance from the target centre
+// (mm and in Rayleigh ranges) and its size against the goal, the residual in a user's words.
+struct BeamOutcome {
+    std::string beam;
+    double waist_offset_mm = 0, offset_rayleigh = 0, waist_um = 0;
+    std::optional<double> goal_um;
+};
+std::vector<BeamOutcome> outcomes(const Layout& layout, const RendezvousReport& r) {
+    std::vector<BeamOutcome> out;
+    for (const ReportBeam& b : r.beams) {
+        if (!b.at_target.reached) continue;
+        BeamOutcome o;
+        o.beam = b.id;
+        o.waist_offset_mm = (b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2;
+        o.offset_rayleigh = o.waist_offset_mm / std::min(b.at_target.tangential.rayleigh_mm, b.at_target.sagittal.rayleigh_mm);
+        o.waist_um = (b.at_target.tangential.waist_um + b.at_target.sagittal.waist_um) / 2;
+        for (const auto& [id, goal] : layout.goals.waist_um)
+            if (id == b.id) o.goal_um = goal;
+        out.push_back(o);
+    }
+    return out;
+}
+
+// The moves of a solution that sit at an end of their range (within 0.01 mm): widen those.
+std::vector<std::string> moves_at_range_end(const SolveGoals& goals, const TelescopeSolution& s) {
+    std::vector<std::string> out;
+    for (const auto& [id, move] : s.moves_mm)
+        for (const auto& [gid, range] : goals.move)
+            if (gid == id && (std::abs(move - range.first) < 0.01 || std::abs(move - range.second) < 0.01))
+                out.push_back(id);
+    return out;
+}
+
+}  // namespace
 
 int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err) {
     if (o.json && o.output == "-") {
         err << "rendezvous: --json and --write - would both print to standard output; write the layout to a file\n";
         return 2;
     }
-    const std::optional<Layout> layout = load_layout(o.layout, err);
+    std::optional<Layout> layout = load_layout(o.layout, err);
     if (!layout) return 2;
     const MaterialLibrary library = material_library_for(*layout);
+    // Without goals.solve, the documented default (solve/default_solve_goals.hpp).
+    const bool default_goals = !layout->goals.solve;
+    if (default_goals) layout->goals.solve = default_solve_goals(*layout, library);
+    const SolveGoals& goals = *layout->goals.solve;
+    if (goals.move.empty() && goals.swap.empty()) {
+        err << o.layout << ": error: nothing to solve: no goals.solve, and no lens or curved mirror lies on one beam's own path\n";
+        return 2;
+    }
     const CatalogReadResult catalog = o.catalog.empty() ? parse_lens_catalog(lens_catalog_text(), library)
                                                         : read_lens_catalog(o.catalog, library);
     if (has_errors(catalog.diagnostics)) {
@@ -41,8 +97,22 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
     if (o.json) {
         using nlohmann::json;
         if (!o.output.empty() && !r.solutions.empty() &&
-            !save_layout_or_report(r.solutions.front().layout, o.output, keep_input(o.layout), out, err))
+            !save_layout_or_report(as_written(r.solutions.front(), default_goals), o.output, keep_input(o.layout), out, err))
             return 2;
+        json best = nullptr;
+        if (!r.solutions.empty()) {
+            const Layout written = as_written(r.solutions.front(), default_goals);
+            const RendezvousReport report = build_report(written, library);
+            auto line = [](const VerdictLine& l) { return l.applies ? json(l.met) : json(nullptr); };
+            json beams = json::array();
+            for (const BeamOutcome& b : outcomes(written, report))
+                beams.push_back({{"beam", b.beam}, {"waist_offset_mm", b.waist_offset_mm}, {"waist_offset_rayleigh", b.offset_rayleigh},
+                                 {"waist_um", b.waist_um}, {"goal_um", b.goal_um ? json(*b.goal_um) : json(nullptr)}});
+            best = {{"verdict", {{"space", line(report.verdict.space)}, {"time", line(report.verdict.time)},
+                                 {"phase", line(report.verdict.phase)}}},
+                    {"beams", beams},
+                    {"moves_at_range_end", moves_at_range_end(goals, r.solutions.front())}};
+        }
         json solutions = json::array();
         for (const TelescopeSolution& s : r.solutions) {
             json swaps = json::array(), moves = json::array();
@@ -56,6 +126,8 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
                                  {"violations", s.violations}});
         }
         out << json{{"layout", o.layout},
+                    {"goals", default_goals ? "default" : "file"},
+                    {"best", best},
                     {"combinations", r.combinations},
                     {"solutions", solutions},
                     {"wrote", o.output.empty() || r.solutions.empty() ? json(nullptr) : json(o.output)}}
@@ -65,6 +137,12 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
     }
     // With --write -, standard output holds the layout alone: the ranking goes to stderr.
     std::ostream& say = o.output == "-" ? err : out;
+    if (default_goals) {
+        say << "no goals.solve in the file: using the default, every lens and curved mirror on one beam's own path moving ±"
+            << format_number("%g", kDefaultMoveRange_mm) << " mm along its beam (";
+        for (size_t i = 0; i < goals.move.size(); ++i) say << (i ? ", " : "") << goals.move[i].first;
+        say << "), aim focus\n";
+    }
     char line[256];
     std::snprintf(line, sizeof line, "%zu combination(s) searched in %.2f s; best %zu:\n", r.combinations, seconds,
                   r.solutions.size());
@@ -82,8 +160,29 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
         say << "\n";
         for (const std::string& v : s.violations) say << "      breaks a constraint: " << v << "\n";
     }
+    if (!r.solutions.empty()) {
+        // What the user gets: the verdict of the layout it would write, each beam's residual in
+        // mm and Rayleigh ranges, and the moves that want a wider range.
+        const Layout written = as_written(r.solutions.front(), default_goals);
+        const RendezvousReport report = build_report(written, library);
+        say << "the best solution, as it would be written: space " << verdict_state_text(report.verdict.space)
+            << ", time " << verdict_state_text(report.verdict.time) << ", phase "
+            << verdict_state_text(report.verdict.phase) << "\n";
+        for (const BeamOutcome& b : outcomes(written, report)) {
+            say << "  " << b.beam << ": waist " << format_number("%.3f", std::abs(b.waist_offset_mm)) << " mm "
+                << (b.waist_offset_mm >= 0 ? "after" : "before") << " the target centre ("
+                << format_number("%.3f", std::abs(b.offset_rayleigh)) << " of its Rayleigh range), "
+                << format_number("%.2f", b.waist_um) << " µm";
+            if (b.goal_um)
+                say << " (goal " << format_number("%.2f", *b.goal_um) << " µm, "
+                    << format_number("%+.1f", 100 * (b.waist_um / *b.goal_um - 1)) << " %)";
+            say << "\n";
+        }
+        for (const std::string& id : moves_at_range_end(goals, r.solutions.front()))
+            say << "  " << id << " sits at the end of its range: widen goals.solve.move." << id << " to let it go further\n";
+    }
     if (!o.output.empty() && !r.solutions.empty()) {
-        if (!save_layout_or_report(r.solutions.front().layout, o.output, keep_input(o.layout), out,
+        if (!save_layout_or_report(as_written(r.solutions.front(), default_goals), o.output, keep_input(o.layout), out,
                                    err))
             return 2;
         if (o.output != "-") say << "wrote the best solution to " << o.output << "\n";
