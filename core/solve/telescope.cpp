@@ -6,6 +6,8 @@
 #include <algorithm>
 #include <atomic>
 #include <cmath>
+#include <cstdint>
+#include <cstdio>
 #include <thread>
 
 #include "analysis/crystal_waves.hpp"
@@ -232,20 +234,31 @@ struct Candidate {
 // Every combination of catalog lenses for `swaps` swapped lenses (one empty choice for none).
 std::vector<std::vector<const CatalogLens*>> all_combinations(size_t swaps, const std::vector<CatalogLens>& catalog,
                                                               const SolveOptions& options, std::string& error) {
+    // Counted before any is built: building first held the whole product in memory (3.7 GB
+    // for 20 000 lenses and two swaps) before the maximum was ever checked.
+    size_t count = 1;
+    bool overflows = false;
+    for (size_t k = 0; k < swaps && !overflows; ++k) {
+        if (!catalog.empty() && count > SIZE_MAX / catalog.size()) overflows = true;
+        count *= catalog.size();
+    }
+    if (overflows || count > options.max_combinations) {
+        error = std::to_string(catalog.size()) + " catalog lenses for " + std::to_string(swaps) +
+                " swapped lenses make " + (overflows ? "more than " + std::to_string(SIZE_MAX) : std::to_string(count)) +
+                " combinations, more than the maximum of " + std::to_string(options.max_combinations) +
+                "; swap fewer lenses or use a smaller catalog";
+        return {};
+    }
     std::vector<std::vector<const CatalogLens*>> combos{{}};
     for (size_t k = 0; k < swaps; ++k) {
         std::vector<std::vector<const CatalogLens*>> next;
+        next.reserve(count);
         for (const auto& c : combos)
             for (const CatalogLens& lens : catalog) {
                 next.push_back(c);
                 next.back().push_back(&lens);
             }
         combos = std::move(next);
-        if (combos.size() > options.max_combinations) {
-            error = "more than " + std::to_string(options.max_combinations) +
-                    " catalog combinations; swap fewer lenses or use a smaller catalog";
-            return {};
-        }
     }
     return combos;
 }
@@ -319,6 +332,22 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
     if (goals.aim == SolveGoals::Aim::Waist && std::all_of(p.goal_um.begin(), p.goal_um.end(), [](double g) { return g == 0; })) {
         result.error = "aim \"waist\" needs goals.waist_um for at least one beam";
         return result;
+    }
+    // Goals the verdict could never call met: two waist goals further apart than the verdict's
+    // waist ratio allows (a solution meeting them fails space by construction).
+    if (p.goal_um.size() >= 2 && p.goal_um[0] > 0 && p.goal_um[1] > 0) {
+        const double ratio = std::max(p.goal_um[0] / p.goal_um[1], p.goal_um[1] / p.goal_um[0]);
+        const double limit = layout.goals.verdict.max_waist_ratio;
+        if (ratio > limit) {
+            char text[320];
+            std::snprintf(text, sizeof text,
+                          "goals.waist_um asks for %.4g and %.4g µm, a ratio of %.3f, above goals.verdict.max_waist_ratio "
+                          "%.3g: a solution meeting them could never meet the space verdict; bring the goals within "
+                          "that ratio or raise the threshold",
+                          p.goal_um[0], p.goal_um[1], ratio, limit);
+            result.error = text;
+            return result;
+        }
     }
     if (!p.swap_index.empty() && catalog.empty()) {
         result.error = "the catalog holds no lens";

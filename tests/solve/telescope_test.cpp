@@ -193,3 +193,15 @@ TEST_CASE("the spacing constraint keeps a moved lens clear of its neighbour", "[
     CHECK(r.solutions.front().violations.empty());
     CHECK(std::abs(r.solutions.front().layout.find("L2")->at_mm.x() - 300) > 1);
 }
+
+TEST_CASE("waist goals the verdict could never call met are refused", "[solve]") {
+    // The space verdict needs the larger over the smaller waist at most max_waist_ratio (1.2 by
+    // default): goals of 20 and 30 µm (ratio 1.5) can never be met together with it.
+    rv::Layout l = rv::test::bundled_layout("sfg-bbo.json");
+    l.goals.waist_um = {{"pump", 20}, {"signal", 30}};
+    CHECK(rv::solve_telescopes(l, rv::material_library_for(l), {}).error ==
+          "goals.waist_um asks for 20 and 30 µm, a ratio of 1.500, above goals.verdict.max_waist_ratio 1.2: a solution "
+          "meeting them could never meet the space verdict; bring the goals within that ratio or raise the threshold");
+    l.goals.verdict.max_waist_ratio = 1.6;  // the user's own, wider threshold: accepted
+    CHECK(rv::solve_telescopes(l, rv::material_library_for(l), {}).error.find("goals.waist_um asks") == std::string::npos);
+}
