@@ -2,7 +2,9 @@
 
 #include <algorithm>
 #include <cmath>
+#include <iterator>
 #include <sstream>
+#include <unordered_map>
 
 #include "io/closest_name.hpp"
 
@@ -73,12 +75,114 @@ std::string child_pointer(const std::string& parent, size_t index) {
     return parent + "/" + std::to_string(index);
 }
 
-nlohmann::json parse_json_limited(std::string_view text, int max_depth) {
-    const nlohmann::json::parser_callback_t guard = [max_depth](int depth, nlohmann::json::parse_event_t, nlohmann::json&) {
+namespace {
+
+// nlohmann's parse callback is told no position; this iterator leaves in *read how many bytes
+// the parser has taken, so that a key event knows where its key ends.
+struct CountingChars {
+    using iterator_category = std::input_iterator_tag;
+    using value_type = char;
+    using difference_type = std::ptrdiff_t;
+    using pointer = const char*;
+    using reference = const char&;
+    const char* at;
+    const char* begin;
+    size_t* read;
+    char operator*() const { return *at; }
+    CountingChars& operator++() {
+        ++at;
+        *read = static_cast<size_t>(at - begin);
+        return *this;
+    }
+    bool operator==(const CountingChars& other) const { return at == other.at; }
+};
+
+// The opening quote of the string whose closing quote is at text[end - 1]: the nearest quote
+// before it that is not escaped (preceded by an even number of backslashes).
+size_t string_start(std::string_view text, size_t end) {
+    size_t i = end > 0 ? end - 1 : 0;
+    while (i > 0) {
+        --i;
+        if (text[i] != '"') continue;
+        size_t slashes = 0;
+        while (slashes < i && text[i - 1 - slashes] == '\\') ++slashes;
+        if (slashes % 2 == 0) return i;
+    }
+    return i;
+}
+
+void line_and_column_of(std::string_view text, size_t byte, int& line, int& column) {
+    line = 1;
+    column = 1;
+    for (size_t i = 0; i < byte && i < text.size(); ++i) {
+        if (text[i] == '\n') {
+            ++line;
+            column = 1;
+        } else {
+            ++column;
+        }
+    }
+}
+
+// One open object or array while parsing: where its current child is, and (for an object)
+// where each of its keys first stood.
+struct OpenValue {
+    bool is_array = false;
+    size_t children = 0;  // an array's children so far
+    std::string key;      // an object's current key
+    std::unordered_map<std::string, size_t> first_key_at;
+};
+
+}  // namespace
+
+nlohmann::json parse_json_limited(std::string_view text, int max_depth, Diagnostics& duplicates) {
+    using Event = nlohmann::json::parse_event_t;
+    size_t read = 0;
+    std::vector<OpenValue> open;
+    auto pointer_of_current = [&open] {
+        std::string p;
+        for (const OpenValue& v : open) p = v.is_array ? child_pointer(p, v.children - 1) : child_pointer(p, v.key);
+        return p;
+    };
+    auto count_child = [&open] {
+        if (!open.empty() && open.back().is_array) ++open.back().children;
+    };
+    const nlohmann::json::parser_callback_t guard = [&](int depth, Event event, nlohmann::json& parsed) {
         if (depth > max_depth) throw JsonTooDeep{};
+        switch (event) {
+            case Event::object_start:
+            case Event::array_start:
+                count_child();
+                open.emplace_back().is_array = event == Event::array_start;
+                break;
+            case Event::object_end:
+            case Event::array_end: open.pop_back(); break;
+            case Event::value: count_child(); break;
+            case Event::key: {
+                // nlohmann keeps the last of duplicate keys without a word: a bad value could
+                // hide behind a good one, so each repeat is an error at the repeated key.
+                OpenValue& object = open.back();
+                object.key = parsed.get_ref<const std::string&>();
+                const size_t start = string_start(text, read);
+                const auto [first, is_new] = object.first_key_at.try_emplace(object.key, start);
+                if (!is_new) {
+                    Diagnostic d{Diagnostic::Severity::Error, pointer_of_current(), 0, 0, ""};
+                    line_and_column_of(text, start, d.line, d.column);
+                    int first_line = 0, first_column = 0;
+                    line_and_column_of(text, first->second, first_line, first_column);
+                    d.message = "duplicate key " + nlohmann::json(object.key).dump() +
+                                " (the first stands at line " + std::to_string(first_line) +
+                                ", column " + std::to_string(first_column) + ")";
+                    duplicates.push_back(std::move(d));
+                }
+                break;
+            }
+        }
         return true;
     };
-    return nlohmann::json::parse(text.begin(), text.end(), guard, true, false);
+    const CountingChars begin{text.data(), text.data(), &read};
+    const CountingChars end{text.data() + text.size(), text.data(), &read};
+    return nlohmann::json::parse(begin, end, guard, true, false);
 }
 
 std::string describe_json_type(const nlohmann::json& value) {

@@ -34,9 +34,10 @@ std::string child_pointer(const std::string& parent, size_t index);
 
 // Parses JSON, refusing nesting deeper than max_depth while parsing (before any recursive
 // walk of the value could overflow the stack): throws JsonTooDeep then; nlohmann's exceptions
-// for everything else.
+// for everything else. A key repeated in one object (which nlohmann would let the last of win)
+// is added to `duplicates`, located at the repeat with line and column, and the parse goes on.
 struct JsonTooDeep {};
-nlohmann::json parse_json_limited(std::string_view text, int max_depth);
+nlohmann::json parse_json_limited(std::string_view text, int max_depth, Diagnostics& duplicates);
 
 // "a string", "an array", … for messages.
 std::string describe_json_type(const nlohmann::json& value);

@@ -7,6 +7,7 @@
 #include <map>
 #include <sstream>
 
+#include "io/bounded_read.hpp"
 #include "io/closest_name.hpp"
 #include "io/field_reader.hpp"
 #include "layout/lens_shape.hpp"
@@ -704,18 +705,10 @@ LayoutReadResult read_layout(std::string_view text) {
 }
 
 LayoutReadResult read_layout_file(const std::filesystem::path& path) {
-    std::error_code ec;
-    const std::uintmax_t size = std::filesystem::file_size(path, ec);
-    if (!ec && size > kMaxLayoutBytes)  // refused before reading: memory stays bounded
-        return {std::nullopt, {{Diagnostic::Severity::Error, "", 0, 0, too_large(size)}}};
-    std::ifstream in(path, std::ios::binary);
-    if (!in) {
-        return {std::nullopt,
-                {{Diagnostic::Severity::Error, "", 0, 0, "cannot open the file for reading"}}};
-    }
-    std::ostringstream buffer;
-    buffer << in.rdbuf();
-    return read_layout(buffer.str());
+    // Bounded whatever the file is: devices, FIFOs and directories are refused by their type.
+    const BoundedRead file = read_file_bounded(path, kMaxLayoutBytes, "a layout");
+    if (!file.ok()) return {std::nullopt, {{Diagnostic::Severity::Error, "", 0, 0, file.error}}};
+    return read_layout(file.text);
 }
 
 MaterialLibrary material_library_for(const Layout& layout) {

@@ -1,10 +1,10 @@
 #include "io/lens_catalog.hpp"
 
-#include <fstream>
 #include <nlohmann/json.hpp>
-#include <sstream>
 
+#include "io/bounded_read.hpp"
 #include "io/field_reader.hpp"
+#include "io/layout_reader.hpp"
 #include "layout/lens_shape.hpp"
 #include "materials/dispersion.hpp"
 
@@ -12,14 +12,13 @@ namespace rv {
 
 CatalogReadResult read_lens_catalog(const std::filesystem::path& path, const MaterialLibrary& library) {
     CatalogReadResult out;
-    std::ifstream in(path, std::ios::binary);
-    if (!in) {
-        out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, "cannot open the lens catalog for reading"});
+    // The same bound as a layout's (a catalog of thousands of lenses is far below it).
+    const BoundedRead file = read_file_bounded(path, kMaxLayoutBytes, "a lens catalog");
+    if (!file.ok()) {
+        out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, file.error});
         return out;
     }
-    std::ostringstream text;
-    text << in.rdbuf();
-    return parse_lens_catalog(text.str(), library);
+    return parse_lens_catalog(file.text, library);
 }
 
 CatalogReadResult parse_lens_catalog(std::string_view text, const MaterialLibrary& library) {

@@ -1,5 +1,6 @@
 // Reading layout files: every kind of bad input gets its exact located message.
 #include "io/layout_reader.hpp"
+#include "io/lens_catalog.hpp"
 
 #include <filesystem>
 #include <fstream>
@@ -100,6 +101,9 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"three-errors.json", {"three-errors.json: error: /beams/0/wavelength_nm (b): must be positive (got -1)",
                                "three-errors.json: error: /elements/0/apperture_mm (L): unknown key for a lens; did you mean \"aperture_mm\"?",
                                "three-errors.json: error: /target: no element has id \"nowhere\""}},
+        // Each repeated key at the repeat, with where the first stands: no value silently wins.
+        {"duplicate-key.json", {"duplicate-key.json:7:23: error: /beams/0/wavelength_nm (pump): duplicate key \"wavelength_nm\" (the first stands at line 6, column 20)",
+                                "duplicate-key.json:13:3: error: /target: duplicate key \"target\" (the first stands at line 12, column 3)"}},
     };
     size_t fixtures = 0;
     for (const auto& entry : std::filesystem::directory_iterator(kBad)) fixtures += entry.path().extension() == ".json";
@@ -152,4 +156,16 @@ TEST_CASE("a file over 16 MiB is refused before it is read", "[reader]") {
     CHECK_FALSE(r.layout);
     CHECK(rv::format_diagnostic(r.diagnostics[0], "big.json") ==
           "big.json: error: the file has 17825835 bytes; a layout may have at most 16777216 (16 MiB)");
+}
+
+TEST_CASE("a lens catalog with a repeated key is refused at the repeat", "[reader]") {
+    const rv::CatalogReadResult r = rv::parse_lens_catalog(
+        "{\"format\": \"rendezvous-lens-catalog\", \"lenses\": [\n"
+        "  {\"id\": \"A\", \"kind\": \"achromat\", \"focal_length_mm\": 100, \"diameter_mm\": 25,\n"
+        "   \"focal_length_mm\": -100}]}",
+        rv::MaterialLibrary::builtin());
+    REQUIRE(r.diagnostics.size() == 1);
+    CHECK(rv::format_diagnostic(r.diagnostics[0], "lenses.json") ==
+          "lenses.json:3:4: error: /lenses/0/focal_length_mm: duplicate key \"focal_length_mm\" (the first stands at line 2, column 35)");
+    CHECK(r.lenses.empty());
 }

@@ -1,11 +1,12 @@
 #include "edit/recent_files.hpp"
 
 #include <algorithm>
-#include <fstream>
+#include <sstream>
 #include <system_error>
 
 #include "edit/config_folder.hpp"
 #include "io/atomic_file.hpp"
+#include "io/bounded_read.hpp"
 
 namespace rv::edit {
 
@@ -13,7 +14,11 @@ std::filesystem::path recent_files_path() { return user_config_file("recent.txt"
 
 std::vector<std::string> load_recent(const std::filesystem::path& file) {
     std::vector<std::string> list;
-    std::ifstream in(file);
+    // kMaxRecent paths of at most PATH_MAX (4096) bytes each; anything else is not our list.
+    constexpr std::size_t kMaxRecentBytes = kMaxRecent * 4097;
+    const BoundedRead read = read_file_bounded(file, kMaxRecentBytes, "the recent-files list");
+    if (!read.ok()) return list;
+    std::istringstream in(read.text);
     for (std::string line; std::getline(in, line) && list.size() < kMaxRecent;)
         if (!line.empty()) list.push_back(line);
     return list;
