@@ -582,10 +582,14 @@ void Reader::check_references(const json& doc, Layout& layout) {
             else if (is_element(id) && std::holds_alternative<Stage>(layout.find(id)->kind))
                 error(ptr, "\"" + id + "\" is a stage; move it with its position_mm");
         }
+        std::map<std::string, size_t> first_swap;  // a lens swapped twice gives two answers
         for (size_t i = 0; i < layout.goals.solve->swap.size(); ++i) {
             const std::string& id = layout.goals.solve->swap[i];
             const std::string ptr = child_pointer("/goals/solve/swap", i);
-            if (!index_of.count(id)) error(ptr, no_element(id));
+            if (const auto [first, is_new] = first_swap.try_emplace(id, i); !is_new)
+                error(ptr, "\"" + id + "\" is listed twice (first at " +
+                               child_pointer("/goals/solve/swap", first->second) + ")");
+            else if (!index_of.count(id)) error(ptr, no_element(id));
             else if (is_element(id) && !std::holds_alternative<Lens>(layout.find(id)->kind))
                 error(ptr, "\"" + id + "\" is not a lens; only lenses can be swapped");
         }

@@ -104,6 +104,7 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         // Each repeated key at the repeat, with where the first stands: no value silently wins.
         {"duplicate-key.json", {"duplicate-key.json:7:23: error: /beams/0/wavelength_nm (pump): duplicate key \"wavelength_nm\" (the first stands at line 6, column 20)",
                                 "duplicate-key.json:13:3: error: /target: duplicate key \"target\" (the first stands at line 12, column 3)"}},
+        {"swap-twice.json", {"swap-twice.json: error: /goals/solve/swap/2: \"L1\" is listed twice (first at /goals/solve/swap/0)"}},
     };
     size_t fixtures = 0;
     for (const auto& entry : std::filesystem::directory_iterator(kBad)) fixtures += entry.path().extension() == ".json";
