@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 #include <iterator>
 #include <sstream>
 #include <unordered_map>
@@ -276,6 +277,27 @@ std::optional<std::string> FieldReader::string(const std::string& key, Need need
     if (s.empty()) {
         error(key, "must not be empty");
         return std::nullopt;
+    }
+    return s;
+}
+
+std::optional<std::string> FieldReader::id(const std::string& key, Need need) {
+    std::optional<std::string> s = string(key, need);
+    if (!s) return std::nullopt;
+    // Ids reach terminals, file names and CSV headers: an ESC would drive the terminal, a NUL
+    // cut the id short. The same characters printable_text shows as \xNN; counted in
+    // characters (not bytes) so that the position matches what an editor shows.
+    size_t character = 0;
+    for (const char c : *s) {
+        const auto byte = static_cast<unsigned char>(c);
+        if ((byte & 0xC0) != 0x80) ++character;  // not a UTF-8 continuation byte
+        if (byte < 0x20 || byte == 0x7F) {
+            char hex[8];
+            std::snprintf(hex, sizeof hex, "\\x%02X", byte);
+            error(key, "an id must be printable: character " + std::to_string(character) +
+                           " is a control character (" + hex + ")");
+            return std::nullopt;
+        }
     }
     return s;
 }

@@ -57,6 +57,8 @@ public:
     // message names the unit the number was likely written in ("0.8 — micrometres?").
     std::optional<double> wavelength_nm(const std::string& key, Need need);
     std::optional<std::string> string(const std::string& key, Need need);
+    // A string of printable characters (no control character: ESC, NUL, tab, newline…).
+    std::optional<std::string> id(const std::string& key, Need need);
     std::optional<std::string> choice(const std::string& key, Need need,
                                       const std::vector<std::string>& options);
     std::optional<Vec2> point(const std::string& key, Need need);

@@ -179,7 +179,7 @@ void Reader::read_materials(const json& v, Layout& layout) {
             continue;
         }
         UserMaterial m;
-        const auto id = f.string("id", Need::Required);
+        const auto id = f.id("id", Need::Required);
         const auto range = f.interval("range_nm", Need::Required);
         std::optional<std::vector<double>> b, c;
         if (const json* s = f.object("sellmeier", Need::Required)) {
@@ -223,7 +223,7 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     }
     FieldReader f(v, ptr, "a beam", out_);
     BeamSource b;
-    b.id = f.string("id", Need::Required).value_or("");
+    b.id = f.id("id", Need::Required).value_or("");
     b.wavelength_nm = f.wavelength_nm("wavelength_nm", Need::Required).value_or(0);
     b.start_mm = f.point("start_mm", Need::Required).value_or(Vec2(0, 0));
     b.direction_deg = f.number("direction_deg", Need::Required).value_or(0);
@@ -492,7 +492,7 @@ void Reader::read_element(const json& v, const std::string& ptr, Layout& layout)
     }
     FieldReader typed(v, ptr, "a " + *type, out_);
     Element e;
-    e.id = typed.string("id", Need::Required).value_or("");
+    e.id = typed.id("id", Need::Required).value_or("");
     if (*type != "stage") {
         e.at_mm = typed.point("at_mm", Need::Required).value_or(Vec2(0, 0));
         e.normal_deg = typed.number("normal_deg", Need::Optional).value_or(0);

@@ -41,7 +41,7 @@ CatalogReadResult parse_lens_catalog(std::string_view text, const MaterialLibrar
     for (size_t i = 0; i < lenses->size(); ++i) {
         const nlohmann::json& item = (*lenses)[i];
         FieldReader f(item, child_pointer("/lenses", i), "a catalog lens", out.diagnostics);
-        const auto id = f.string("id", Need::Required);
+        const auto id = f.id("id", Need::Required);
         const auto kind = f.choice("kind", Need::Required, {"singlet", "achromat", "concave-mirror"});
         const auto focal = f.number("focal_length_mm", Need::Required, non_zero());
         const auto diameter = f.number("diameter_mm", Need::Required, positive());

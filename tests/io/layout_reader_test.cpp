@@ -105,6 +105,10 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"duplicate-key.json", {"duplicate-key.json:7:23: error: /beams/0/wavelength_nm (pump): duplicate key \"wavelength_nm\" (the first stands at line 6, column 20)",
                                 "duplicate-key.json:13:3: error: /target: duplicate key \"target\" (the first stands at line 12, column 3)"}},
         {"swap-twice.json", {"swap-twice.json: error: /goals/solve/swap/2: \"L1\" is listed twice (first at /goals/solve/swap/0)"}},
+        // Counted in characters: "µ" is two bytes but one character.
+        {"control-character-id.json", {"control-character-id.json: error: /materials/0/id: an id must be printable: character 3 is a control character (\\x09)",
+                                       "control-character-id.json: error: /beams/0/id (pµ\\x1B[2Jmp): an id must be printable: character 3 is a control character (\\x1B)",
+                                       "control-character-id.json: error: /elements/0/id (L\\x00x): an id must be printable: character 2 is a control character (\\x00)"}},
     };
     size_t fixtures = 0;
     for (const auto& entry : std::filesystem::directory_iterator(kBad)) fixtures += entry.path().extension() == ".json";
