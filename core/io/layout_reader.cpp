@@ -680,8 +680,9 @@ LayoutReadResult read_layout(std::string_view text) {
         return result;
     }
     json doc;
+    Diagnostics duplicates;
     try {
-        doc = parse_json_limited(text, kMaxLayoutDepth);
+        doc = parse_json_limited(text, kMaxLayoutDepth, duplicates);
     } catch (const JsonTooDeep&) {
         result.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0,
                                       "the file nests deeper than " + std::to_string(kMaxLayoutDepth) +
@@ -700,6 +701,11 @@ LayoutReadResult read_layout(std::string_view text) {
         result.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0,
                                       "a number does not fit a double" +
                                           (quote == std::string::npos ? std::string() : ": " + what.substr(quote))});
+        return result;
+    }
+    if (!duplicates.empty()) {  // which of the values was meant is unknown: no layout
+        result.diagnostics = std::move(duplicates);
+        name_subjects(doc, result.diagnostics);
         return result;
     }
     Reader reader(result.diagnostics);

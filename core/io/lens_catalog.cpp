@@ -24,13 +24,18 @@ CatalogReadResult read_lens_catalog(const std::filesystem::path& path, const Mat
 CatalogReadResult parse_lens_catalog(std::string_view text, const MaterialLibrary& library) {
     CatalogReadResult out;
     nlohmann::json doc;
+    Diagnostics duplicates;
     try {
-        doc = parse_json_limited(text, 16);
+        doc = parse_json_limited(text, 16, duplicates);
     } catch (const JsonTooDeep&) {
         out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, "the catalog nests deeper than 16 levels"});
         return out;
     } catch (const nlohmann::json::exception& e) {  // parse errors and out-of-range numbers
         out.diagnostics.push_back({Diagnostic::Severity::Error, "", 0, 0, std::string("cannot read the catalog: ") + e.what()});
+        return out;
+    }
+    if (!duplicates.empty()) {  // which of the values was meant is unknown: no catalog
+        out.diagnostics = std::move(duplicates);
         return out;
     }
     FieldReader root(doc, "", "a lens catalog", out.diagnostics);
