@@ -2,7 +2,9 @@
 // Exit status: 0 success, 2 bad input or bad command line, 3 report --check found the verdict
 // not met.
 #include <CLI/CLI.hpp>
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <iostream>
 
 #include "cli/commands.hpp"
@@ -20,6 +22,17 @@ constexpr const char* kWriting =
     "only with --in-place); a layout holding NaN or infinity. A layout file must read\n"
     "back as a layout before it replaces anything. \"-\" writes a layout to stdout.\n"
     "Exit status: 0 success, 2 bad input.";
+
+// Every numeric option: "nan", "inf" and overflowing numbers such as 1e999 parse as doubles
+// (and slip through range checks, which NaN never fails), but they are no reading or setting.
+const CLI::Validator kFinite(
+    [](std::string& text) -> std::string {
+        char* end = nullptr;
+        const double value = std::strtod(text.c_str(), &end);
+        if (end != text.c_str() && !std::isfinite(value)) return "expected a finite number, got \"" + text + "\"";
+        return {};
+    },
+    "FINITE", "finite");
 
 int main(int argc, char** argv) {
     CLI::App app{"Rendezvous: plan two-colour beam combining (focus, size, timing, phase matching).",
@@ -79,7 +92,7 @@ int main(int argc, char** argv) {
                      "whose model agrees with it, so later changes predict the new zero.\n"
                      "Example: rendezvous calibrate sfg.json --zero 29.84 --write sfg-calibrated.json");
     calibrate_cmd->add_option("layout", calibrate.layout, "layout file (JSON)")->required();
-    calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->required();
+    calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->check(kFinite)->required();
     calibrate_cmd
         ->add_option("--write", calibrate.output,
                      "the new layout file (- is stdout, the summary then on stderr)")
@@ -92,7 +105,7 @@ int main(int argc, char** argv) {
                  "Example: rendezvous solve mine.json --write mine-solved.json");
     solve_cmd->add_option("layout", solve.layout, "layout file (JSON)")->required();
     solve_cmd->add_option("--catalog", solve.catalog, "lens catalog (default: the built-in generic one)");
-    solve_cmd->add_option("--top", solve.top, "how many solutions to list")->check(CLI::Range(1, 100));
+    solve_cmd->add_option("--top", solve.top, "how many solutions to list")->check(kFinite)->check(CLI::Range(1, 100));
     solve_cmd->add_flag("--json", solve.json, "one JSON object (docs/schemas/solve.schema.json) instead of the ranking");
     solve_cmd->add_option("--write", solve.output,
                           "write the best solution here (- is stdout, the ranking then on stderr)");
@@ -103,9 +116,9 @@ int main(int argc, char** argv) {
         "tolerance", "Sensitivities and a Monte Carlo run of the build tolerances (goals.tolerance).\n"
                      "Example: rendezvous tolerance layouts/sfg-bbo.json --samples 100000 --seed 7");
     tolerance_cmd->add_option("layout", tolerance.layout, "layout file (JSON)")->required();
-    tolerance_cmd->add_option("--samples", tolerance.samples, "Monte Carlo samples")->check(CLI::Range(1, 10000000));
+    tolerance_cmd->add_option("--samples", tolerance.samples, "Monte Carlo samples")->check(kFinite)->check(CLI::Range(1, 10000000));
     tolerance_cmd->add_flag("--json", tolerance.json, "one JSON object (docs/schemas/tolerance.schema.json) instead of the tables");
-    tolerance_cmd->add_option("--seed", tolerance.seed, "random seed (the result depends on it only)");
+    tolerance_cmd->add_option("--seed", tolerance.seed, "random seed (the result depends on it only)")->check(kFinite);
 
     rv::cli::PolarizeOptions polarize;
     CLI::App* polarize_cmd = app.add_subcommand(
@@ -115,7 +128,7 @@ int main(int argc, char** argv) {
     polarize_cmd->add_option("layout", polarize.layout, "layout file (JSON)")->required();
     polarize_cmd->add_option("--plate", polarize.plate, "id of the half- or quarter-wave plate to turn")->required();
     polarize_cmd->add_option("--beam", polarize.beam, "the beam, when both pass the plate");
-    polarize_cmd->add_option("--power-mw", polarize.power_mw, "wanted power at the target (mW)")->check(CLI::NonNegativeNumber);
+    polarize_cmd->add_option("--power-mw", polarize.power_mw, "wanted power at the target (mW)")->check(kFinite)->check(CLI::NonNegativeNumber);
     polarize_cmd->add_flag("--json", polarize.json, "one JSON object (docs/schemas/polarize.schema.json) instead of the text");
     polarize_cmd->add_option("--write", polarize.output,
                              "write the layout with the plate turned here (- is stdout)");
@@ -137,9 +150,9 @@ int main(int argc, char** argv) {
                  "Example: rendezvous sweep layouts/sfg-bbo.json --vary S1.position_mm --from 28 --to 32 --steps 9 --csv");
     sweep_cmd->add_option("layout", sweep.layout, "layout file (JSON)")->required();
     sweep_cmd->add_option("--vary", sweep.vary, "ID.FIELD, e.g. L_F.at_mm[0] or pump.waist_um")->required();
-    sweep_cmd->add_option("--from", sweep.from, "first value")->required();
-    sweep_cmd->add_option("--to", sweep.to, "last value")->required();
-    sweep_cmd->add_option("--steps", sweep.steps, "number of values (≥ 2)")->check(CLI::Range(2, 100000));
+    sweep_cmd->add_option("--from", sweep.from, "first value")->check(kFinite)->required();
+    sweep_cmd->add_option("--to", sweep.to, "last value")->check(kFinite)->required();
+    sweep_cmd->add_option("--steps", sweep.steps, "number of values (≥ 2)")->check(kFinite)->check(CLI::Range(2, 100000));
     sweep_cmd->add_flag("--json", sweep.json, "one JSON object (docs/schemas/sweep.schema.json) instead of the table");
     sweep_cmd->add_flag("--csv", sweep.csv, "comma-separated output");
 
@@ -154,7 +167,7 @@ int main(int argc, char** argv) {
     render_cmd->add_option("--svg", render.svg, "write the table here as SVG");
     render_cmd->footer(kWriting);
     render_cmd->add_option("--size", render_size, "frame size WxH in pixels (default 1600x1000)");
-    render_cmd->add_option("--threads", render.threads, "rasterizer threads (the image is the same)")->check(CLI::Range(1, 16));
+    render_cmd->add_option("--threads", render.threads, "rasterizer threads (the image is the same)")->check(kFinite)->check(CLI::Range(1, 16));
 
     rv::cli::SheetOptions sheet;
     CLI::App* sheet_cmd = app.add_subcommand(
@@ -185,7 +198,7 @@ int main(int argc, char** argv) {
                 "Drag to pan, wheel to zoom about the cursor, F or a double click to fit.\n"
                 "Example: rendezvous view layouts/pump-probe.json   (or simply: rendezvous LAYOUT.json)");
     view_cmd->add_option("layout", view_layout, "layout file (JSON)");
-    view_cmd->add_option("--quit-after-frames", window_options.quit_after_frames, "close after N frames (for tests)");
+    view_cmd->add_option("--quit-after-frames", window_options.quit_after_frames, "close after N frames (for tests)")->check(kFinite);
     std::string bare_layout;
     app.add_option("file", bare_layout, "a layout file to open in the window (the same as `view FILE`)");
 

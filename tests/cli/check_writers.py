@@ -166,13 +166,17 @@ try:
     check("delay now" in r.stderr, "balance --write - says its summary on stderr")
     check(not os.path.exists(os.path.join(scratch, "-")), "no file named '-'")
 
-    # 7. NaN: --zero nan makes the layout's emission time NaN; refused, nothing written.
+    # 7. Infinity: --zero 1e308 overflows the layout's emission time; refused, nothing written.
+    # (--zero nan no longer reaches the writer: the command line refuses it, checked here too.)
     out = os.path.join(scratch, "nan.json")
+    r = run("calibrate", src, "--zero", "1e308", "--write", out)
+    refused(r, out, "not a finite number (NaN or infinity) at /", "calibrate --zero 1e308")
+    check(not os.path.exists(out), "no infinite layout written")
+    r = run("calibrate", src, "--zero", "1e308", "--write", "-")
+    check(r.returncode == 2 and r.stdout == "", "no infinite layout printed")
     r = run("calibrate", src, "--zero", "nan", "--write", out)
-    refused(r, out, "not a finite number (NaN or infinity) at /", "calibrate --zero nan")
-    check(not os.path.exists(out), "no NaN layout written")
-    r = run("calibrate", src, "--zero", "nan", "--write", "-")
-    check(r.returncode == 2 and r.stdout == "", "no NaN layout printed")
+    check(r.returncode == 2 and "expected a finite number" in r.stderr and not os.path.exists(out),
+          f"calibrate --zero nan refused at the door: {r.stderr!r}")
 
     # Nothing left behind: no temporary file in any folder.
     for root, _, files in os.walk(scratch):
