@@ -7,10 +7,16 @@ set -eu
 bin=$1
 dir=$(mktemp -d)
 trap 'rm -rf "$dir"' EXIT
-sed -e 's/"id": "L2_S", "type": "lens", "at_mm": \[310, 500\]/"id": "L2_S", "type": "lens", "at_mm": [318, 500]/' \
-    -e 's/"goals": {/"goals": {"solve": {"aim": "focus", "move": {"L2_S": [-20, 20], "X": [-10, 10]}}, /' \
-    "$2" > "$dir/misset.json"
-grep -q '\[318, 500\]' "$dir/misset.json"
+# The demo's own goals.solve replaced, not preceded by a second "solve" (a repeated key is an error).
+/usr/bin/python3 - "$2" "$dir/misset.json" <<'PY'
+import json, sys
+layout = json.load(open(sys.argv[1]))
+lens = next(e for e in layout["elements"] if e["id"] == "L2_S")
+assert lens["at_mm"] == [310, 500], lens["at_mm"]
+lens["at_mm"] = [318, 500]
+layout["goals"]["solve"] = {"aim": "focus", "move": {"L2_S": [-20, 20], "X": [-10, 10]}}
+json.dump(layout, open(sys.argv[2], "w"), indent=2)
+PY
 "$bin" report "$dir/misset.json" --json > "$dir/before.json"
 "$bin" solve "$dir/misset.json" --write "$dir/solved.json" > /dev/null
 "$bin" balance "$dir/solved.json" --write "$dir/balanced.json" > /dev/null
