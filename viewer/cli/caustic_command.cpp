@@ -4,6 +4,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "io/csv.hpp"
 #include "io/layout_reader.hpp"
 #include "trace/propagate.hpp"
 #include "trace/trace.hpp"
@@ -18,10 +19,11 @@ int run_caustic(const std::string& path, std::ostream& out, std::ostream& err) {
     for (const Path& p : trace_layout(*layout, library)) {
         const Caustic c = propagate_path(*layout, p);
         for (const EnvelopeSample& e : c.envelope) {
-            char line[160];
-            std::snprintf(line, sizeof line, "%s,%.6f,%.4f,%.4f\n", layout->beams[p.beam].id.c_str(), e.s_mm,
-                          e.radius_tangential_um, e.radius_sagittal_um);
-            out << line;
+            // The id apart from the buffer: it may be long, and holds a comma or a quote quoted.
+            char numbers[160];
+            std::snprintf(numbers, sizeof numbers, ",%.6f,%.4f,%.4f\n", e.s_mm, e.radius_tangential_um,
+                          e.radius_sagittal_um);
+            out << csv_field(layout->beams[p.beam].id) << numbers;
         }
     }
     return 0;

@@ -6,6 +6,7 @@
 #include "analysis/sweep.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "io/csv.hpp"
 #include "units/number_text.hpp"
 
 namespace rv::cli {
@@ -77,9 +78,11 @@ int run_sweep(const SweepOptions& o, std::ostream& out, std::ostream& err) {
         return 0;
     }
     const char* sep = o.csv ? "," : "  ";
-    out << o.vary;
+    // The header names hold ids, which may hold a comma or a quote: quoted in the CSV.
+    auto name = [&o](const std::string& text) { return o.csv ? csv_field(text) : text; };
+    out << name(o.vary);
     for (const BeamSource& b : layout->beams)
-        out << sep << b.id << "_waist_um" << sep << b.id << "_waist_offset_mm";
+        out << sep << name(b.id + "_waist_um") << sep << name(b.id + "_waist_offset_mm");
     out << sep << "waist_offset_mm" << sep << "waist_ratio" << sep << "lateral_um" << sep << "delay_fs" << sep
         << "overlap_spatial" << sep << "overlap_temporal" << sep << "overlap_combined" << sep << "sinc2_now"
         << (stage ? std::string(sep) + "in_travel" : "") << "\n";
