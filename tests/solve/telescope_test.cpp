@@ -152,6 +152,7 @@ TEST_CASE("searching the arms apart finds the best solutions of the full search"
     goals.move = {{"L2_P", {-20, 20}}, {"L2_S", {-20, 20}}};
     l.goals.solve = goals;
     l.goals.waist_um = {{"pump", 40.0}, {"signal", 30.0}};
+    l.goals.verdict.max_waist_ratio = 1.5;  // goals 40/30 µm: allowed, or the solver refuses them
     const std::vector<rv::CatalogLens> catalog = ideal_catalog({-75, -50, -30, 30, 50, 75, 100});
     rv::SolveOptions apart, together;
     together.separate_arms = false;
