@@ -70,9 +70,7 @@ double delay_of(const std::vector<ReportBeam>& b) {
 
 std::optional<OverlapReport> overlap_of(const Layout& layout, const std::vector<ReportBeam>& b) {
     if (b.size() < 2 || !b[0].at_target.reached || !b[1].at_target.reached) return std::nullopt;
-    const OverlapFigures f =
-        overlap_at_target(b[0].at_target, b[1].at_target, layout.beams[0].pulse_fwhm_fs, layout.beams[1].pulse_fwhm_fs);
-    return OverlapReport{f.spatial, f.spatial_along_crystal, f.temporal, f.combined};
+    return overlap_at_target(b[0].at_target, b[1].at_target, layout.beams[0].pulse_fwhm_fs, layout.beams[1].pulse_fwhm_fs);
 }
 
 std::optional<StageReport> stage_of(const Layout& layout, const MaterialLibrary& library,

@@ -71,12 +71,9 @@ struct PolarizationAdvice {
 std::string needed_polarization_text(const PolarizationAdvice& a);
 std::string polarization_advice_text(const PolarizationAdvice& a);
 
-struct OverlapReport {
-    double spatial = 0;             // transverse intensity overlap at the target centre
-    double spatial_along_crystal = 0;  // the same averaged over the crystal length
-    std::optional<double> temporal;    // cross-correlation factor (both pulse lengths given)
-    double combined = 0;               // spatial_along_crystal × temporal (or × 1)
-};
+// The overlap at the target: the one definition the solvers and the tolerance run use too
+// (analysis/target_summary.hpp, overlap_at_target).
+using OverlapReport = OverlapFigures;
 
 struct StageReport {
     std::string id;
