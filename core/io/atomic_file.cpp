@@ -10,6 +10,8 @@
 #include <stdexcept>
 #include <string>
 
+#include "io/file_kind.hpp"
+
 namespace rv {
 
 namespace {
@@ -27,15 +29,6 @@ struct Failure {
         (*this)(doing + ": " + std::strerror(err));
     }
 };
-
-std::string kind_of(mode_t mode) {
-    if (S_ISDIR(mode)) return "a directory";
-    if (S_ISCHR(mode)) return "a character device";
-    if (S_ISBLK(mode)) return "a block device";
-    if (S_ISFIFO(mode)) return "a FIFO (named pipe)";
-    if (S_ISSOCK(mode)) return "a socket";
-    return "a special file";
-}
 
 // The name the rename must replace: `path` followed through its symbolic links one at a time
 // (a relative link is relative to the folder holding it). The first name that is not a link, or
@@ -130,7 +123,7 @@ void write_file_safely(const std::filesystem::path& path, std::string_view conte
     if (target != path && (!exists || ::lstat(target.c_str(), &at_target) == 0))
         fail.name += " (a link to " + target.string() + ")";
     if (exists) {
-        if (!S_ISREG(old.st_mode)) fail("it is " + kind_of(old.st_mode) + ", not a regular file");
+        if (!S_ISREG(old.st_mode)) fail(std::string("it is ") + file_kind_text(old.st_mode) + ", not a regular file");
         if (old.st_nlink > 1)
             fail("it has " + std::to_string(old.st_nlink) +
                  " hard links, and replacing it would part it from the others, which would keep "

@@ -8,22 +8,14 @@
 #include <cerrno>
 #include <string>
 
+#include "io/file_kind.hpp"
+
 namespace rv {
 
 namespace {
 
-// What a file that is not a regular file is, for the refusal.
-const char* kind_of(mode_t mode) {
-    if (S_ISDIR(mode)) return "a directory";
-    if (S_ISCHR(mode)) return "a character device";
-    if (S_ISBLK(mode)) return "a block device";
-    if (S_ISFIFO(mode)) return "a FIFO (named pipe)";
-    if (S_ISSOCK(mode)) return "a socket";
-    return "a special file";
-}
-
 std::string not_regular(mode_t mode) {
-    return std::string("not read: it is ") + kind_of(mode) + ", not a regular file";
+    return std::string("not read: it is ") + file_kind_text(mode) + ", not a regular file";
 }
 
 std::string limit_text(std::size_t max_bytes) {
