@@ -30,7 +30,7 @@ std::vector<Path> trace_arriving_waves(const Layout& layout, const MaterialLibra
 
 // Fills the cache's crystal_polarization for `layout` unless it is known already: the solvers
 // call it once with the layout they start from (their moves of lenses and mirrors do not change
-// the polarization; README, "One evaluation").
+// the polarization; DEVELOPERS.md, "One evaluation").
 void prepare_crystal_waves(TraceCache& cache, const Layout& layout, const MaterialLibrary& library);
 
 }  // namespace rv

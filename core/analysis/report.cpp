@@ -489,7 +489,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         }
     }
 
-    // The verdict. Thresholds: layout.goals.verdict (README, "Verdict").
+    // The verdict. Thresholds: layout.goals.verdict (docs/user-guide.md, "Verdict").
     const VerdictThresholds& t = layout.goals.verdict;
     Verdict& v = r.verdict;
     std::vector<std::string> goal_misses;

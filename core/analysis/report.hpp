@@ -1,7 +1,7 @@
 #pragma once
 // The rendezvous report: for a layout, how far the two colours are from meeting in space, in
 // time and in phase at the target, and what to change. Everything a front end prints comes
-// from here; the definitions are in the README ("The report").
+// from here; the definitions are in docs/user-guide.md ("The report").
 
 #include <optional>
 #include <string>
@@ -84,7 +84,7 @@ struct StageReport {
     bool zero_in_travel = false;
     double move_mm = 0;          // zero_delay − position
     std::optional<double> measured_zero_mm;
-    std::optional<double> emission_offset_fs;  // model delay at the measured zero (see README)
+    std::optional<double> emission_offset_fs;  // model delay at the measured zero (docs/user-guide.md, Time zero)
 };
 
 struct GroupVelocityMismatch {

@@ -66,7 +66,7 @@ struct Mismatch {
 Mismatch mismatch_at_target(const BeamAtTarget& first, const BeamAtTarget& second);
 
 // The overlap of the two beams at the target, defined once for the report, the solvers and the
-// tolerance run (README, "Overlap"):
+// tolerance run (docs/user-guide.md, The report, "Overlap"):
 //   spatial: the transverse intensity overlap of the two Gaussians at the target plane, per
 //            plane (nonlinear/overlap.hpp), the tangential one offset by the distance between the
 //            chief-ray crossings across the bisector of the two chief rays;

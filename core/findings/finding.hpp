@@ -2,7 +2,7 @@
 // A finding: something the trace, the propagation or the report found wrong with a layout, or a
 // reason to trust a figure less, as data: a stable code, the beam and element it concerns and
 // its numbers. The words are made only where it is printed (finding_text); no decision anywhere
-// reads them. The codes are a contract (README, "Findings"): add new ones, never rename one.
+// reads them. The codes are a contract (docs/user-guide.md, "Findings"): add new ones, never rename one.
 
 #include <optional>
 #include <string>
@@ -56,7 +56,7 @@ struct Finding {
 const char* finding_code(Finding::Kind kind);
 Finding::Severity finding_severity(Finding::Kind kind);
 const char* severity_name(Finding::Severity severity);
-// Every kind, in the order of the enum (for the README's table and tests).
+// Every kind, in the order of the enum (for the user guide's table and tests).
 std::vector<Finding::Kind> all_finding_kinds();
 
 // One plain sentence, without the beam's id ("misses M2 by 3.00 mm (…)"); the line printed in

@@ -16,7 +16,7 @@ namespace rv {
 
 class MaterialLibrary {
 public:
-    // The published sets listed in the README (Materials), each with its source.
+    // The published sets listed in docs/file-format.md (Materials), each with its source.
     static const MaterialLibrary& builtin();
 
     // The material a file's name refers to, or nullptr.

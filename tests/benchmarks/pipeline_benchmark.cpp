@@ -2,7 +2,7 @@
 // the target (design budget: ≤ 2 µs median without the drawing envelope, as the solvers run
 // it: DemoEvaluateEdited).
 //
-// Reproduce the README figure:
+// Reproduce the docs/performance.md figure:
 //   build/release/tests/benchmarks/rendezvous_benchmarks --benchmark_filter=Demo
 //     --benchmark_repetitions=15 --benchmark_report_aggregates_only=true
 #include <benchmark/benchmark.h>

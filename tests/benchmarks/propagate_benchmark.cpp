@@ -1,6 +1,6 @@
 // Propagating q through a 20-element chain: the inner loop of every trace and solver step.
 //
-// Reproduce the README figure:
+// Reproduce the docs/performance.md figure:
 //   build/release/tests/benchmarks/rendezvous_benchmarks --benchmark_filter=Chain20
 //     --benchmark_repetitions=15 --benchmark_report_aggregates_only=true
 #include <benchmark/benchmark.h>

@@ -3,7 +3,7 @@
 // of the first 60 lenses of layouts/lenses.json, the second lens of each telescope free to move
 // ±20 mm, aim: waists at the target centre with 40 µm (pump) and 30 µm (signal) radii.
 //
-// Reproduce the README figure:
+// Reproduce the docs/performance.md figure:
 //   build/release/tests/benchmarks/rendezvous_benchmarks --benchmark_filter=Solve
 #include <benchmark/benchmark.h>
 

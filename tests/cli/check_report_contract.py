@@ -1,5 +1,5 @@
 """Checks `rendezvous report LAYOUT --json` against the report contract
-(docs/schemas/report.schema.json; README.md, "The report"): one JSON object, parsed by Python's json
+(docs/schemas/report.schema.json; docs/user-guide.md, "The report"): one JSON object, parsed by Python's json
 module, holding every contract key that applies to the layout (mismatch and overlap with two
 beams, stage with a stage, phase matching with a crystal target). The power and peak-intensity
 keys come with the polarization-and-power issue and are not checked yet.

@@ -19,7 +19,7 @@ import tempfile
 # rate or pulse length).
 # A finding's beam or element is null when it concerns none; the polarization advice's plate
 # figures are null when there is no plate to turn.
-# Issue 14 item 7 (README, The report): a verdict line's met when it does not apply and its action
+# Issue 14 item 7 (docs/user-guide.md, The report): a verdict line's met when it does not apply and its action
 # when there is none; the phase-matching angle's figures without phase matching; the index data
 # note when there is none (incidence_now_deg too outside the data); spatial_along_crystal for a
 # target that is not a crystal; azimuth_deg of circular or unpolarized light; a loss's goes_to

@@ -7,7 +7,7 @@
 // named shape or from radii) and tilted plates between them; its last mirror sends it to the
 // shared target (a plain target or a birefringent crystal). Plates shift the ray sideways and
 // lenses then deflect it, so some beams miss later optics: a miss is a finding, not an error.
-// Every number lies inside the range the format documents (README, "Layout format").
+// Every number lies inside the range the format documents (docs/file-format.md, "Layout file format").
 //
 // The generator uses its own uniform draws from std::mt19937_64 (whose output sequence the
 // standard fixes), not std::uniform_real_distribution, so a seed gives the same layouts with
