@@ -144,6 +144,17 @@ int main(int argc, char** argv) {
         "write the balanced layout here (- is stdout, the summary then on stderr)");
     balance_cmd->footer(kWriting);
 
+    rv::cli::PhaseOptions phase;
+    CLI::App* phase_cmd = app.add_subcommand(
+        "phase", "Set the crystal for a process and turn or tilt it to phase-match; print the angle to dial.\n"
+                 "Example: rendezvous phase layouts/sfg-bbo.json --process sfg --write sfg-phased.json");
+    phase_cmd->add_option("layout", phase.layout, "layout file (JSON)")->required();
+    phase_cmd->add_option("--process", phase.process, "sfg, or shg:BEAM (the SHG of the beam with that id)")->required();
+    phase_cmd->add_flag("--json", phase.json, "one JSON object (docs/schemas/phase.schema.json) instead of the text");
+    phase_cmd->add_option("--write", phase.output,
+                          "write the layout with the crystal set here (- is stdout, the summary then on stderr)");
+    phase_cmd->footer(kWriting);
+
     rv::cli::SweepOptions sweep;
     CLI::App* sweep_cmd = app.add_subcommand(
         "sweep", "Vary one numeric field and print the report's figures at each value.\n"
@@ -251,6 +262,7 @@ int main(int argc, char** argv) {
     if (*solve_cmd) return rv::cli::run_solve(solve, std::cout, std::cerr);
     if (*tolerance_cmd) return rv::cli::run_tolerance(tolerance, std::cout, std::cerr);
     if (*balance_cmd) return rv::cli::run_balance(balance, std::cout, std::cerr);
+    if (*phase_cmd) return rv::cli::run_phase(phase, std::cout, std::cerr);
     if (*polarize_cmd) return rv::cli::run_polarize(polarize, std::cout, std::cerr);
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);

@@ -184,19 +184,14 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
                               (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
     }
     const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
-    // Geometry (trace/crystal_axes.hpp): α the angle of k from the face normal, `rel` the same
-    // from the normal line along the travel, in (−π/2, π/2].
-    const double cut = deg_to_rad(xc.cut_deg);
-    const Vec2 n = direction_deg(xe.normal_deg);
+    // Geometry (trace/crystal_axes.hpp): the first beam's direction inside at the crystal's
+    // centre plane and the index it was refracted with give the 3-D wave vector and ψ.
+    const CrystalPose pose = crystal_pose(direction_deg(xe.normal_deg), xc);
     const Path& path = beams[i].path;
-    const Vec2 d = path.target_hit ? path.hits[*path.target_hit].direction_in : n;
-    auto wrap_half = [](double x) {
-        while (x > kPi / 2) x -= kPi;
-        while (x <= -kPi / 2) x += kPi;
-        return x;
-    };
-    const double rel = wrap_half(std::atan2(d.dot(perpendicular(n)), d.dot(n)));
-    const double theta_now = angle_to_reference_axis_rad(n, cut, xc.optic_axis_horizontal, d);
+    const bool at_centre = path.target_hit.has_value();
+    const Vec2 d = at_centre ? path.hits[*path.target_hit].direction_in : pose.face_normal;
+    const double index_here = at_centre ? path.hits[*path.target_hit].index_after : 1.0;
+    const double theta_now = angle_to_reference_axis_rad(pose, d, index_here);
     r.theta_now_deg = rad_to_deg(theta_now);
     const double length = xc.length_mm;
     const double dk = delta_k_per_mm(m, l1, l2, type, theta_now, plane);
@@ -213,26 +208,31 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.delta_k_l = dk * length;
     const double x = r.delta_k_l / 2;
     r.sinc2_now = x == 0 ? 1 : std::pow(std::sin(x) / x, 2);
-    // Snell's law outside ↔ inside with the first input's index.
-    const double n_1 = wave_index(m, l1, w.wave1, pm.value_or(theta_now), plane).index;
-    auto external = [n_1](double internal) { return rad_to_deg(std::asin(std::clamp(n_1 * std::sin(internal), -1.0, 1.0))); };
-    r.incidence_now_deg = external(rel);
+    // The outside direction in the table plane (Snell at the untilted face).
+    const Vec2 t = perpendicular(pose.face_normal);
+    const double sin_out = std::clamp(index_here * d.dot(t), -1.0, 1.0);
+    const Vec2 outside = std::copysign(std::sqrt(1 - sin_out * sin_out), d.dot(pose.face_normal)) * pose.face_normal + sin_out * t;
+    const bool turn = xc.optic_axis_horizontal;
+    r.rotation = turn ? CrystalRotation::Turn : CrystalRotation::Tilt;
+    r.incidence_now_deg = turn ? rad_to_deg(std::atan2(sin_out, std::abs(outside.dot(pose.face_normal)))) : xc.tilt_deg;
+    r.incidence_needed_deg = r.incidence_now_deg;
     if (!pm) return r;
     r.phase_matchable = true;
     r.theta_pm_deg = rad_to_deg(*pm);
-    if (xc.optic_axis_horizontal) {
-        // |cos(α − cut)| = cos θ_pm: α = cut ± θ_pm (mod π); the turn is to the nearer one.
-        r.rotation_axis = "vertical axis: a turn in the table plane, + = clockwise seen from above";
-        const double a1 = wrap_half(cut + *pm), a2 = wrap_half(cut - *pm);
-        r.incidence_needed_deg = external(std::abs(a1 - rel) <= std::abs(a2 - rel) ? a1 : a2);
-    } else {
-        // |cos α| cos(cut + tilt) = cos θ_pm, the tilt out of the table plane (none yet).
-        r.rotation_axis = "horizontal axis across the beam: a tilt, + = away from the optic axis";
-        const double tilt = std::acos(std::clamp(std::cos(*pm) / std::cos(rel), -1.0, 1.0)) - cut;
-        r.incidence_now_deg = 0;
-        r.incidence_needed_deg = external(tilt);
+    // The first input's index at θ_pm: exact where ψ = θ_pm, which is what is solved for.
+    const double n_1 = wave_index(m, l1, w.wave1, *pm, plane).index;
+    // The optic axis in the table plane is reached by a turn about the vertical axis; in the
+    // vertical plane by a tilt about the horizontal axis across the beam.
+    r.rotation_axis = turn ? "vertical axis (+ = clockwise seen from above)"
+                           : "horizontal axis across the beam (+ = the face normal rises)";
+    const std::optional<double> change =
+        rotation_to_angle_deg(pose, r.rotation, outside, n_1, *pm, turn ? kMaxCrystalTurn_deg : 2 * kMaxCrystalTilt_deg,
+                              kMaxCrystalTilt_deg);
+    r.rotation_found = change.has_value();
+    if (change) {
+        r.rotate_by_deg = *change;
+        r.incidence_needed_deg = r.incidence_now_deg + *change;
     }
-    r.rotate_by_deg = r.incidence_needed_deg - r.incidence_now_deg;
     // Walk-off of the angle-dependent (B) wave: the output, or the input B wave when the
     // output is an A wave.
     const double b_lambda = w.wave3 == Polarity::B ? r.output_nm : (w.wave1 == Polarity::B ? l1 : l2);
@@ -256,6 +256,25 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
         r.gvm.push_back({b1.id + "–" + b2.id, g12, walk(shorter, g12)});
     }
     return r;
+}
+
+// The crystal's process among the computed ones (SFG first when both beams reach, then the SHG
+// of each beam that reaches): Auto takes the first.
+std::optional<size_t> chosen_process_index(const Layout& layout, const Crystal& xc,
+                                           const std::vector<PhaseMatchingReport>& processes) {
+    for (size_t k = 0; k < processes.size(); ++k) {
+        const PhaseMatchingReport& p = processes[k];
+        switch (xc.process) {
+            case Crystal::Process::Auto: return k;
+            case Crystal::Process::SumFrequency:
+                if (p.sum_frequency) return k;
+                break;
+            case Crystal::Process::SecondHarmonic:
+                if (!p.sum_frequency && layout.beams[p.first_beam].id == xc.process_beam) return k;
+                break;
+        }
+    }
+    return std::nullopt;
 }
 
 std::string invisible_kind(double nm) {
@@ -462,19 +481,27 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
             for (size_t i = 0; i < r.beams.size(); ++i)
                 if (r.beams[i].at_target.reached)
                     r.phase_matching.push_back(phase_matching_of(layout, *target, *crystal, *m, r.beams, i, i));
+            // The process the crystal is set for goes first (the verdict and the polarization
+            // advice judge the first); absent when its beams do not reach the crystal.
+            const std::optional<size_t> chosen = chosen_process_index(layout, *crystal, r.phase_matching);
+            r.chosen_process_missing = !chosen;
+            if (chosen) std::rotate(r.phase_matching.begin(), r.phase_matching.begin() + *chosen,
+                                    r.phase_matching.begin() + *chosen + 1);
             for (const PhaseMatchingReport& p : r.phase_matching)
                 if (const std::string kind = invisible_kind(p.output_nm); !kind.empty())
                     r.invisible.push_back(fmt("%.1f nm", p.output_nm) + " (" + p.process + "): " + kind);
             // Polarization of each input, for the first process (SFG, or the SHG of one beam).
             if (!r.phase_matching.empty() && r.phase_matching.front().outside_index_data.empty()) {
                 const PhaseMatchingReport& first = r.phase_matching.front();
-                const bool sfg = r.beams.size() >= 2 && both;
+                const bool sfg = first.sum_frequency;
                 const bool type_ii_shg = !sfg && first.mixing != MixingType::TypeI && first.mixing != MixingType::TypeI_BBA;
                 if (!type_ii_shg)
-                    for (size_t i = 0; i < (sfg ? 2u : r.beams.size()); ++i)
+                    for (size_t i = 0; i < r.beams.size(); ++i)
+                    if (sfg ? i < 2 : i == first.first_beam)
                         if (r.beams[i].at_target.reached && r.beams[i].power.reached)
-                            r.polarization.push_back(advise_polarization(layout, library, r.beams[i], *crystal,
-                                                                         i == 0 ? first.first_needs_a : first.second_needs_a));
+                            r.polarization.push_back(advise_polarization(
+                                layout, library, r.beams[i], *crystal,
+                                i == first.first_beam ? first.first_needs_a : first.second_needs_a));
             }
             // Boyd–Kleinman for each beam, with the walk-off of the first process's output.
             const double rho = r.phase_matching.empty() ? 0 : r.phase_matching.front().walkoff_mrad * 1e-3;
@@ -581,7 +608,16 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         v.time.summary = "a beam does not reach the target";
     }
 
-    if (!r.phase_matching.empty()) {
+    if (r.chosen_process_missing) {
+        v.phase.met = false;
+        v.phase.summary = std::string(crystal && crystal->process == Crystal::Process::SecondHarmonic
+                                          ? "SHG of " + crystal->process_beam
+                                          : "SFG") +
+                          " (the crystal's process): its beam" +
+                          (crystal && crystal->process == Crystal::Process::SecondHarmonic ? " does" : "s do") +
+                          " not reach the crystal";
+        v.phase.action = "bring the beams to the crystal first (see the space line)";
+    } else if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
         v.phase.met = p.phase_matchable && p.sinc2_now >= t.min_phase_factor && p.polarizations_suit;
         if (p.outside_index_data.empty())
@@ -596,9 +632,15 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         } else {
             v.phase.summary = p.process + " " + p.type + ": θ_pm " + fmt("%.2f", p.theta_pm_deg) + "°, now " +
                               fmt("%.2f", p.theta_now_deg) + "°, sinc² = " + fmt("%.3f", p.sinc2_now);
-            if (p.sinc2_now < t.min_phase_factor)
-                v.phase.action = "rotate the crystal by " + fmt("%+.2f", p.rotate_by_deg) + "° (external) about the " +
-                                 p.rotation_axis;
+            if (p.sinc2_now < t.min_phase_factor && p.rotation_found)
+                v.phase.action = std::string(p.rotation == CrystalRotation::Turn ? "turn" : "tilt") +
+                                 " the crystal by " + fmt("%+.3f", p.rotate_by_deg) + "° (external) about the " +
+                                 p.rotation_axis + " (rendezvous phase --process " + process_key(layout, p) +
+                                 " --write NEW.json)";
+            else if (p.sinc2_now < t.min_phase_factor)
+                v.phase.action = std::string("no ") + (p.rotation == CrystalRotation::Turn ? "turn" : "tilt") +
+                                 " within the mount's range reaches θ_pm: use a crystal cut nearer " +
+                                 fmt("%.2f", p.theta_pm_deg) + "°";
             if (!p.polarizations_suit)
                 v.phase.action += (v.phase.action.empty() ? "" : "; ") + p.polarization_note;
         }
@@ -609,6 +651,10 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         v.phase.summary = "the target is not a crystal";
     }
     return r;
+}
+
+std::string process_key(const Layout& layout, const PhaseMatchingReport& p) {
+    return p.sum_frequency ? "sfg" : "shg:" + layout.beams[p.first_beam].id;
 }
 
 const char* verdict_state_text(const VerdictLine& l) {

@@ -12,6 +12,7 @@
 #include "analysis/target_summary.hpp"
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
+#include "analysis/crystal_angle.hpp"
 #include "nonlinear/phase_matching.hpp"
 #include "trace/path.hpp"
 #include "trace/propagate.hpp"
@@ -103,13 +104,19 @@ struct PhaseMatchingReport {
     bool phase_matchable = false;
     double theta_pm_deg = 0;        // internal phase-matching angle
     double theta_now_deg = 0;       // internal angle the beams have now
-    double incidence_now_deg = 0;   // external angle of the beam to the face normal, now
+    // How the crystal is rotated to phase-match (analysis/crystal_angle.hpp): a Turn about the
+    // vertical axis (optic axis in the table plane) or a Tilt about the horizontal axis across
+    // the beam (optic axis in the vertical plane).
+    CrystalRotation rotation = CrystalRotation::Turn;
+    // Turn: the external angle of the beam to the face normal in the table plane, now and
+    // needed. Tilt: the crystal's tilt_deg now and needed.
+    double incidence_now_deg = 0;
     double incidence_needed_deg = 0;
-    // Change of the external angle to make. About the vertical axis (optic axis in the table
-    // plane): + = turn the crystal clockwise seen from above, i.e. normal_deg decreases by it.
-    // About the horizontal axis (optic axis in the vertical plane): + = tilt so that the
-    // internal angle to the optic axis grows; the flat layout has no tilt, so "now" is 0.
+    // The change to make: Turn, + = clockwise seen from above (normal_deg decreases by it);
+    // Tilt, + = the face normal rises (tilt_deg grows by it). Only when rotation_found: a
+    // setting within the searched range reaches θ_pm.
     double rotate_by_deg = 0;
+    bool rotation_found = false;
     std::string rotation_axis;
     double delta_k_l = 0;           // Δk·L now (rad)
     double sinc2_now = 0;           // sinc²(ΔkL/2) now
@@ -170,7 +177,9 @@ struct RendezvousReport {
     std::optional<double> confocal_ratio;  // b(beam 1)/b(beam 2), mean of the planes
     std::optional<OverlapReport> overlap;
     std::optional<StageReport> stage;
+    // The crystal's processes, the one it is set for first (Crystal::process).
     std::vector<PhaseMatchingReport> phase_matching;
+    bool chosen_process_missing = false;  // the set process's beams do not reach the crystal
     std::vector<FocusingReport> focusing;
     std::vector<PolarizationAdvice> polarization;
     Verdict verdict;
@@ -184,5 +193,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
 
 // Where a beam's light goes after the target, in words ("absorbed in dump D1", …).
 std::string after_target_text(const ReportBeam& beam);
+// The file's and the command line's name of a process: "sfg" or "shg:BEAM".
+std::string process_key(const Layout& layout, const PhaseMatchingReport& p);
 
 }  // namespace rv

@@ -457,9 +457,24 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
             if (m && m->symmetry != Symmetry::Biaxial)
                 f.error("principal_plane", "only for biaxial crystals; " + m->name + " is not biaxial");
         }
+        // A tilt beyond ±45° would put the face nearly along the beam (common practice: a few
+        // degrees of tilt on a mount).
+        c.tilt_deg = f.number("tilt_deg", Need::Optional, between(-45, 45)).value_or(0);
+        if (const auto process = f.string("process", Need::Optional)) {
+            // "sfg", or "shg:BEAM" (the beam's id is checked with the other references).
+            if (*process == "sfg") {
+                c.process = Crystal::Process::SumFrequency;
+            } else if (process->rfind("shg:", 0) == 0 && process->size() > 4) {
+                c.process = Crystal::Process::SecondHarmonic;
+                c.process_beam = process->substr(4);
+            } else {
+                f.error("process", "expected \"sfg\" or \"shg:BEAM\" (BEAM a beam's id)");
+            }
+        }
         c.damage = read_damage(f);
         f.finish(with_common({"material", "length_mm", "cut_deg", "phase_matching", "optic_axis",
-                              "principal_plane", "damage_fluence_j_cm2", "damage_intensity_gw_cm2"}));
+                              "principal_plane", "tilt_deg", "process", "damage_fluence_j_cm2",
+                              "damage_intensity_gw_cm2"}));
         return c;
     }
     if (type == "target") {
@@ -545,6 +560,17 @@ void Reader::check_references(const json& doc, Layout& layout) {
                 error(pointer_of(e.id, "aim_at"), "a mirror cannot aim at itself");
             else if (is_element(*m->aim_at) && std::holds_alternative<Stage>(layout.find(*m->aim_at)->kind))
                 error(pointer_of(e.id, "aim_at"), "\"" + *m->aim_at + "\" is a stage, which has no position to aim at");
+        }
+        if (const auto* c = std::get_if<Crystal>(&e.kind); c && c->process == Crystal::Process::SecondHarmonic) {
+            bool found = false;
+            std::vector<std::string> beam_ids;
+            for (const BeamSource& b : layout.beams) found = found || b.id == c->process_beam, beam_ids.push_back(b.id);
+            if (!found) {
+                std::string m = "no beam has id \"" + c->process_beam + "\"";
+                if (const auto near = closest_name(c->process_beam, beam_ids))
+                    m += "; did you mean \"shg:" + *near + "\"?";
+                error(pointer_of(e.id, "process"), m);
+            }
         }
         if (const auto* s = std::get_if<Stage>(&e.kind)) {
             for (size_t i = 0; i < s->carries.size(); ++i) {

@@ -122,6 +122,9 @@ struct KindWriter {
         if (c.optic_axis_horizontal) j["optic_axis"] = "horizontal";
         if (c.principal_plane != PrincipalPlane::XY)
             j["principal_plane"] = c.principal_plane == PrincipalPlane::YZ ? "YZ" : "XZ";
+        if (c.tilt_deg != 0) j["tilt_deg"] = num(c.tilt_deg);
+        if (c.process == Crystal::Process::SumFrequency) j["process"] = "sfg";
+        if (c.process == Crystal::Process::SecondHarmonic) j["process"] = "shg:" + c.process_beam;
         damage(c.damage);
     }
     void damage(const DamageThreshold& d) const {

@@ -173,6 +173,17 @@ struct Crystal {
     // it (φ from X in XY, θ from Z in YZ and XZ). The plane holding the tuning angle is set on
     // the table like a uniaxial crystal's optic-axis plane (optic_axis).
     PrincipalPlane principal_plane = PrincipalPlane::XY;
+    // The tilt about the horizontal axis across the beam (the table-plane line perpendicular to
+    // the face normal): + raises the face normal towards +z (up), and carries the optic axis with
+    // the crystal. normal_deg is the other angle, the turn in the table plane. The trace stays in
+    // the table plane; the tilt enters through the 3-D wave vector inside (trace/crystal_axes.hpp).
+    double tilt_deg = 0.0;
+    // The process the crystal is set for (the verdict's phase line judges it): the SFG of the two
+    // beams, or the SHG of one beam (process_beam). Auto: SFG when both beams reach the crystal,
+    // else the SHG of the first that does.
+    enum class Process { Auto, SumFrequency, SecondHarmonic };
+    Process process = Process::Auto;
+    std::string process_beam;  // beam id, with SecondHarmonic
     DamageThreshold damage;
     bool operator==(const Crystal&) const = default;
 };

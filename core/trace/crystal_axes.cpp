@@ -7,11 +7,58 @@
 
 namespace rv {
 
-double angle_to_reference_axis_rad(const Vec2& n, double cut, bool horizontal, const Vec2& k) {
-    const Vec2 t = perpendicular(n);
-    const double alpha = std::atan2(k.dot(t), k.dot(n));
-    const double c = horizontal ? std::abs(std::cos(alpha - cut)) : std::abs(std::cos(alpha)) * std::cos(cut);
-    return std::acos(std::clamp(c, 0.0, 1.0));
+namespace {
+
+struct Frame {
+    Vec3 n, t, z;
+};
+Frame frame_of(const CrystalPose& pose) {
+    const Vec2 t2 = perpendicular(pose.face_normal);
+    return {Vec3(pose.face_normal.x(), pose.face_normal.y(), 0), Vec3(t2.x(), t2.y(), 0), Vec3(0, 0, 1)};
+}
+
+}  // namespace
+
+CrystalPose crystal_pose(const Vec2& face_normal, const Crystal& crystal) {
+    return CrystalPose{face_normal, deg_to_rad(crystal.cut_deg), crystal.optic_axis_horizontal,
+                       deg_to_rad(crystal.tilt_deg)};
+}
+
+Vec3 wave_vector_from_outside(const CrystalPose& pose, const Vec2& outside_2d, double index) {
+    const Frame f = frame_of(pose);
+    const double m = std::isfinite(index) && index > 0 ? index : 1.0;
+    const Vec3 outside = Vec3(outside_2d.x(), outside_2d.y(), 0).normalized();
+    // Snell's law in vector form at the tilted face: the part along the face over the index,
+    // the rest along the normal on the side the wave travels to.
+    const Vec3 n_tilted = std::cos(pose.tilt_rad) * f.n + std::sin(pose.tilt_rad) * f.z;
+    const double normal_part = outside.dot(n_tilted);
+    const Vec3 along_face = (outside - normal_part * n_tilted) / m;
+    const double rest = std::sqrt(std::max(0.0, 1 - along_face.squaredNorm()));
+    return (along_face + std::copysign(rest, normal_part) * n_tilted).normalized();
+}
+
+Vec3 wave_vector_inside(const CrystalPose& pose, const Vec2& k_inside, double index) {
+    const Frame f = frame_of(pose);
+    const double along_t = k_inside.dot(perpendicular(pose.face_normal)), along_n = k_inside.dot(pose.face_normal);
+    if (pose.tilt_rad == 0) return along_n * f.n + along_t * f.t;  // no tilt: the trace's own direction
+    const double m = std::isfinite(index) && index > 0 ? index : 1.0;
+    // The outside direction in the table plane (Snell at the untilted face, k's side kept).
+    const double sin_a = std::clamp(m * along_t, -1.0, 1.0);
+    const double cos_a = std::copysign(std::sqrt(1 - sin_a * sin_a), along_n);
+    return wave_vector_from_outside(pose, cos_a * pose.face_normal + sin_a * perpendicular(pose.face_normal), m);
+}
+
+double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec3& k) {
+    const Frame f = frame_of(pose);
+    const double cut = pose.cut_rad, tau = pose.tilt_rad;
+    const Vec3 axis = pose.axis_in_table_plane
+                          ? Vec3(std::cos(cut) * (std::cos(tau) * f.n + std::sin(tau) * f.z) + std::sin(cut) * f.t)
+                          : Vec3(std::cos(cut + tau) * f.n + std::sin(cut + tau) * f.z);
+    return std::acos(std::clamp(std::abs(k.dot(axis)), 0.0, 1.0));
+}
+
+double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec2& k_inside, double index) {
+    return angle_to_reference_axis_rad(pose, wave_vector_inside(pose, k_inside, index));
 }
 
 double a_wave_fraction(const Polarization& p, bool horizontal_axis) {

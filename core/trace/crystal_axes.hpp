@@ -3,21 +3,57 @@
 // crystal's reference axis (the optic axis of a uniaxial crystal; X in a biaxial crystal's XY
 // plane, Z in its YZ and XZ planes), and which of the two polarizations a beam has.
 //
-// Convention: the reference axis makes the angle cut_deg with the face normal n (as placed),
-// in the table plane towards t = n rotated +90° when optic_axis is "horizontal", or out of the
-// table plane when it is "vertical". For a wave vector k at angle α from n in the table plane
-// (α = atan2(k·t, k·n)):
-//   horizontal: cos ψ = |cos(α − cut)|         vertical: cos ψ = |cos α| · cos(cut)
-// (ψ is the angle between lines, in [0, π/2]; the index depends on it through cos²ψ).
+// Frame: x, y in the table plane, z up. The crystal as placed has the face normal n (from its
+// normal_deg, in the table plane) and t = n turned +90° in the table plane. Before its tilt the
+// reference axis makes the angle cut with n: towards t when optic_axis is "horizontal",
+// towards z when it is "vertical":
+//   horizontal: c = cos(cut) n + sin(cut) t          vertical: c = cos(cut) n + sin(cut) z.
+// The tilt τ turns the crystal about t so that + raises the face normal towards z:
+//   n' = cos τ n + sin τ z,   z' = −sin τ n + cos τ z,   t unchanged,
+// and carries the axis with it (vertical: c' = cos(cut+τ) n + sin(cut+τ) z).
+// The beams travel in the table plane; the wave vector inside is the exact 3-D refraction of the
+// outside direction at the tilted face (Snell's law in vector form: the part along the face
+// divided by the index). ψ is the angle between lines, in [0, π/2]: cos ψ = |k·c'|.
+// Without tilt this is the table-plane case: for k at angle α from n (α = atan2(k·t, k·n)),
+//   horizontal: cos ψ = |cos(α − cut)|               vertical: cos ψ = |cos α| · cos(cut).
+// The trace itself stays in the table plane (it refracts at the untilted face); the tilt's
+// vertical beam offset, about L·τ·(1 − 1/n), is not drawn.
 // The angle-independent ("A", ordinary) wave is polarized perpendicular to the plane of the
-// axis and k: horizontally when that plane is vertical, vertically when it is horizontal.
+// axis and k: horizontally when that plane is vertical, vertically when it is horizontal (exact
+// without tilt; for a tilt of a few degrees the plane turns by less than the tilt).
+
+#include <Eigen/Core>
 
 #include "layout/layout.hpp"
 
 namespace rv {
 
-double angle_to_reference_axis_rad(const Vec2& face_normal, double cut_rad, bool axis_in_table_plane,
-                                   const Vec2& k);
+using Vec3 = Eigen::Vector3d;
+
+// A crystal as placed on the table, for the angle to its reference axis.
+struct CrystalPose {
+    Vec2 face_normal{1, 0};  // n, in the table plane (from normal_deg)
+    double cut_rad = 0;
+    bool axis_in_table_plane = false;
+    double tilt_rad = 0;
+};
+CrystalPose crystal_pose(const Vec2& face_normal, const Crystal& crystal);
+
+// The unit wave vector inside the crystal for a wave arriving along `outside` (table plane)
+// with `index` inside: exact 3-D refraction at the tilted face.
+Vec3 wave_vector_from_outside(const CrystalPose& pose, const Vec2& outside, double index);
+
+// The unit wave vector inside the crystal for a wave whose table-plane direction inside,
+// k_inside, is the refraction of its outside direction at the untilted face with `index` (the
+// trace's direction; index 1: k_inside is the outside direction). From k_inside and the index
+// the outside direction is recovered (Snell: sin α = index · k·t) and refracted in 3-D at the
+// tilted face.
+Vec3 wave_vector_inside(const CrystalPose& pose, const Vec2& k_inside, double index);
+
+// ψ for that wave (see above).
+double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec2& k_inside, double index);
+// ψ for a wave vector inside.
+double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec3& k);
 
 // The fraction of a beam's power in the A wave (Malus: cos² of the angle between the
 // polarization and the A direction; circular light splits evenly).

@@ -323,7 +323,9 @@ private:
     std::optional<Candidate> next_hit(const Vec2& p, const Vec2& d, double max_dist, size_t step);
     void record_steps();
     double table_exit(const Vec2& p, const Vec2& d) const;
-    Medium slab_medium(size_t element, const Vec2& direction_inside);
+    // direction_inside: refracted at the element's face with index `refracted_with` (1: the
+    // outside direction, the first guess).
+    Medium slab_medium(size_t element, const Vec2& direction_inside, double refracted_with);
     bool index_follows_direction(size_t element) const;
     // A finding (once per element) when the beam's wavelength lies outside the material's range.
     void note_material(size_t element, const Material& m) {
@@ -495,7 +497,7 @@ void BeamTracer::note_out_of_range(size_t element, const Material& m) {
 }
 
 // Phase and group index of the beam inside a slab, for a ray running along direction_inside.
-Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
+Medium BeamTracer::slab_medium(size_t element, const Vec2& dir, double refracted_with) {
     const ElementKind& kind = layout_.elements[element].kind;
     const Material& m = *placed_[element].material;
     const double nm = beam_.wavelength_nm;
@@ -506,8 +508,8 @@ Medium BeamTracer::slab_medium(size_t element, const Vec2& dir) {
                                          [&] { return crystal_indices(m, nm, c->principal_plane); });
         const bool a_wave = a_wave_fraction(wave_polarization_, c->optic_axis_horizontal) >= 0.5;
         const double psi = a_wave ? 0.0
-                                  : angle_to_reference_axis_rad(placed_[element].normal, deg_to_rad(c->cut_deg),
-                                                                c->optic_axis_horizontal, dir);
+                                  : angle_to_reference_axis_rad(crystal_pose(placed_[element].normal, *c), dir,
+                                                                refracted_with);
         const WaveIndex w = wave_index(x, a_wave ? Polarity::A : Polarity::B, psi);
         return Medium{w.index, w.group_index};
     }
@@ -832,7 +834,7 @@ void BeamTracer::run() {
                 if (entering) {
                     // Guess the medium from the straight-on index, refine the direction for an
                     // index that depends on it (extraordinary wave): a few fixed-point steps.
-                    next = slab_medium(e, d);
+                    next = slab_medium(e, d, 1.0);
                     if (!(std::isfinite(next.index) && next.index > 0)) {
                         Finding& f = finding(Finding::Kind::NoRealIndex, e, h);
                         f.material = placed_[e].material->name;
@@ -844,7 +846,7 @@ void BeamTracer::run() {
                     for (int it = 0; it < refinements; ++it) {
                         out = refract(d, n, 1.0, next.index);
                         if (!out) break;
-                        next = slab_medium(e, *out);
+                        next = slab_medium(e, *out, next.index);
                     }
                     out = refract(d, n, 1.0, next.index);
                 } else {

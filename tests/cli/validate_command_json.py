@@ -36,6 +36,9 @@ for name in ("sfg-bbo.json", "pump-probe.json", "two-beam-microscope.json", "shg
     RUNS.append((["tolerance", layout_file("layouts", name), "--samples", "300", "--json"], "tolerance.schema.json"))
 for name in ("sfg-bbo.json", "pump-probe.json"):
     RUNS.append((["balance", layout_file("layouts", name), "--json"], "balance.schema.json"))
+for process in ("sfg", "shg:pump", "shg:signal"):
+    RUNS.append((["phase", layout_file("layouts", "sfg-bbo.json"), "--process", process, "--json"], "phase.schema.json"))
+RUNS.append((["phase", layout_file("layouts", "shg-single.json"), "--process", "shg:fundamental", "--json"], "phase.schema.json"))
 RUNS += [
     (["polarize", layout_file("layouts", "sfg-bbo.json"), "--plate", "HWP_P", "--json"], "polarize.schema.json"),
     (["polarize", layout_file("layouts", "shg-single.json"), "--plate", "HWP", "--power-mw", "1000", "--json"], "polarize.schema.json"),

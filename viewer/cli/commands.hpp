@@ -69,6 +69,16 @@ struct BalanceOptions {
 };
 int run_balance(const BalanceOptions& options, std::ostream& out, std::ostream& err);
 
+struct PhaseOptions {
+    std::string layout;
+    std::string process;  // "sfg" or "shg:BEAM"
+    std::string output;   // "" = print only
+    bool json = false;    // one JSON object (docs/schemas/phase.schema.json) instead of the text
+};
+// Sets the target crystal for a process and turns or tilts it to phase-match
+// (analysis/phase_setting.hpp), written to a new layout on request.
+int run_phase(const PhaseOptions& options, std::ostream& out, std::ostream& err);
+
 struct PolarizeOptions {
     std::string layout, plate, beam, output;
     double power_mw = -1;  // < 0: the most power in the polarization the crystal needs

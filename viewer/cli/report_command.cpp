@@ -41,11 +41,13 @@ json phase_json(const PhaseMatchingReport& p) {
     const bool indexed = p.outside_index_data.empty();
     auto if_indexed = [&](double v) { return indexed ? json(v) : json(nullptr); };
     auto if_matchable = [&](double v) { return p.phase_matchable ? json(v) : json(nullptr); };
+    auto found = [&](double v) { return p.phase_matchable && p.rotation_found ? json(v) : json(nullptr); };
     return {{"process", p.process}, {"type", p.type}, {"output_nm", p.output_nm},
             {"phase_matchable", p.phase_matchable}, {"theta_pm_deg", if_matchable(p.theta_pm_deg)},
             {"theta_now_deg", p.theta_now_deg}, {"incidence_now_deg", if_indexed(p.incidence_now_deg)},
-            {"incidence_needed_deg", if_matchable(p.incidence_needed_deg)},
-            {"rotate_by_deg", if_matchable(p.rotate_by_deg)}, {"rotation_axis", optional_text(p.rotation_axis)},
+            {"rotation", p.rotation == CrystalRotation::Turn ? "turn" : "tilt"},
+            {"incidence_needed_deg", found(p.incidence_needed_deg)},
+            {"rotate_by_deg", found(p.rotate_by_deg)}, {"rotation_axis", optional_text(p.rotation_axis)},
             {"delta_k_l", if_indexed(p.delta_k_l)}, {"sinc2_now", if_indexed(p.sinc2_now)},
             {"outside_index_data", optional_text(p.outside_index_data)},
             {"walkoff_mrad", if_matchable(p.walkoff_mrad)},
@@ -277,8 +279,13 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
         }
         out << "  θ_pm " << fmt("%.3f", p.theta_pm_deg) << "° (internal), now " << fmt("%.3f", p.theta_now_deg)
             << "°; Δk·L " << fmt("%.2f", p.delta_k_l) << " rad, sinc² " << fmt("%.3f", p.sinc2_now) << "\n"
-            << "  external angle now " << fmt("%+.3f", p.incidence_now_deg) << "°, needed " << fmt("%+.3f", p.incidence_needed_deg)
-            << "°: rotate by " << fmt("%+.3f", p.rotate_by_deg) << "° about the " << p.rotation_axis << "\n"
+            << "  " << (p.rotation == CrystalRotation::Turn ? "external angle" : "tilt") << " now "
+            << fmt("%+.3f", p.incidence_now_deg) << "°, "
+            << (p.rotation_found ? "needed " + fmt("%+.3f", p.incidence_needed_deg) + "°: " +
+                                       (p.rotation == CrystalRotation::Turn ? "turn" : "tilt") + " by " +
+                                       fmt("%+.3f", p.rotate_by_deg) + "° about the " + p.rotation_axis
+                                 : std::string("no setting within the mount's range reaches θ_pm"))
+            << "\n"
             << "  walk-off " << fmt("%.1f", p.walkoff_mrad) << " mrad; acceptance (FWHM) "
             << fmt("%.2f", p.angular_acceptance_internal_mrad) << " mrad internal, " << fmt("%.2f", p.angular_acceptance_external_mrad)
             << " mrad external, " << fmt("%.2f", p.spectral_acceptance_nm) << " nm\n";
@@ -344,7 +351,11 @@ void print_markdown(const RendezvousReport& r, std::ostream& out) {
         for (const PhaseMatchingReport& p : r.phase_matching)
             out << "| " << p.process << " | " << fmt("%.2f", p.output_nm) << " | " << p.type << " | "
                 << (p.phase_matchable ? fmt("%.3f", p.theta_pm_deg) : std::string("none")) << " | "
-                << fmt("%.3f", p.theta_now_deg) << " | " << fmt("%+.3f", p.rotate_by_deg) << " | "
+                << fmt("%.3f", p.theta_now_deg) << " | "
+                << (p.phase_matchable && p.rotation_found ? (p.rotation == CrystalRotation::Turn ? "turn " : "tilt ") +
+                                                                fmt("%+.3f", p.rotate_by_deg)
+                                                          : std::string("—"))
+                << " | "
                 << fmt("%.3f", p.sinc2_now) << " | " << fmt("%.1f", p.walkoff_mrad) << " |\n";
     }
     if (!r.findings.empty()) {

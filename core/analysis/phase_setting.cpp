@@ -1,0 +1,83 @@
+#include "analysis/phase_setting.hpp"
+
+#include <cmath>
+#include <stdexcept>
+
+#include "units/number_text.hpp"
+
+namespace rv {
+
+namespace {
+
+double round_to_thousandth(double x) { return std::round(x * 1e3) / 1e3; }
+
+}  // namespace
+
+PhaseSetting set_crystal_for_process(const Layout& layout, const MaterialLibrary& library,
+                                     const std::string& process_key) {
+    PhaseSetting s;
+    s.layout = layout;
+    Element* target = nullptr;
+    for (Element& e : s.layout.elements)
+        if (e.id == layout.target) target = &e;
+    Crystal* crystal = target ? std::get_if<Crystal>(&target->kind) : nullptr;
+    if (!crystal) throw std::invalid_argument("the target \"" + layout.target + "\" is not a crystal");
+    s.crystal = target->id;
+    if (process_key == "sfg") {
+        if (layout.beams.size() < 2) throw std::invalid_argument("sfg needs two beams; the layout has one");
+        crystal->process = Crystal::Process::SumFrequency;
+        crystal->process_beam.clear();
+    } else if (process_key.rfind("shg:", 0) == 0) {
+        const std::string beam = process_key.substr(4);
+        bool known = false;
+        for (const BeamSource& b : layout.beams) known = known || b.id == beam;
+        if (!known) throw std::invalid_argument("no beam has id \"" + beam + "\" (expected shg:BEAM with a beam's id)");
+        crystal->process = Crystal::Process::SecondHarmonic;
+        crystal->process_beam = beam;
+    } else {
+        throw std::invalid_argument("unknown process \"" + process_key + "\": expected sfg or shg:BEAM");
+    }
+    s.normal_before_deg = target->normal_deg;
+    s.tilt_before_deg = crystal->tilt_deg;
+    // Turn or tilt to the process's angle, judged by the report; a second pass takes up what the
+    // turn changed in the trace (the refraction in the table plane) and the rounding.
+    bool first = true;
+    for (int pass = 0; pass < 3; ++pass) {
+        const RendezvousReport r = build_report(s.layout, library);
+        if (r.chosen_process_missing) throw std::invalid_argument("the process's beams do not reach the crystal");
+        if (r.phase_matching.empty()) throw std::invalid_argument("the crystal's material is isotropic or the beams miss it");
+        const PhaseMatchingReport& p = r.phase_matching.front();
+        if (!p.outside_index_data.empty()) throw std::invalid_argument(p.outside_index_data);
+        if (!p.phase_matchable) throw std::invalid_argument("no " + p.type + " phase matching for " + p.process + " in this crystal");
+        if (first) {
+            s.process = p.process;
+            s.rotation = p.rotation;
+            s.sinc2_before = p.sinc2_now;
+            s.theta_pm_deg = p.theta_pm_deg;
+            first = false;
+        }
+        s.sinc2_after = p.sinc2_now;
+        s.theta_after_deg = p.theta_now_deg;
+        if (p.sinc2_now >= 0.9999) break;
+        if (!p.rotation_found)
+            throw std::invalid_argument("no " + std::string(p.rotation == CrystalRotation::Turn ? "turn" : "tilt") +
+                                        " within the mount's range reaches θ_pm " + format_number("%.3f", p.theta_pm_deg) +
+                                        "°: use a crystal cut nearer it");
+        if (p.rotation == CrystalRotation::Turn)
+            target->normal_deg = round_to_thousandth(target->normal_deg - p.rotate_by_deg);
+        else
+            crystal->tilt_deg = round_to_thousandth(crystal->tilt_deg + p.rotate_by_deg);
+        if (pass == 2) {
+            const RendezvousReport last = build_report(s.layout, library);
+            s.sinc2_after = last.phase_matching.front().sinc2_now;
+            s.theta_after_deg = last.phase_matching.front().theta_now_deg;
+        }
+    }
+    s.normal_after_deg = target->normal_deg;
+    s.tilt_after_deg = crystal->tilt_deg;
+    s.change_deg = s.rotation == CrystalRotation::Turn ? s.normal_before_deg - s.normal_after_deg
+                                                       : s.tilt_after_deg - s.tilt_before_deg;
+    return s;
+}
+
+}  // namespace rv
