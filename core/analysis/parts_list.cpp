@@ -22,6 +22,7 @@ struct SpecOf {
     void add(SpecField f) const { spec.fields.push_back(std::move(f)); }
 
     void operator()(const Lens& lens) const {
+        spec.part = lens.part;
         if (const auto* i = std::get_if<IdealLens>(&lens.model)) {
             spec.kind = "ideal thin lens";
             add(number("focal_length", i->focal_length_mm, "mm"));

@@ -5,9 +5,10 @@
 // with a count.
 //
 // A specification holds what a part IS, never how it is set up: no position, angle, fast-axis
-// or polarizer setting, aim, stage reading or carried optics. The layout format records no
-// catalog id for a part yet, so the specification is built from the element's own fields
-// (type, focal length or radii, diameter, glass or material, thickness, …) in the file's units.
+// or polarizer setting, aim, stage reading or carried optics. It is built from the element's
+// own fields (type, focal length or radii, diameter, glass or material, thickness, …) in the
+// file's units, and names the catalog id where the file gives one (a lens's `part`): two lenses
+// of the same numbers but different ids are different parts.
 
 #include <optional>
 #include <string>
@@ -29,6 +30,7 @@ struct SpecField {
 
 struct PartSpec {
     std::string kind;  // e.g. "thin lens", "flat mirror", "half-wave plate", "translation stage"
+    std::string part;  // the catalog id (a lens's `part`), "" when the file gives none
     std::vector<SpecField> fields;
     bool operator==(const PartSpec&) const = default;
 };

@@ -107,21 +107,27 @@ ssize_t read_all(int fd, std::string& out) {
     }
 }
 
-}  // namespace
+// What is at `path` and whether it may be replaced, decided before anything is written.
+struct Destination {
+    std::filesystem::path target;  // the name the rename replaces (links followed)
+    std::filesystem::path folder;  // where the temporary file goes
+    bool exists = false;
+    struct stat old {};
+};
 
-void write_file_safely(const std::filesystem::path& path, std::string_view content,
-                       const SafeWriteRules& rules) {
-    Failure fail{path.string()};
-    const std::filesystem::path target = final_target(path, fail);
+Destination examine(const std::filesystem::path& path, const SafeWriteRules& rules, Failure& fail) {
+    Destination d;
+    d.target = final_target(path, fail);
     // What is there now decides whether it may be replaced, before anything is written. stat
     // follows the links as the kernel does, /proc's links to pipes and terminals included
     // (/dev/stdout → /proc/self/fd/1 → "pipe:[N]", which names no file).
-    struct stat old {};
-    const bool exists = ::stat(path.c_str(), &old) == 0;
+    struct stat& old = d.old;
+    d.exists = ::stat(path.c_str(), &old) == 0;
+    const bool exists = d.exists;
     if (!exists && errno != ENOENT) fail.system("examining it", errno);
     struct stat at_target {};
-    if (target != path && (!exists || ::lstat(target.c_str(), &at_target) == 0))
-        fail.name += " (a link to " + target.string() + ")";
+    if (d.target != path && (!exists || ::lstat(d.target.c_str(), &at_target) == 0))
+        fail.name += " (a link to " + d.target.string() + ")";
     if (exists) {
         if (!S_ISREG(old.st_mode)) fail(std::string("it is ") + file_kind_text(old.st_mode) + ", not a regular file");
         if (old.st_nlink > 1)
@@ -134,15 +140,38 @@ void write_file_safely(const std::filesystem::path& path, std::string_view conte
             fail("it is the input file " + rules.must_not_be.string() +
                  (rules.how_to_replace_it.empty() ? "" : "; " + rules.how_to_replace_it));
     }
+    d.folder = d.target.has_parent_path() ? d.target.parent_path() : std::filesystem::path(".");
+    return d;
+}
 
-    const std::filesystem::path folder =
-        target.has_parent_path() ? target.parent_path() : std::filesystem::path(".");
+// A private (0600) temporary file in the destination's folder, for `target`.
+void make_temporary(Temporary& temp, const Destination& d, const Failure& fail) {
+    std::string name = (d.folder / ("." + d.target.filename().string() + ".tmp-XXXXXX")).string();
+    temp.fd = ::mkstemp(name.data());
+    if (temp.fd < 0) fail.system("creating a temporary file in " + d.folder.string(), errno);
+    temp.path = name;
+}
+
+}  // namespace
+
+void check_file_writable(const std::filesystem::path& path, const SafeWriteRules& rules) {
+    Failure fail{path.string()};
+    const Destination d = examine(path, rules, fail);
+    Temporary temp;  // removed again when it goes out of scope
+    make_temporary(temp, d, fail);
+}
+
+void write_file_safely(const std::filesystem::path& path, std::string_view content,
+                       const SafeWriteRules& rules) {
+    Failure fail{path.string()};
+    const Destination d = examine(path, rules, fail);
+    const std::filesystem::path& target = d.target;
+    const std::filesystem::path& folder = d.folder;
+    const bool exists = d.exists;
+    const struct stat& old = d.old;
     remove_stale_temporaries(folder, target);
     Temporary temp;
-    std::string name = (folder / ("." + target.filename().string() + ".tmp-XXXXXX")).string();
-    temp.fd = ::mkstemp(name.data());  // private (0600) while it is written
-    if (temp.fd < 0) fail.system("creating a temporary file in " + folder.string(), errno);
-    temp.path = name;
+    make_temporary(temp, d, fail);  // private (0600) while it is written
 
     if (const int err = write_all(temp.fd, content)) fail.system("writing", err);
     if (exists) {

@@ -47,4 +47,12 @@ struct SafeWriteRules {
 void write_file_safely(const std::filesystem::path& path, std::string_view content,
                        const SafeWriteRules& rules = {});
 
+// The refusals write_file_safely would give `path` before it writes (the kind of file there,
+// hard links, the input rule, a folder that takes no new file), checked now: for a command that
+// works long before it writes (solve), so that a destination it could never write is refused
+// first. Nothing is changed: the temporary file it makes in the destination's folder to prove
+// the folder takes one is removed at once. Throws as write_file_safely does ("cannot write
+// PATH: REASON"). A later write can still fail (a full disk, a folder changed meanwhile).
+void check_file_writable(const std::filesystem::path& path, const SafeWriteRules& rules = {});
+
 }  // namespace rv

@@ -333,9 +333,15 @@ std::optional<Lens> Reader::read_lens(FieldReader& f) {
 std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReader& f,
                                              const std::string& ptr) {
     if (type == "lens") {
-        f.finish(with_common({"focal_length_mm", "glass", "design_wavelength_nm",
+        f.finish(with_common({"part", "focal_length_mm", "glass", "design_wavelength_nm",
                               "center_thickness_mm", "front_radius_mm", "back_radius_mm", "shape"}));
-        if (auto lens = read_lens(f)) return *lens;
+        // A catalog id, printable like every id; whether a catalog holds it is checked where a
+        // catalog is known (io/lens_parts.hpp), not here.
+        const std::optional<std::string> part = f.id("part", Need::Optional);
+        if (auto lens = read_lens(f)) {
+            lens->part = part.value_or("");
+            return *lens;
+        }
         return std::nullopt;
     }
     if (type == "mirror") {

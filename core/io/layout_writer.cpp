@@ -54,6 +54,7 @@ ojson beam_json(const BeamSource& b) {
 struct KindWriter {
     ojson& j;
     void operator()(const Lens& lens) const {
+        if (!lens.part.empty()) j["part"] = lens.part;
         if (const auto* ideal = std::get_if<IdealLens>(&lens.model)) {
             j["focal_length_mm"] = num(ideal->focal_length_mm);
         } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens.model)) {

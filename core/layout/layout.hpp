@@ -21,6 +21,8 @@
 #include <cmath>
 #include <optional>
 #include <string>
+#include <type_traits>
+#include <utility>
 #include <variant>
 #include <vector>
 
@@ -94,6 +96,15 @@ struct ThickLens {  // singlet from radii (or a named shape solved at the design
 };
 struct Lens {
     std::variant<IdealLens, ThinChromaticLens, ThickLens> model;
+    // The catalog id of the stock lens this is ("part" in the file; "" when none): what the
+    // build sheet's parts list names and what solve writes for each lens it chose. The optics
+    // are the model's and the element's aperture, never looked up from the id;
+    // io/lens_parts.hpp checks the id and those numbers against a catalog where one is known.
+    std::string part;
+    Lens() = default;
+    template <class Model>
+        requires(!std::is_same_v<std::decay_t<Model>, Lens>)
+    explicit Lens(Model m, std::string part_id = {}) : model(std::move(m)), part(std::move(part_id)) {}
     bool operator==(const Lens&) const = default;
 };
 

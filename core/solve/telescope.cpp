@@ -12,6 +12,7 @@
 
 #include "analysis/crystal_waves.hpp"
 #include "analysis/target_summary.hpp"
+#include "solve/diameter_choice.hpp"
 #include "trace/trace.hpp"
 
 namespace rv {
@@ -50,7 +51,9 @@ Layout apply(const Problem& p, const std::vector<const CatalogLens*>& choice, co
     Layout l = p.base;
     for (size_t k = 0; k < p.swap_index.size(); ++k) {
         Element& e = l.elements[p.swap_index[k]];
-        e.kind = choice[k]->lens;
+        Lens lens = choice[k]->lens;
+        lens.part = choice[k]->id;  // the written layout names the stock lens it holds
+        e.kind = lens;
         e.aperture_mm = choice[k]->diameter_mm;
     }
     place_moves(p, u, l);
@@ -226,10 +229,23 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
 }
 
 // A catalog choice for each swapped lens, and its solution.
-struct Candidate {
-    std::vector<const CatalogLens*> choice;
-    TelescopeSolution solution;
-};
+using Candidate = SolvedChoice;
+
+// The ranking: solutions that break no constraint first, then by residual, sensitivity and the
+// total move.
+bool ranks_before(const TelescopeSolution& a, const TelescopeSolution& b) {
+    if (a.violations.empty() != b.violations.empty()) return a.violations.empty();  // feasible first
+    if (a.residual != b.residual) return a.residual < b.residual;
+    if (a.sensitivity_mm_per_mm != b.sensitivity_mm_per_mm) return a.sensitivity_mm_per_mm < b.sensitivity_mm_per_mm;
+    return a.total_move_mm < b.total_move_mm;
+}
+
+// The element ids of a problem's swapped lenses, in its choices' order.
+std::vector<std::string> swapped_ids(const Problem& p) {
+    std::vector<std::string> ids;
+    for (size_t i : p.swap_index) ids.push_back(p.base.elements[i].id);
+    return ids;
+}
 
 // Every combination of catalog lenses for `swaps` swapped lenses (one empty choice for none).
 std::vector<std::vector<const CatalogLens*>> all_combinations(size_t swaps, const std::vector<CatalogLens>& catalog,
@@ -280,13 +296,8 @@ std::vector<Candidate> search(const Problem& p, const std::vector<std::vector<co
             }
         });
     for (std::thread& th : pool) th.join();
-    std::stable_sort(all.begin(), all.end(), [](const Candidate& x, const Candidate& y) {
-        const TelescopeSolution &a = x.solution, &b = y.solution;
-        if (a.violations.empty() != b.violations.empty()) return a.violations.empty();  // feasible first
-        if (a.residual != b.residual) return a.residual < b.residual;
-        if (a.sensitivity_mm_per_mm != b.sensitivity_mm_per_mm) return a.sensitivity_mm_per_mm < b.sensitivity_mm_per_mm;
-        return a.total_move_mm < b.total_move_mm;
-    });
+    std::stable_sort(all.begin(), all.end(),
+                     [](const Candidate& x, const Candidate& y) { return ranks_before(x.solution, y.solution); });
     return all;
 }
 
@@ -414,7 +425,10 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
                 return result;
             }
             result.combinations += per_beam.back().size();
-            if (per_beam.back().size() > options.keep) per_beam.back().resize(options.keep);
+            // Each arm's best `keep` lens families, each in its smallest diameter that does not
+            // clip: a swapped lens lies on this arm's path only, so whether it clips does not
+            // depend on the other arm.
+            per_beam.back() = collapse_diameters(std::move(per_beam.back()), options.keep, swapped_ids(arm), library, ranks_before);
             swap_slots.push_back(std::move(slots));
         }
         // Every combination of the arms' best choices, solved together.
@@ -429,6 +443,20 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
             joint = std::move(next);
         }
         ranked = search(p, joint, options);
+        // Each joint solution keeps its arms' diameter choices: their alternatives and clipping.
+        for (Candidate& c : ranked) {
+            for (size_t beam = 0; beam < per_beam.size(); ++beam)
+                for (const Candidate& a : per_beam[beam]) {
+                    bool same = true;
+                    for (size_t j = 0; j < swap_slots[beam].size(); ++j) same = same && c.choice[swap_slots[beam][j]] == a.choice[j];
+                    if (!same || swap_slots[beam].empty()) continue;
+                    c.solution.also.insert(c.solution.also.end(), a.solution.also.begin(), a.solution.also.end());
+                    if (a.solution.clipped_fraction)
+                        c.solution.clipped_fraction = std::max(c.solution.clipped_fraction.value_or(0.0), *a.solution.clipped_fraction);
+                    break;
+                }
+        }
+        if (ranked.size() > options.keep) ranked.resize(options.keep);
     } else {
         std::string error;
         std::vector<std::vector<const CatalogLens*>> combos = all_combinations(p.swap_index.size(), catalog, options, error);
@@ -437,11 +465,10 @@ SolveResult solve_telescopes(const Layout& layout, const MaterialLibrary& librar
             return result;
         }
         result.combinations = combos.size();
-        ranked = search(p, combos, options);
+        ranked = collapse_diameters(search(p, combos, options), options.keep, swapped_ids(p), library, ranks_before);
     }
     std::vector<TelescopeSolution> all;
     for (Candidate& c : ranked) all.push_back(std::move(c.solution));
-    if (all.size() > options.keep) all.resize(options.keep);
     result.solutions = std::move(all);
     return result;
 }

@@ -17,8 +17,12 @@
 // When the aim is per beam (waist or focus) and every swapped or moved element lies on one
 // beam's path only, the arms are searched apart and their best choices combined (exact for
 // such problems: the joint residual² is the sum of the arms'); otherwise every combination.
+// Solutions that differ only by a swapped lens's diameter are returned as one, the smallest
+// diameter that passes the beam without clipping, the others named (solve/diameter_choice.hpp);
+// `keep` counts those.
 
 #include <functional>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -28,6 +32,15 @@
 
 namespace rv {
 
+// The same solution with other diameters of its swapped lenses (solve/diameter_choice.hpp).
+struct DiameterAlternative {
+    std::vector<std::pair<std::string, std::string>> swaps;  // where it differs: lens id → catalog lens id
+    std::vector<double> diameters_mm;                        // of those catalog lenses
+    // The most power lost at one of its swapped lenses (the report's clipping finding); none: no
+    // swapped lens clips above the warning level.
+    std::optional<double> clipped_fraction;
+};
+
 struct TelescopeSolution {
     Layout layout;                        // the layout with the choices and moves applied
     std::vector<std::pair<std::string, std::string>> swaps;  // lens id → catalog lens id
@@ -36,6 +49,12 @@ struct TelescopeSolution {
     double sensitivity_mm_per_mm = 0;     // largest |d(waist offset)/d(move)|
     double total_move_mm = 0;
     std::vector<std::string> violations;  // broken constraints (goals.solve); ranked after those with none
+    // The most power lost at one of the swapped lenses, from the report's clipping finding; none:
+    // no swapped lens clips above the warning level.
+    std::optional<double> clipped_fraction;
+    // The other diameters of the same lenses that were solved too, smallest first: this solution
+    // is the smallest that does not clip (solve/diameter_choice.hpp).
+    std::vector<DiameterAlternative> also;
 };
 
 struct SolveOptions {

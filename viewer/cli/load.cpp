@@ -37,6 +37,17 @@ bool save_layout_or_report(const Layout& layout, const std::string& path,
     }
 }
 
+bool destination_writable_or_report(const std::string& path, const SafeWriteRules& rules, std::ostream& err) {
+    if (path == "-") return true;
+    try {
+        check_file_writable(path, rules);
+        return true;
+    } catch (const std::runtime_error& e) {
+        err << "rendezvous: " << e.what() << "\n";
+        return false;
+    }
+}
+
 SafeWriteRules keep_input(const std::string& input) {
     SafeWriteRules rules;
     rules.must_not_be = input;

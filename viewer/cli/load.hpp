@@ -20,6 +20,11 @@ std::optional<Layout> load_layout(const std::string& path, std::ostream& err);
 bool save_layout_or_report(const Layout& layout, const std::string& path,
                            const SafeWriteRules& rules, std::ostream& out, std::ostream& err);
 
+// Before a long computation: whether `path` ("-" always can) could be written with `rules`, by
+// rv::check_file_writable; prints "rendezvous: cannot write PATH: REASON" and returns false when
+// not (the command then exits 2 before it computes anything).
+bool destination_writable_or_report(const std::string& path, const SafeWriteRules& rules, std::ostream& err);
+
 // The rules of a command that reads `input` and writes a new layout: the new layout must not
 // replace the input, however its path is spelled.
 SafeWriteRules keep_input(const std::string& input);

@@ -1,6 +1,7 @@
 // rendezvous sheet: the build sheet (analysis/build_sheet.hpp) as text, Markdown or JSON, and
 // with --svg the table at 1:1 on A4 pages (scene/sheet_svg.hpp). Formatting only: every figure
 // comes from core.
+#include <algorithm>
 #include <charconv>
 #include <cmath>
 #include <cstdio>
@@ -47,7 +48,7 @@ std::string field_text(const SpecField& f) {
                                                       : f.unit));
 }
 std::string spec_text(const PartSpec& s) {
-    std::string t = s.kind;
+    std::string t = s.part.empty() ? s.kind : s.part + " (" + s.kind + ")";
     for (size_t i = 0; i < s.fields.size(); ++i) t += (i ? ", " : ": ") + field_text(s.fields[i]);
     return t;
 }
@@ -172,8 +173,10 @@ std::string offset_text(const SheetPlace& p) {
 void print_text(std::ostream& out, const Layout& layout, const BuildSheet& sheet,
                 const std::vector<Path>& paths) {
     out << "Build sheet: " << layout.name << "\n" << convention_text(layout, sheet) << "\n";
-    out << "Parts (" << layout.elements.size() << " elements, " << sheet.parts.size()
-        << " different parts; no catalog ids in the file, so each part's specification)\n";
+    const bool any_part = std::any_of(sheet.parts.begin(), sheet.parts.end(), [](const PartGroup& g) { return !g.spec.part.empty(); });
+    out << "Parts (" << layout.elements.size() << " elements, " << sheet.parts.size() << " different parts; "
+        << (any_part ? "a catalog id where the file names one, and" : "no catalog ids in the file, so")
+        << " each part's specification)\n";
     char line[512];
     std::snprintf(line, sizeof line, "  %5s  %s\n", "count", "part  [ids]");
     out << line;
@@ -278,6 +281,7 @@ nlohmann::json sheet_json(const Layout& layout, const BuildSheet& sheet,
         nlohmann::json ids = nlohmann::json::array();
         for (size_t e : g.elements) ids.push_back(layout.elements[e].id);
         parts.push_back({{"kind", g.spec.kind},
+                         {"part", g.spec.part.empty() ? nlohmann::json(nullptr) : nlohmann::json(g.spec.part)},
                          {"spec", spec_json(g.spec)},
                          {"count", g.elements.size()},
                          {"ids", ids}});

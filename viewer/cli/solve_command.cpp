@@ -10,6 +10,7 @@
 #include "cli/load.hpp"
 #include "cli/progress_bar.hpp"
 #include "io/layout_reader.hpp"
+#include "io/lens_parts.hpp"
 #include "solve/default_solve_goals.hpp"
 #include "solve/telescope.hpp"
 #include "units/number_text.hpp"
@@ -83,6 +84,13 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
             err << format_diagnostic(d, o.catalog.empty() ? "lenses.json (built in)" : o.catalog) << "\n";
         return 2;
     }
+    // A lens's part must name a lens of this catalog with the lens's own numbers (the lenses it
+    // may swap excepted: their part is replaced by its choice).
+    const Diagnostics parts = check_lens_parts(*layout, catalog.lenses, goals.swap);
+    for (const Diagnostic& d : parts) err << format_diagnostic(d, o.layout) << "\n";
+    if (has_errors(parts)) return 2;
+    // A destination it could never write is refused before the search, not after it.
+    if (!o.output.empty() && !destination_writable_or_report(o.output, keep_input(o.layout), err)) return 2;
     SolveOptions options;
     options.keep = static_cast<size_t>(o.top);
     ProgressBar bar("solving");
@@ -117,13 +125,22 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
         for (const TelescopeSolution& s : r.solutions) {
             json swaps = json::array(), moves = json::array();
             for (const auto& [id, lens] : s.swaps) swaps.push_back({{"element", id}, {"part", lens}});
+            json also = json::array();
+            for (const DiameterAlternative& a : s.also) {
+                json differs = json::array();
+                for (size_t k = 0; k < a.swaps.size(); ++k)
+                    differs.push_back({{"element", a.swaps[k].first}, {"part", a.swaps[k].second}, {"diameter_mm", a.diameters_mm[k]}});
+                also.push_back({{"swaps", differs}, {"clipped_fraction", a.clipped_fraction ? json(*a.clipped_fraction) : json(nullptr)}});
+            }
             for (const auto& [id, move] : s.moves_mm) moves.push_back({{"element", id}, {"move_mm", move}});
             solutions.push_back({{"residual", s.residual},
                                  {"sensitivity_mm_per_mm", s.sensitivity_mm_per_mm},
                                  {"total_move_mm", s.total_move_mm},
                                  {"swaps", swaps},
                                  {"moves", moves},
-                                 {"violations", s.violations}});
+                                 {"violations", s.violations},
+                                 {"clipped_fraction", s.clipped_fraction ? json(*s.clipped_fraction) : json(nullptr)},
+                                 {"also", also}});
         }
         out << json{{"layout", o.layout},
                     {"goals", default_goals ? "default" : "file"},
@@ -159,6 +176,19 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
         }
         say << "\n";
         for (const std::string& v : s.violations) say << "      breaks a constraint: " << v << "\n";
+        if (s.clipped_fraction)
+            say << "      clips: " << format_number("%.3g", 100 * *s.clipped_fraction)
+                << " % of the power falls outside a swapped lens's aperture, and no other diameter of it passes more\n";
+        if (!s.also.empty()) {
+            say << "      " << (s.clipped_fraction ? "also solved:" : "the smallest diameter that does not clip; also:");
+            for (size_t k = 0; k < s.also.size(); ++k) {
+                const DiameterAlternative& a = s.also[k];
+                say << (k ? ";" : "");
+                for (size_t j = 0; j < a.swaps.size(); ++j) say << (j ? "," : "") << " " << a.swaps[j].first << " = " << a.swaps[j].second;
+                if (a.clipped_fraction) say << " (clips " << format_number("%.3g", 100 * *a.clipped_fraction) << " %)";
+            }
+            say << "\n";
+        }
     }
     if (!r.solutions.empty()) {
         // What the user gets: the verdict of the layout it would write, each beam's residual in
