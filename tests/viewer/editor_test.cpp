@@ -370,3 +370,29 @@ TEST_CASE("a beam's power is edited in the inspector", "[viewer][edit]") {
     s.key(rv::ui::keys::kZ, true);
     CHECK(doc.layout().beams[1].power_mw == 300.0);
 }
+
+TEST_CASE("the crystal's process buttons set it for each process and phase-match it", "[viewer][edit]") {
+    // The lab turns one crystal between the SHG of either beam and their SFG (issue 15 §1, §5):
+    // a click sets the process and tilts the crystal (its optic axis is in the vertical plane),
+    // one undo step; the tilt field shows the new angle.
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t x = index_of(doc.layout(), "X");
+    s.state.editor.selected = x;
+    s.frame();
+    s.frame();
+    CHECK(doc.report().phase_matching.front().sinc2_now < 0.5);
+    for (const char* key : {"shg:pump", "sfg", "shg:signal"}) {
+        CAPTURE(key);
+        s.click_field(std::string("process:") + key);
+        s.frame();
+        const rv::PhaseMatchingReport& p = doc.report().phase_matching.front();
+        CHECK(rv::process_key(doc.layout(), p) == key);
+        CHECK(p.sinc2_now >= 0.99);
+        CHECK(doc.report().verdict.phase.met);
+    }
+    CHECK(std::get<rv::Crystal>(doc.layout().elements[x].kind).tilt_deg > 5);  // SHG of 780 nm: θ_pm 29.9° from a 26° cut
+    s.key(rv::ui::keys::kZ, true);
+    CHECK(rv::process_key(doc.layout(), doc.report().phase_matching.front()) == "sfg");
+}
+

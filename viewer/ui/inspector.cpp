@@ -3,6 +3,11 @@
 #include <cmath>
 #include <cstdio>
 #include <optional>
+#include <stdexcept>
+#include <vector>
+
+#include "analysis/phase_setting.hpp"
+#include "io/layout_reader.hpp"
 
 namespace rv::ui {
 
@@ -65,6 +70,48 @@ void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
         if (plate.role != R::PolarizingCube) plate.reflects_left = true;
         doc.edit(st.scratch);
     }
+}
+
+// The process the target crystal is set for: one button per process (the SFG of the two beams,
+// the SHG of each); a click sets the crystal for it and turns or tilts it to phase-match
+// (analysis/phase_setting.hpp), one undo step. Below: the set process's angle now and needed.
+void process_buttons(edit::Document& doc, InspectorState& st) {
+    const Layout& layout = doc.layout();
+    const Element* target = layout.find(layout.target);
+    const auto* crystal = target ? std::get_if<Crystal>(&target->kind) : nullptr;
+    if (!crystal || target->id != st.element) return;
+    std::vector<std::pair<std::string, std::string>> processes;  // key, label
+    if (layout.beams.size() >= 2) processes.emplace_back("sfg", "SFG");
+    for (const BeamSource& b : layout.beams) processes.emplace_back("shg:" + b.id, "SHG " + b.id);
+    const RendezvousReport& r = doc.report();
+    const std::string now = r.phase_matching.empty() ? "" : process_key(layout, r.phase_matching.front());
+    ImGui::TextUnformatted("set for");
+    for (const auto& [key, label] : processes) {
+        ImGui::SameLine();
+        const bool current = key == now;
+        if (current) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_ButtonActive));
+        const bool clicked = ImGui::SmallButton(label.c_str());
+        st.field_rects["process:" + key] = {ImGui::GetItemRectMin(), ImGui::GetItemRectMax()};
+        if (current) ImGui::PopStyleColor();
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("set the crystal for %s and turn or tilt it to phase-match", key.c_str());
+        if (clicked) {
+            try {
+                doc.edit(set_crystal_for_process(layout, material_library_for(layout), key).layout);
+                st.process_error.clear();
+            } catch (const std::invalid_argument& e) {
+                st.process_error = e.what();
+            }
+            return;  // the layout changed under the references above
+        }
+    }
+    if (!st.process_error.empty()) ImGui::TextWrapped("%s", st.process_error.c_str());
+    if (r.phase_matching.empty()) return;
+    const PhaseMatchingReport& p = r.phase_matching.front();
+    if (!p.outside_index_data.empty() || !p.phase_matchable) return;
+    const bool turn = p.rotation == CrystalRotation::Turn;
+    ImGui::Text("%s: sinc² %.3f", p.process.c_str(), p.sinc2_now);
+    if (p.rotation_found && std::abs(p.rotate_by_deg) >= 0.0005)
+        ImGui::Text("%s by %+.3f° (external) to phase-match", turn ? "turn" : "tilt", p.rotate_by_deg);
 }
 
 // A field edit ends when its field is no longer active, or when something else (a drag, an
@@ -150,6 +197,8 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
             crystal->optic_axis_horizontal = axis == 1;
             doc.edit(st.scratch);
         }
+        field("tilt", "tilt (deg, + = face normal up)", &crystal->tilt_deg, "%.3f", doc, st);
+        process_buttons(doc, st);
         field("damage_i", "damage (GW/cm², 0 none)", &crystal->damage.intensity_gw_cm2, "%.1f", doc, st);
     } else if (auto* plate = std::get_if<Plate>(&e.kind)) {
         role_field(*plate, doc, st);

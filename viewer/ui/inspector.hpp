@@ -25,6 +25,7 @@ struct InspectorState {
     bool active_this_frame = false;
     std::map<std::string, FieldRect> field_rects;  // last frame's field rectangles, for interface tests
     std::map<std::string, std::string> text;       // text fields being typed in (material names)
+    std::string process_error;  // why the last process button could not set the crystal
 };
 
 void draw_inspector(edit::Document& doc, EditorState& editor, InspectorState& state);
