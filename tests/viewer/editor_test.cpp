@@ -396,3 +396,36 @@ TEST_CASE("the crystal's process buttons set it for each process and phase-match
     CHECK(rv::process_key(doc.layout(), doc.report().phase_matching.front()) == "sfg");
 }
 
+
+TEST_CASE("File > Build sheet writes the pages and the Markdown of the layout in the window", "[viewer][edit]") {
+    // The window's sheet is the command's (scene/sheet_output.hpp): an unsaved edit shows in it.
+    const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-sheet-export-test";
+    std::filesystem::remove_all(dir);
+    std::filesystem::create_directories(dir);
+    rv::Layout l = demo();
+    l.elements[index_of(l, "L2_S")].at_mm.x() = 322.5;
+    rv::edit::Document doc(l);
+    std::string wrote;
+    REQUIRE(rv::render::export_build_sheet(doc, dir / "sheet.svg", &wrote).empty());
+    CHECK(wrote.find("sheet.md") != std::string::npos);
+    auto read = [](const std::filesystem::path& p) {
+        std::ifstream in(p);
+        return std::string((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+    };
+    CHECK(read(dir / "sheet.svg").find("<svg") != std::string::npos);
+    const std::string md = read(dir / "sheet.md");
+    CHECK(md.find("# Build sheet: ") == 0);
+    CHECK(md.find("| L2_S |") != std::string::npos);
+    // The unsaved move shows: L2_S's row differs from the saved layout's sheet.
+    rv::edit::Document saved(demo());
+    REQUIRE(rv::render::export_build_sheet(saved, dir / "saved.svg").empty());
+    const std::string saved_md = read(dir / "saved.md");
+    auto row = [](const std::string& text) {
+        const size_t at = text.find("| L2_S |");
+        return text.substr(at, text.find('\n', at) - at);
+    };
+    CHECK(row(md) != row(saved_md));
+    CHECK_FALSE(rv::render::export_build_sheet(doc, dir / "sheet.png").empty());  // not an .svg name
+    CHECK_FALSE(std::filesystem::exists(dir / "sheet.png"));
+    std::filesystem::remove_all(dir);
+}

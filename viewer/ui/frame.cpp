@@ -1,5 +1,7 @@
 #include "ui/frame.hpp"
 
+#include "render/export.hpp"
+
 #include <imgui.h>
 
 #include <algorithm>
@@ -80,6 +82,7 @@ void draw_menu_bar(ViewerState& st) {
         if (ImGui::MenuItem("Save As...", nullptr, false, free)) st.open_save_as = true;
         if (ImGui::MenuItem("Open...", nullptr, false, free)) st.open_dialog = true;
         if (ImGui::MenuItem("Export PNG or SVG...")) st.export_dialog = true;
+        if (ImGui::MenuItem("Build sheet...")) st.sheet_dialog = true;
         if (ImGui::BeginMenu("Open Recent", free && !st.recent.empty())) {
             for (const std::string& f : st.recent)
                 if (ImGui::MenuItem(f.c_str())) st.open_request = f;
@@ -170,6 +173,24 @@ void draw_menu_bar(ViewerState& st) {
         ImGui::SameLine();
         if (ImGui::Button("SVG")) {
             st.export_request = ViewerState::ExportRequest{st.export_path, true};
+            ImGui::CloseCurrentPopup();
+        }
+        ImGui::SameLine();
+        if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
+        ImGui::EndPopup();
+    }
+    if (st.sheet_dialog) {
+        ImGui::OpenPopup("Build sheet");
+        st.sheet_dialog = false;
+    }
+    if (ImGui::BeginPopupModal("Build sheet", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
+        ImGui::InputText("file", st.sheet_path, sizeof st.sheet_path);
+        ImGui::TextDisabled("the table at 1:1 on A4 pages (NAME.svg, NAME-2.svg, ...) with the hole grid,\n"
+                            "and the parts list and placements as NAME.md beside it");
+        if (ImGui::Button("Write")) {
+            std::string wrote;
+            const std::string error = render::export_build_sheet(doc, st.sheet_path, &wrote);
+            ed.status = error.empty() ? "wrote the build sheet: " + wrote : error;
             ImGui::CloseCurrentPopup();
         }
         ImGui::SameLine();

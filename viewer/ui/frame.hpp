@@ -34,6 +34,8 @@ struct ViewerState {
     std::optional<ExportRequest> export_request;  // File ▸ Export: the window writes it after the frame
     bool export_dialog = false;
     char export_path[1024] = "layout.png";
+    bool sheet_dialog = false;  // File ▸ Build sheet: its dialog opens next frame
+    char sheet_path[1024] = "build-sheet.svg";
     bool open_dialog = false;
     char open_path[1024] = {};
     // A recovery file found at start: offered once (restore or discard).
