@@ -4,7 +4,9 @@
 #include <cmath>
 
 #include "analysis/crystal_waves.hpp"
+#include "analysis/phase_now.hpp"
 #include "analysis/plate_angle_search.hpp"
+#include "analysis/verdict_rules.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
 #include "nonlinear/phase_matching.hpp"
@@ -191,10 +193,10 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const bool at_centre = path.target_hit.has_value();
     const Vec2 d = at_centre ? path.hits[*path.target_hit].direction_in : pose.face_normal;
     const double index_here = at_centre ? path.hits[*path.target_hit].index_after : 1.0;
-    const double theta_now = angle_to_reference_axis_rad(pose, d, index_here);
-    r.theta_now_deg = rad_to_deg(theta_now);
+    const PhaseNow now = phase_now(m, l1, l2, type, xe, xc, d, index_here);  // the tolerance run's too
+    r.theta_now_deg = rad_to_deg(now.theta_now_rad);
     const double length = xc.length_mm;
-    const double dk = delta_k_per_mm(m, l1, l2, type, theta_now, plane);
+    const double dk = now.delta_k_per_mm;
     if (!std::isfinite(dk)) {
         std::string where;
         for (double l : {l1, l2, r.output_nm})
@@ -206,8 +208,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
         return r;
     }
     r.delta_k_l = dk * length;
-    const double x = r.delta_k_l / 2;
-    r.sinc2_now = x == 0 ? 1 : std::pow(std::sin(x) / x, 2);
+    r.sinc2_now = phase_factor(r.delta_k_l);
     // The outside direction in the table plane (Snell at the untilted face).
     const Vec2 t = perpendicular(pose.face_normal);
     const double sin_out = std::clamp(index_here * d.dot(t), -1.0, 1.0);
@@ -523,8 +524,8 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     for (const auto& [id, goal] : layout.goals.waist_um) {
         for (const ReportBeam& b : r.beams) {
             if (b.id != id || !b.at_target.reached) continue;
-            const double w = (b.at_target.tangential.waist_um + b.at_target.sagittal.waist_um) / 2;
-            if (std::abs(w - goal) > t.max_goal_waist_error * goal)
+            const double w = mean_waist_um(b.at_target);
+            if (!waist_goal_met(w, goal, t))
                 goal_misses.push_back(id + " waist " + fmt("%.1f", w) + " µm, goal " + fmt("%.1f", goal) + " µm");
         }
     }
@@ -532,14 +533,10 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         const Mismatch& mm = *r.mismatch;
         const ReportBeam& a = r.beams[0];
         const ReportBeam& b = r.beams[1];
-        const double shorter = std::min({a.at_target.tangential.rayleigh_mm, a.at_target.sagittal.rayleigh_mm,
-                                         b.at_target.tangential.rayleigh_mm, b.at_target.sagittal.rayleigh_mm});
-        const double frac = std::abs(mm.waist_offset_mm) / shorter;
-        const double ratio = std::max(mm.waist_ratio, 1 / mm.waist_ratio);
-        const double wsum = std::hypot(a.at_target.tangential.radius_um, b.at_target.tangential.radius_um);
-        const double lateral = mm.lateral_um / wsum;
-        v.space.met = frac <= t.max_waist_offset_rayleigh && ratio <= t.max_waist_ratio &&
-                      lateral <= t.max_lateral_offset_radius && goal_misses.empty();
+        // The figures and their test: analysis/verdict_rules.hpp (the tolerance run's too).
+        const SpaceFigures sf = space_figures(a.at_target, b.at_target, mm);
+        const double frac = sf.waist_offset_rayleigh, ratio = sf.waist_ratio, lateral = sf.lateral_radius;
+        v.space.met = space_figures_met(sf, t) && goal_misses.empty();
         add_figure(v, "waist offset / z_R", frac, t.max_waist_offset_rayleigh, false,
                    "distance between the two waists along the beam, over the shorter Rayleigh range at the target");
         add_figure(v, "waist ratio", ratio, t.max_waist_ratio, false, "larger over smaller waist radius (mean of the planes)");
@@ -561,7 +558,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         const ReportBeam& a = r.beams[0];
         const double off = (a.at_target.tangential.waist_offset_mm + a.at_target.sagittal.waist_offset_mm) / 2;
         const double zr = std::min(a.at_target.tangential.rayleigh_mm, a.at_target.sagittal.rayleigh_mm);
-        v.space.met = std::abs(off) / zr <= t.max_waist_offset_rayleigh && goal_misses.empty();
+        v.space.met = single_beam_offset_met(single_beam_offset_rayleigh(a.at_target), t) && goal_misses.empty();
         v.space.summary = "waist " + fmt("%.3f", std::abs(off)) + " mm " + (off > 0 ? "after" : "before") +
                           " the target centre = " + fmt("%.2f", std::abs(off) / zr) + " of its Rayleigh range";
         if (!v.space.met) {
@@ -577,9 +574,9 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
 
     if (both && r.overlap && r.overlap->temporal) {
         const double t1 = layout.beams[0].pulse_fwhm_fs, t2 = layout.beams[1].pulse_fwhm_fs;
-        const double xcorr = std::hypot(t1, t2);
+        const double xcorr = cross_correlation_fwhm_fs(t1, t2);
         const double d = r.mismatch->delay_fs;
-        v.time.met = std::abs(d) <= t.max_delay_xcorr * xcorr;
+        v.time.met = delay_met(d, xcorr, t);
         add_figure(v, "delay / cross-correlation", std::abs(d) / xcorr, t.max_delay_xcorr, false,
                    "|arrival of beam 1 − beam 2| over sqrt(τ1² + τ2²), the FWHM of the two pulses' cross-correlation");
         v.time.summary = "delay " + format_duration_fs(d, true) + " = " + fmt("%.2f", std::abs(d) / xcorr) +
@@ -619,7 +616,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
         v.phase.action = "bring the beams to the crystal first (see the space line)";
     } else if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
-        v.phase.met = p.phase_matchable && p.sinc2_now >= t.min_phase_factor && p.polarizations_suit;
+        v.phase.met = phase_met(p.phase_matchable, p.sinc2_now, p.polarizations_suit, t);
         if (p.outside_index_data.empty())
             add_figure(v, "phase factor sinc²", p.sinc2_now, t.min_phase_factor, true,
                        "sinc²(Δk·L/2) of the first process with the crystal as it is (1 = phase-matched)");

@@ -3,6 +3,7 @@
 #include <cctype>
 #include <cmath>
 #include <fstream>
+#include <functional>
 #include <limits>
 #include <map>
 #include <sstream>
@@ -53,6 +54,8 @@ private:
                                          const std::string& ptr);
     std::optional<Lens> read_lens(FieldReader& f);
     std::optional<std::string> material_name(FieldReader& f, const std::string& key);
+    ToleranceAdjusters read_adjusters(const json& v);
+    void check_adjusters(const Layout& layout, const std::function<std::string(const std::string&)>& no_element);
     void check_references(const json& doc, Layout& layout);
 
     void error(const std::string& pointer, const std::string& message) {
@@ -139,7 +142,8 @@ std::optional<Layout> Reader::read(const json& doc) {
             t.angle_mrad = tr.number("angle_mrad", Need::Optional, at_least(0)).value_or(t.angle_mrad);
             t.focal_length_fraction = tr.number("focal_length_fraction", Need::Optional, between(0, 0.5)).value_or(t.focal_length_fraction);
             t.stage_mm = tr.number("stage_mm", Need::Optional, at_least(0)).value_or(t.stage_mm);
-            tr.finish({"position_mm", "angle_mrad", "focal_length_fraction", "stage_mm"});
+            if (const json* av = tr.object("adjust", Need::Optional)) t.adjust = read_adjusters(*av);
+            tr.finish({"position_mm", "angle_mrad", "focal_length_fraction", "stage_mm", "adjust"});
         }
         g.finish({"waist_um", "verdict", "solve", "tolerance"});
     }
@@ -148,6 +152,34 @@ std::optional<Layout> Reader::read(const json& doc) {
     check_references(doc, layout);
     if (has_errors(out_)) return std::nullopt;
     return layout;
+}
+
+// goals.tolerance.adjust: the shapes here; which elements the ids name, in check_adjusters.
+ToleranceAdjusters Reader::read_adjusters(const json& v) {
+    FieldReader f(v, "/goals/tolerance/adjust", "the adjusters", out_);
+    ToleranceAdjusters a;
+    a.stage = f.id("stage", Need::Optional).value_or("");
+    a.crystal = f.id("crystal", Need::Optional).value_or("");
+    a.refocus = f.strings("refocus", Need::Optional).value_or(std::vector<std::string>{});
+    if (const json* walk = f.array("walk", Need::Optional)) {
+        for (size_t i = 0; i < walk->size(); ++i) {
+            const json& pair = (*walk)[i];
+            const std::string ptr = child_pointer(f.pointer("walk"), i);
+            bool ok = pair.is_array() && !pair.empty() && pair.size() <= 2;
+            for (size_t k = 0; ok && k < pair.size(); ++k) ok = pair[k].is_string();
+            if (!ok) {
+                error(ptr, "expected one or two mirror ids of one beam's path, as [\"M1\", \"M2\"], found " +
+                               describe_json_type(pair) +
+                               (pair.is_array() ? " of " + std::to_string(pair.size()) + " entries" : ""));
+                continue;
+            }
+            std::vector<std::string> ids;
+            for (const json& id : pair) ids.push_back(id.get<std::string>());
+            a.walk.push_back(std::move(ids));
+        }
+    }
+    f.finish({"stage", "walk", "refocus", "crystal"});
+    return a;
 }
 
 void Reader::read_table(const json& v, Layout& layout) {
@@ -626,12 +658,67 @@ void Reader::check_references(const json& doc, Layout& layout) {
                 error(ptr, "\"" + id + "\" is not a lens; only lenses can be swapped");
         }
     }
+    check_adjusters(layout, no_element);
     for (const auto& [beam, waist] : layout.goals.waist_um) {
         (void)waist;
         bool found = false;
         for (const BeamSource& b : layout.beams) found = found || b.id == beam;
         if (!found) error(child_pointer("/goals/waist_um", beam), "no beam has id \"" + beam + "\"");
     }
+}
+
+// Each adjuster names an element of the right kind, and no element adjusts twice.
+void Reader::check_adjusters(const Layout& layout, const std::function<std::string(const std::string&)>& no_element) {
+    if (!layout.goals.tolerance.adjust) return;
+    const ToleranceAdjusters& a = *layout.goals.tolerance.adjust;
+    const std::string base = "/goals/tolerance/adjust";
+    // The element's kind in words when it is not the one wanted ("" when it is, or unknown).
+    auto kind_error = [&](const std::string& id, auto is_wanted, const std::string& wanted) -> std::string {
+        const Element* e = layout.find(id);
+        if (!e) return no_element(id);
+        if (is_wanted(*e)) return "";
+        return "\"" + id + "\" is a " + type_name(e->kind) + "; expected " + wanted;
+    };
+    if (!a.stage.empty())
+        if (const std::string m = kind_error(a.stage, [](const Element& e) { return std::holds_alternative<Stage>(e.kind); },
+                                             "a stage (re-zeroed for zero delay)");
+            !m.empty())
+            error(base + "/stage", m);
+    if (!a.crystal.empty()) {
+        const std::string m = kind_error(a.crystal, [](const Element& e) { return std::holds_alternative<Crystal>(e.kind); },
+                                         "the target crystal (its angle re-peaked)");
+        if (!m.empty()) error(base + "/crystal", m);
+        else if (a.crystal != layout.target)
+            error(base + "/crystal", "\"" + a.crystal + "\" is not the target (\"" + layout.target +
+                                         "\"); only the target crystal's angle is re-peaked");
+    }
+    std::map<std::string, std::string> first;  // id → where it was first listed
+    auto once = [&](const std::string& id, const std::string& ptr) {
+        const auto [it, is_new] = first.try_emplace(id, ptr);
+        if (!is_new) error(ptr, "\"" + id + "\" is listed twice among the adjusters (first at " + it->second + ")");
+        return is_new;
+    };
+    for (size_t i = 0; i < a.refocus.size(); ++i) {
+        const std::string ptr = child_pointer(base + "/refocus", i);
+        if (!once(a.refocus[i], ptr)) continue;
+        if (const std::string m = kind_error(a.refocus[i], [](const Element& e) { return std::holds_alternative<Lens>(e.kind); },
+                                             "a lens (refocused on a translation mount)");
+            !m.empty())
+            error(ptr, m);
+    }
+    for (size_t i = 0; i < a.walk.size(); ++i)
+        for (size_t k = 0; k < a.walk[i].size(); ++k) {
+            const std::string ptr = child_pointer(child_pointer(base + "/walk", i), k);
+            if (!once(a.walk[i][k], ptr)) continue;
+            if (const std::string m = kind_error(
+                    a.walk[i][k],
+                    [](const Element& e) {
+                        return std::holds_alternative<Mirror>(e.kind) || std::holds_alternative<Dichroic>(e.kind);
+                    },
+                    "a mirror or a dichroic (turned to walk the beam)");
+                !m.empty())
+                error(ptr, m);
+        }
 }
 
 // "[json.exception.parse_error.101] parse error at line 3, column 5: syntax error while

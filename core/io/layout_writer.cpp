@@ -227,6 +227,19 @@ ojson layout_json(const Layout& layout) {
     unless_default(tj, "angle_mrad", tol.angle_mrad, tol0.angle_mrad);
     unless_default(tj, "focal_length_fraction", tol.focal_length_fraction, tol0.focal_length_fraction);
     unless_default(tj, "stage_mm", tol.stage_mm, tol0.stage_mm);
+    if (tol.adjust) {  // present, even empty ({}: no adjuster), unlike absent (the defaults)
+        const ToleranceAdjusters& a = *tol.adjust;
+        ojson aj = ojson::object();
+        if (!a.stage.empty()) aj["stage"] = a.stage;
+        if (!a.walk.empty()) {
+            ojson w = ojson::array();
+            for (const std::vector<std::string>& ids : a.walk) w.push_back(ids);
+            aj["walk"] = w;
+        }
+        if (!a.refocus.empty()) aj["refocus"] = a.refocus;
+        if (!a.crystal.empty()) aj["crystal"] = a.crystal;
+        tj["adjust"] = aj;
+    }
     if (!tj.empty()) goals["tolerance"] = tj;
     if (layout.goals.solve) {
         const SolveGoals& sg = *layout.goals.solve;

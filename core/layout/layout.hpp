@@ -270,6 +270,23 @@ struct SolveGoals {
     bool operator==(const SolveGoals&) const = default;
 };
 
+// What the lab adjusts on a built table before it is judged (goals.tolerance.adjust; the
+// tolerance run aligns every sample with these, solve/alignment.hpp):
+// * stage: re-zeroed, set so that the pulses coincide (within its travel);
+// * walk: per beam one or two of the mirrors (or dichroics) that beam reflects from, turned so
+//   that its chief ray crosses the target centre (two: also along its direction as designed);
+// * refocus: lenses on translation mounts, moved along the beam to put the waists of the beams
+//   through them back at the target centre;
+// * crystal: the target crystal's angle re-peaked for sinc² (normal_deg when its optic axis
+//   lies in the table plane, tilt_deg when it lies in the vertical plane).
+struct ToleranceAdjusters {
+    std::string stage;                            // "" for none
+    std::vector<std::vector<std::string>> walk;   // each one or two element ids
+    std::vector<std::string> refocus;             // lens ids
+    std::string crystal;                          // the target crystal's id, "" for none
+    bool operator==(const ToleranceAdjusters&) const = default;
+};
+
 // Build tolerances for `rendezvous tolerance` (goals.tolerance in the file): each perturbation
 // is drawn uniformly from [−t, +t].
 struct Tolerances {
@@ -277,6 +294,9 @@ struct Tolerances {
     double angle_mrad = 0.5;            // every optic's rotation in the table plane
     double focal_length_fraction = 0.01;  // every lens's focal length (catalogue ±1 %)
     double stage_mm = 0.001;            // stage repeatability
+    // Absent: the defaults (the stage that changes the delay, and for each beam the aim_at
+    // mirrors on its path, the last two, as its walk); present and empty: no adjuster.
+    std::optional<ToleranceAdjusters> adjust;
     bool operator==(const Tolerances&) const = default;
 };
 

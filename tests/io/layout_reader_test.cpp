@@ -105,6 +105,15 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"duplicate-key.json", {"duplicate-key.json:7:23: error: /beams/0/wavelength_nm (pump): duplicate key \"wavelength_nm\" (the first stands at line 6, column 20)",
                                 "duplicate-key.json:13:3: error: /target: duplicate key \"target\" (the first stands at line 12, column 3)"}},
         {"swap-twice.json", {"swap-twice.json: error: /goals/solve/swap/2: \"L1\" is listed twice (first at /goals/solve/swap/0)"}},
+        // goals.tolerance.adjust: each entry checked for its shape, its element's kind and repeats.
+        {"adjust-errors.json",
+         {"adjust-errors.json: error: /goals/tolerance/adjust/walk/1: expected one or two mirror ids of one beam's path, as [\"M1\", \"M2\"], found an array of 3 entries",
+          "adjust-errors.json: error: /goals/tolerance/adjust/tilt: unknown key for the adjusters; expected one of \"stage\", \"walk\", \"refocus\" or \"crystal\"",
+          "adjust-errors.json: error: /goals/tolerance/adjust/stage: \"L1\" is a lens; expected a stage (re-zeroed for zero delay)",
+          "adjust-errors.json: error: /goals/tolerance/adjust/crystal: \"T\" is a target; expected the target crystal (its angle re-peaked)",
+          "adjust-errors.json: error: /goals/tolerance/adjust/refocus/0: \"M2\" is a mirror; expected a lens (refocused on a translation mount)",
+          "adjust-errors.json: error: /goals/tolerance/adjust/refocus/2: \"L1\" is listed twice among the adjusters (first at /goals/tolerance/adjust/refocus/1)",
+          "adjust-errors.json: error: /goals/tolerance/adjust/walk/0/1: no element has id \"M3\"; did you mean \"M1\"?"}},
         // Counted in characters: "µ" is two bytes but one character.
         {"control-character-id.json", {"control-character-id.json: error: /materials/0/id: an id must be printable: character 3 is a control character (\\x09)",
                                        "control-character-id.json: error: /beams/0/id (pµ\\x1B[2Jmp): an id must be printable: character 3 is a control character (\\x1B)",
