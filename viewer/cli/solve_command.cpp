@@ -12,6 +12,7 @@
 #include "io/layout_reader.hpp"
 #include "io/lens_parts.hpp"
 #include "solve/default_solve_goals.hpp"
+#include "solve/solve_outcome.hpp"
 #include "solve/telescope.hpp"
 #include "units/number_text.hpp"
 
@@ -24,39 +25,6 @@ Layout as_written(const TelescopeSolution& s, bool default_goals) {
     Layout l = s.layout;
     if (default_goals) l.goals.solve.reset();
     return l;
-}
-
-// Each beam at the target in the written layout: the waist's distance from the target centre
-// (mm and in Rayleigh ranges) and its size against the goal, the residual in a user's words.
-struct BeamOutcome {
-    std::string beam;
-    double waist_offset_mm = 0, offset_rayleigh = 0, waist_um = 0;
-    std::optional<double> goal_um;
-};
-std::vector<BeamOutcome> outcomes(const Layout& layout, const RendezvousReport& r) {
-    std::vector<BeamOutcome> out;
-    for (const ReportBeam& b : r.beams) {
-        if (!b.at_target.reached) continue;
-        BeamOutcome o;
-        o.beam = b.id;
-        o.waist_offset_mm = (b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2;
-        o.offset_rayleigh = o.waist_offset_mm / std::min(b.at_target.tangential.rayleigh_mm, b.at_target.sagittal.rayleigh_mm);
-        o.waist_um = (b.at_target.tangential.waist_um + b.at_target.sagittal.waist_um) / 2;
-        for (const auto& [id, goal] : layout.goals.waist_um)
-            if (id == b.id) o.goal_um = goal;
-        out.push_back(o);
-    }
-    return out;
-}
-
-// The moves of a solution that sit at an end of their range (within 0.01 mm): widen those.
-std::vector<std::string> moves_at_range_end(const SolveGoals& goals, const TelescopeSolution& s) {
-    std::vector<std::string> out;
-    for (const auto& [id, move] : s.moves_mm)
-        for (const auto& [gid, range] : goals.move)
-            if (gid == id && (std::abs(move - range.first) < 0.01 || std::abs(move - range.second) < 0.01))
-                out.push_back(id);
-    return out;
 }
 
 }  // namespace
@@ -113,7 +81,7 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
             const RendezvousReport report = build_report(written, library);
             auto line = [](const VerdictLine& l) { return l.applies ? json(l.met) : json(nullptr); };
             json beams = json::array();
-            for (const BeamOutcome& b : outcomes(written, report))
+            for (const BeamOutcome& b : beam_outcomes(written, report))
                 beams.push_back({{"beam", b.beam}, {"waist_offset_mm", b.waist_offset_mm}, {"waist_offset_rayleigh", b.offset_rayleigh},
                                  {"waist_um", b.waist_um}, {"goal_um", b.goal_um ? json(*b.goal_um) : json(nullptr)}});
             best = {{"verdict", {{"space", line(report.verdict.space)}, {"time", line(report.verdict.time)},
@@ -198,7 +166,7 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
         say << "the best solution, as it would be written: space " << verdict_state_text(report.verdict.space)
             << ", time " << verdict_state_text(report.verdict.time) << ", phase "
             << verdict_state_text(report.verdict.phase) << "\n";
-        for (const BeamOutcome& b : outcomes(written, report)) {
+        for (const BeamOutcome& b : beam_outcomes(written, report)) {
             say << "  " << b.beam << ": waist " << format_number("%.3f", std::abs(b.waist_offset_mm)) << " mm "
                 << (b.waist_offset_mm >= 0 ? "after" : "before") << " the target centre ("
                 << format_number("%.3f", std::abs(b.offset_rayleigh)) << " of its Rayleigh range), "

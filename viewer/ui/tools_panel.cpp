@@ -6,6 +6,8 @@
 #include "analysis/sweep.hpp"
 #include "io/diagnostic.hpp"
 #include "io/layout_reader.hpp"
+#include "solve/default_solve_goals.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::ui {
 
@@ -17,28 +19,71 @@ void end_preview(edit::Document& doc, ToolsState& st) {
 }
 
 void solve_section(edit::Document& doc, ToolsState& st) {
-    if (!doc.layout().goals.solve) {
-        ImGui::TextWrapped("Add goals.solve to the layout (what may move or be swapped) to search for telescopes.");
-        return;
-    }
+    const bool default_goals = !doc.layout().goals.solve;
+    if (default_goals)
+        ImGui::TextWrapped("No goals.solve in the file: the search uses the default (every lens and curved mirror on "
+                           "one beam's own path moving ±%g mm along its beam, aim focus).", kDefaultMoveRange_mm);
     if (ImGui::Button("Search the catalog")) {
         end_preview(doc, st);
-        SolveOptions options;
-        st.solve = solve_telescopes(doc.layout(), material_library_for(doc.layout()), st.catalog, options);
+        Layout problem = doc.layout();
+        const MaterialLibrary library = material_library_for(problem);
+        if (default_goals) problem.goals.solve = default_solve_goals(problem, library);
+        st.solve = {};
+        st.summaries.clear();
+        st.solved_with_default_goals = default_goals;
+        if (problem.goals.solve->move.empty() && problem.goals.solve->swap.empty()) {
+            st.message = "nothing to solve: no lens or curved mirror lies on one beam's own path";
+            return;
+        }
+        st.solve = solve_telescopes(problem, library, st.catalog, SolveOptions{});
         st.message = st.solve.error.empty() ? std::to_string(st.solve.combinations) + " combination(s) searched"
                                             : st.solve.error;
+        // Each solution as it would be applied (without the default goals), judged by the report.
+        for (TelescopeSolution& s : st.solve.solutions) {
+            if (default_goals) s.layout.goals.solve.reset();
+            const RendezvousReport r = build_report(s.layout, library);
+            st.summaries.push_back({r.verdict, beam_outcomes(s.layout, r), moves_at_range_end(*problem.goals.solve, s)});
+        }
     }
     for (size_t k = 0; k < st.solve.solutions.size(); ++k) {
         const TelescopeSolution& s = st.solve.solutions[k];
-        std::string label = std::to_string(k + 1) + ". residual " + std::to_string(s.residual).substr(0, 8);
-        for (const auto& [id, lens] : s.swaps) label += ", " + id + "=" + lens;
-        for (const auto& [id, move] : s.moves_mm) label += ", " + id + " " + std::to_string(move).substr(0, 6) + " mm";
+        const ToolsState::SolutionSummary& sum = st.summaries[k];
+        std::string label = std::to_string(k + 1) + ". space " + verdict_state_text(sum.verdict.space) + ", time " +
+                            verdict_state_text(sum.verdict.time) + ", phase " + verdict_state_text(sum.verdict.phase) + ":";
+        for (const auto& [id, lens] : s.swaps) label += " " + id + "=" + lens;
+        for (const auto& [id, move] : s.moves_mm) label += " " + id + " " + format_number("%+.3f", move) + " mm";
         if (!s.violations.empty()) label += " (breaks a constraint)";
         if (ImGui::Selectable(label.c_str(), st.previewing == k)) {
             end_preview(doc, st);
             st.preview_gesture = doc.begin_gesture();
             doc.preview(s.layout);
             st.previewing = k;
+        }
+    }
+    if (!st.solve.solutions.empty()) {
+        // What the shown (or best) solution leaves, and what binds it.
+        const size_t k = st.previewing.value_or(0);
+        const TelescopeSolution& s = st.solve.solutions[k];
+        const ToolsState::SolutionSummary& sum = st.summaries[k];
+        ImGui::Text("solution %zu, as it would be applied:", k + 1);
+        for (const BeamOutcome& b : sum.beams)
+            ImGui::BulletText("%s: waist %s mm %s the target centre (%s Rayleigh ranges), %s µm%s", b.beam.c_str(),
+                              format_number("%.3f", std::abs(b.waist_offset_mm)).c_str(),
+                              b.waist_offset_mm >= 0 ? "after" : "before",
+                              format_number("%.3f", std::abs(b.offset_rayleigh)).c_str(),
+                              format_number("%.2f", b.waist_um).c_str(),
+                              b.goal_um ? (" (goal " + format_number("%.2f", *b.goal_um) + " µm, " +
+                                           format_number("%+.1f", 100 * (b.waist_um / *b.goal_um - 1)) + " %)").c_str()
+                                        : "");
+        for (const std::string& id : sum.at_range_end)
+            ImGui::BulletText("%s sits at the end of its range: widen goals.solve.move.%s", id.c_str(), id.c_str());
+        for (const std::string& v : s.violations) ImGui::BulletText("breaks a constraint: %s", v.c_str());
+        if (s.clipped_fraction)
+            ImGui::BulletText("clips %s %% at a swapped lens", format_number("%.3g", 100 * *s.clipped_fraction).c_str());
+        for (const DiameterAlternative& a : s.also) {
+            std::string t = "also solved:";
+            for (const auto& [id, lens] : a.swaps) t += " " + id + "=" + lens;
+            ImGui::BulletText("%s", t.c_str());
         }
     }
     if (st.previewing) {

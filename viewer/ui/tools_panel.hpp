@@ -8,6 +8,7 @@
 
 #include "edit/document.hpp"
 #include "io/lens_catalog.hpp"
+#include "solve/solve_outcome.hpp"
 #include "solve/telescope.hpp"
 #include "solve/tolerance.hpp"
 
@@ -16,6 +17,14 @@ namespace rv::ui {
 struct ToolsState {
     std::vector<CatalogLens> catalog;      // the lens catalog for the search (set by the window)
     SolveResult solve;                     // the last search
+    // Per solution of the last search, judged as it would be applied (solve/solve_outcome.hpp).
+    struct SolutionSummary {
+        Verdict verdict;
+        std::vector<BeamOutcome> beams;
+        std::vector<std::string> at_range_end;
+    };
+    std::vector<SolutionSummary> summaries;
+    bool solved_with_default_goals = false;
     std::optional<size_t> previewing;      // the solution shown on the table (a Document gesture)
     edit::Document::Gesture preview_gesture = 0;
     std::optional<ToleranceReport> tolerance;
