@@ -153,9 +153,28 @@ void draw_tools_panel(edit::Document& doc, ToolsState& st) {
         st.tolerance = analyse_tolerances(doc.layout(), material_library_for(doc.layout()), 2000, 1, 2);
     }
     if (st.tolerance) {
+        // The same analysis as `rendezvous tolerance` (solve/tolerance.hpp), 2000 aligned builds.
         const ToleranceReport& t = *st.tolerance;
-        ImGui::Text("2000 samples: overlap %.3f / %.3f / %.3f (5/50/95 %%)", t.overlap.p5, t.overlap.p50, t.overlap.p95);
-        ImGui::TextWrapped("fine adjustment: %s", t.most_sensitive.c_str());
+        if (!t.error.empty()) {
+            ImGui::TextWrapped("%s: %s", t.error_pointer.c_str(), t.error.c_str());
+        } else {
+            if (!t.nominal_passes)
+                ImGui::TextWrapped("The layout as given does not meet its verdict (space %s, time %s, phase %s); aligned "
+                                   "with its adjusters: %s.",
+                                   verdict_state_text(t.nominal_verdict.space), verdict_state_text(t.nominal_verdict.time),
+                                   verdict_state_text(t.nominal_verdict.phase), t.aligned_passes ? "met" : "still not met");
+            ImGui::Text("%zu builds, aligned: pass rate %.3f (space %.3f, time %.3f, phase %.3f)", t.samples, t.pass_rate,
+                        t.space_rate, t.time_rate, t.phase_rate);
+            ImGui::Text("overlap after alignment %.3f / %.3f / %.3f (5/50/95 %%)", t.overlap.p5, t.overlap.p50, t.overlap.p95);
+            if (!t.limiting_error.empty())
+                ImGui::TextWrapped("limiting error: %s (%.0f %% of the failing builds pass without it)", t.limiting_error.c_str(),
+                                   100 * t.limiting_share);
+            if (t.recommendation)
+                ImGui::TextWrapped("would help most: %s, pass rate %.3f (%.3f as it is, on %zu builds)",
+                                   change_text(*t.recommendation, doc.layout()).c_str(), t.recommendation->pass_rate,
+                                   t.checked_pass_rate, t.checked);
+            ImGui::TextWrapped("fine adjustment: %s", t.most_sensitive.c_str());
+        }
     }
     solve_section(doc, st);
     sweep_section(doc, st);
