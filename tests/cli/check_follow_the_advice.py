@@ -7,6 +7,8 @@ on its own output turns nothing. A bad process exits 2 and writes nothing.
 Usage: check_follow_the_advice.py RENDEZVOUS SOURCE_DIR"""
 import json
 import os
+
+import jsonschema
 import subprocess
 import sys
 import tempfile
@@ -33,6 +35,16 @@ with tempfile.TemporaryDirectory() as d:
     for line in ("space", "time", "phase"):
         if verdict[line]["met"] is not True:
             failures.append(f"after solve, balance and phase: {line} not met: {verdict[line]['summary']}")
+
+    # The written layout, with its crystal's tilt_deg and process, is one the file schema accepts.
+    phased_layout = json.load(open(phased))
+    crystal = [e for e in phased_layout["elements"] if e["id"] == phased_layout["target"]][0]
+    if "tilt_deg" not in crystal or crystal.get("process") != "sfg":
+        failures.append(f"the phased crystal lacks tilt_deg or process: {crystal}")
+    try:
+        jsonschema.validate(phased_layout, json.load(open(os.path.join(top, "layouts", "schema.json"))))
+    except jsonschema.ValidationError as e:
+        failures.append(f"the phased layout does not validate against layouts/schema.json: {e.message}")
 
     # The phase advice on the unbalanced demo names its command; follow it literally.
     action = json.loads(run("report", demo, "--json").stdout)["verdict"]["phase"]["action"]
