@@ -174,8 +174,8 @@ int main(int argc, char** argv) {
                   "Example: rendezvous render layouts/sfg-bbo.json --png sfg.png --svg sfg.svg");
     render_cmd->add_option("layout", render.layout, "layout file (JSON)");
     render_cmd->add_flag("--demo", render.demo, "use the SFG demo built into the program");
-    render_cmd->add_option("--png", render.png, "write the frame here as PNG");
-    render_cmd->add_option("--svg", render.svg, "write the table here as SVG");
+    render_cmd->add_option("--png", render.png, "write the frame here as PNG (- is stdout, the summary then on stderr)");
+    render_cmd->add_option("--svg", render.svg, "write the table here as SVG (- is stdout)");
     render_cmd->footer(kWriting);
     render_cmd->add_option("--size", render_size, "frame size WxH in pixels (default 1600x1000)");
     render_cmd->add_option("--threads", render.threads, "rasterizer threads (the image is the same)")->check(kFinite)->check(CLI::Range(1, 16));

@@ -1,6 +1,7 @@
 // rendezvous render: the viewer frame to PNG (CPU raster, no display) or the table to SVG.
 #include <ostream>
 #include <stdexcept>
+#include <vector>
 
 #include "analysis/report.hpp"
 #include "cli/commands.hpp"
@@ -14,6 +15,10 @@
 namespace rv::cli {
 
 int run_render(const RenderOptions& o, std::ostream& out, std::ostream& err) {
+    if (o.png == "-" && o.svg == "-") {
+        err << "rendezvous: render: --png - and --svg - would both print to standard output; write one to a file\n";
+        return 2;
+    }
     std::optional<Layout> layout = o.demo ? std::optional<Layout>(demo_layout()) : load_layout(o.layout, err);
     if (!layout) return 2;
     const RendezvousReport report = build_report(*layout, material_library_for(*layout));
@@ -21,15 +26,26 @@ int run_render(const RenderOptions& o, std::ostream& out, std::ostream& err) {
     // An image never replaces the layout it was drawn from.
     const SafeWriteRules rules = o.demo ? SafeWriteRules{} : keep_input(o.layout);
     try {
-        if (!o.png.empty()) {
+        // "-": the image on standard output, the summary on standard error.
+        const bool to_stdout = o.png == "-" || o.svg == "-";
+        std::ostream& say = to_stdout ? err : out;
+        if (o.png == "-") {
+            const std::vector<std::uint8_t> bytes =
+                render::encode_png(render::render_frame(*layout, report, scene, o.width, o.height, o.threads));
+            out.write(reinterpret_cast<const char*>(bytes.data()), static_cast<std::streamsize>(bytes.size()));
+            say << "wrote the PNG to standard output (" << o.width << "x" << o.height << ")\n";
+        } else if (!o.png.empty()) {
             render::save_png(
                 render::render_frame(*layout, report, scene, o.width, o.height, o.threads), o.png,
                 rules);
-            out << "wrote " << o.png << " (" << o.width << "x" << o.height << ")\n";
+            say << "wrote " << o.png << " (" << o.width << "x" << o.height << ")\n";
         }
-        if (!o.svg.empty()) {
+        if (o.svg == "-") {
+            out << scene::write_svg(scene);
+            say << "wrote the SVG to standard output\n";
+        } else if (!o.svg.empty()) {
             write_file_safely(o.svg, scene::write_svg(scene), rules);
-            out << "wrote " << o.svg << "\n";
+            say << "wrote " << o.svg << "\n";
         }
     } catch (const std::runtime_error& e) {
         err << "rendezvous: " << e.what() << "\n";  // "cannot write PATH: REASON"
