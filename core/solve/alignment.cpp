@@ -423,8 +423,7 @@ Layout Aligner::align_nominal(const Layout& layout) {
     return l;
 }
 
-Judgement Aligner::align_sample(Layout& l, TraceCache& cache, const std::vector<size_t>& changed) const {
-    (void)changed;
+Judgement Aligner::align_sample(Layout& l, TraceCache& cache) const {
     // The build differs from the previous sample almost everywhere: the first retrace starts
     // afresh (a retrace marked as not the last trace compares nothing and keeps nothing, without
     // testing every changed element against every other), and records what the alignment's

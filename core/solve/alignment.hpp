@@ -116,10 +116,10 @@ public:
     // `layout` aligned until its residuals vanish (or stop changing); the pseudo-inverse for the
     // samples is taken there. Call once before align_sample.
     Layout align_nominal(const Layout& layout);
-    // A built sample aligned in place and judged. `changed`: every element the sample may
-    // differ in from the previous call with this cache (the perturbed ones); the adjusters'
-    // elements are added.
-    Judgement align_sample(Layout& l, TraceCache& cache, const std::vector<size_t>& changed) const;
+    // A built sample aligned in place and judged. The cache is one thread's, kept from sample
+    // to sample (its first retrace of a sample starts afresh; the alignment's retraces name
+    // the adjusted elements).
+    Judgement align_sample(Layout& l, TraceCache& cache) const;
     // The elements the adjusters change.
     const std::vector<size_t>& adjusted_elements() const { return adjusted_; }
     const Adjusters& adjusters() const { return adjusters_; }

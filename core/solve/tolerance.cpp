@@ -139,7 +139,7 @@ std::vector<Judgement> run_samples(const SampleRun& run, const std::vector<size_
                     const double u = rng.uniform_symmetric();
                     if (run.scale[k] != 0) apply_perturbation(l, run.perts[k], run.perts[k].tolerance * run.scale[k] * u);
                 }
-                out[s] = run.aligner.align_sample(l, cache, reset);
+                out[s] = run.aligner.align_sample(l, cache);
             }
         });
     for (std::thread& th : pool) th.join();
