@@ -34,7 +34,7 @@ TEST_CASE("a stage error alone passes every build with the stage re-zeroed and t
     // 55.46 / 6673.2 = 0.008311 mm. For δ uniform on ±0.02 mm that is a fraction
     // 0.008311 / 0.02 = 0.4155 of the builds (space is met by the balanced demo; phase does
     // not apply to a plain target).
-    rv::Tolerances t{0, 0, 0, 0.02};
+    rv::Tolerances t{0, 0, 0, 0.02, std::nullopt};
     t.adjust = rv::ToleranceAdjusters{};  // no adjuster
     rv::Layout l = balanced_demo_without_crystal(t);
     const rv::MaterialLibrary lib = rv::material_library_for(l);
@@ -84,7 +84,7 @@ TEST_CASE("the lens whose focal-length error dominates is named as the limiting 
            {"id": "LF", "type": "lens", "at_mm": [400, 300], "focal_length_mm": 100},
            {"id": "T", "type": "target", "at_mm": [500, 300]})",
         "T"));
-    rv::Tolerances t{0, 0, 0.03, 0};
+    rv::Tolerances t{0, 0, 0.03, 0, std::nullopt};
     t.adjust = rv::ToleranceAdjusters{};
     l.goals.tolerance = t;
     const rv::MaterialLibrary lib = rv::material_library_for(l);

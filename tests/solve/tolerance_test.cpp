@@ -12,7 +12,7 @@ TEST_CASE("the Monte Carlo spread agrees with the linearized sensitivity for sma
     // (propagation of uncertainty, e.g. JCGM 100:2008 "GUM" §5.1.2): with 1 µm position errors
     // the first-order law holds and the sampled σ must agree within 10 %.
     rv::Layout l = rv::test::bundled_layout("sfg-bbo.json");
-    l.goals.tolerance = rv::Tolerances{0.001, 0, 0, 0};
+    l.goals.tolerance = rv::Tolerances{0.001, 0, 0, 0, std::nullopt};
     l.goals.tolerance.adjust = rv::ToleranceAdjusters{};  // unaligned builds: the linear law holds for these
     const rv::ToleranceReport r = rv::analyse_tolerances(l, rv::material_library_for(l), 4000, 7);
     CHECK(r.failed == 0);
