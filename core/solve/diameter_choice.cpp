@@ -4,7 +4,8 @@
 #include <cmath>
 #include <optional>
 
-#include "analysis/report.hpp"
+#include "analysis/crystal_waves.hpp"
+#include "trace/propagate.hpp"
 
 namespace rv {
 
@@ -41,14 +42,24 @@ struct Clipping {
     std::optional<double> largest;
 };
 
+// The findings are the report's clipping findings: build_report takes them from the caustic
+// propagate_path makes of each path trace_arriving_waves gives, with the default propagation
+// options; here the same two calls without the envelope samples, power and phase figures that a
+// whole report adds and that do not change them (diameter_choice_test holds the two equal).
 Clipping clipping_of(const TelescopeSolution& s, const std::vector<std::string>& swapped_ids,
                      const MaterialLibrary& library) {
     Clipping c;
-    const RendezvousReport report = build_report(s.layout, library);
+    PropagationOptions options;
+    options.sample_envelope = false;
+    std::vector<Finding> findings;
+    for (const Path& p : trace_arriving_waves(s.layout, library)) {
+        const Caustic caustic = propagate_path(s.layout, p, options);
+        findings.insert(findings.end(), caustic.findings.begin(), caustic.findings.end());
+    }
     for (const std::string& id : swapped_ids) {
         double lost = 0;
         bool clips = false;
-        for (const Finding& f : report.findings)
+        for (const Finding& f : findings)
             if (f.kind == Finding::Kind::Clipping && f.element == id) clips = true, lost = std::max(lost, f.amount);
         if (!clips) continue;
         ++c.lenses;

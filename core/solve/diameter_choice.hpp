@@ -13,9 +13,10 @@
 //   3. the smallest sum of the swapped lenses' diameters,
 //   4. the better rank;
 // i.e. the smallest diameter that passes the beam without clipping. Whether a lens clips is the
-// report's own clipping finding (build_report → Finding::Kind::Clipping at that lens, found by
-// the propagation's aperture check above PropagationOptions::clipping_warning_fraction), never a
-// second copy of the test. The others are named beside it (TelescopeSolution::also).
+// report's own clipping finding (Finding::Kind::Clipping at that lens, found by the
+// propagation's aperture check above PropagationOptions::clipping_warning_fraction, as
+// build_report gathers it from the same trace and propagation), never a second copy of the
+// test. The others are named beside it (TelescopeSolution::also).
 
 #include <functional>
 #include <vector>

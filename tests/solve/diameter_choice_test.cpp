@@ -3,6 +3,7 @@
 
 #include <cmath>
 
+#include "analysis/report.hpp"
 #include "io/layout_writer.hpp"
 #include "solve/telescope.hpp"
 #include "support/layouts.hpp"
@@ -78,6 +79,23 @@ TEST_CASE("a beam that clips the small lens picks the larger") {
     CHECK(best.also[0].swaps[0].second == "f200-d12.7");
     REQUIRE(best.also[0].clipped_fraction.has_value());
     CHECK_THAT(*best.also[0].clipped_fraction, near_rel(std::exp(-2 * 6.35 * 6.35 / 25.0), 1e-3));
+    // One evaluation: the report of the 12.7 mm layout has exactly that clipping finding at L.
+    rv::Layout small = best.layout;
+    rv::Element& lens = small.elements[0];
+    REQUIRE(lens.id == "L");
+    lens.kind = rv::Lens(rv::IdealLens{200}, "f200-d12.7");
+    lens.aperture_mm = 12.7;
+    const rv::RendezvousReport report = rv::build_report(small, rv::material_library_for(small));
+    int clipping = 0;
+    for (const rv::Finding& f : report.findings)
+        if (f.kind == rv::Finding::Kind::Clipping && f.element == "L") {
+            ++clipping;
+            CHECK_THAT(f.amount, near_rel(*best.also[0].clipped_fraction, 1e-9));
+        }
+    CHECK(clipping == 1);
+    // and the kept layout's report has none there.
+    for (const rv::Finding& f : rv::build_report(best.layout, rv::material_library_for(best.layout)).findings)
+        CHECK_FALSE((f.kind == rv::Finding::Kind::Clipping && f.element == "L"));
 }
 
 TEST_CASE("when every diameter clips the one that loses least is kept and says so") {
