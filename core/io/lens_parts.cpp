@@ -18,9 +18,12 @@ bool same_number(double a, double b) {
 
 const char* model_name(const Lens& lens) {
     switch (lens.model.index()) {
-        case 0: return "an ideal thin lens";
-        case 1: return "a thin lens of a glass";
-        default: return "a thick singlet";
+        case 0:
+            return "an ideal thin lens";
+        case 1:
+            return "a thin lens of a glass";
+        default:
+            return "a thick singlet";
     }
 }
 
@@ -32,10 +35,13 @@ struct Differences {
     }
     void number(const char* what, double catalog, double here, const char* unit) {
         if (!same_number(catalog, here))
-            out.push_back(std::string(what) + " " + value(catalog, unit) + " in the catalog, " + value(here, unit) + " here");
+            out.push_back(std::string(what) + " " + value(catalog, unit) + " in the catalog, " +
+                          value(here, unit) + " here");
     }
     void text(const char* what, const std::string& catalog, const std::string& here) {
-        if (catalog != here) out.push_back(std::string(what) + " \"" + catalog + "\" in the catalog, \"" + here + "\" here");
+        if (catalog != here)
+            out.push_back(std::string(what) + " \"" + catalog + "\" in the catalog, \"" + here +
+                          "\" here");
     }
 };
 
@@ -45,9 +51,11 @@ std::vector<std::string> part_differences(const CatalogLens& part, const Element
     Differences d;
     const Lens& here = std::get<Lens>(element.kind);
     if (part.lens.model.index() != here.model.index()) {
-        d.out.push_back(std::string(model_name(part.lens)) + " in the catalog, " + model_name(here) + " here");
+        d.out.push_back(std::string(model_name(part.lens)) + " in the catalog, " +
+                        model_name(here) + " here");
     } else if (const auto* a = std::get_if<IdealLens>(&part.lens.model)) {
-        d.number("focal length", a->focal_length_mm, std::get<IdealLens>(here.model).focal_length_mm, "mm");
+        d.number("focal length", a->focal_length_mm,
+                 std::get<IdealLens>(here.model).focal_length_mm, "mm");
     } else if (const auto* a = std::get_if<ThinChromaticLens>(&part.lens.model)) {
         const auto& b = std::get<ThinChromaticLens>(here.model);
         d.number("focal length", a->focal_length_mm, b.focal_length_mm, "mm");
@@ -56,7 +64,8 @@ std::vector<std::string> part_differences(const CatalogLens& part, const Element
     } else {
         const auto& a2 = std::get<ThickLens>(part.lens.model);
         const auto& b = std::get<ThickLens>(here.model);
-        if (!a2.shape.empty() && !b.shape.empty()) d.text("shape", a2.shape, b.shape);  // radii decide otherwise
+        if (!a2.shape.empty() && !b.shape.empty())
+            d.text("shape", a2.shape, b.shape);  // radii decide otherwise
         d.number("front radius", a2.front_radius_mm, b.front_radius_mm, "mm");
         d.number("back radius", a2.back_radius_mm, b.back_radius_mm, "mm");
         d.number("centre thickness", a2.center_thickness_mm, b.center_thickness_mm, "mm");
@@ -75,12 +84,15 @@ Diagnostics check_lens_parts(const Layout& layout, const std::vector<CatalogLens
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
         const auto* lens = std::get_if<Lens>(&e.kind);
-        if (!lens || lens->part.empty() || std::find(skip.begin(), skip.end(), e.id) != skip.end()) continue;
+        if (!lens || lens->part.empty() || std::find(skip.begin(), skip.end(), e.id) != skip.end())
+            continue;
         const std::string pointer = child_pointer(child_pointer("/elements", i), "part");
-        const auto found = std::find_if(catalog.begin(), catalog.end(), [&](const CatalogLens& c) { return c.id == lens->part; });
+        const auto found = std::find_if(catalog.begin(), catalog.end(),
+                                        [&](const CatalogLens& c) { return c.id == lens->part; });
         if (found == catalog.end()) {
             std::string m = "no lens of the catalog has id \"" + lens->part + "\"";
-            if (const auto near = closest_name(lens->part, ids)) m += "; did you mean \"" + *near + "\"?";
+            if (const auto near = closest_name(lens->part, ids))
+                m += "; did you mean \"" + *near + "\"?";
             m += " (remove \"part\", or use the catalog it came from)";
             out.push_back({Diagnostic::Severity::Error, pointer, 0, 0, m, e.id});
             continue;
@@ -89,7 +101,8 @@ Diagnostics check_lens_parts(const Layout& layout, const std::vector<CatalogLens
         if (diff.empty()) continue;
         std::string m = "the catalog's \"" + lens->part + "\" is not this lens: ";
         for (size_t k = 0; k < diff.size(); ++k) m += (k ? "; " : "") + diff[k];
-        m += " (remove \"part\" if the lens is not that stock lens, or give it the catalog's numbers)";
+        m += " (remove \"part\" if the lens is not that stock lens, or give it the catalog's "
+             "numbers)";
         out.push_back({Diagnostic::Severity::Error, pointer, 0, 0, m, e.id});
     }
     return out;

@@ -60,7 +60,8 @@ Clipping clipping_of(const TelescopeSolution& s, const std::vector<std::string>&
         double lost = 0;
         bool clips = false;
         for (const Finding& f : findings)
-            if (f.kind == Finding::Kind::Clipping && f.element == id) clips = true, lost = std::max(lost, f.amount);
+            if (f.kind == Finding::Kind::Clipping && f.element == id)
+                clips = true, lost = std::max(lost, f.amount);
         if (!clips) continue;
         ++c.lenses;
         c.total += lost;
@@ -77,35 +78,42 @@ double diameter_sum_mm(const std::vector<const CatalogLens*>& choice) {
 
 }  // namespace
 
-bool same_but_diameter(const std::vector<const CatalogLens*>& a, const std::vector<const CatalogLens*>& b) {
+bool same_but_diameter(const std::vector<const CatalogLens*>& a,
+                       const std::vector<const CatalogLens*>& b) {
     if (a.size() != b.size()) return false;
     for (size_t k = 0; k < a.size(); ++k)
         if (!(family_of(*a[k]) == family_of(*b[k]))) return false;
     return true;
 }
 
-std::vector<SolvedChoice> collapse_diameters(std::vector<SolvedChoice> ranked, size_t keep,
-                                             const std::vector<std::string>& swapped_ids,
-                                             const MaterialLibrary& library,
-                                             const std::function<bool(const TelescopeSolution&, const TelescopeSolution&)>& ranks_before) {
+std::vector<SolvedChoice> collapse_diameters(
+    std::vector<SolvedChoice> ranked, size_t keep, const std::vector<std::string>& swapped_ids,
+    const MaterialLibrary& library,
+    const std::function<bool(const TelescopeSolution&, const TelescopeSolution&)>& ranks_before) {
     // The families in the order of their best member, each with its members best first.
     std::vector<std::vector<size_t>> families;
     for (size_t i = 0; i < ranked.size(); ++i) {
-        auto it = std::find_if(families.begin(), families.end(),
-                               [&](const std::vector<size_t>& f) { return same_but_diameter(ranked[f[0]].choice, ranked[i].choice); });
-        if (it != families.end()) it->push_back(i);
-        else families.push_back({i});
+        auto it = std::find_if(families.begin(), families.end(), [&](const std::vector<size_t>& f) {
+            return same_but_diameter(ranked[f[0]].choice, ranked[i].choice);
+        });
+        if (it != families.end())
+            it->push_back(i);
+        else
+            families.push_back({i});
     }
     if (families.size() > keep) families.resize(keep);
     std::vector<SolvedChoice> out;
     for (const std::vector<size_t>& members : families) {
         std::vector<Clipping> clip;
         for (size_t i : members)
-            clip.push_back(swapped_ids.empty() ? Clipping{} : clipping_of(ranked[i].solution, swapped_ids, library));
+            clip.push_back(swapped_ids.empty()
+                               ? Clipping{}
+                               : clipping_of(ranked[i].solution, swapped_ids, library));
         // The kept member (see the header): fewest clipping lenses, least loss to 0.1 %, smallest
         // diameters, best rank (members are in rank order, so the first of equals).
         auto key = [&](size_t m) {
-            return std::make_tuple(clip[m].lenses, clip[m].lenses ? std::round(clip[m].total * 1e3) : 0.0,
+            return std::make_tuple(clip[m].lenses,
+                                   clip[m].lenses ? std::round(clip[m].total * 1e3) : 0.0,
                                    diameter_sum_mm(ranked[members[m]].choice), m);
         };
         size_t kept = 0;
@@ -136,8 +144,9 @@ std::vector<SolvedChoice> collapse_diameters(std::vector<SolvedChoice> ranked, s
                          });
         out.push_back(std::move(chosen));
     }
-    std::stable_sort(out.begin(), out.end(),
-                     [&](const SolvedChoice& x, const SolvedChoice& y) { return ranks_before(x.solution, y.solution); });
+    std::stable_sort(out.begin(), out.end(), [&](const SolvedChoice& x, const SolvedChoice& y) {
+        return ranks_before(x.solution, y.solution);
+    });
     return out;
 }
 

@@ -28,19 +28,21 @@
 namespace rv {
 
 struct SolvedChoice {
-    std::vector<const CatalogLens*> choice;  // one catalog lens per swapped lens (goals.solve.swap order)
+    std::vector<const CatalogLens*>
+        choice;  // one catalog lens per swapped lens (goals.solve.swap order)
     TelescopeSolution solution;
 };
 
 // Whether two choices differ only by their lenses' diameters (and what follows from them).
-bool same_but_diameter(const std::vector<const CatalogLens*>& a, const std::vector<const CatalogLens*>& b);
+bool same_but_diameter(const std::vector<const CatalogLens*>& a,
+                       const std::vector<const CatalogLens*>& b);
 
 // `ranked` best first (by `ranks_before`); the first `keep` families, each as its kept member with
 // `also` and `clipped_fraction` filled, best first again. `swapped_ids`: the swapped lenses'
 // element ids, in the order of each choice.
-std::vector<SolvedChoice> collapse_diameters(std::vector<SolvedChoice> ranked, size_t keep,
-                                             const std::vector<std::string>& swapped_ids,
-                                             const MaterialLibrary& library,
-                                             const std::function<bool(const TelescopeSolution&, const TelescopeSolution&)>& ranks_before);
+std::vector<SolvedChoice> collapse_diameters(
+    std::vector<SolvedChoice> ranked, size_t keep, const std::vector<std::string>& swapped_ids,
+    const MaterialLibrary& library,
+    const std::function<bool(const TelescopeSolution&, const TelescopeSolution&)>& ranks_before);
 
 }  // namespace rv

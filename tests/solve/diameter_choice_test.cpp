@@ -16,9 +16,10 @@ namespace {
 // A collimated 1064 nm beam of waist radius `waist_um` through one swapped, movable lens at
 // x = 100 mm, to a target at x = 300 mm; aim "focus" (the waist at the target).
 rv::Layout one_lens(double waist_um) {
-    return layout_from(R"({"format": "rendezvous-layout", "version": 1, "table": {"size_mm": [1000, 1000]},
+    return layout_from(
+        R"({"format": "rendezvous-layout", "version": 1, "table": {"size_mm": [1000, 1000]},
       "beams": [{"id": "b", "wavelength_nm": 1064, "start_mm": [0, 500], "direction_deg": 0, "waist_um": )" +
-                       std::to_string(waist_um) + R"(}],
+        std::to_string(waist_um) + R"(}],
       "elements": [{"id": "L", "type": "lens", "at_mm": [100, 500], "focal_length_mm": 150},
                    {"id": "T", "type": "target", "at_mm": [300, 500]}],
       "target": "T",
@@ -31,8 +32,8 @@ rv::CatalogLens ideal(const std::string& id, double f_mm, double diameter_mm) {
 
 // The same focal length (200 mm) in two diameters, and a lens that cannot focus on the target
 // within the move (f = 300 mm from x ≥ 50 mm puts the waist at x ≥ 350 mm).
-const std::vector<rv::CatalogLens> kCatalog = {ideal("f200-d25.4", 200, 25.4), ideal("f200-d12.7", 200, 12.7),
-                                               ideal("f300-d25.4", 300, 25.4)};
+const std::vector<rv::CatalogLens> kCatalog = {
+    ideal("f200-d25.4", 200, 25.4), ideal("f200-d12.7", 200, 12.7), ideal("f300-d25.4", 300, 25.4)};
 
 }  // namespace
 
@@ -94,7 +95,8 @@ TEST_CASE("a beam that clips the small lens picks the larger") {
         }
     CHECK(clipping == 1);
     // and the kept layout's report has none there.
-    for (const rv::Finding& f : rv::build_report(best.layout, rv::material_library_for(best.layout)).findings)
+    for (const rv::Finding& f :
+         rv::build_report(best.layout, rv::material_library_for(best.layout)).findings)
         CHECK_FALSE((f.kind == rv::Finding::Kind::Clipping && f.element == "L"));
 }
 
@@ -130,10 +132,17 @@ TEST_CASE("the written solution holds each chosen lens's part and reads back equ
 TEST_CASE("diameter families: the same catalog lens but for its size") {
     // Ideal lenses: the focal length decides; singlets also glass, shape and design wavelength
     // (their centre thickness follows the diameter).
-    const rv::CatalogLens a = ideal("a", 100, 12.7), b = ideal("b", 100, 50.8), c = ideal("c", 125, 12.7);
-    rv::CatalogLens s1{"s1", 100, 12.7, rv::Lens{rv::ThickLens{60, INFINITY, 3, "N-BK7", "convex-plano", 100, 587.6}}};
-    rv::CatalogLens s2{"s2", 100, 25.4, rv::Lens{rv::ThickLens{61, INFINITY, 6, "N-BK7", "convex-plano", 100, 587.6}}};
-    rv::CatalogLens s3{"s3", 100, 25.4, rv::Lens{rv::ThickLens{61, INFINITY, 6, "N-SF11", "convex-plano", 100, 587.6}}};
+    const rv::CatalogLens a = ideal("a", 100, 12.7), b = ideal("b", 100, 50.8),
+                          c = ideal("c", 125, 12.7);
+    rv::CatalogLens s1{
+        "s1", 100, 12.7,
+        rv::Lens{rv::ThickLens{60, INFINITY, 3, "N-BK7", "convex-plano", 100, 587.6}}};
+    rv::CatalogLens s2{
+        "s2", 100, 25.4,
+        rv::Lens{rv::ThickLens{61, INFINITY, 6, "N-BK7", "convex-plano", 100, 587.6}}};
+    rv::CatalogLens s3{
+        "s3", 100, 25.4,
+        rv::Lens{rv::ThickLens{61, INFINITY, 6, "N-SF11", "convex-plano", 100, 587.6}}};
     CHECK(rv::same_but_diameter({&a}, {&b}));
     CHECK_FALSE(rv::same_but_diameter({&a}, {&c}));
     CHECK_FALSE(rv::same_but_diameter({&a}, {&s1}));
