@@ -9,7 +9,8 @@
    most three decimals (0.001 mm, no 99.9999999999999) and whose swapped lenses hold their
    catalog id as "part"; no two of its solutions differ only by a lens's diameter (the bundled
    catalog's ids name the diameter: "plano-convex-25.4mm-f100"); solve runs again on what it wrote
-   (the parts agree with the catalog).
+   (the parts agree with the catalog); the build sheet's parts list names each chosen lens by
+   its part.
 3. A lens whose part the catalog does not hold is refused with the lens's pointer and id, exit 2,
    nothing written.
 Usage: check_solve_output.py RENDEZVOUS SOURCE_DIR"""
@@ -124,6 +125,14 @@ try:
                         chosen = {x["element"]: x["part"] for x in sol["swaps"]}[s["element"]]
                         check(family(s["part"]) == family(chosen) and s["part"] != chosen,
                               f"{name}: 'also' names {s['part']} beside {chosen}")
+            # The build sheet's parts list names each chosen lens by its part.
+            sheet = run("sheet", out, "--json")
+            check(sheet.returncode == 0, f"{name}: sheet of what solve wrote: exit {sheet.returncode}")
+            if sheet.returncode == 0:
+                listed = {i: p["part"] for p in json.loads(sheet.stdout)["parts"] for i in p["ids"]}
+                for s in best["swaps"]:
+                    check(listed.get(s["element"]) == s["part"],
+                          f"{name}: the sheet lists {s['element']} as {listed.get(s['element'])}, not {s['part']}")
         again = run("solve", out)
         check(again.returncode == 0, f"{name}: solve on what it wrote: exit {again.returncode}: {again.stderr}")
 
