@@ -9,6 +9,7 @@
 #include "analysis/verdict_rules.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
+#include "analysis/coincident_optics.hpp"
 #include "nonlinear/phase_matching.hpp"
 #include "trace/crystal_axes.hpp"
 #include "trace/trace.hpp"
@@ -400,6 +401,11 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     r.target_is_crystal = crystal != nullptr;
     if (crystal) r.crystal_length_mm = crystal->length_mm;
     const bool both = r.beams.size() >= 2 && r.beams[0].at_target.reached && r.beams[1].at_target.reached;
+    {
+        std::vector<const Path*> paths;
+        for (const ReportBeam& b : r.beams) paths.push_back(&b.path);
+        for (Finding& f : coincident_optics(layout, paths)) r.findings.push_back(std::move(f));
+    }
 
     for (const ReportBeam& b : r.beams) {
         auto add = [&](Finding f) {

@@ -33,6 +33,7 @@ const char* finding_code(Finding::Kind k) {
         case K::DamageIntensity:
         case K::DamageFluence: return "damage";  // one code since the first release; the numbers tell which
         case K::ThinLensTiming: return "thin-lens-timing";
+        case K::CoincidentOptics: return "coincident-optics";
     }
     return "finding";
 }
@@ -43,6 +44,7 @@ Finding::Severity finding_severity(Finding::Kind k) {
         case K::MaterialOutOfRange:
         case K::Paraxial:
         case K::ThinLensTiming: return Finding::Severity::Warning;
+        case K::CoincidentOptics: return Finding::Severity::Problem;
         default: return Finding::Severity::Problem;
     }
 }
@@ -51,7 +53,7 @@ const char* severity_name(Finding::Severity s) { return s == Finding::Severity::
 
 std::vector<Finding::Kind> all_finding_kinds() {
     std::vector<Finding::Kind> kinds;
-    for (int k = 0; k <= static_cast<int>(Finding::Kind::ThinLensTiming); ++k) kinds.push_back(static_cast<Finding::Kind>(k));
+    for (int k = 0; k <= static_cast<int>(Finding::Kind::CoincidentOptics); ++k) kinds.push_back(static_cast<Finding::Kind>(k));
     return kinds;
 }
 
@@ -92,6 +94,9 @@ std::string finding_text(const Finding& f) {
                    printf_text("%.3g", f.limit) + " J/cm²";
         case K::ThinLensTiming:
             return "a thin lens adds no glass to the delay; give its radii and centre thickness to count it";
+        case K::CoincidentOptics:
+            return "lies " + printf_text("%.3f", f.amount) + " mm from " + f.other_element +
+                   ": two optics in one place, the trace meets only one of them; move one";
     }
     return finding_code(f.kind);
 }
@@ -113,6 +118,7 @@ std::vector<std::pair<const char*, double>> finding_numbers(const Finding& f) {
         case K::StrayBeam: return {{"fraction", f.amount}, {"x_mm", f.where_mm.x()}, {"y_mm", f.where_mm.y()}};
         case K::DamageIntensity: return {{"peak_intensity_w_cm2", f.amount}, {"threshold_w_cm2", f.limit}};
         case K::DamageFluence: return {{"peak_fluence_j_cm2", f.amount}, {"threshold_j_cm2", f.limit}};
+        case K::CoincidentOptics: return {{"distance_mm", f.amount}};
         default: return {};
     }
 }

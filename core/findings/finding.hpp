@@ -33,6 +33,8 @@ struct Finding {
         DamageIntensity,         // the report: amount = peak intensity (W/cm²), limit = the threshold
         DamageFluence,           // the report: amount = peak fluence (J/cm²), limit = the threshold
         ThinLensTiming,          // the report: a thin glass lens adds no glass to the delay
+        CoincidentOptics,        // the report: `element` and other_element lie within 0.1 mm
+                                 // (amount = their distance, mm); the trace meets only one of them
     };
     enum class Severity {
         Problem,  // the layout does not work as drawn (light lost, missing, or a risk to the optics)
@@ -49,6 +51,7 @@ struct Finding {
     double wavelength_nm = 0;                        // MaterialOutOfRange, NoRealIndex
     double range_min_nm = 0, range_max_nm = 0;       // MaterialOutOfRange
     std::string element_type = {};  // HitBackOfOptic: the element's type name ("mirror", …)
+    std::string other_element = {};  // CoincidentOptics: the other optic's id
     std::string beam = {};     // the beam's id; set by the report (a path knows its beam by index)
 };
 

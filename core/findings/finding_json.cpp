@@ -10,6 +10,7 @@ nlohmann::json finding_json(const Finding& f) {
                         {"element", id_or_null(f.element)},
                         {"message", finding_line(f)}};
     if (!f.material.empty()) j["material"] = f.material;
+    if (!f.other_element.empty()) j["other_element"] = f.other_element;
     for (const auto& [name, value] : finding_numbers(f)) j[name] = value;
     return j;
 }
