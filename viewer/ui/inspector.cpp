@@ -141,11 +141,13 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
     ImGui::PushID(static_cast<int>(*editor.selected));
     field("x", "x (mm)", &e.at_mm.x(), "%.3f", doc, st);
     field("y", "y (mm)", &e.at_mm.y(), "%.3f", doc, st);
+    const double aperture_before_mm = e.aperture_mm;
     if (!std::holds_alternative<Stage>(e.kind)) {
         field("normal", "normal (deg)", &e.normal_deg, "%.3f", doc, st);
         field("aperture", "aperture (mm)", &e.aperture_mm, "%.2f", doc, st);
     }
     if (auto* lens = std::get_if<Lens>(&e.kind)) {
+        const auto model_before = lens->model;
         if (auto* ideal = std::get_if<IdealLens>(&lens->model)) field("f", "focal length (mm)", &ideal->focal_length_mm, "%.2f", doc, st);
         if (auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
             field("f", "focal length (mm)", &thin->focal_length_mm, "%.2f", doc, st);
@@ -162,6 +164,16 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 field("f", "focal length (mm)", &thick->focal_length_mm, "%.2f", doc, st);
             }
             field("ct", "centre thickness (mm)", &thick->center_thickness_mm, "%.2f", doc, st);
+        }
+        // A lens whose numbers or diameter were edited is no longer its catalog part: the id
+        // goes (io/lens_parts.hpp would refuse the disagreement), within the same edit.
+        if (!lens->part.empty()) {
+            ImGui::Text("part: %s", lens->part.c_str());
+            if (!(lens->model == model_before) || e.aperture_mm != aperture_before_mm) {
+                lens->part.clear();
+                if (st.editing) doc.preview(st.scratch);
+                else doc.edit(st.scratch);
+            }
         }
     } else if (auto* mirror = std::get_if<Mirror>(&e.kind)) {
         double radius = mirror->radius_of_curvature_mm.value_or(0);
