@@ -3,6 +3,7 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "layout/process_text.hpp"
 #include "units/number_text.hpp"
 
 namespace rv {
@@ -23,20 +24,19 @@ PhaseSetting set_crystal_for_process(const Layout& layout, const MaterialLibrary
     Crystal* crystal = target ? std::get_if<Crystal>(&target->kind) : nullptr;
     if (!crystal) throw std::invalid_argument("the target \"" + layout.target + "\" is not a crystal");
     s.crystal = target->id;
-    if (process_key == "sfg") {
-        if (layout.beams.size() < 2) throw std::invalid_argument("sfg needs two beams; the layout has one");
-        crystal->process = Crystal::Process::SumFrequency;
-        crystal->process_beam.clear();
-    } else if (process_key.rfind("shg:", 0) == 0) {
-        const std::string beam = process_key.substr(4);
-        bool known = false;
-        for (const BeamSource& b : layout.beams) known = known || b.id == beam;
-        if (!known) throw std::invalid_argument("no beam has id \"" + beam + "\" (expected shg:BEAM with a beam's id)");
-        crystal->process = Crystal::Process::SecondHarmonic;
-        crystal->process_beam = beam;
-    } else {
+    const std::optional<ProcessChoice> choice = parse_process_text(process_key);
+    if (!choice)
         throw std::invalid_argument("unknown process \"" + process_key + "\": expected sfg or shg:BEAM");
+    if (choice->process == Crystal::Process::SumFrequency && layout.beams.size() < 2)
+        throw std::invalid_argument("sfg needs two beams; the layout has one");
+    if (choice->process == Crystal::Process::SecondHarmonic) {
+        bool known = false;
+        for (const BeamSource& b : layout.beams) known = known || b.id == choice->beam;
+        if (!known)
+            throw std::invalid_argument("no beam has id \"" + choice->beam + "\" (expected shg:BEAM with a beam's id)");
     }
+    crystal->process = choice->process;
+    crystal->process_beam = choice->beam;
     s.normal_before_deg = target->normal_deg;
     s.tilt_before_deg = crystal->tilt_deg;
     // Turn or tilt to the process's angle, judged by the report; a second pass takes up what the

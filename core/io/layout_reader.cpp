@@ -12,6 +12,7 @@
 #include "io/closest_name.hpp"
 #include "io/field_reader.hpp"
 #include "layout/lens_shape.hpp"
+#include "layout/process_text.hpp"
 #include "materials/dispersion.hpp"
 
 namespace rv {
@@ -500,13 +501,11 @@ std::optional<ElementKind> Reader::read_kind(const std::string& type, FieldReade
         c.tilt_deg = f.number("tilt_deg", Need::Optional, between(-45, 45)).value_or(0);
         if (const auto process = f.string("process", Need::Optional)) {
             // "sfg", or "shg:BEAM" (the beam's id is checked with the other references).
-            if (*process == "sfg") {
-                c.process = Crystal::Process::SumFrequency;
-            } else if (process->rfind("shg:", 0) == 0 && process->size() > 4) {
-                c.process = Crystal::Process::SecondHarmonic;
-                c.process_beam = process->substr(4);
+            if (const auto choice = parse_process_text(*process)) {
+                c.process = choice->process;
+                c.process_beam = choice->beam;
             } else {
-                f.error("process", "expected \"sfg\" or \"shg:BEAM\" (BEAM a beam's id)");
+                f.error("process", "expected " + std::string(kProcessTextForms));
             }
         }
         c.damage = read_damage(f);

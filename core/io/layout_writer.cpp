@@ -6,6 +6,7 @@
 
 #include "io/atomic_file.hpp"
 #include "io/layout_reader.hpp"
+#include "layout/process_text.hpp"
 
 namespace rv {
 
@@ -124,8 +125,7 @@ struct KindWriter {
         if (c.principal_plane != PrincipalPlane::XY)
             j["principal_plane"] = c.principal_plane == PrincipalPlane::YZ ? "YZ" : "XZ";
         if (c.tilt_deg != 0) j["tilt_deg"] = num(c.tilt_deg);
-        if (c.process == Crystal::Process::SumFrequency) j["process"] = "sfg";
-        if (c.process == Crystal::Process::SecondHarmonic) j["process"] = "shg:" + c.process_beam;
+        if (const auto process = format_process_text(c.process, c.process_beam)) j["process"] = *process;
         damage(c.damage);
     }
     void damage(const DamageThreshold& d) const {

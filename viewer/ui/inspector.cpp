@@ -8,6 +8,7 @@
 
 #include "analysis/phase_setting.hpp"
 #include "io/layout_reader.hpp"
+#include "layout/process_text.hpp"
 
 namespace rv::ui {
 
@@ -81,8 +82,10 @@ void process_buttons(edit::Document& doc, InspectorState& st) {
     const auto* crystal = target ? std::get_if<Crystal>(&target->kind) : nullptr;
     if (!crystal || target->id != st.element) return;
     std::vector<std::pair<std::string, std::string>> processes;  // key, label
-    if (layout.beams.size() >= 2) processes.emplace_back("sfg", "SFG");
-    for (const BeamSource& b : layout.beams) processes.emplace_back("shg:" + b.id, "SHG " + b.id);
+    if (layout.beams.size() >= 2)
+        processes.emplace_back(*format_process_text(Crystal::Process::SumFrequency, {}), "SFG");
+    for (const BeamSource& b : layout.beams)
+        processes.emplace_back(*format_process_text(Crystal::Process::SecondHarmonic, b.id), "SHG " + b.id);
     const RendezvousReport& r = doc.report();
     const std::string now = r.phase_matching.empty() ? "" : process_key(layout, r.phase_matching.front());
     ImGui::TextUnformatted("set for");
