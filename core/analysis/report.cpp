@@ -7,6 +7,7 @@
 #include "analysis/phase_now.hpp"
 #include "analysis/plate_angle_search.hpp"
 #include "analysis/verdict_rules.hpp"
+#include "layout/process_text.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
 #include "analysis/coincident_optics.hpp"
@@ -35,6 +36,9 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
         b.id = layout.beams[p.beam].id;
         b.wavelength_nm = layout.beams[p.beam].wavelength_nm;
         b.path = p;
+        b.element_ids.reserve(p.hits.size());
+        for (const TraceHit& h : p.hits) b.element_ids.push_back(layout.elements[h.element].id);
+        if (layout.beams[p.beam].power_mw > 0) b.source_power_mw = layout.beams[p.beam].power_mw;
         b.caustic = propagate_path(layout, p, options);
         b.at_target = beam_at_target(layout, p, b.caustic);
         b.confocal_tangential_mm = 2 * b.at_target.tangential.rayleigh_mm;
@@ -657,7 +661,9 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
 }
 
 std::string process_key(const Layout& layout, const PhaseMatchingReport& p) {
-    return p.sum_frequency ? "sfg" : "shg:" + layout.beams[p.first_beam].id;
+    // A computed process is never Auto, so the text always exists.
+    return *format_process_text(p.sum_frequency ? Crystal::Process::SumFrequency : Crystal::Process::SecondHarmonic,
+                                layout.beams[p.first_beam].id);
 }
 
 const char* verdict_state_text(const VerdictLine& l) {

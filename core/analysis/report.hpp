@@ -23,6 +23,7 @@ struct ReportBeam {
     std::string id;
     double wavelength_nm = 0;
     Path path;
+    std::vector<std::string> element_ids;  // the id of each of path.hits' elements, in order
     Caustic caustic;
     BeamAtTarget at_target;
     double confocal_tangential_mm = 0, confocal_sagittal_mm = 0;  // 2 z_R in the medium
@@ -35,6 +36,7 @@ struct ReportBeam {
     // source power; absolute figures where the file gives power_mw (and the pulse figures
     // where it also gives repetition_rate_khz and pulse_fwhm_fs).
     BeamPower power;
+    std::optional<double> source_power_mw;     // the file's power_mw, when it gives one
     PolarizationState at_target_polarization;  // h, v, power: fractions of the source power
     std::optional<double> target_power_mw;
     std::optional<PulseFigures> pulse_at_target;  // with the radii at the target plane

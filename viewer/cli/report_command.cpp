@@ -8,175 +8,17 @@
 #include "analysis/report.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
-#include "cli/safety_notice.hpp"
-#include "findings/finding_json.hpp"
 #include "io/layout_reader.hpp"
+#include "report/report_json.hpp"
+#include "report/safety_cautions.hpp"
 #include "units/number_text.hpp"
 
 namespace rv::cli {
 
 namespace {
 
-using nlohmann::json;
-
 // Every number of the text and Markdown by the shared rule (units/number_text.hpp).
 std::string fmt(const char* format, double v) { return format_number(format, v); }
-
-json planes(double t, double s) { return {{"tangential", t}, {"sagittal", s}}; }
-json optional_number(const std::optional<double>& v) { return v ? json(*v) : json(nullptr); }
-// Absent text is null, never "".
-json optional_text(const std::string& s) { return s.empty() ? json(nullptr) : json(s); }
-// `met` is null when the line does not apply (`applies` false: phase without a crystal).
-json verdict_json(const VerdictLine& l) {
-    return {{"applies", l.applies}, {"met", l.applies ? json(l.met) : json(nullptr)}, {"summary", l.summary},
-            {"action", optional_text(l.action)}};
-}
-
-json phase_json(const PhaseMatchingReport& p) {
-    json gvm = json::array();
-    for (const GroupVelocityMismatch& g : p.gvm)
-        gvm.push_back({{"between", g.between}, {"fs_per_mm", g.fs_per_mm}, {"walk_apart_mm", optional_number(g.walk_apart_mm)}});
-    // Outside the index data nothing but the geometry is computed; without phase matching, no
-    // figure of the phase-matching angle (PhaseMatchingReport): those are null, not 0.
-    const bool indexed = p.outside_index_data.empty();
-    auto if_indexed = [&](double v) { return indexed ? json(v) : json(nullptr); };
-    auto if_matchable = [&](double v) { return p.phase_matchable ? json(v) : json(nullptr); };
-    auto found = [&](double v) { return p.phase_matchable && p.rotation_found ? json(v) : json(nullptr); };
-    return {{"process", p.process}, {"type", p.type}, {"output_nm", p.output_nm},
-            {"phase_matchable", p.phase_matchable}, {"theta_pm_deg", if_matchable(p.theta_pm_deg)},
-            {"theta_now_deg", p.theta_now_deg}, {"incidence_now_deg", if_indexed(p.incidence_now_deg)},
-            {"rotation", p.rotation == CrystalRotation::Turn ? "turn" : "tilt"},
-            {"incidence_needed_deg", found(p.incidence_needed_deg)},
-            {"rotate_by_deg", found(p.rotate_by_deg)}, {"rotation_axis", optional_text(p.rotation_axis)},
-            {"delta_k_l", if_indexed(p.delta_k_l)}, {"sinc2_now", if_indexed(p.sinc2_now)},
-            {"outside_index_data", optional_text(p.outside_index_data)},
-            {"walkoff_mrad", if_matchable(p.walkoff_mrad)},
-            {"angular_acceptance_mrad", {{"internal_fwhm", if_matchable(p.angular_acceptance_internal_mrad)},
-                                         {"external_fwhm", if_matchable(p.angular_acceptance_external_mrad)}}},
-            {"spectral_acceptance_fwhm_nm", if_matchable(p.spectral_acceptance_nm)}, {"gvm", gvm},
-            {"polarizations_suit", p.polarizations_suit}, {"polarization_note", p.polarization_note}};
-}
-
-// Null when the power trace did not reach the target; azimuth_deg null for circular or
-// unpolarized light (describe in polarization_model.hpp).
-json polarization_json(const ReportBeam& b) {
-    if (!b.power.reached) return nullptr;
-    const PolarizationState& s = b.at_target_polarization;
-    return {{"state", describe_text(s)}, {"horizontal_fraction", s.h}, {"vertical_fraction", s.v},
-            {"degree", s.degree}, {"azimuth_deg", optional_number(s.azimuth_deg)}, {"ellipticity_deg", s.ellipticity_deg}};
-}
-
-json power_json(const Layout& layout, const ReportBeam& b) {
-    json losses = json::array();
-    for (const PowerLoss& l : b.power.losses)
-        losses.push_back({{"element", l.element}, {"what", l.what}, {"fraction", l.fraction}, {"goes_to", optional_text(l.goes_to)}});
-    json plates = json::array();
-    for (const WavePlatePass& p : b.power.plates)
-        plates.push_back({{"id", p.id}, {"retardance_waves", p.retardance_waves},
-                          {"fast_axis_deg", p.fast_axis_deg}});
-    const double source_mw = layout.beams[b.path.beam].power_mw;
-    return {{"source_mw", source_mw > 0 ? json(source_mw) : json(nullptr)}, {"losses", losses},
-            {"left_at_end_fraction", b.power.end_fraction}, {"wave_plates", plates}};
-}
-
-json plate_settings_json(const PolarizationAdvice& a) {
-    json plates = json::array();
-    for (const PolarizationAdvice::PlateSetting& p : a.plates)
-        plates.push_back({{"id", p.plate}, {"now_deg", p.now_deg}, {"best_deg", p.best_deg},
-                          {"useful_now_fraction", p.useful_now}, {"useful_best_fraction", p.useful_best}});
-    return plates;
-}
-
-json to_json(const Layout& layout, const RendezvousReport& r) {
-    json beams = json::object();
-    for (const ReportBeam& b : r.beams) {
-        json elements = json::array();
-        for (size_t i = 0; i < b.path.hits.size(); ++i) {
-            const TraceHit& h = b.path.hits[i];
-            const BeamAtHit& w = b.caustic.at_hits[i];
-            elements.push_back({{"id", layout.elements[h.element].id}, {"s_mm", h.s_mm},
-                                {"radius_um", planes(w.radius_tangential_um, w.radius_sagittal_um)},
-                                {"clipping", w.clipped_fraction}});
-        }
-        json beam = {{"wavelength_nm", b.wavelength_nm}, {"reaches_target", b.at_target.reached},
-                     {"elements", elements}, {"unconverted_light", after_target_text(b)}};
-        if (b.at_target.reached) {
-            const BeamAtTarget& t = b.at_target;
-            beam["path_mm"] = t.path_mm;
-            beam["arrival_fs"] = t.arrival_fs;
-            beam["target"] = {
-                {"radius_um", planes(t.tangential.radius_um, t.sagittal.radius_um)},
-                {"waist_um", planes(t.tangential.waist_um, t.sagittal.waist_um)},
-                {"waist_offset_mm", planes(t.tangential.waist_offset_mm, t.sagittal.waist_offset_mm)},
-                {"rayleigh_mm", planes(t.tangential.rayleigh_mm, t.sagittal.rayleigh_mm)},
-                {"confocal_mm", planes(b.confocal_tangential_mm, b.confocal_sagittal_mm)},
-                {"hit_mm", {t.hit_mm.x(), t.hit_mm.y()}},
-                {"angle_deg", b.crossing_angle_deg},
-                {"index", t.index},
-                {"power_fraction", b.power.reached ? json(b.power.at_target[0]) : json(nullptr)},
-                {"power_mw", optional_number(b.target_power_mw)},
-                {"peak_intensity_w_cm2", b.pulse_at_target ? json(b.pulse_at_target->peak_intensity_w_cm2) : json(nullptr)},
-                {"peak_fluence_j_cm2", b.pulse_at_target ? json(b.pulse_at_target->peak_fluence_j_cm2) : json(nullptr)},
-                {"peak_intensity_at_waist_w_cm2", b.pulse_at_waist ? json(b.pulse_at_waist->peak_intensity_w_cm2) : json(nullptr)},
-                {"polarization", polarization_json(b)}};
-        }
-        beam["power"] = power_json(layout, b);
-        beams[b.id] = beam;
-    }
-    json out = {{"layout", r.layout_name}, {"target", r.target},
-                {"verdict", {{"space", verdict_json(r.verdict.space)}, {"time", verdict_json(r.verdict.time)},
-                             {"phase", verdict_json(r.verdict.phase)}}},
-                {"beams", beams}};
-    if (r.mismatch) {
-        const Mismatch& m = *r.mismatch;
-        out["mismatch"] = {{"waist_offset_mm", m.waist_offset_mm},
-                           {"waist_offset_planes_mm", planes(m.waist_offset_tangential_mm, m.waist_offset_sagittal_mm)},
-                           {"waist_ratio", m.waist_ratio}, {"confocal_ratio", optional_number(r.confocal_ratio)},
-                           {"lateral_um", m.lateral_um}, {"angle_mrad", m.angle_mrad}, {"delay_fs", m.delay_fs}};
-    }
-    if (r.overlap)  // along a crystal only when the target is one
-        out["overlap"] = {{"spatial", r.overlap->spatial},
-                          {"spatial_along_crystal", r.target_is_crystal ? json(r.overlap->spatial_along_crystal) : json(nullptr)},
-                          {"temporal", optional_number(r.overlap->temporal)}, {"combined", r.overlap->combined}};
-    if (r.stage) {
-        const StageReport& s = *r.stage;
-        out["stage"] = {{"id", s.id}, {"beam", s.beam}, {"position_mm", s.position_mm},
-                        {"zero_delay_mm", s.zero_delay_mm}, {"zero_in_travel", s.zero_in_travel},
-                        {"move_mm", s.move_mm}, {"delay_per_mm_fs", s.delay_per_mm_fs},
-                        {"measured_zero_mm", optional_number(s.measured_zero_mm)},
-                        {"emission_offset_fs", optional_number(s.emission_offset_fs)}};
-    }
-    json advice = json::array();
-    for (const PolarizationAdvice& a : r.polarization)
-        advice.push_back({{"beam", a.beam}, {"needs", needed_polarization_text(a)},
-                          {"useful_fraction", a.useful_fraction}, {"useful_mw", optional_number(a.useful_mw)},
-                          {"plate", a.plate ? json(*a.plate) : json(nullptr)},
-                          {"plate_now_deg", optional_number(a.plate_now_deg)},
-                          {"plate_best_deg", optional_number(a.plate_best_deg)},
-                          {"useful_fraction_best", optional_number(a.useful_fraction_best)},
-                          {"useful_mw_best", optional_number(a.useful_mw_best)},
-                          {"action", optional_text(polarization_advice_text(a))}, {"wave_plates", plate_settings_json(a)}});
-    out["polarization"] = advice;
-    if (!r.phase_matching.empty()) {
-        out["phase_matching"] = phase_json(r.phase_matching.front());
-        json all = json::array();
-        for (const PhaseMatchingReport& p : r.phase_matching) all.push_back(phase_json(p));
-        out["phase_matching"]["processes"] = all;
-    }
-    json focusing = json::array();
-    for (const FocusingReport& f : r.focusing)
-        focusing.push_back({{"beam", f.beam}, {"xi", f.xi}, {"h_m", f.h_m}, {"sigma_m", f.sigma_m},
-                            {"walkoff_parameter", f.walkoff_parameter}});
-    out["focusing"] = focusing;
-    json warnings = json::array();
-    for (const Finding& f : r.findings) warnings.push_back(finding_json(f));
-    out["warnings"] = warnings;
-    json unconverted = json::array();
-    for (const ReportBeam& b : r.beams) unconverted.push_back(b.id + ": " + after_target_text(b));
-    out["safety"] = {{"invisible", r.invisible}, {"unconverted", unconverted},
-                     {"cautions", safety_cautions()}};
-    return out;
-}
 
 std::string percent(double fraction) { return fmt("%.1f", 100 * fraction) + " %"; }
 
@@ -308,7 +150,8 @@ void print_text(const RendezvousReport& r, std::ostream& out) {
     out << "\nSafety\n";
     for (const std::string& s : r.invisible) out << "  invisible: " << s << "\n";
     for (const ReportBeam& b : r.beams) out << "  after the target, " << b.id << ": " << after_target_text(b) << "\n";
-    out << "\n" << safety_notice_text();
+    out << "\nLaser safety\n";
+    for (const std::string& c : safety_cautions()) out << "  - " << c << "\n";
 }
 
 void print_markdown(const RendezvousReport& r, std::ostream& out) {
@@ -379,7 +222,7 @@ int run_report(const ReportOptions& options, std::ostream& out, std::ostream& er
         if (!layout) return 2;
     }
     const RendezvousReport r = build_report(*layout, material_library_for(*layout));
-    if (options.json) out << to_json(*layout, r).dump(2) << "\n";
+    if (options.json) out << nlohmann::json(r).dump(2) << "\n";
     else if (options.markdown) print_markdown(r, out);
     else print_text(r, out);
     const Verdict& v = r.verdict;

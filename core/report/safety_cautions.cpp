@@ -1,6 +1,6 @@
-#include "cli/safety_notice.hpp"
+#include "report/safety_cautions.hpp"
 
-namespace rv::cli {
+namespace rv {
 
 const std::vector<std::string>& safety_cautions() {
     static const std::vector<std::string> cautions = {
@@ -19,10 +19,10 @@ const std::vector<std::string>& safety_cautions() {
     return cautions;
 }
 
-std::string safety_notice_text() {
-    std::string text = "Laser safety\n";
-    for (const std::string& c : safety_cautions()) text += "  - " + c + "\n";
-    return text;
+const std::string& safety_short_notice() {
+    static const std::string notice =
+        "Planning aid only: no exposure limits. Follow your laser safety officer, IEC 60825-1 and ANSI Z136.1.";
+    return notice;
 }
 
-}  // namespace rv::cli
+}  // namespace rv
