@@ -81,6 +81,16 @@ void to_json(json& j, const VerdictLine& l) {
 
 void to_json(json& j, const Verdict& v) { j = {{"space", v.space}, {"time", v.time}, {"phase", v.phase}}; }
 
+json verdict_states_json(const Verdict& v) {
+    auto state = [](const VerdictLine& l) { return json(verdict_state_text(l)); };
+    return {{"space", state(v.space)}, {"time", state(v.time)}, {"phase", state(v.phase)}};
+}
+
+json verdict_met_json(const Verdict& v) {
+    auto met = [](const VerdictLine& l) { return l.applies ? json(l.met) : json(nullptr); };
+    return {{"space", met(v.space)}, {"time", met(v.time)}, {"phase", met(v.phase)}};
+}
+
 void to_json(json& j, const GroupVelocityMismatch& g) {
     j = {{"between", g.between}, {"fs_per_mm", g.fs_per_mm}, {"walk_apart_mm", optional_number(g.walk_apart_mm)}};
 }

@@ -26,4 +26,9 @@ void to_json(nlohmann::json& j, const ReportBeam& b);
 // The whole report.
 void to_json(nlohmann::json& j, const RendezvousReport& r);
 
+// The verdict in the short forms other commands print: {space, time, phase} each "met",
+// "NOT MET" or "n/a" (tolerance), or each true, false or null when it does not apply (solve).
+nlohmann::json verdict_states_json(const Verdict& v);
+nlohmann::json verdict_met_json(const Verdict& v);
+
 }  // namespace rv

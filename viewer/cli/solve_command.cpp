@@ -11,6 +11,7 @@
 #include "cli/progress_bar.hpp"
 #include "io/layout_reader.hpp"
 #include "io/lens_parts.hpp"
+#include "report/report_json.hpp"
 #include "solve/default_solve_goals.hpp"
 #include "solve/solve_outcome.hpp"
 #include "solve/telescope.hpp"
@@ -79,13 +80,11 @@ int run_solve(const SolveCommandOptions& o, std::ostream& out, std::ostream& err
         if (!r.solutions.empty()) {
             const Layout written = as_written(r.solutions.front(), default_goals);
             const RendezvousReport report = build_report(written, library);
-            auto line = [](const VerdictLine& l) { return l.applies ? json(l.met) : json(nullptr); };
             json beams = json::array();
             for (const BeamOutcome& b : beam_outcomes(written, report))
                 beams.push_back({{"beam", b.beam}, {"waist_offset_mm", b.waist_offset_mm}, {"waist_offset_rayleigh", b.offset_rayleigh},
                                  {"waist_um", b.waist_um}, {"goal_um", b.goal_um ? json(*b.goal_um) : json(nullptr)}});
-            best = {{"verdict", {{"space", line(report.verdict.space)}, {"time", line(report.verdict.time)},
-                                 {"phase", line(report.verdict.phase)}}},
+            best = {{"verdict", verdict_met_json(report.verdict)},
                     {"beams", beams},
                     {"moves_at_range_end", moves_at_range_end(goals, r.solutions.front())}};
         }

@@ -11,6 +11,8 @@
 #include "cli/load.hpp"
 #include "io/diagnostic.hpp"
 #include "io/layout_reader.hpp"
+#include "report/report_json.hpp"
+#include "report/report_text.hpp"
 #include "solve/tolerance.hpp"
 #include "units/number_text.hpp"
 
@@ -42,10 +44,6 @@ int run_tolerance(const ToleranceOptions& o, std::ostream& out, std::ostream& er
         json sensitivity = json::array();
         for (const SensitivityRow& s : r.sensitivity)
             sensitivity.push_back({{"perturbation", s.label}, {"tolerance", s.tolerance}, {"per_unit", figures(s.per_unit)}});
-        auto verdict = [](const Verdict& v) {
-            auto line = [](const VerdictLine& l) { return json(verdict_state_text(l)); };
-            return json{{"space", line(v.space)}, {"time", line(v.time)}, {"phase", line(v.phase)}};
-        };
         json moves = json::array();
         for (const auto& [what, by] : r.alignment_moves) moves.push_back({{"setting", what}, {"change", by}});
         auto change = [&](const ToleranceChange& c) {
@@ -60,11 +58,11 @@ int run_tolerance(const ToleranceOptions& o, std::ostream& out, std::ostream& er
                         {"subset_pass_rate", c.subset_pass_rate}};
         };
         out << json{{"layout", o.layout},
-                    {"nominal_verdict", verdict(r.nominal_verdict)},
+                    {"nominal_verdict", verdict_states_json(r.nominal_verdict)},
                     {"nominal_passes", r.nominal_passes},
                     {"adjusters", r.adjusters},
                     {"alignment", moves},
-                    {"aligned_verdict", verdict(r.aligned_verdict)},
+                    {"aligned_verdict", verdict_states_json(r.aligned_verdict)},
                     {"aligned_passes", r.aligned_passes},
                     {"pass_rate", r.pass_rate},
                     {"line_pass_rates", {{"space", r.space_rate}, {"time", r.time_rate}, {"phase", r.phase_rate}}},
@@ -90,10 +88,7 @@ int run_tolerance(const ToleranceOptions& o, std::ostream& out, std::ostream& er
         return 0;
     }
     char line[512];
-    auto verdict_lines = [&](const Verdict& v) {
-        for (const auto& [name, l] : {std::pair{"space", &v.space}, std::pair{"time", &v.time}, std::pair{"phase", &v.phase}})
-            out << "  " << name << std::string(7 - std::string(name).size(), ' ') << verdict_line_text(*l) << "\n";
-    };
+    auto verdict_lines = [&](const Verdict& v) { out << verdict_text(v, false); };
     if (!r.nominal_passes) {
         out << "The layout as given does not meet its verdict:\n";
         verdict_lines(r.nominal_verdict);
