@@ -1,13 +1,14 @@
 // The report's JSON is the model's numbers: every bundled layout's report converted to JSON,
 // written out as text and read back, holds the model's values under the keys
 // docs/schemas/report.schema.json names (no expected value here is typed in: each is the
-// model's own). The text formatter prints each verdict line, finding and caution.
+// model's own). The text and Markdown formatters print each verdict line, finding and caution.
 #include <catch2/catch.hpp>
 #include <nlohmann/json.hpp>
 
 #include "analysis/report.hpp"
 #include "findings/finding.hpp"
 #include "report/report_json.hpp"
+#include "report/report_markdown.hpp"
 #include "report/report_text.hpp"
 #include "report/safety_cautions.hpp"
 #include "support/layouts.hpp"
@@ -179,21 +180,24 @@ TEST_CASE("the report's JSON read back holds the model's numbers", "[report][jso
     }
 }
 
-TEST_CASE("the text report prints every verdict line finding and caution", "[report][text]") {
+TEST_CASE("the text and Markdown reports print every verdict line finding and caution", "[report][text]") {
     for (const char* file : kBundled) {
         CAPTURE(file);
         const rv::Layout layout = rv::test::bundled_layout(file);
         const rv::RendezvousReport r = rv::build_report(layout, rv::material_library_for(layout));
-        const std::string text = rv::report_text(r);
+        const std::string text = rv::report_text(r), markdown = rv::report_markdown(r);
         for (const rv::VerdictLine* l : {&r.verdict.space, &r.verdict.time, &r.verdict.phase}) {
             CHECK(text.find(l->summary) != std::string::npos);
+            CHECK(markdown.find(l->summary) != std::string::npos);
             CHECK(text.find(l->action) != std::string::npos);
         }
         for (const rv::Finding& f : r.findings) {
             CHECK(text.find(rv::finding_line(f)) != std::string::npos);
+            CHECK(markdown.find(rv::finding_line(f)) != std::string::npos);
         }
         for (const std::string& c : rv::safety_cautions()) {
             CHECK(text.find(c) != std::string::npos);
+            CHECK(markdown.find(c) != std::string::npos);
         }
         for (const rv::ReportBeam& b : r.beams) CHECK(text.find(b.id) != std::string::npos);
         // The text's verdict block is the shared verdict_text, with the actions.

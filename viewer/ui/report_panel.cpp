@@ -3,6 +3,7 @@
 #include <imgui.h>
 
 #include "polarization/polarization_model.hpp"
+#include "report/safety_cautions.hpp"
 #include "units/number_text.hpp"
 
 namespace rv::ui {
@@ -133,8 +134,7 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
         }
     }
     ImGui::Spacing();
-    ImGui::TextWrapped("Planning aid only: no exposure limits. Follow your laser safety officer, "
-                       "IEC 60825-1 and ANSI Z136.1.");
+    ImGui::TextWrapped("%s", safety_short_notice().c_str());
 }
 
 }  // namespace rv::ui
