@@ -2,6 +2,8 @@
 
 #include <cmath>
 
+#include "layout/visit.hpp"
+
 namespace rv {
 
 namespace {
@@ -23,28 +25,32 @@ struct SpecOf {
 
     void operator()(const Lens& lens) const {
         spec.part = lens.part;
-        if (const auto* i = std::get_if<IdealLens>(&lens.model)) {
-            spec.kind = "ideal thin lens";
-            add(number("focal_length", i->focal_length_mm, "mm"));
-        } else if (const auto* c = std::get_if<ThinChromaticLens>(&lens.model)) {
-            spec.kind = "thin lens";
-            add(number("focal_length", c->focal_length_mm, "mm"));
-            add(word("glass", c->glass));
-            add(number("design_wavelength", c->design_wavelength_nm, "nm"));
-        } else {
-            const ThickLens& t = std::get<ThickLens>(lens.model);
-            spec.kind = "singlet lens";
-            if (!t.shape.empty()) {
-                add(word("shape", t.shape));
-                add(number("focal_length", t.focal_length_mm, "mm"));
-                add(number("design_wavelength", t.design_wavelength_nm, "nm"));
-            } else {
-                add(radius("front_radius", t.front_radius_mm));
-                add(radius("back_radius", t.back_radius_mm));
-            }
-            add(number("center_thickness", t.center_thickness_mm, "mm"));
-            add(word("glass", t.glass));
-        }
+        std::visit(overloaded{
+                       [&](const IdealLens& i) {
+                           spec.kind = "ideal thin lens";
+                           add(number("focal_length", i.focal_length_mm, "mm"));
+                       },
+                       [&](const ThinChromaticLens& c) {
+                           spec.kind = "thin lens";
+                           add(number("focal_length", c.focal_length_mm, "mm"));
+                           add(word("glass", c.glass));
+                           add(number("design_wavelength", c.design_wavelength_nm, "nm"));
+                       },
+                       [&](const ThickLens& t) {
+                           spec.kind = "singlet lens";
+                           if (!t.shape.empty()) {
+                               add(word("shape", t.shape));
+                               add(number("focal_length", t.focal_length_mm, "mm"));
+                               add(number("design_wavelength", t.design_wavelength_nm, "nm"));
+                           } else {
+                               add(radius("front_radius", t.front_radius_mm));
+                               add(radius("back_radius", t.back_radius_mm));
+                           }
+                           add(number("center_thickness", t.center_thickness_mm, "mm"));
+                           add(word("glass", t.glass));
+                       },
+                   },
+                   lens.model);
     }
     void operator()(const Mirror& m) const {
         spec.kind = m.radius_of_curvature_mm ? "curved mirror" : "flat mirror";

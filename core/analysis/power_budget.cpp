@@ -3,6 +3,7 @@
 #include <cmath>
 #include <sstream>
 
+#include "layout/visit.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
 
@@ -83,43 +84,60 @@ BeamPower run(const Layout& layout, const MaterialLibrary& library, const Path& 
         }
         if (acts) {
             const double before = s[0];
-            Mueller m = Mueller::Identity();
-            if (const auto* plate = std::get_if<Plate>(&e.kind)) {
-                double axis_deg = plate->fast_axis_deg;
-                if (options.plate_override && options.plate_override->first == h.element)
-                    axis_deg = options.plate_override->second;
-                if (const auto waves = retardance_waves(*plate, nm, library)) {
-                    m = mueller_from_jones(retarder_jones(2 * kPi * *waves, deg_to_rad(axis_deg)));
-                    out.plates.push_back({h.element, e.id, *waves, axis_deg});
-                } else if (plate->role == Plate::Role::Polarizer) {
-                    m = mueller_from_jones(polarizer_jones(plate->extinction_ratio, deg_to_rad(axis_deg)));
-                } else if (plate->role == Plate::Role::PolarizingCube) {
-                    m = mueller_from_jones(polarizer_jones(plate->extinction_ratio, 0));
-                    JonesMatrix r = JonesMatrix::Zero();
-                    r(1, 1) = std::sqrt(1 - 1 / plate->extinction_ratio);
-                    const Stokes reflected = mueller_from_jones(r) * s;
-                    // The reflected beam leaves the cube's diagonal, 90° to the side of travel.
-                    const Vec2 side = plate->reflects_left ? perpendicular(h.direction_in) : Vec2(-perpendicular(h.direction_in));
-                    const Vec2 centre = i + 1 < path.hits.size() && path.hits[i + 1].element == h.element
-                                            ? Vec2((h.point_mm + path.hits[i + 1].point_mm) / 2)
-                                            : h.point_mm;
-                    PowerLoss loss{e.id, "reflected by the cube", reflected[0] * e.transmission, "", false, {}};
-                    lose(e.id, "coating loss (reflected port)", reflected[0] * (1 - e.transmission));
-                    if (options.follow_branches) {
-                        Followed f = follow(layout, library, path.beam, centre + 1e-3 * side, side);
-                        loss.goes_to = f.where;
-                        loss.leaves_table = f.leaves_table;
-                        loss.exit_mm = f.exit_mm;
-                        loss.branch_mm = std::move(f.points_mm);
-                    }
-                    if (loss.fraction > 1e-12) out.losses.push_back(loss);
-                }
-            } else if (h.interaction == Interaction::Reflect) {
-                double delta_deg = 0;
-                if (const auto* mirror = std::get_if<Mirror>(&e.kind)) delta_deg = mirror->retardance_deg;
-                if (const auto* dichroic = std::get_if<Dichroic>(&e.kind)) delta_deg = dichroic->retardance_deg;
-                m = mueller_from_jones(mirror_jones(deg_to_rad(delta_deg)));
-            }
+            // What the element does to the polarization where it acts, one function per kind
+            // (a visit: a new kind must say). Reflections carry the coating's s − p phase.
+            const auto reflection = [&](double retardance_deg) -> Mueller {
+                if (h.interaction != Interaction::Reflect) return Mueller::Identity();
+                return mueller_from_jones(mirror_jones(deg_to_rad(retardance_deg)));
+            };
+            const Mueller m = std::visit(
+                overloaded{
+                    [&](const Plate& plate) -> Mueller {
+                        Mueller effect = Mueller::Identity();
+                        double axis_deg = plate.fast_axis_deg;
+                        if (options.plate_override && options.plate_override->first == h.element)
+                            axis_deg = options.plate_override->second;
+                        if (const auto waves = retardance_waves(plate, nm, library)) {
+                            effect = mueller_from_jones(retarder_jones(2 * kPi * *waves, deg_to_rad(axis_deg)));
+                            out.plates.push_back({h.element, e.id, *waves, axis_deg});
+                        } else if (plate.role == Plate::Role::Polarizer) {
+                            effect = mueller_from_jones(polarizer_jones(plate.extinction_ratio, deg_to_rad(axis_deg)));
+                        } else if (plate.role == Plate::Role::PolarizingCube) {
+                            effect = mueller_from_jones(polarizer_jones(plate.extinction_ratio, 0));
+                            JonesMatrix r = JonesMatrix::Zero();
+                            r(1, 1) = std::sqrt(1 - 1 / plate.extinction_ratio);
+                            const Stokes reflected = mueller_from_jones(r) * s;
+                            // The reflected beam leaves the cube's diagonal, 90° to the side of travel.
+                            const Vec2 side = plate.reflects_left ? perpendicular(h.direction_in) : Vec2(-perpendicular(h.direction_in));
+                            const Vec2 centre = i + 1 < path.hits.size() && path.hits[i + 1].element == h.element
+                                                    ? Vec2((h.point_mm + path.hits[i + 1].point_mm) / 2)
+                                                    : h.point_mm;
+                            PowerLoss loss{e.id, "reflected by the cube", reflected[0] * e.transmission, "", false, {}};
+                            lose(e.id, "coating loss (reflected port)", reflected[0] * (1 - e.transmission));
+                            if (options.follow_branches) {
+                                Followed f = follow(layout, library, path.beam, centre + 1e-3 * side, side);
+                                loss.goes_to = f.where;
+                                loss.leaves_table = f.leaves_table;
+                                loss.exit_mm = f.exit_mm;
+                                loss.branch_mm = std::move(f.points_mm);
+                            }
+                            if (loss.fraction > 1e-12) out.losses.push_back(loss);
+                        }
+                        return effect;
+                    },
+                    [&](const Mirror& mirror) { return reflection(mirror.retardance_deg); },
+                    [&](const Dichroic& dichroic) { return reflection(dichroic.retardance_deg); },
+                    // Unchanged in this model: a lens, a crystal (its own waves come from
+                    // analysis/crystal_waves.hpp), a corner cube (no coating phase modelled), and
+                    // what marks or stops the beam.
+                    [](const Lens&) -> Mueller { return Mueller::Identity(); },
+                    [](const Retroreflector&) -> Mueller { return Mueller::Identity(); },
+                    [](const Crystal&) -> Mueller { return Mueller::Identity(); },
+                    [](const Target&) -> Mueller { return Mueller::Identity(); },
+                    [](const Dump&) -> Mueller { return Mueller::Identity(); },
+                    [](const Stage&) -> Mueller { return Mueller::Identity(); },
+                },
+                e.kind);
             s = m * s;
             const double after_element = s[0];
             if (const auto* plate = std::get_if<Plate>(&e.kind); plate && plate->role == Plate::Role::Polarizer)

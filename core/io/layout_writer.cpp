@@ -7,6 +7,7 @@
 #include "io/atomic_file.hpp"
 #include "io/layout_reader.hpp"
 #include "layout/process_text.hpp"
+#include "layout/visit.hpp"
 
 namespace rv {
 
@@ -56,27 +57,29 @@ struct KindWriter {
     ojson& j;
     void operator()(const Lens& lens) const {
         if (!lens.part.empty()) j["part"] = lens.part;
-        if (const auto* ideal = std::get_if<IdealLens>(&lens.model)) {
-            j["focal_length_mm"] = num(ideal->focal_length_mm);
-        } else if (const auto* thin = std::get_if<ThinChromaticLens>(&lens.model)) {
-            j["focal_length_mm"] = num(thin->focal_length_mm);
-            j["glass"] = thin->glass;
-            if (thin->design_wavelength_nm != 587.6)
-                j["design_wavelength_nm"] = num(thin->design_wavelength_nm);
-        } else {
-            const auto& t = std::get<ThickLens>(lens.model);
-            if (!t.shape.empty()) {
-                j["shape"] = t.shape;
-                j["focal_length_mm"] = num(t.focal_length_mm);
-            } else {
-                if (std::isfinite(t.front_radius_mm)) j["front_radius_mm"] = num(t.front_radius_mm);
-                if (std::isfinite(t.back_radius_mm)) j["back_radius_mm"] = num(t.back_radius_mm);
-            }
-            j["center_thickness_mm"] = num(t.center_thickness_mm);
-            j["glass"] = t.glass;
-            if (!t.shape.empty() && t.design_wavelength_nm != 587.6)
-                j["design_wavelength_nm"] = num(t.design_wavelength_nm);
-        }
+        std::visit(overloaded{
+                       [&](const IdealLens& ideal) { j["focal_length_mm"] = num(ideal.focal_length_mm); },
+                       [&](const ThinChromaticLens& thin) {
+                           j["focal_length_mm"] = num(thin.focal_length_mm);
+                           j["glass"] = thin.glass;
+                           if (thin.design_wavelength_nm != 587.6)
+                               j["design_wavelength_nm"] = num(thin.design_wavelength_nm);
+                       },
+                       [&](const ThickLens& t) {
+                           if (!t.shape.empty()) {
+                               j["shape"] = t.shape;
+                               j["focal_length_mm"] = num(t.focal_length_mm);
+                           } else {
+                               if (std::isfinite(t.front_radius_mm)) j["front_radius_mm"] = num(t.front_radius_mm);
+                               if (std::isfinite(t.back_radius_mm)) j["back_radius_mm"] = num(t.back_radius_mm);
+                           }
+                           j["center_thickness_mm"] = num(t.center_thickness_mm);
+                           j["glass"] = t.glass;
+                           if (!t.shape.empty() && t.design_wavelength_nm != 587.6)
+                               j["design_wavelength_nm"] = num(t.design_wavelength_nm);
+                       },
+                   },
+                   lens.model);
     }
     void operator()(const Mirror& m) const {
         if (m.radius_of_curvature_mm) j["radius_of_curvature_mm"] = num(*m.radius_of_curvature_mm);

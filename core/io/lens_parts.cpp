@@ -5,6 +5,7 @@
 
 #include "io/closest_name.hpp"
 #include "io/field_reader.hpp"
+#include "layout/visit.hpp"
 #include "units/number_text.hpp"
 
 namespace rv {
@@ -17,14 +18,12 @@ bool same_number(double a, double b) {
 }
 
 const char* model_name(const Lens& lens) {
-    switch (lens.model.index()) {
-        case 0:
-            return "an ideal thin lens";
-        case 1:
-            return "a thin lens of a glass";
-        default:
-            return "a thick singlet";
-    }
+    return std::visit(overloaded{
+                          [](const IdealLens&) { return "an ideal thin lens"; },
+                          [](const ThinChromaticLens&) { return "a thin lens of a glass"; },
+                          [](const ThickLens&) { return "a thick singlet"; },
+                      },
+                      lens.model);
 }
 
 struct Differences {
@@ -53,24 +52,30 @@ std::vector<std::string> part_differences(const CatalogLens& part, const Element
     if (part.lens.model.index() != here.model.index()) {
         d.out.push_back(std::string(model_name(part.lens)) + " in the catalog, " +
                         model_name(here) + " here");
-    } else if (const auto* a = std::get_if<IdealLens>(&part.lens.model)) {
-        d.number("focal length", a->focal_length_mm,
-                 std::get<IdealLens>(here.model).focal_length_mm, "mm");
-    } else if (const auto* a = std::get_if<ThinChromaticLens>(&part.lens.model)) {
-        const auto& b = std::get<ThinChromaticLens>(here.model);
-        d.number("focal length", a->focal_length_mm, b.focal_length_mm, "mm");
-        d.text("glass", a->glass, b.glass);
-        d.number("design wavelength", a->design_wavelength_nm, b.design_wavelength_nm, "nm");
     } else {
-        const auto& a2 = std::get<ThickLens>(part.lens.model);
-        const auto& b = std::get<ThickLens>(here.model);
-        if (!a2.shape.empty() && !b.shape.empty())
-            d.text("shape", a2.shape, b.shape);  // radii decide otherwise
-        d.number("front radius", a2.front_radius_mm, b.front_radius_mm, "mm");
-        d.number("back radius", a2.back_radius_mm, b.back_radius_mm, "mm");
-        d.number("centre thickness", a2.center_thickness_mm, b.center_thickness_mm, "mm");
-        d.text("glass", a2.glass, b.glass);
-        d.number("design wavelength", a2.design_wavelength_nm, b.design_wavelength_nm, "nm");
+        // The same model on both sides (the indices agree): compare its numbers.
+        std::visit(overloaded{
+                       [&](const IdealLens& a) {
+                           d.number("focal length", a.focal_length_mm, std::get<IdealLens>(here.model).focal_length_mm, "mm");
+                       },
+                       [&](const ThinChromaticLens& a) {
+                           const auto& b = std::get<ThinChromaticLens>(here.model);
+                           d.number("focal length", a.focal_length_mm, b.focal_length_mm, "mm");
+                           d.text("glass", a.glass, b.glass);
+                           d.number("design wavelength", a.design_wavelength_nm, b.design_wavelength_nm, "nm");
+                       },
+                       [&](const ThickLens& a) {
+                           const auto& b = std::get<ThickLens>(here.model);
+                           if (!a.shape.empty() && !b.shape.empty())
+                               d.text("shape", a.shape, b.shape);  // radii decide otherwise
+                           d.number("front radius", a.front_radius_mm, b.front_radius_mm, "mm");
+                           d.number("back radius", a.back_radius_mm, b.back_radius_mm, "mm");
+                           d.number("centre thickness", a.center_thickness_mm, b.center_thickness_mm, "mm");
+                           d.text("glass", a.glass, b.glass);
+                           d.number("design wavelength", a.design_wavelength_nm, b.design_wavelength_nm, "nm");
+                       },
+                   },
+                   part.lens.model);
     }
     d.number("diameter (aperture_mm)", part.diameter_mm, element.aperture_mm, "mm");
     return d.out;

@@ -94,8 +94,18 @@ struct ThickLens {  // singlet from radii (or a named shape solved at the design
     double design_wavelength_nm = 587.6;
     bool operator==(const ThickLens&) const = default;
 };
+#ifdef RV_TEST_EXTRA_ELEMENT_KIND
+// Test only, as TestOnlyKind below: a lens model nothing handles.
+struct TestOnlyLensModel {
+    bool operator==(const TestOnlyLensModel&) const = default;
+};
+#define RV_TEST_ONLY_LENS_MODEL , TestOnlyLensModel
+#else
+#define RV_TEST_ONLY_LENS_MODEL
+#endif
 struct Lens {
-    std::variant<IdealLens, ThinChromaticLens, ThickLens> model;
+    // Handled with a std::visit (layout/visit.hpp) wherever each model matters.
+    std::variant<IdealLens, ThinChromaticLens, ThickLens RV_TEST_ONLY_LENS_MODEL> model;
     // The catalog id of the stock lens this is ("part" in the file; "" when none): what the
     // build sheet's parts list names and what solve writes for each lens it chose. The optics
     // are the model's and the element's aperture, never looked up from the id;
@@ -207,8 +217,20 @@ struct Dump {
     bool operator==(const Dump&) const = default;
 };
 
+#ifdef RV_TEST_EXTRA_ELEMENT_KIND
+// Test only (tests/kinds/check_exhaustive.cmake): a kind nothing handles, appended to
+// ElementKind, so that every visit that must handle each kind fails to compile.
+struct TestOnlyKind {
+    bool operator==(const TestOnlyKind&) const = default;
+};
+#define RV_TEST_ONLY_KIND , TestOnlyKind
+#else
+#define RV_TEST_ONLY_KIND
+#endif
+
+// Handle kinds with a std::visit (layout/visit.hpp), never a get_if chain with a default.
 using ElementKind = std::variant<Lens, Mirror, Dichroic, Plate, Retroreflector, Stage, Crystal,
-                                 Target, Dump>;
+                                 Target, Dump RV_TEST_ONLY_KIND>;
 
 struct Element {
     std::string id;

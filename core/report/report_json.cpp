@@ -10,30 +10,49 @@ namespace {
 
 using nlohmann::json;
 
-json planes(double t, double s) { return {{"tangential", t}, {"sagittal", s}}; }
-json optional_number(const std::optional<double>& v) { return v ? json(*v) : json(nullptr); }
-json optional_text(const std::optional<std::string>& s) { return s ? json(*s) : json(nullptr); }
+json planes(double t, double s) {
+    return {{"tangential", t}, {"sagittal", s}};
+}
+json optional_number(const std::optional<double>& v) {
+    return v ? json(*v) : json(nullptr);
+}
+json optional_text(const std::optional<std::string>& s) {
+    return s ? json(*s) : json(nullptr);
+}
 // Absent text is null, never "".
-json optional_text(const std::string& s) { return s.empty() ? json(nullptr) : json(s); }
+json optional_text(const std::string& s) {
+    return s.empty() ? json(nullptr) : json(s);
+}
 
 // Null when the power trace did not reach the target; azimuth_deg null for circular or
 // unpolarized light (describe in polarization_model.hpp).
 json polarization_json(const ReportBeam& b) {
     if (!b.power.reached) return nullptr;
     const PolarizationState& s = b.at_target_polarization;
-    return {{"state", describe_text(s)}, {"horizontal_fraction", s.h}, {"vertical_fraction", s.v},
-            {"degree", s.degree}, {"azimuth_deg", optional_number(s.azimuth_deg)}, {"ellipticity_deg", s.ellipticity_deg}};
+    return {{"state", describe_text(s)},
+            {"horizontal_fraction", s.h},
+            {"vertical_fraction", s.v},
+            {"degree", s.degree},
+            {"azimuth_deg", optional_number(s.azimuth_deg)},
+            {"ellipticity_deg", s.ellipticity_deg}};
 }
 
 json power_json(const ReportBeam& b) {
     json losses = json::array();
     for (const PowerLoss& l : b.power.losses)
-        losses.push_back({{"element", l.element}, {"what", l.what}, {"fraction", l.fraction}, {"goes_to", optional_text(l.goes_to)}});
+        losses.push_back({{"element", l.element},
+                          {"what", l.what},
+                          {"fraction", l.fraction},
+                          {"goes_to", optional_text(l.goes_to)}});
     json plates = json::array();
     for (const WavePlatePass& p : b.power.plates)
-        plates.push_back({{"id", p.id}, {"retardance_waves", p.retardance_waves}, {"fast_axis_deg", p.fast_axis_deg}});
-    return {{"source_mw", optional_number(b.source_power_mw)}, {"losses", losses},
-            {"left_at_end_fraction", b.power.end_fraction}, {"wave_plates", plates}};
+        plates.push_back({{"id", p.id},
+                          {"retardance_waves", p.retardance_waves},
+                          {"fast_axis_deg", p.fast_axis_deg}});
+    return {{"source_mw", optional_number(b.source_power_mw)},
+            {"losses", losses},
+            {"left_at_end_fraction", b.power.end_fraction},
+            {"wave_plates", plates}};
 }
 
 json target_json(const ReportBeam& b) {
@@ -53,33 +72,44 @@ json target_json(const ReportBeam& b) {
             {"power_mw", optional_number(b.target_power_mw)},
             {"peak_intensity_w_cm2", pulse(b.pulse_at_target, &PulseFigures::peak_intensity_w_cm2)},
             {"peak_fluence_j_cm2", pulse(b.pulse_at_target, &PulseFigures::peak_fluence_j_cm2)},
-            {"peak_intensity_at_waist_w_cm2", pulse(b.pulse_at_waist, &PulseFigures::peak_intensity_w_cm2)},
+            {"peak_intensity_at_waist_w_cm2",
+             pulse(b.pulse_at_waist, &PulseFigures::peak_intensity_w_cm2)},
             {"polarization", polarization_json(b)}};
 }
 
 json mismatch_json(const Mismatch& m, const std::optional<double>& confocal_ratio) {
     return {{"waist_offset_mm", m.waist_offset_mm},
-            {"waist_offset_planes_mm", planes(m.waist_offset_tangential_mm, m.waist_offset_sagittal_mm)},
-            {"waist_ratio", m.waist_ratio}, {"confocal_ratio", optional_number(confocal_ratio)},
-            {"lateral_um", m.lateral_um}, {"angle_mrad", m.angle_mrad}, {"delay_fs", m.delay_fs}};
+            {"waist_offset_planes_mm",
+             planes(m.waist_offset_tangential_mm, m.waist_offset_sagittal_mm)},
+            {"waist_ratio", m.waist_ratio},
+            {"confocal_ratio", optional_number(confocal_ratio)},
+            {"lateral_um", m.lateral_um},
+            {"angle_mrad", m.angle_mrad},
+            {"delay_fs", m.delay_fs}};
 }
 
 // Along a crystal only when the target is one.
 json overlap_json(const OverlapReport& o, bool target_is_crystal) {
     return {{"spatial", o.spatial},
-            {"spatial_along_crystal", target_is_crystal ? json(o.spatial_along_crystal) : json(nullptr)},
-            {"temporal", optional_number(o.temporal)}, {"combined", o.combined}};
+            {"spatial_along_crystal",
+             target_is_crystal ? json(o.spatial_along_crystal) : json(nullptr)},
+            {"temporal", optional_number(o.temporal)},
+            {"combined", o.combined}};
 }
 
 }  // namespace
 
 // `met` is null when the line does not apply (`applies` false: phase without a crystal).
 void to_json(json& j, const VerdictLine& l) {
-    j = {{"applies", l.applies}, {"met", l.applies ? json(l.met) : json(nullptr)}, {"summary", l.summary},
+    j = {{"applies", l.applies},
+         {"met", l.applies ? json(l.met) : json(nullptr)},
+         {"summary", l.summary},
          {"action", optional_text(l.action)}};
 }
 
-void to_json(json& j, const Verdict& v) { j = {{"space", v.space}, {"time", v.time}, {"phase", v.phase}}; }
+void to_json(json& j, const Verdict& v) {
+    j = {{"space", v.space}, {"time", v.time}, {"phase", v.phase}};
+}
 
 json verdict_states_json(const Verdict& v) {
     auto state = [](const VerdictLine& l) { return json(verdict_state_text(l)); };
@@ -92,7 +122,9 @@ json verdict_met_json(const Verdict& v) {
 }
 
 void to_json(json& j, const GroupVelocityMismatch& g) {
-    j = {{"between", g.between}, {"fs_per_mm", g.fs_per_mm}, {"walk_apart_mm", optional_number(g.walk_apart_mm)}};
+    j = {{"between", g.between},
+         {"fs_per_mm", g.fs_per_mm},
+         {"walk_apart_mm", optional_number(g.walk_apart_mm)}};
 }
 
 void to_json(json& j, const PhaseMatchingReport& p) {
@@ -101,26 +133,41 @@ void to_json(json& j, const PhaseMatchingReport& p) {
     const bool indexed = p.outside_index_data.empty();
     auto if_indexed = [&](double v) { return indexed ? json(v) : json(nullptr); };
     auto if_matchable = [&](double v) { return p.phase_matchable ? json(v) : json(nullptr); };
-    auto found = [&](double v) { return p.phase_matchable && p.rotation_found ? json(v) : json(nullptr); };
-    j = {{"process", p.process}, {"type", p.type}, {"output_nm", p.output_nm},
-         {"phase_matchable", p.phase_matchable}, {"theta_pm_deg", if_matchable(p.theta_pm_deg)},
-         {"theta_now_deg", p.theta_now_deg}, {"incidence_now_deg", if_indexed(p.incidence_now_deg)},
+    auto found = [&](double v) {
+        return p.phase_matchable && p.rotation_found ? json(v) : json(nullptr);
+    };
+    j = {{"process", p.process},
+         {"type", p.type},
+         {"output_nm", p.output_nm},
+         {"phase_matchable", p.phase_matchable},
+         {"theta_pm_deg", if_matchable(p.theta_pm_deg)},
+         {"theta_now_deg", p.theta_now_deg},
+         {"incidence_now_deg", if_indexed(p.incidence_now_deg)},
          {"rotation", p.rotation == CrystalRotation::Turn ? "turn" : "tilt"},
          {"incidence_needed_deg", found(p.incidence_needed_deg)},
-         {"rotate_by_deg", found(p.rotate_by_deg)}, {"rotation_axis", optional_text(p.rotation_axis)},
-         {"delta_k_l", if_indexed(p.delta_k_l)}, {"sinc2_now", if_indexed(p.sinc2_now)},
+         {"rotate_by_deg", found(p.rotate_by_deg)},
+         {"rotation_axis", optional_text(p.rotation_axis)},
+         {"delta_k_l", if_indexed(p.delta_k_l)},
+         {"sinc2_now", if_indexed(p.sinc2_now)},
          {"outside_index_data", optional_text(p.outside_index_data)},
          {"walkoff_mrad", if_matchable(p.walkoff_mrad)},
-         {"angular_acceptance_mrad", {{"internal_fwhm", if_matchable(p.angular_acceptance_internal_mrad)},
-                                      {"external_fwhm", if_matchable(p.angular_acceptance_external_mrad)}}},
-         {"spectral_acceptance_fwhm_nm", if_matchable(p.spectral_acceptance_nm)}, {"gvm", p.gvm},
-         {"polarizations_suit", p.polarizations_suit}, {"polarization_note", p.polarization_note}};
+         {"angular_acceptance_mrad",
+          {{"internal_fwhm", if_matchable(p.angular_acceptance_internal_mrad)},
+           {"external_fwhm", if_matchable(p.angular_acceptance_external_mrad)}}},
+         {"spectral_acceptance_fwhm_nm", if_matchable(p.spectral_acceptance_nm)},
+         {"gvm", p.gvm},
+         {"polarizations_suit", p.polarizations_suit},
+         {"polarization_note", p.polarization_note}};
 }
 
 void to_json(json& j, const StageReport& s) {
-    j = {{"id", s.id}, {"beam", s.beam}, {"position_mm", s.position_mm},
-         {"zero_delay_mm", s.zero_delay_mm}, {"zero_in_travel", s.zero_in_travel},
-         {"move_mm", s.move_mm}, {"delay_per_mm_fs", s.delay_per_mm_fs},
+    j = {{"id", s.id},
+         {"beam", s.beam},
+         {"position_mm", s.position_mm},
+         {"zero_delay_mm", s.zero_delay_mm},
+         {"zero_in_travel", s.zero_in_travel},
+         {"move_mm", s.move_mm},
+         {"delay_per_mm_fs", s.delay_per_mm_fs},
          {"measured_zero_mm", optional_number(s.measured_zero_mm)},
          {"emission_offset_fs", optional_number(s.emission_offset_fs)}};
 }
@@ -128,20 +175,29 @@ void to_json(json& j, const StageReport& s) {
 void to_json(json& j, const PolarizationAdvice& a) {
     json plates = json::array();
     for (const PolarizationAdvice::PlateSetting& p : a.plates)
-        plates.push_back({{"id", p.plate}, {"now_deg", p.now_deg}, {"best_deg", p.best_deg},
-                          {"useful_now_fraction", p.useful_now}, {"useful_best_fraction", p.useful_best}});
-    j = {{"beam", a.beam}, {"needs", needed_polarization_text(a)},
-         {"useful_fraction", a.useful_fraction}, {"useful_mw", optional_number(a.useful_mw)},
+        plates.push_back({{"id", p.plate},
+                          {"now_deg", p.now_deg},
+                          {"best_deg", p.best_deg},
+                          {"useful_now_fraction", p.useful_now},
+                          {"useful_best_fraction", p.useful_best}});
+    j = {{"beam", a.beam},
+         {"needs", needed_polarization_text(a)},
+         {"useful_fraction", a.useful_fraction},
+         {"useful_mw", optional_number(a.useful_mw)},
          {"plate", optional_text(a.plate)},
          {"plate_now_deg", optional_number(a.plate_now_deg)},
          {"plate_best_deg", optional_number(a.plate_best_deg)},
          {"useful_fraction_best", optional_number(a.useful_fraction_best)},
          {"useful_mw_best", optional_number(a.useful_mw_best)},
-         {"action", optional_text(polarization_advice_text(a))}, {"wave_plates", plates}};
+         {"action", optional_text(polarization_advice_text(a))},
+         {"wave_plates", plates}};
 }
 
 void to_json(json& j, const FocusingReport& f) {
-    j = {{"beam", f.beam}, {"xi", f.xi}, {"h_m", f.h_m}, {"sigma_m", f.sigma_m},
+    j = {{"beam", f.beam},
+         {"xi", f.xi},
+         {"h_m", f.h_m},
+         {"sigma_m", f.sigma_m},
          {"walkoff_parameter", f.walkoff_parameter}};
 }
 
@@ -150,12 +206,15 @@ void to_json(json& j, const ReportBeam& b) {
     for (size_t i = 0; i < b.path.hits.size(); ++i) {
         const TraceHit& h = b.path.hits[i];
         const BeamAtHit& w = b.caustic.at_hits[i];
-        elements.push_back({{"id", b.element_ids[i]}, {"s_mm", h.s_mm},
+        elements.push_back({{"id", b.element_ids[i]},
+                            {"s_mm", h.s_mm},
                             {"radius_um", planes(w.radius_tangential_um, w.radius_sagittal_um)},
                             {"clipping", w.clipped_fraction}});
     }
-    j = {{"wavelength_nm", b.wavelength_nm}, {"reaches_target", b.at_target.reached},
-         {"elements", elements}, {"unconverted_light", after_target_text(b)}};
+    j = {{"wavelength_nm", b.wavelength_nm},
+         {"reaches_target", b.at_target.reached},
+         {"elements", elements},
+         {"unconverted_light", after_target_text(b)}};
     if (b.at_target.reached) {
         j["path_mm"] = b.at_target.path_mm;
         j["arrival_fs"] = b.at_target.arrival_fs;
@@ -183,7 +242,8 @@ void to_json(json& j, const RendezvousReport& r) {
     j["warnings"] = warnings;
     json unconverted = json::array();
     for (const ReportBeam& b : r.beams) unconverted.push_back(b.id + ": " + after_target_text(b));
-    j["safety"] = {{"invisible", r.invisible}, {"unconverted", unconverted}, {"cautions", safety_cautions()}};
+    j["safety"] = {
+        {"invisible", r.invisible}, {"unconverted", unconverted}, {"cautions", safety_cautions()}};
 }
 
 }  // namespace rv

@@ -21,7 +21,8 @@ const std::vector<std::string>& safety_cautions() {
 
 const std::string& safety_short_notice() {
     static const std::string notice =
-        "Planning aid only: no exposure limits. Follow your laser safety officer, IEC 60825-1 and ANSI Z136.1.";
+        "Planning aid only: no exposure limits. Follow your laser safety officer, IEC 60825-1 and "
+        "ANSI Z136.1.";
     return notice;
 }
 

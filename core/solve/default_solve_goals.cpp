@@ -2,15 +2,28 @@
 
 #include <algorithm>
 
+#include "layout/visit.hpp"
 #include "trace/trace.hpp"
 
 namespace rv {
 
 namespace {
+// Whether the kind changes a beam's focus (what the default goals may move); one function per
+// kind, a new kind must say.
 bool focusing(const ElementKind& kind) {
-    if (std::holds_alternative<Lens>(kind)) return true;
-    const auto* m = std::get_if<Mirror>(&kind);
-    return m && m->radius_of_curvature_mm;
+    return std::visit(overloaded{
+                          [](const Lens&) { return true; },
+                          [](const Mirror& m) { return m.radius_of_curvature_mm.has_value(); },
+                          // flat faces and slabs shift a focus but are not moved to set it
+                          [](const Dichroic&) { return false; },
+                          [](const Plate&) { return false; },
+                          [](const Retroreflector&) { return false; },
+                          [](const Stage&) { return false; },
+                          [](const Crystal&) { return false; },
+                          [](const Target&) { return false; },
+                          [](const Dump&) { return false; },
+                      },
+                      kind);
 }
 }  // namespace
 

@@ -5,6 +5,7 @@
 #include <optional>
 
 #include "analysis/crystal_waves.hpp"
+#include "layout/visit.hpp"
 #include "trace/propagate.hpp"
 
 namespace rv {
@@ -23,14 +24,19 @@ struct Family {
 
 Family family_of(const CatalogLens& c) {
     Family f{c.lens.model.index(), c.focal_length_mm, "", "", 0};
-    if (const auto* t = std::get_if<ThinChromaticLens>(&c.lens.model)) {
-        f.glass = t->glass;
-        f.design_wavelength_nm = t->design_wavelength_nm;
-    } else if (const auto* t = std::get_if<ThickLens>(&c.lens.model)) {
-        f.glass = t->glass;
-        f.shape = t->shape;
-        f.design_wavelength_nm = t->design_wavelength_nm;
-    }
+    std::visit(overloaded{
+                   [](const IdealLens&) {},
+                   [&](const ThinChromaticLens& t) {
+                       f.glass = t.glass;
+                       f.design_wavelength_nm = t.design_wavelength_nm;
+                   },
+                   [&](const ThickLens& t) {
+                       f.glass = t.glass;
+                       f.shape = t.shape;
+                       f.design_wavelength_nm = t.design_wavelength_nm;
+                   },
+               },
+               c.lens.model);
     return f;
 }
 

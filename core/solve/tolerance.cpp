@@ -7,6 +7,7 @@
 #include "analysis/crystal_waves.hpp"
 #include "analysis/verdict_rules.hpp"
 #include "analysis/target_summary.hpp"
+#include "layout/visit.hpp"
 #include "trace/poses.hpp"
 #include "trace/trace.hpp"
 #include "units/constants.hpp"
@@ -28,6 +29,31 @@ struct SplitMix64 {
     double uniform_symmetric() { return 2.0 * static_cast<double>(next() >> 11) * 0x1.0p-53 - 1.0; }  // [−1, 1)
 };
 
+// The build errors of each kind, and whether a sample changes the kind's own fields (a lens's
+// focal length, a stage's position, a crystal's tilt: reset from the base before each sample).
+// One function per kind: a new kind must say.
+struct KindErrors {
+    bool stage = false;         // a stage: its repeatability, instead of a place and an angle
+    bool angle = true;          // turned in the table plane
+    bool focal_length = false;  // a lens: its focal length
+    bool fields_change = true;
+};
+KindErrors kind_errors(const ElementKind& kind) {
+    return std::visit(overloaded{
+                          [](const Lens&) { return KindErrors{.focal_length = true}; },
+                          [](const Mirror&) { return KindErrors{.fields_change = false}; },
+                          [](const Dichroic&) { return KindErrors{.fields_change = false}; },
+                          [](const Plate&) { return KindErrors{.fields_change = false}; },
+                          [](const Retroreflector&) { return KindErrors{}; },
+                          [](const Stage&) { return KindErrors{.stage = true}; },
+                          [](const Crystal&) { return KindErrors{}; },
+                          // A target is a plane across the beam: its angle does not move the foci.
+                          [](const Target&) { return KindErrors{.angle = false}; },
+                          [](const Dump&) { return KindErrors{}; },
+                      },
+                      kind);
+}
+
 Spread spread(std::vector<double> v) {
     if (v.empty()) return {};
     std::sort(v.begin(), v.end());
@@ -47,7 +73,8 @@ std::vector<Perturbation> perturbations(const Layout& layout, const MaterialLibr
     std::vector<Perturbation> out;
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
-        if (std::holds_alternative<Stage>(e.kind)) {
+        const KindErrors errors = kind_errors(e.kind);
+        if (errors.stage) {
             if (t.stage_mm > 0) out.push_back({i, Perturbation::Kind::Stage, {1, 0}, t.stage_mm, e.id + " stage position"});
             continue;
         }
@@ -57,9 +84,9 @@ std::vector<Perturbation> perturbations(const Layout& layout, const MaterialLibr
                 if (h.element == i && !dir) dir = h.direction_in;
         if (!dir) continue;  // no beam meets it: its errors change nothing
         if (t.position_mm > 0) out.push_back({i, Perturbation::Kind::Position, *dir, t.position_mm, e.id + " position"});
-        if (t.angle_mrad > 0 && !std::holds_alternative<Target>(e.kind))
+        if (t.angle_mrad > 0 && errors.angle)
             out.push_back({i, Perturbation::Kind::Angle, *dir, t.angle_mrad, e.id + " angle"});
-        if (t.focal_length_fraction > 0 && std::holds_alternative<Lens>(e.kind))
+        if (t.focal_length_fraction > 0 && errors.focal_length)
             out.push_back({i, Perturbation::Kind::FocalLength, *dir, t.focal_length_fraction, e.id + " focal length"});
     }
     return out;
@@ -74,13 +101,18 @@ void apply_perturbation(Layout& l, const Perturbation& p, double amount) {
         case Perturbation::Kind::Stage: std::get<Stage>(e.kind).position_mm += amount; break;
         case Perturbation::Kind::FocalLength: {
             Lens& lens = std::get<Lens>(e.kind);
-            if (auto* i = std::get_if<IdealLens>(&lens.model)) i->focal_length_mm *= 1 + amount;
-            else if (auto* c = std::get_if<ThinChromaticLens>(&lens.model)) c->focal_length_mm *= 1 + amount;
-            else {
-                ThickLens& k = std::get<ThickLens>(lens.model);
-                k.front_radius_mm *= 1 + amount;
-                k.back_radius_mm *= 1 + amount;
-            }
+            const double scale = 1 + amount;
+            std::visit(overloaded{
+                           [&](IdealLens& i) { i.focal_length_mm *= scale; },
+                           [&](ThinChromaticLens& c) { c.focal_length_mm *= scale; },
+                           // Both radii scaled: the lensmaker's focal length scales with them
+                           // (thickness aside).
+                           [&](ThickLens& k) {
+                               k.front_radius_mm *= scale;
+                               k.back_radius_mm *= scale;
+                           },
+                       },
+                       lens.model);
             break;
         }
     }
@@ -131,9 +163,7 @@ std::vector<Judgement> run_samples(const SampleRun& run, const std::vector<size_
                     const Element& b = run.base.elements[i];
                     e.at_mm = b.at_mm;
                     e.normal_deg = b.normal_deg;
-                    if (!std::holds_alternative<Mirror>(e.kind) && !std::holds_alternative<Plate>(e.kind) &&
-                        !std::holds_alternative<Dichroic>(e.kind))
-                        e.kind = b.kind;  // focal lengths, stage positions, crystal tilts
+                    if (kind_errors(e.kind).fields_change) e.kind = b.kind;  // focal lengths, stage positions, crystal tilts
                 }
                 for (size_t k = 0; k < run.perts.size(); ++k) {
                     const double u = rng.uniform_symmetric();

@@ -17,7 +17,8 @@ namespace {
 
 using nlohmann::json;
 
-const char* const kBundled[] = {"sfg-bbo.json", "pump-probe.json", "shg-single.json", "two-beam-microscope.json"};
+const char* const kBundled[] = {"sfg-bbo.json", "pump-probe.json", "shg-single.json",
+                                "two-beam-microscope.json"};
 
 // A JSON number read back equals the model's double exactly (nlohmann writes the shortest text
 // that reads back to the same double).
@@ -27,17 +28,23 @@ void check_planes(const json& j, double tangential, double sagittal) {
 }
 
 void check_optional(const json& j, const std::optional<double>& v) {
-    if (v) CHECK(j.get<double>() == *v);
-    else CHECK(j.is_null());
+    if (v)
+        CHECK(j.get<double>() == *v);
+    else
+        CHECK(j.is_null());
 }
 
 void check_line(const json& j, const rv::VerdictLine& l) {
     CHECK(j.at("applies").get<bool>() == l.applies);
-    if (l.applies) CHECK(j.at("met").get<bool>() == l.met);
-    else CHECK(j.at("met").is_null());
+    if (l.applies)
+        CHECK(j.at("met").get<bool>() == l.met);
+    else
+        CHECK(j.at("met").is_null());
     CHECK(j.at("summary").get<std::string>() == l.summary);
-    if (l.action.empty()) CHECK(j.at("action").is_null());
-    else CHECK(j.at("action").get<std::string>() == l.action);
+    if (l.action.empty())
+        CHECK(j.at("action").is_null());
+    else
+        CHECK(j.at("action").get<std::string>() == l.action);
 }
 
 void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout) {
@@ -47,15 +54,18 @@ void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout
     REQUIRE(elements.size() == b.path.hits.size());
     for (size_t i = 0; i < b.path.hits.size(); ++i) {
         // The id straight from the layout, not from the report's copy of it.
-        CHECK(elements[i].at("id").get<std::string>() == layout.elements[b.path.hits[i].element].id);
+        CHECK(elements[i].at("id").get<std::string>() ==
+              layout.elements[b.path.hits[i].element].id);
         CHECK(elements[i].at("s_mm").get<double>() == b.path.hits[i].s_mm);
         CHECK(elements[i].at("clipping").get<double>() == b.caustic.at_hits[i].clipped_fraction);
         check_planes(elements[i].at("radius_um"), b.caustic.at_hits[i].radius_tangential_um,
                      b.caustic.at_hits[i].radius_sagittal_um);
     }
     const double source_mw = layout.beams[b.path.beam].power_mw;
-    if (source_mw > 0) CHECK(j.at("power").at("source_mw").get<double>() == source_mw);
-    else CHECK(j.at("power").at("source_mw").is_null());
+    if (source_mw > 0)
+        CHECK(j.at("power").at("source_mw").get<double>() == source_mw);
+    else
+        CHECK(j.at("power").at("source_mw").is_null());
     CHECK(j.at("power").at("losses").size() == b.power.losses.size());
     if (!b.at_target.reached) {
         CHECK_FALSE(j.contains("target"));
@@ -67,7 +77,8 @@ void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout
     const json& at = j.at("target");
     check_planes(at.at("radius_um"), t.tangential.radius_um, t.sagittal.radius_um);
     check_planes(at.at("waist_um"), t.tangential.waist_um, t.sagittal.waist_um);
-    check_planes(at.at("waist_offset_mm"), t.tangential.waist_offset_mm, t.sagittal.waist_offset_mm);
+    check_planes(at.at("waist_offset_mm"), t.tangential.waist_offset_mm,
+                 t.sagittal.waist_offset_mm);
     check_planes(at.at("rayleigh_mm"), t.tangential.rayleigh_mm, t.sagittal.rayleigh_mm);
     check_planes(at.at("confocal_mm"), b.confocal_tangential_mm, b.confocal_sagittal_mm);
     CHECK(at.at("hit_mm")[0].get<double>() == t.hit_mm.x());
@@ -77,7 +88,8 @@ void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout
     check_optional(at.at("power_mw"), b.target_power_mw);
     if (b.power.reached) CHECK(at.at("power_fraction").get<double>() == b.power.at_target[0]);
     if (b.pulse_at_target)
-        CHECK(at.at("peak_intensity_w_cm2").get<double>() == b.pulse_at_target->peak_intensity_w_cm2);
+        CHECK(at.at("peak_intensity_w_cm2").get<double>() ==
+              b.pulse_at_target->peak_intensity_w_cm2);
 }
 
 void check_process(const json& j, const rv::PhaseMatchingReport& p) {
@@ -86,7 +98,8 @@ void check_process(const json& j, const rv::PhaseMatchingReport& p) {
     CHECK(j.at("output_nm").get<double>() == p.output_nm);
     CHECK(j.at("phase_matchable").get<bool>() == p.phase_matchable);
     CHECK(j.at("theta_now_deg").get<double>() == p.theta_now_deg);
-    CHECK(j.at("rotation").get<std::string>() == (p.rotation == rv::CrystalRotation::Turn ? "turn" : "tilt"));
+    CHECK(j.at("rotation").get<std::string>() ==
+          (p.rotation == rv::CrystalRotation::Turn ? "turn" : "tilt"));
     if (p.outside_index_data.empty()) {
         CHECK(j.at("delta_k_l").get<double>() == p.delta_k_l);
         CHECK(j.at("sinc2_now").get<double>() == p.sinc2_now);
@@ -94,13 +107,16 @@ void check_process(const json& j, const rv::PhaseMatchingReport& p) {
     if (p.phase_matchable) {
         CHECK(j.at("theta_pm_deg").get<double>() == p.theta_pm_deg);
         CHECK(j.at("walkoff_mrad").get<double>() == p.walkoff_mrad);
-        CHECK(j.at("angular_acceptance_mrad").at("internal_fwhm").get<double>() == p.angular_acceptance_internal_mrad);
+        CHECK(j.at("angular_acceptance_mrad").at("internal_fwhm").get<double>() ==
+              p.angular_acceptance_internal_mrad);
         CHECK(j.at("spectral_acceptance_fwhm_nm").get<double>() == p.spectral_acceptance_nm);
     } else {
         CHECK(j.at("theta_pm_deg").is_null());
     }
-    if (p.phase_matchable && p.rotation_found) CHECK(j.at("rotate_by_deg").get<double>() == p.rotate_by_deg);
-    else CHECK(j.at("rotate_by_deg").is_null());
+    if (p.phase_matchable && p.rotation_found)
+        CHECK(j.at("rotate_by_deg").get<double>() == p.rotate_by_deg);
+    else
+        CHECK(j.at("rotate_by_deg").is_null());
     REQUIRE(j.at("gvm").size() == p.gvm.size());
     for (size_t k = 0; k < p.gvm.size(); ++k) {
         CHECK(j.at("gvm")[k].at("between").get<std::string>() == p.gvm[k].between);
@@ -141,7 +157,8 @@ TEST_CASE("the report's JSON read back holds the model's numbers", "[report][jso
             CHECK(j.at("overlap").at("combined").get<double>() == r.overlap->combined);
             check_optional(j.at("overlap").at("temporal"), r.overlap->temporal);
             if (r.target_is_crystal)
-                CHECK(j.at("overlap").at("spatial_along_crystal").get<double>() == r.overlap->spatial_along_crystal);
+                CHECK(j.at("overlap").at("spatial_along_crystal").get<double>() ==
+                      r.overlap->spatial_along_crystal);
             else
                 CHECK(j.at("overlap").at("spatial_along_crystal").is_null());
         }
@@ -163,8 +180,10 @@ TEST_CASE("the report's JSON read back holds the model's numbers", "[report][jso
         REQUIRE(j.at("polarization").size() == r.polarization.size());
         for (size_t k = 0; k < r.polarization.size(); ++k) {
             CHECK(j.at("polarization")[k].at("beam").get<std::string>() == r.polarization[k].beam);
-            CHECK(j.at("polarization")[k].at("useful_fraction").get<double>() == r.polarization[k].useful_fraction);
-            check_optional(j.at("polarization")[k].at("plate_best_deg"), r.polarization[k].plate_best_deg);
+            CHECK(j.at("polarization")[k].at("useful_fraction").get<double>() ==
+                  r.polarization[k].useful_fraction);
+            check_optional(j.at("polarization")[k].at("plate_best_deg"),
+                           r.polarization[k].plate_best_deg);
         }
         REQUIRE(j.at("focusing").size() == r.focusing.size());
         for (size_t k = 0; k < r.focusing.size(); ++k) {
@@ -173,14 +192,17 @@ TEST_CASE("the report's JSON read back holds the model's numbers", "[report][jso
         }
         REQUIRE(j.at("warnings").size() == r.findings.size());
         for (size_t k = 0; k < r.findings.size(); ++k)
-            CHECK(j.at("warnings")[k].at("code").get<std::string>() == rv::finding_code(r.findings[k].kind));
+            CHECK(j.at("warnings")[k].at("code").get<std::string>() ==
+                  rv::finding_code(r.findings[k].kind));
         CHECK(j.at("safety").at("invisible").get<std::vector<std::string>>() == r.invisible);
-        CHECK(j.at("safety").at("cautions").get<std::vector<std::string>>() == rv::safety_cautions());
+        CHECK(j.at("safety").at("cautions").get<std::vector<std::string>>() ==
+              rv::safety_cautions());
         CHECK(j.at("safety").at("unconverted").size() == r.beams.size());
     }
 }
 
-TEST_CASE("the text and Markdown reports print every verdict line finding and caution", "[report][text]") {
+TEST_CASE("the text and Markdown reports print every verdict line finding and caution",
+          "[report][text]") {
     for (const char* file : kBundled) {
         CAPTURE(file);
         const rv::Layout layout = rv::test::bundled_layout(file);

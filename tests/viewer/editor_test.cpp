@@ -190,6 +190,26 @@ TEST_CASE("Delete removes the selection and Ctrl+D duplicates it", "[viewer][edi
     CHECK(doc.layout().elements.size() == n + 1);
 }
 
+TEST_CASE("the Add menu offers the kinds with window defaults and refuses the others", "[viewer][edit]") {
+    // The kinds the window could add before the menu was derived from ElementKind, in its order.
+    CHECK(rv::ui::addable_element_types() == std::vector<std::string>{"lens", "mirror", "plate", "target", "dump"});
+    rv::edit::Document doc(demo());
+    rv::ui::EditorState ed;
+    const size_t n = doc.layout().elements.size();
+    rv::ui::add_element(doc, ed, "mirror", {100, 100});
+    REQUIRE(doc.layout().elements.size() == n + 1);
+    CHECK(std::holds_alternative<rv::Mirror>(doc.layout().elements.back().kind));
+    CHECK(doc.layout().elements.back().normal_deg == 135);
+    CHECK(ed.status == "added " + doc.layout().elements.back().id);
+    // A stage needs what it carries, an unknown name is no kind: nothing added (before, an
+    // unknown name became a target).
+    for (const char* type : {"stage", "prism"}) {
+        rv::ui::add_element(doc, ed, type, {100, 100});
+        CHECK(doc.layout().elements.size() == n + 1);
+        CHECK(ed.status == std::string("cannot add a ") + type + " from the window");
+    }
+}
+
 TEST_CASE("save is atomic and the recovery file restores unsaved edits", "[viewer][edit]") {
     const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-editor-test";
     std::filesystem::create_directories(dir);

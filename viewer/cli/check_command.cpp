@@ -10,6 +10,7 @@
 #include "cli/load.hpp"
 #include "findings/finding_json.hpp"
 #include "io/layout_reader.hpp"
+#include "layout/visit.hpp"
 
 namespace rv::cli {
 
@@ -22,10 +23,20 @@ std::string element_location(const Layout& layout, const Finding& f) {
         if (layout.elements[i].id != f.element) continue;
         std::string pointer = "/elements/" + std::to_string(i);
         if (f.kind == Finding::Kind::MaterialOutOfRange || f.kind == Finding::Kind::NoRealIndex) {
-            const ElementKind& k = layout.elements[i].kind;
-            pointer += std::holds_alternative<Dichroic>(k) ? "/substrate/glass"
-                       : std::holds_alternative<Lens>(k)   ? "/glass"
-                                                           : "/material";
+            // The key that names the material, per kind (a new kind must say).
+            pointer += std::visit(overloaded{
+                                      [](const Lens&) { return "/glass"; },
+                                      [](const Dichroic&) { return "/substrate/glass"; },
+                                      [](const Plate&) { return "/material"; },
+                                      [](const Crystal&) { return "/material"; },
+                                      // no material of their own: the element itself
+                                      [](const Mirror&) { return ""; },
+                                      [](const Retroreflector&) { return ""; },
+                                      [](const Stage&) { return ""; },
+                                      [](const Target&) { return ""; },
+                                      [](const Dump&) { return ""; },
+                                  },
+                                  layout.elements[i].kind);
         }
         return pointer + " (" + f.element + ")";
     }

@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "polarization/polarization_model.hpp"
+#include "layout/visit.hpp"
 #include "trace/poses.hpp"
 #include "units/constants.hpp"
 
@@ -47,13 +48,13 @@ void add_element(Scene& s, const Element& e, const ElementPose& pose) {
         Vec2 at, n, t;
         double a;
         void operator()(const Lens& l) const {
-            double f = 0;
-            if (const auto* i = std::get_if<IdealLens>(&l.model)) f = i->focal_length_mm;
-            else if (const auto* c = std::get_if<ThinChromaticLens>(&l.model)) f = c->focal_length_mm;
-            else {  // the sign of the lensmaker's 1/R1 − 1/R2
-                const ThickLens& k = std::get<ThickLens>(l.model);
-                f = 1 / k.front_radius_mm - 1 / k.back_radius_mm;
-            }
+            const double f = std::visit(overloaded{
+                                            [](const IdealLens& i) { return i.focal_length_mm; },
+                                            [](const ThinChromaticLens& c) { return c.focal_length_mm; },
+                                            // the sign of the lensmaker's 1/R1 − 1/R2
+                                            [](const ThickLens& k) { return 1 / k.front_radius_mm - 1 / k.back_radius_mm; },
+                                        },
+                                        l.model);
             s.shapes.push_back(line({at + a * t, at - a * t}, kOptic, 0.8));
             // Arrowheads: outward for a converging lens, inward for a diverging one.
             const double h = f > 0 ? 2.5 : -2.5;

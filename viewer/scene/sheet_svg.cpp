@@ -5,6 +5,7 @@
 #include <cstdio>
 #include <sstream>
 
+#include "layout/visit.hpp"
 #include "scene/svg_writer.hpp"
 #include "scene/wavelength_colour.hpp"
 
@@ -54,8 +55,12 @@ std::vector<Vec2> footprint(const Element& e, const Vec2& at, const Vec2& n) {
         Vec2 at, n;
         double a;
         std::vector<Vec2> operator()(const Lens& l) const {
-            const auto* thick = std::get_if<ThickLens>(&l.model);
-            const double d = thick ? std::max(thick->center_thickness_mm, 2.0) : 4.0;
+            const double d = std::visit(overloaded{
+                                            [](const IdealLens&) { return 4.0; },
+                                            [](const ThinChromaticLens&) { return 4.0; },
+                                            [](const ThickLens& t) { return std::max(t.center_thickness_mm, 2.0); },
+                                        },
+                                        l.model);
             return slab(at, n, a, -d / 2, d / 2);
         }
         std::vector<Vec2> operator()(const Mirror&) const {

@@ -6,6 +6,8 @@
 #include <cmath>
 #include <cstdio>
 
+#include "layout/element_kinds.hpp"
+#include "layout/visit.hpp"
 #include "trace/poses.hpp"
 #include "ui/keys.hpp"
 #include "units/constants.hpp"
@@ -185,20 +187,60 @@ void rotate_selected(edit::Document& doc, EditorState& s, double degrees) {
     doc.edit(std::move(next));
 }
 
+namespace {
+
+// What the Add menu makes of each kind: its defaults (a 100 mm ideal lens, a flat mirror at 135°, a
+// 3 mm fused-silica window, a dump facing −x, a target plane) and the prefix of its id; nullopt for
+// a kind the window does not add yet (it needs a material, a pairing or what it carries). One
+// function per kind: a new kind must say.
+struct NewElement {
+    ElementKind kind;
+    double normal_deg = 0;
+    std::string id_prefix;
+};
+std::optional<NewElement> new_element_of(const ElementKind& kind) {
+    return std::visit(overloaded{
+                          [](const Lens&) -> std::optional<NewElement> {
+                              return NewElement{Lens{IdealLens{100.0}}, 0, "L"};
+                          },
+                          [](const Mirror&) -> std::optional<NewElement> { return NewElement{Mirror{}, 135, "M"}; },
+                          [](const Plate&) -> std::optional<NewElement> {
+                              Plate plate;
+                              plate.slab = Slab{"fused-silica", 3.0};
+                              return NewElement{plate, 0, "P"};
+                          },
+                          [](const Target&) -> std::optional<NewElement> { return NewElement{Target{}, 0, "T"}; },
+                          [](const Dump&) -> std::optional<NewElement> { return NewElement{Dump{}, 180, "D"}; },
+                          [](const Dichroic&) -> std::optional<NewElement> { return std::nullopt; },
+                          [](const Retroreflector&) -> std::optional<NewElement> { return std::nullopt; },
+                          [](const Stage&) -> std::optional<NewElement> { return std::nullopt; },
+                          [](const Crystal&) -> std::optional<NewElement> { return std::nullopt; },
+                      },
+                      kind);
+}
+
+}  // namespace
+
+std::vector<std::string> addable_element_types() {
+    std::vector<std::string> out;
+    for (const std::string& type : element_type_names())
+        if (new_element_of(*element_kind_named(type))) out.push_back(type);
+    return out;
+}
+
 void add_element(edit::Document& doc, EditorState& s, const std::string& type, const Vec2& at_mm) {
+    const std::optional<ElementKind> kind = element_kind_named(type);
+    const std::optional<NewElement> made = kind ? new_element_of(*kind) : std::nullopt;
+    if (!made) {
+        s.status = "cannot add a " + type + " from the window";
+        return;
+    }
     Layout next = doc.layout();
     Element e;
     e.at_mm = snapped(at_mm, next.table.grid_mm);
-    if (type == "lens") e.kind = Lens{IdealLens{100.0}};
-    else if (type == "mirror") e.kind = Mirror{}, e.normal_deg = 135;
-    else if (type == "plate") {
-        Plate plate;
-        plate.slab = Slab{"fused-silica", 3.0};
-        e.kind = plate;
-    }
-    else if (type == "dump") e.kind = Dump{}, e.normal_deg = 180;
-    else e.kind = Target{};
-    e.id = unused_id(next, type == "lens" ? "L" : type == "mirror" ? "M" : type == "plate" ? "P" : type == "dump" ? "D" : "T");
+    e.kind = made->kind;
+    e.normal_deg = made->normal_deg;
+    e.id = unused_id(next, made->id_prefix);
     next.elements.push_back(e);
     doc.edit(std::move(next));
     select(doc, s, doc.layout().elements.size() - 1);

@@ -6,6 +6,7 @@
 // which rebuilds the report and the scene.
 #include <optional>
 #include <string>
+#include <vector>
 
 #include "edit/document.hpp"
 #include "ui/view.hpp"
@@ -61,6 +62,10 @@ void select(const edit::Document& doc, EditorState& state, std::optional<size_t>
 void delete_selected(edit::Document& doc, EditorState& state);
 void duplicate_selected(edit::Document& doc, EditorState& state);
 void rotate_selected(edit::Document& doc, EditorState& state, double degrees);
+// Adds an element of a kind by its type name ("lens", …) with the window's defaults, selected;
+// a type the window cannot add is refused in state.status.
 void add_element(edit::Document& doc, EditorState& state, const std::string& type, const Vec2& at_mm);
+// The type names the Add menu offers, in ElementKind's order.
+std::vector<std::string> addable_element_types();
 
 }  // namespace rv::ui

@@ -104,8 +104,8 @@ void draw_menu_bar(ViewerState& st) {
         ImGui::EndMenu();
     }
     if (ImGui::BeginMenu("Add", free)) {
-        for (const char* type : {"lens", "mirror", "plate", "target", "dump"})
-            if (ImGui::MenuItem(type)) add_element(doc, ed, type, st.last_view.centre_mm);
+        for (const std::string& type : addable_element_types())
+            if (ImGui::MenuItem(type.c_str())) add_element(doc, ed, type, st.last_view.centre_mm);
         ImGui::EndMenu();
     }
     if (ImGui::BeginMenu("View")) {

@@ -9,6 +9,7 @@
 #include "analysis/phase_setting.hpp"
 #include "io/layout_reader.hpp"
 #include "layout/process_text.hpp"
+#include "layout/visit.hpp"
 
 namespace rv::ui {
 
@@ -149,107 +150,125 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
         field("normal", "normal (deg)", &e.normal_deg, "%.3f", doc, st);
         field("aperture", "aperture (mm)", &e.aperture_mm, "%.2f", doc, st);
     }
-    if (auto* lens = std::get_if<Lens>(&e.kind)) {
-        const auto model_before = lens->model;
-        if (auto* ideal = std::get_if<IdealLens>(&lens->model)) field("f", "focal length (mm)", &ideal->focal_length_mm, "%.2f", doc, st);
-        if (auto* thin = std::get_if<ThinChromaticLens>(&lens->model)) {
-            field("f", "focal length (mm)", &thin->focal_length_mm, "%.2f", doc, st);
-            name_field("glass", "glass", &thin->glass, doc, st);
-            field("design", "design wavelength (nm)", &thin->design_wavelength_nm, "%.1f", doc, st);
-        }
-        if (auto* thick = std::get_if<ThickLens>(&lens->model)) {
-            name_field("glass", "glass", &thick->glass, doc, st);
-            if (thick->shape.empty()) {
-                field("r1", "front radius (mm)", &thick->front_radius_mm, "%.2f", doc, st);
-                field("r2", "back radius (mm)", &thick->back_radius_mm, "%.2f", doc, st);
-            } else {
-                ImGui::Text("shape: %s", thick->shape.c_str());
-                field("f", "focal length (mm)", &thick->focal_length_mm, "%.2f", doc, st);
-            }
-            field("ct", "centre thickness (mm)", &thick->center_thickness_mm, "%.2f", doc, st);
-        }
-        // A lens whose numbers or diameter were edited is no longer its catalog part: the id
-        // goes (io/lens_parts.hpp would refuse the disagreement), within the same edit.
-        if (!lens->part.empty()) {
-            ImGui::Text("part: %s", lens->part.c_str());
-            if (!(lens->model == model_before) || e.aperture_mm != aperture_before_mm) {
-                lens->part.clear();
-                if (st.editing) doc.preview(st.scratch);
-                else doc.edit(st.scratch);
-            }
-        }
-    } else if (auto* mirror = std::get_if<Mirror>(&e.kind)) {
-        double radius = mirror->radius_of_curvature_mm.value_or(0);
-        const double before = radius;
-        field("roc", "radius of curvature (mm, 0 flat)", &radius, "%.1f", doc, st);
-        if (radius != before) {  // 0 means flat: edited through the optional
-            mirror->radius_of_curvature_mm = radius == 0 ? std::nullopt : std::optional<double>(radius);
-            if (st.editing) doc.preview(st.scratch);
-        }
-        field("retardance", "s - p phase (deg)", &mirror->retardance_deg, "%.2f", doc, st);
-        if (mirror->aim_at) ImGui::Text("aims at %s", mirror->aim_at->c_str());
-    } else if (auto* stage = std::get_if<Stage>(&e.kind)) {
-        field("position", "position (mm)", &stage->position_mm, "%.3f", doc, st);
-        field("axis", "axis (deg)", &stage->axis_deg, "%.2f", doc, st);
-        field("travel_min", "travel from (mm)", &stage->travel_min_mm, "%.2f", doc, st);
-        field("travel_max", "travel to (mm)", &stage->travel_max_mm, "%.2f", doc, st);
-        std::string carries;
-        for (const std::string& c : stage->carries) carries += (carries.empty() ? "" : ", ") + c;
-        ImGui::TextWrapped("carries %s", carries.c_str());
-    } else if (auto* crystal = std::get_if<Crystal>(&e.kind)) {
-        name_field("material", "material", &crystal->material, doc, st);
-        field("length", "length (mm)", &crystal->length_mm, "%.3f", doc, st);
-        field("cut", "cut angle (deg)", &crystal->cut_deg, "%.3f", doc, st);
-        static const char* const types[] = {"type-I", "type-II"};
-        int type = crystal->phase_matching == Crystal::PhaseMatching::TypeII ? 1 : 0;
-        if (choice_field("phase matching", &type, types, 2)) {
-            crystal->phase_matching = type ? Crystal::PhaseMatching::TypeII : Crystal::PhaseMatching::TypeI;
-            doc.edit(st.scratch);
-        }
-        static const char* const axes[] = {"vertical", "horizontal"};
-        int axis = crystal->optic_axis_horizontal ? 1 : 0;
-        if (choice_field("optic axis plane", &axis, axes, 2)) {
-            crystal->optic_axis_horizontal = axis == 1;
-            doc.edit(st.scratch);
-        }
-        field("tilt", "tilt (deg, + = face normal up)", &crystal->tilt_deg, "%.3f", doc, st);
-        process_buttons(doc, st);
-        field("damage_i", "damage (GW/cm², 0 none)", &crystal->damage.intensity_gw_cm2, "%.1f", doc, st);
-    } else if (auto* plate = std::get_if<Plate>(&e.kind)) {
-        role_field(*plate, doc, st);
-        name_field("material", "material", &plate->slab.material, doc, st);
-        field("thickness", "thickness (mm)", &plate->slab.thickness_mm, "%.3f", doc, st);
-        using R = Plate::Role;
-        if (plate->role == R::HalfWave || plate->role == R::QuarterWave || plate->role == R::Polarizer)
-            field("fast_axis", plate->role == R::Polarizer ? "transmission axis (deg)" : "fast axis (deg)",
-                  &plate->fast_axis_deg, "%.2f", doc, st);
-        if (plate->role == R::HalfWave || plate->role == R::QuarterWave) {
-            field("design", "design wavelength (nm)", &plate->design_nm, "%.1f", doc, st);
-            name_field("retarder", "retarder material", &plate->retarder_material, doc, st);
-        }
-        if (plate->role == R::PolarizingCube || plate->role == R::Polarizer)
-            field("extinction", "extinction ratio", &plate->extinction_ratio, "%.0f", doc, st);
-        if (plate->role == R::PolarizingCube) {
-            static const char* const sides[] = {"left", "right"};
-            int side = plate->reflects_left ? 0 : 1;
-            if (choice_field("reflects to", &side, sides, 2)) {
-                plate->reflects_left = side == 0;
-                doc.edit(st.scratch);
-            }
-        }
-    } else if (auto* dichroic = std::get_if<Dichroic>(&e.kind)) {
-        field("edge", "edge (nm)", &dichroic->edge_nm, "%.1f", doc, st);
-        static const char* const sides[] = {"shorter", "longer"};
-        int side = dichroic->reflects_shorter ? 0 : 1;
-        if (choice_field("reflects", &side, sides, 2)) {
-            dichroic->reflects_shorter = side == 0;
-            doc.edit(st.scratch);
-        }
-        name_field("glass", "substrate glass", &dichroic->substrate.material, doc, st);
-        field("thickness", "substrate (mm)", &dichroic->substrate.thickness_mm, "%.3f", doc, st);
-    } else if (auto* target = std::get_if<Target>(&e.kind)) {
-        field("damage_i", "damage (GW/cm², 0 none)", &target->damage.intensity_gw_cm2, "%.1f", doc, st);
-    }
+    // One set of fields per kind (a visit: a new kind must say what it shows).
+    std::visit(
+        overloaded{
+            [&](Lens& lens) {
+                const auto model_before = lens.model;
+                std::visit(overloaded{
+                               [&](IdealLens& ideal) {
+                                   field("f", "focal length (mm)", &ideal.focal_length_mm, "%.2f", doc, st);
+                               },
+                               [&](ThinChromaticLens& thin) {
+                                   field("f", "focal length (mm)", &thin.focal_length_mm, "%.2f", doc, st);
+                                   name_field("glass", "glass", &thin.glass, doc, st);
+                                   field("design", "design wavelength (nm)", &thin.design_wavelength_nm, "%.1f", doc, st);
+                               },
+                               [&](ThickLens& thick) {
+                                   name_field("glass", "glass", &thick.glass, doc, st);
+                                   if (thick.shape.empty()) {
+                                       field("r1", "front radius (mm)", &thick.front_radius_mm, "%.2f", doc, st);
+                                       field("r2", "back radius (mm)", &thick.back_radius_mm, "%.2f", doc, st);
+                                   } else {
+                                       ImGui::Text("shape: %s", thick.shape.c_str());
+                                       field("f", "focal length (mm)", &thick.focal_length_mm, "%.2f", doc, st);
+                                   }
+                                   field("ct", "centre thickness (mm)", &thick.center_thickness_mm, "%.2f", doc, st);
+                               },
+                           },
+                           lens.model);
+                // A lens whose numbers or diameter were edited is no longer its catalog part: the id
+                // goes (io/lens_parts.hpp would refuse the disagreement), within the same edit.
+                if (!lens.part.empty()) {
+                    ImGui::Text("part: %s", lens.part.c_str());
+                    if (!(lens.model == model_before) || e.aperture_mm != aperture_before_mm) {
+                        lens.part.clear();
+                        if (st.editing) doc.preview(st.scratch);
+                        else doc.edit(st.scratch);
+                    }
+                }
+            },
+            [&](Mirror& mirror) {
+                double radius = mirror.radius_of_curvature_mm.value_or(0);
+                const double before = radius;
+                field("roc", "radius of curvature (mm, 0 flat)", &radius, "%.1f", doc, st);
+                if (radius != before) {  // 0 means flat: edited through the optional
+                    mirror.radius_of_curvature_mm = radius == 0 ? std::nullopt : std::optional<double>(radius);
+                    if (st.editing) doc.preview(st.scratch);
+                }
+                field("retardance", "s - p phase (deg)", &mirror.retardance_deg, "%.2f", doc, st);
+                if (mirror.aim_at) ImGui::Text("aims at %s", mirror.aim_at->c_str());
+            },
+            [&](Stage& stage) {
+                field("position", "position (mm)", &stage.position_mm, "%.3f", doc, st);
+                field("axis", "axis (deg)", &stage.axis_deg, "%.2f", doc, st);
+                field("travel_min", "travel from (mm)", &stage.travel_min_mm, "%.2f", doc, st);
+                field("travel_max", "travel to (mm)", &stage.travel_max_mm, "%.2f", doc, st);
+                std::string carries;
+                for (const std::string& c : stage.carries) carries += (carries.empty() ? "" : ", ") + c;
+                ImGui::TextWrapped("carries %s", carries.c_str());
+            },
+            [&](Crystal& crystal) {
+                name_field("material", "material", &crystal.material, doc, st);
+                field("length", "length (mm)", &crystal.length_mm, "%.3f", doc, st);
+                field("cut", "cut angle (deg)", &crystal.cut_deg, "%.3f", doc, st);
+                static const char* const types[] = {"type-I", "type-II"};
+                int type = crystal.phase_matching == Crystal::PhaseMatching::TypeII ? 1 : 0;
+                if (choice_field("phase matching", &type, types, 2)) {
+                    crystal.phase_matching = type ? Crystal::PhaseMatching::TypeII : Crystal::PhaseMatching::TypeI;
+                    doc.edit(st.scratch);
+                }
+                static const char* const axes[] = {"vertical", "horizontal"};
+                int axis = crystal.optic_axis_horizontal ? 1 : 0;
+                if (choice_field("optic axis plane", &axis, axes, 2)) {
+                    crystal.optic_axis_horizontal = axis == 1;
+                    doc.edit(st.scratch);
+                }
+                field("tilt", "tilt (deg, + = face normal up)", &crystal.tilt_deg, "%.3f", doc, st);
+                process_buttons(doc, st);
+                field("damage_i", "damage (GW/cm², 0 none)", &crystal.damage.intensity_gw_cm2, "%.1f", doc, st);
+            },
+            [&](Plate& plate) {
+                role_field(plate, doc, st);
+                name_field("material", "material", &plate.slab.material, doc, st);
+                field("thickness", "thickness (mm)", &plate.slab.thickness_mm, "%.3f", doc, st);
+                using R = Plate::Role;
+                if (plate.role == R::HalfWave || plate.role == R::QuarterWave || plate.role == R::Polarizer)
+                    field("fast_axis", plate.role == R::Polarizer ? "transmission axis (deg)" : "fast axis (deg)",
+                          &plate.fast_axis_deg, "%.2f", doc, st);
+                if (plate.role == R::HalfWave || plate.role == R::QuarterWave) {
+                    field("design", "design wavelength (nm)", &plate.design_nm, "%.1f", doc, st);
+                    name_field("retarder", "retarder material", &plate.retarder_material, doc, st);
+                }
+                if (plate.role == R::PolarizingCube || plate.role == R::Polarizer)
+                    field("extinction", "extinction ratio", &plate.extinction_ratio, "%.0f", doc, st);
+                if (plate.role == R::PolarizingCube) {
+                    static const char* const sides[] = {"left", "right"};
+                    int side = plate.reflects_left ? 0 : 1;
+                    if (choice_field("reflects to", &side, sides, 2)) {
+                        plate.reflects_left = side == 0;
+                        doc.edit(st.scratch);
+                    }
+                }
+            },
+            [&](Dichroic& dichroic) {
+                field("edge", "edge (nm)", &dichroic.edge_nm, "%.1f", doc, st);
+                static const char* const sides[] = {"shorter", "longer"};
+                int side = dichroic.reflects_shorter ? 0 : 1;
+                if (choice_field("reflects", &side, sides, 2)) {
+                    dichroic.reflects_shorter = side == 0;
+                    doc.edit(st.scratch);
+                }
+                name_field("glass", "substrate glass", &dichroic.substrate.material, doc, st);
+                field("thickness", "substrate (mm)", &dichroic.substrate.thickness_mm, "%.3f", doc, st);
+            },
+            [&](Target& target) {
+                field("damage_i", "damage (GW/cm², 0 none)", &target.damage.intensity_gw_cm2, "%.1f", doc, st);
+            },
+            [](Retroreflector&) {},  // no fields of its own
+            [](Dump&) {},
+        },
+        e.kind);
     if (!std::holds_alternative<Stage>(e.kind)) field("transmission", "transmission", &e.transmission, "%.4f", doc, st);
     // The polarization of each beam after this element (first pass), from the report.
     for (const ReportBeam& b : doc.report().beams)
