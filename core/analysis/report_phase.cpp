@@ -1,0 +1,239 @@
+// Phase matching of each process the crystal can run (nonlinear/phase_matching.hpp): the
+// mixing type the beams' polarizations suit, θ_pm against the angle the beams have now (Δk
+// with the crystal as placed: analysis/phase_now.hpp, shared with the tolerance run), the turn
+// or tilt that reaches θ_pm (analysis/crystal_angle.hpp), walk-off, acceptances and GVM.
+#include <algorithm>
+#include <cmath>
+
+#include "analysis/crystal_angle.hpp"
+#include "analysis/crystal_waves.hpp"
+#include "analysis/phase_now.hpp"
+#include "analysis/report_sections.hpp"
+#include "analysis/verdict_rules.hpp"
+#include "materials/dispersion.hpp"
+#include "nonlinear/phase_matching.hpp"
+#include "trace/crystal_axes.hpp"
+#include "units/constants.hpp"
+#include "units/number_text.hpp"
+
+namespace rv::report_sections {
+
+namespace {
+
+// The crystal's type allows several polarity triples; take the first that phase-matches,
+// preferring one the beams' polarizations suit (a1, a2: fraction of each beam in the A wave).
+MixingType mixing_type(const Material& m, const Crystal& c, double l1, double l2, double a1,
+                       double a2) {
+    using M = MixingType;
+    const std::vector<M> candidates =
+        c.phase_matching == Crystal::PhaseMatching::TypeI
+            ? std::vector<M>{M::TypeI, M::TypeI_BBA}
+            : std::vector<M>{M::TypeII_ABB, M::TypeII_BAB, M::TypeII_ABA, M::TypeII_BAA};
+    auto fits = [&](M t) {
+        const WavePolarities w = polarities(t);
+        return ((w.wave1 == Polarity::A) == (a1 >= 0.5)) &&
+               ((w.wave2 == Polarity::A) == (a2 >= 0.5));
+    };
+    std::optional<M> first;
+    for (M t : candidates) {
+        if (!phase_matching_angle_rad(m, l1, l2, t, c.principal_plane)) continue;
+        if (!first) first = t;
+        if (l1 != l2 && fits(t)) return t;
+    }
+    return first.value_or(candidates.front());
+}
+
+const char* type_text(MixingType t) {
+    switch (t) {
+        case MixingType::TypeI:
+            return "type-I (ooe)";
+        case MixingType::TypeI_BBA:
+            return "type-I (eeo)";
+        case MixingType::TypeII_ABB:
+            return "type-II (oee)";
+        case MixingType::TypeII_BAB:
+            return "type-II (eoe)";
+        case MixingType::TypeII_ABA:
+            return "type-II (oeo)";
+        case MixingType::TypeII_BAA:
+            return "type-II (eoo)";
+    }
+    return "";
+}
+
+// The fraction of a beam's power at the target in the crystal's A (ordinary) wave: from the
+// traced polarization when the power trace ran, else from the source's.
+double a_fraction_at_target(const ReportBeam& b, const BeamSource& src, const Crystal& xc) {
+    const PolarizationState& s = b.at_target_polarization;
+    if (!b.power.reached || !(s.power > 0))
+        return a_wave_fraction(src.polarization, xc.optic_axis_horizontal);
+    return (xc.optic_axis_horizontal ? s.v : s.h) / s.power;
+}
+
+PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, const Crystal& xc,
+                                      const Material& m, const std::vector<ReportBeam>& beams,
+                                      size_t i, size_t j) {
+    const bool shg = i == j;
+    const BeamSource& b1 = layout.beams[i];
+    const BeamSource& b2 = layout.beams[j];
+    const double l1 = b1.wavelength_nm, l2 = b2.wavelength_nm;
+    PhaseMatchingReport r;
+    r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
+    r.sum_frequency = !shg;
+    r.first_beam = i;
+    r.second_beam = j;
+    r.output_nm = sum_frequency_nm(l1, l2);
+    const double a1 = a_fraction_at_target(beams[i], b1, xc);
+    const double a2 = a_fraction_at_target(beams[j], b2, xc);
+    const PrincipalPlane plane = xc.principal_plane;
+    const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
+    r.mixing = type;
+    r.type = type_text(type);
+    const WavePolarities w = polarities(type);
+    r.first_needs_a = w.wave1 == Polarity::A;
+    r.second_needs_a = w.wave2 == Polarity::A;
+    auto suits = [](Polarity need, double a) { return need == Polarity::A ? a >= 0.9 : a <= 0.1; };
+    if (shg && type != MixingType::TypeI && type != MixingType::TypeI_BBA) {
+        r.polarizations_suit = a1 >= 0.4 && a1 <= 0.6;
+        r.polarization_note = b1.id + " needs equal o and e components (linear at 45° to the axes)";
+    } else {
+        r.polarizations_suit = suits(w.wave1, a1) && suits(w.wave2, a2);
+        auto name = [](Polarity p) { return p == Polarity::A ? "o" : "e"; };
+        r.polarization_note =
+            b1.id + " must be " + name(w.wave1) + (shg ? "" : ", " + b2.id + " " + name(w.wave2)) +
+            " (an o wave is polarized " +
+            (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
+    }
+    const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
+    // Geometry (trace/crystal_axes.hpp): the first beam's direction inside at the crystal's
+    // centre plane and the index it was refracted with give the 3-D wave vector and ψ.
+    const CrystalPose pose = crystal_pose(direction_deg(xe.normal_deg), xc);
+    const Path& path = beams[i].path;
+    const bool at_centre = path.target_hit.has_value();
+    const Vec2 d = at_centre ? path.hits[*path.target_hit].direction_in : pose.face_normal;
+    const double index_here = at_centre ? path.hits[*path.target_hit].index_after : 1.0;
+    const PhaseNow now =
+        phase_now(m, l1, l2, type, xe, xc, d, index_here);  // the tolerance run's too
+    r.theta_now_deg = rad_to_deg(now.theta_now_rad);
+    const double length = xc.length_mm;
+    const double dk = now.delta_k_per_mm;
+    if (!std::isfinite(dk)) {
+        std::string where;
+        for (double l : {l1, l2, r.output_nm})
+            if (!std::isfinite(wave_index(m, l, Polarity::A, 0, plane).index +
+                               wave_index(m, l, Polarity::B, kPi / 4, plane).index))
+                where = format_number("%.1f", l) + " nm";
+        r.outside_index_data =
+            m.name + " has no real index at " + (where.empty() ? "a wave of this process" : where) +
+            " (its formula covers " + format_number("%.0f", m.min_wavelength_nm) + "–" +
+            format_number("%.0f", m.max_wavelength_nm) + " nm): no phase-matching figures";
+        return r;
+    }
+    r.delta_k_l = dk * length;
+    r.sinc2_now = phase_factor(r.delta_k_l);
+    // The outside direction in the table plane (Snell at the untilted face).
+    const Vec2 t = perpendicular(pose.face_normal);
+    const double sin_out = std::clamp(index_here * d.dot(t), -1.0, 1.0);
+    const Vec2 outside = std::copysign(std::sqrt(1 - sin_out * sin_out), d.dot(pose.face_normal)) *
+                             pose.face_normal +
+                         sin_out * t;
+    const bool turn = xc.optic_axis_horizontal;
+    r.rotation = turn ? CrystalRotation::Turn : CrystalRotation::Tilt;
+    r.incidence_now_deg =
+        turn ? rad_to_deg(std::atan2(sin_out, std::abs(outside.dot(pose.face_normal))))
+             : xc.tilt_deg;
+    r.incidence_needed_deg = r.incidence_now_deg;
+    if (!pm) return r;
+    r.phase_matchable = true;
+    r.theta_pm_deg = rad_to_deg(*pm);
+    // The first input's index at θ_pm: exact where ψ = θ_pm, which is what is solved for.
+    const double n_1 = wave_index(m, l1, w.wave1, *pm, plane).index;
+    // The optic axis in the table plane is reached by a turn about the vertical axis; in the
+    // vertical plane by a tilt about the horizontal axis across the beam.
+    r.rotation_axis = turn ? "vertical axis (+ = clockwise seen from above)"
+                           : "horizontal axis across the beam (+ = the face normal rises)";
+    const std::optional<double> change = rotation_to_angle_deg(
+        pose, r.rotation, outside, n_1, *pm, turn ? kMaxCrystalTurn_deg : 2 * kMaxCrystalTilt_deg,
+        kMaxCrystalTilt_deg);
+    r.rotation_found = change.has_value();
+    if (change) {
+        r.rotate_by_deg = *change;
+        r.incidence_needed_deg = r.incidence_now_deg + *change;
+    }
+    // Walk-off of the angle-dependent (B) wave: the output, or the input B wave when the
+    // output is an A wave.
+    const double b_lambda =
+        w.wave3 == Polarity::B ? r.output_nm : (w.wave1 == Polarity::B ? l1 : l2);
+    r.walkoff_mrad = 1e3 * std::abs(walkoff_rad(m, b_lambda, *pm, plane));
+    const Acceptance acc = acceptance(m, l1, l2, type, *pm, length, plane);
+    r.angular_acceptance_internal_mrad = acc.angular_internal_fwhm_mrad;
+    r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_1;
+    r.spectral_acceptance_nm = acc.spectral_fwhm_nm;
+    const std::string out = shg ? "SHG" : "SFG";
+    auto walk = [](double tau, double gvm) -> std::optional<double> {
+        if (tau <= 0 || gvm == 0) return std::nullopt;
+        return tau / std::abs(gvm);
+    };
+    const double g31 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 1, plane);
+    r.gvm.push_back({out + "–" + b1.id, g31, walk(b1.pulse_fwhm_fs, g31)});
+    if (!shg) {
+        const double g32 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 2, plane);
+        const double g12 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 1, 2, plane);
+        r.gvm.push_back({out + "–" + b2.id, g32, walk(b2.pulse_fwhm_fs, g32)});
+        const double shorter = std::min(b1.pulse_fwhm_fs, b2.pulse_fwhm_fs);
+        r.gvm.push_back({b1.id + "–" + b2.id, g12, walk(shorter, g12)});
+    }
+    return r;
+}
+
+// The crystal's process among the computed ones (SFG first when both beams reach, then the SHG
+// of each beam that reaches): Auto takes the first.
+std::optional<size_t> chosen_process_index(const Layout& layout, const Crystal& xc,
+                                           const std::vector<PhaseMatchingReport>& processes) {
+    for (size_t k = 0; k < processes.size(); ++k) {
+        const PhaseMatchingReport& p = processes[k];
+        switch (xc.process) {
+            case Crystal::Process::Auto:
+                return k;
+            case Crystal::Process::SumFrequency:
+                if (p.sum_frequency) return k;
+                break;
+            case Crystal::Process::SecondHarmonic:
+                if (!p.sum_frequency && layout.beams[p.first_beam].id == xc.process_beam) return k;
+                break;
+        }
+    }
+    return std::nullopt;
+}
+
+}  // namespace
+
+const Material* nonlinear_material(const MaterialLibrary& library, const TargetElement& target) {
+    if (!target.crystal) return nullptr;
+    const Material* m = library.find(target.crystal->material);
+    return m && m->symmetry != Symmetry::Isotropic ? m : nullptr;
+}
+
+void add_phase_matching(const Layout& layout, const MaterialLibrary& library,
+                        const TargetElement& target, RendezvousReport& r) {
+    const Material* m = nonlinear_material(library, target);
+    if (!m) return;
+    const Crystal& crystal = *target.crystal;
+    // SFG first when both beams reach, then the SHG of each beam that reaches.
+    if (both_reach(r.beams))
+        r.phase_matching.push_back(
+            phase_matching_of(layout, *target.element, crystal, *m, r.beams, 0, 1));
+    for (size_t i = 0; i < r.beams.size(); ++i)
+        if (r.beams[i].at_target.reached)
+            r.phase_matching.push_back(
+                phase_matching_of(layout, *target.element, crystal, *m, r.beams, i, i));
+    // The process the crystal is set for goes first (the verdict and the polarization advice
+    // judge the first); absent when its beams do not reach the crystal.
+    const std::optional<size_t> chosen = chosen_process_index(layout, crystal, r.phase_matching);
+    r.chosen_process_missing = !chosen;
+    if (chosen)
+        std::rotate(r.phase_matching.begin(), r.phase_matching.begin() + *chosen,
+                    r.phase_matching.begin() + *chosen + 1);
+}
+
+}  // namespace rv::report_sections
