@@ -46,7 +46,7 @@ void prepare_crystal_waves(TraceCache& cache, const Layout& layout, const Materi
     if (cache.crystal_polarization_known) return;
     cache.crystal_polarization = arriving_crystal_polarizations(layout, library, trace_layout(layout, library));
     cache.crystal_polarization_known = true;
-    cache.retrace_valid = false;  // traced before with other waves, perhaps
+    cache.retrace.forget();  // traced before with other waves, perhaps
 }
 
 }  // namespace rv

@@ -58,13 +58,12 @@ std::vector<BeamAtTarget> reevaluate(const Layout& layout, const MaterialLibrary
     out.reserve(paths.size());
     for (size_t b = 0; b < paths.size(); ++b) {
         // The memo may start after the kept hits only if it followed the previous retrace's path.
-        TraceCache::Beam& memo = c.beams[b];
-        const size_t unchanged = memo.propagated_at + 1 == c.retraces ? memo.kept_hits : 0;
-        memo.propagated_at = c.retraces;
-        BeamsAtTargetPlane at = propagate_to_target(layout, paths[b], &memo.propagation, unchanged);
+        const size_t unchanged = c.retrace.propagation_restart(b);
+        TargetPropagationMemo& memo = c.retrace.propagation(b);
+        BeamsAtTargetPlane at = propagate_to_target(layout, paths[b], &memo, unchanged);
         if (at.reached && paths[b].ends_at_target &&
             (at.waist_offset_tangential_mm >= 0 || at.waist_offset_sagittal_mm >= 0))
-            at = propagate_to_target(layout, trace_past_target(layout, c, b), &memo.propagation, *paths[b].target_hit);
+            at = propagate_to_target(layout, trace_past_target(layout, c, b), &memo, *paths[b].target_hit);
         out.push_back(beam_at_target(layout, paths[b], at));
     }
     return out;

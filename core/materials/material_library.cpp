@@ -126,35 +126,39 @@ std::vector<Material> published_sets() {
 const MaterialLibrary& MaterialLibrary::builtin() {
     static const MaterialLibrary library = [] {
         MaterialLibrary lib;
-        lib.materials_ = published_sets();
-        lib.aliases_ = {{"CaF2", "CaF2:Malitson1963"}, {"air", "air:Ciddor1996"},
+        Data data;
+        data.materials = published_sets();
+        data.aliases = {{"CaF2", "CaF2:Malitson1963"}, {"air", "air:Ciddor1996"},
                         {"BBO", "BBO:Kato1986"},       {"LBO", "LBO:Chen1989"},
                         {"KTP", "KTP:Kato2002"},       {"quartz", "quartz:Ghosh1999"},
                         {"MgF2", "MgF2:Dodge1984"}};
+        lib.data_ = std::make_shared<const Data>(std::move(data));
         return lib;
     }();
     return library;
 }
 
 const Material* MaterialLibrary::find(std::string_view name) const {
-    for (const Alias& a : aliases_)
+    for (const Alias& a : data_->aliases)
         if (a.family == name) return find(a.default_set);
-    for (const Material& m : materials_)
+    for (const Material& m : data_->materials)
         if (m.name == name) return &m;
     return nullptr;
 }
 
 MaterialLibrary MaterialLibrary::with(Material material) const {
     assert(find(material.name) == nullptr);
-    MaterialLibrary copy = *this;
-    copy.materials_.push_back(std::move(material));
+    Data data = *data_;
+    data.materials.push_back(std::move(material));
+    MaterialLibrary copy;
+    copy.data_ = std::make_shared<const Data>(std::move(data));
     return copy;
 }
 
 std::vector<std::string> MaterialLibrary::names() const {
     std::vector<std::string> out;
-    for (const Material& m : materials_) out.push_back(m.name);
-    for (const Alias& a : aliases_) out.push_back(a.family);
+    for (const Material& m : data_->materials) out.push_back(m.name);
+    for (const Alias& a : data_->aliases) out.push_back(a.family);
     std::sort(out.begin(), out.end());
     return out;
 }

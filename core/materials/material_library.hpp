@@ -5,6 +5,7 @@
 // "FAMILY:SET" ("BBO:Eimerl1987"). User-defined materials are added by id. The library is a
 // value: adding a material returns a new library, the built-in one never changes.
 
+#include <memory>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -28,14 +29,22 @@ public:
     // Every name find() accepts (sets and family aliases), sorted, for messages.
     std::vector<std::string> names() const;
 
-    const std::vector<Material>& materials() const { return materials_; }
+    const std::vector<Material>& materials() const { return data_->materials; }
+
+    // Shared ownership of what find()'s pointers point into. A holder (the trace cache) keeps
+    // them valid for as long as it holds this, and two libraries share it only when one is a
+    // copy of the other: the same storage means the same materials.
+    std::shared_ptr<const void> storage() const { return data_; }
 
 private:
     struct Alias {
         std::string family, default_set;
     };
-    std::vector<Material> materials_;
-    std::vector<Alias> aliases_;
+    struct Data {
+        std::vector<Material> materials;
+        std::vector<Alias> aliases;
+    };
+    std::shared_ptr<const Data> data_ = std::make_shared<const Data>();
 };
 
 // A user-defined isotropic material given in the SCHOTT Sellmeier form

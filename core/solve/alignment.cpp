@@ -428,7 +428,7 @@ Judgement Aligner::align_sample(Layout& l, TraceCache& cache) const {
     // afresh (a retrace marked as not the last trace compares nothing and keeps nothing, without
     // testing every changed element against every other), and records what the alignment's
     // retraces, which name the adjusted elements only, keep.
-    cache.retrace_valid = false;
+    cache.retrace.forget();
     Evaluated e = evaluate(l, cache, adjusted_);
     if (!controls_.empty() && !rows_.empty()) {
         Eigen::VectorXd r;

@@ -26,6 +26,6 @@ int main(int argc, char** argv) {
                                                        : rv::evaluate_beams_at_target(edit.layout, library, &cache);
         delay_sum_fs += rv::mismatch_at_target(at[0], at[1]).delay_fs;
     }
-    std::printf("%ld evaluations, kept hits %zu + %zu, delay sum %.6g fs\n", evaluations, cache.beams[0].kept_hits,
-                cache.beams[1].kept_hits, delay_sum_fs);
+    std::printf("%ld evaluations, kept hits %zu + %zu, delay sum %.6g fs\n", evaluations, cache.kept_hits(0),
+                cache.kept_hits(1), delay_sum_fs);
 }

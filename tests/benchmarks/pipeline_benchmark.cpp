@@ -56,7 +56,7 @@ void run_solver_edit(benchmark::State& state, bool named) {
                                                      : rv::evaluate_beams_at_target(edit.layout, library, &cache);
         benchmark::DoNotOptimize(rv::mismatch_at_target(at[0], at[1]));
     }
-    state.counters["searched_steps"] = static_cast<double>(cache.searched_steps);
+    state.counters["searched_steps"] = static_cast<double>(cache.counters.searched_steps);
 }
 void DemoEvaluateCached(benchmark::State& state) { run_solver_edit(state, false); }
 void DemoEvaluateEdited(benchmark::State& state) { run_solver_edit(state, true); }

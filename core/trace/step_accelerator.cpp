@@ -1,0 +1,64 @@
+#include "trace/step_accelerator.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+namespace rv {
+
+namespace {
+// Distance from point c to the segment [a, b].
+double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
+    const Vec2 ab = b - a;
+    const double len2 = ab.squaredNorm();
+    const double t = len2 > 0 ? std::clamp((c - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
+    return (a + t * ab - c).norm();
+}
+}  // namespace
+
+void StepAccelerator::begin(const std::vector<PlacedOptic>& placed, bool since_last,
+                            const std::vector<size_t>& changed) {
+    replaying_ = !steps_.empty();
+    if (!replaying_) return;
+    since_last = since_last && moved_known_;
+    double moved2 = since_last ? moved2_mm2_ : 0, grown = since_last ? grown_mm_ : 0;
+    auto widen = [&](size_t i) {
+        moved2 = std::max(moved2, (placed[i].at - placed_at_mm_[i]).squaredNorm());
+        grown = std::max(grown, placed[i].reach - placed_reach_mm_[i]);
+    };
+    if (since_last) {
+        for (size_t i : changed) widen(i);
+    } else {
+        for (size_t i = 0; i < placed.size(); ++i) widen(i);
+    }
+    moved2_mm2_ = moved2;
+    grown_mm_ = grown;
+    moved_known_ = true;
+    moved_mm_ = std::sqrt(moved2) + grown;
+}
+
+void StepAccelerator::record(const std::vector<StepTaken>& taken, const std::vector<PlacedOptic>& placed) {
+    steps_.resize(taken.size());
+    for (size_t k = 0; k < taken.size(); ++k) {
+        Step& step = steps_[k];
+        step.from_mm = taken[k].from_mm;
+        step.to_mm = taken[k].to_mm;
+        step.candidates.clear();
+        // The element met comes first, so that it usually gives the search its nearest
+        // distance before the others are tried.
+        if (taken[k].met) step.candidates.push_back(*taken[k].met);
+        for (size_t i = 0; i < placed.size(); ++i)
+            if (placed[i].traced && i != taken[k].met &&
+                distance_to_segment(placed[i].at, step.from_mm, step.to_mm) <= placed[i].reach + kTraceMargin_mm)
+                step.candidates.push_back(static_cast<uint32_t>(i));
+    }
+    moved2_mm2_ = grown_mm_ = 0;  // nothing has moved since this recording
+    moved_known_ = true;
+    placed_at_mm_.resize(placed.size());
+    placed_reach_mm_.resize(placed.size());
+    for (size_t i = 0; i < placed.size(); ++i) {
+        placed_at_mm_[i] = placed[i].at;
+        placed_reach_mm_[i] = placed[i].reach;
+    }
+}
+
+}  // namespace rv
