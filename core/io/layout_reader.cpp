@@ -12,6 +12,7 @@
 #include "io/closest_name.hpp"
 #include "io/field_reader.hpp"
 #include "layout/element_kinds.hpp"
+#include "layout/enum_names.hpp"
 #include "layout/lens_shape.hpp"
 #include "layout/process_text.hpp"
 #include "materials/dispersion.hpp"
@@ -128,10 +129,8 @@ std::optional<Layout> Reader::read(const json& doc) {
         if (const json* sv = g.object("solve", Need::Optional)) {
             FieldReader sr(*sv, "/goals/solve", "the solver goals", out_);
             SolveGoals sg;
-            const std::string aim = sr.choice("aim", Need::Optional, {"waist", "equal-confocal", "focus"}).value_or("waist");
-            sg.aim = aim == "equal-confocal" ? SolveGoals::Aim::EqualConfocal
-                     : aim == "focus"        ? SolveGoals::Aim::Focus
-                                             : SolveGoals::Aim::Waist;
+            if (const auto aim = sr.choice("aim", Need::Optional, texts_of(kSolveAimNames)))
+                sg.aim = value_named(kSolveAimNames, *aim).value_or(SolveGoals::Aim::Waist);
             if (const json* mv = sr.object("move", Need::Optional)) {
                 FieldReader mr(*mv, "/goals/solve/move", "the moves", out_);
                 for (const auto& item : mv->items())
@@ -276,16 +275,9 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     b.power_mw = f.number("power_mw", Need::Optional, positive()).value_or(0);
     b.repetition_rate_khz = f.number("repetition_rate_khz", Need::Optional, positive()).value_or(0);
     b.polarized_fraction = f.number("polarized_fraction", Need::Optional, between(0, 1)).value_or(1.0);
-    const auto pol = f.choice("polarization", Need::Optional,
-                              {"horizontal", "vertical", "linear", "circular-left", "circular-right"});
     using K = Polarization::Kind;
-    if (pol) {
-        b.polarization.kind = *pol == "vertical"        ? K::Vertical
-                              : *pol == "linear"        ? K::Linear
-                              : *pol == "circular-left" ? K::CircularLeft
-                              : *pol == "circular-right" ? K::CircularRight
-                                                        : K::Horizontal;
-    }
+    if (const auto pol = f.choice("polarization", Need::Optional, texts_of(kPolarizationNames)))
+        b.polarization.kind = value_named(kPolarizationNames, *pol).value_or(K::Horizontal);
     if (b.polarization.kind == K::Linear)
         b.polarization.angle_deg = f.number("polarization_angle_deg", Need::Required).value_or(0);
     else if (f.has("polarization_angle_deg"))
@@ -395,8 +387,8 @@ bool Reader::read_fields(Mirror& m, FieldReader& f, const std::string&) {
 
 bool Reader::read_fields(Dichroic& d, FieldReader& f, const std::string& ptr) {
     d.edge_nm = f.wavelength_nm("edge_nm", Need::Required).value_or(0);
-    d.reflects_shorter = f.choice("reflects", Need::Required, {"shorter", "longer"})
-                             .value_or("shorter") == "shorter";
+    if (const auto reflects = f.choice("reflects", Need::Required, texts_of(kDichroicReflectsNames)))
+        d.reflects_shorter = value_named(kDichroicReflectsNames, *reflects).value_or(true);
     if (const json* s = f.object("substrate", Need::Required)) {
         FieldReader sf(*s, ptr + "/substrate", "a dichroic substrate", out_);
         d.substrate.material = material_name(sf, "glass").value_or("");
@@ -409,15 +401,9 @@ bool Reader::read_fields(Dichroic& d, FieldReader& f, const std::string& ptr) {
 }
 
 bool Reader::read_fields(Plate& p, FieldReader& f, const std::string&) {
-    const auto role = f.choice("role", Need::Optional,
-                               {"window", "half-wave", "quarter-wave", "polarizing-cube", "polarizer"});
     using R = Plate::Role;
-    p.role = !role ? R::Window
-             : *role == "half-wave"       ? R::HalfWave
-             : *role == "quarter-wave"    ? R::QuarterWave
-             : *role == "polarizing-cube" ? R::PolarizingCube
-             : *role == "polarizer"       ? R::Polarizer
-                                          : R::Window;
+    if (const auto role = f.choice("role", Need::Optional, texts_of(kPlateRoleNames)))
+        p.role = value_named(kPlateRoleNames, *role).value_or(R::Window);
     p.slab.material = material_name(f, "material").value_or("");
     p.slab.thickness_mm = f.number("thickness_mm", Need::Required, positive()).value_or(0);
     const bool wave = p.role == R::HalfWave || p.role == R::QuarterWave;
@@ -449,7 +435,8 @@ bool Reader::read_fields(Plate& p, FieldReader& f, const std::string&) {
     }
     if (polarizing) p.extinction_ratio = f.number("extinction_ratio", Need::Optional, at_least(1)).value_or(1000);
     if (p.role == R::PolarizingCube)
-        p.reflects_left = f.choice("reflects", Need::Optional, {"left", "right"}).value_or("left") == "left";
+        if (const auto reflects = f.choice("reflects", Need::Optional, texts_of(kCubeReflectsNames)))
+            p.reflects_left = value_named(kCubeReflectsNames, *reflects).value_or(true);
     f.finish(with_common({"role", "material", "thickness_mm", "fast_axis_deg", "design_nm", "retarder_material",
                           "order", "retarder_thickness_um", "extinction_ratio", "reflects"}));
     return true;
@@ -488,17 +475,12 @@ bool Reader::read_fields(Crystal& c, FieldReader& f, const std::string&) {
     c.material = material_name(f, "material").value_or("");
     c.length_mm = f.number("length_mm", Need::Required, positive()).value_or(0);
     c.cut_deg = f.number("cut_deg", Need::Required, between(0, 90)).value_or(0);
-    c.phase_matching = f.choice("phase_matching", Need::Required, {"type-I", "type-II"})
-                               .value_or("type-I") == "type-II"
-                           ? Crystal::PhaseMatching::TypeII
-                           : Crystal::PhaseMatching::TypeI;
-    c.optic_axis_horizontal =
-        f.choice("optic_axis", Need::Optional, {"horizontal", "vertical"}).value_or("vertical") ==
-        "horizontal";
-    if (const auto plane = f.choice("principal_plane", Need::Optional, {"XY", "YZ", "XZ"})) {
-        c.principal_plane = *plane == "YZ" ? PrincipalPlane::YZ
-                            : *plane == "XZ" ? PrincipalPlane::XZ
-                                             : PrincipalPlane::XY;
+    if (const auto type = f.choice("phase_matching", Need::Required, texts_of(kPhaseMatchingNames)))
+        c.phase_matching = value_named(kPhaseMatchingNames, *type).value_or(Crystal::PhaseMatching::TypeI);
+    if (const auto axis = f.choice("optic_axis", Need::Optional, texts_of(kOpticAxisNames)))
+        c.optic_axis_horizontal = value_named(kOpticAxisNames, *axis).value_or(false);
+    if (const auto plane = f.choice("principal_plane", Need::Optional, texts_of(kPrincipalPlaneNames))) {
+        c.principal_plane = value_named(kPrincipalPlaneNames, *plane).value_or(PrincipalPlane::XY);
         const Material* m = library_.find(c.material);
         if (m && m->symmetry != Symmetry::Biaxial)
             f.error("principal_plane", "only for biaxial crystals; " + m->name + " is not biaxial");

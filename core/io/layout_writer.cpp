@@ -6,6 +6,7 @@
 
 #include "io/atomic_file.hpp"
 #include "io/layout_reader.hpp"
+#include "layout/enum_names.hpp"
 #include "layout/process_text.hpp"
 #include "layout/visit.hpp"
 
@@ -36,17 +37,10 @@ ojson beam_json(const BeamSource& b) {
     if (!(b.m2 == PlanePair{1, 1})) j["m2"] = plane_pair(b.m2);
     if (b.pulse_fwhm_fs > 0) j["pulse_fwhm_fs"] = num(b.pulse_fwhm_fs);
     if (b.emit_time_fs != 0) j["emit_time_fs"] = num(b.emit_time_fs);
-    using K = Polarization::Kind;
-    switch (b.polarization.kind) {
-        case K::Horizontal: break;
-        case K::Vertical: j["polarization"] = "vertical"; break;
-        case K::Linear:
-            j["polarization"] = "linear";
-            j["polarization_angle_deg"] = num(b.polarization.angle_deg);
-            break;
-        case K::CircularLeft: j["polarization"] = "circular-left"; break;
-        case K::CircularRight: j["polarization"] = "circular-right"; break;
-    }
+    if (b.polarization.kind != Polarization::Kind::Horizontal)  // the default, left out
+        j["polarization"] = text_of(kPolarizationNames, b.polarization.kind);
+    if (b.polarization.kind == Polarization::Kind::Linear)
+        j["polarization_angle_deg"] = num(b.polarization.angle_deg);
     if (b.polarized_fraction != 1.0) j["polarized_fraction"] = num(b.polarized_fraction);
     if (b.power_mw > 0) j["power_mw"] = num(b.power_mw);
     if (b.repetition_rate_khz > 0) j["repetition_rate_khz"] = num(b.repetition_rate_khz);
@@ -88,18 +82,14 @@ struct KindWriter {
     }
     void operator()(const Dichroic& d) const {
         j["edge_nm"] = num(d.edge_nm);
-        j["reflects"] = d.reflects_shorter ? "shorter" : "longer";
+        j["reflects"] = text_of(kDichroicReflectsNames, d.reflects_shorter);
         j["substrate"] = {{"glass", d.substrate.material},
                           {"thickness_mm", num(d.substrate.thickness_mm)}};
         if (d.retardance_deg != 0) j["retardance_deg"] = num(d.retardance_deg);
     }
     void operator()(const Plate& p) const {
         using R = Plate::Role;
-        if (p.role != R::Window)
-            j["role"] = p.role == R::HalfWave      ? "half-wave"
-                        : p.role == R::QuarterWave ? "quarter-wave"
-                        : p.role == R::Polarizer   ? "polarizer"
-                                                   : "polarizing-cube";
+        if (p.role != R::Window) j["role"] = text_of(kPlateRoleNames, p.role);
         j["material"] = p.slab.material;
         j["thickness_mm"] = num(p.slab.thickness_mm);
         if (p.fast_axis_deg != 0) j["fast_axis_deg"] = num(p.fast_axis_deg);
@@ -109,7 +99,7 @@ struct KindWriter {
         if (p.retarder_thickness_um > 0) j["retarder_thickness_um"] = num(p.retarder_thickness_um);
         if ((p.role == R::PolarizingCube || p.role == R::Polarizer) && p.extinction_ratio != 1000)
             j["extinction_ratio"] = num(p.extinction_ratio);
-        if (p.role == R::PolarizingCube && !p.reflects_left) j["reflects"] = "right";
+        if (p.role == R::PolarizingCube && !p.reflects_left) j["reflects"] = text_of(kCubeReflectsNames, false);
     }
     void operator()(const Retroreflector&) const {}
     void operator()(const Stage& s) const {
@@ -123,10 +113,9 @@ struct KindWriter {
         j["material"] = c.material;
         j["length_mm"] = num(c.length_mm);
         j["cut_deg"] = num(c.cut_deg);
-        j["phase_matching"] = c.phase_matching == Crystal::PhaseMatching::TypeII ? "type-II" : "type-I";
-        if (c.optic_axis_horizontal) j["optic_axis"] = "horizontal";
-        if (c.principal_plane != PrincipalPlane::XY)
-            j["principal_plane"] = c.principal_plane == PrincipalPlane::YZ ? "YZ" : "XZ";
+        j["phase_matching"] = text_of(kPhaseMatchingNames, c.phase_matching);
+        if (c.optic_axis_horizontal) j["optic_axis"] = text_of(kOpticAxisNames, true);
+        if (c.principal_plane != PrincipalPlane::XY) j["principal_plane"] = text_of(kPrincipalPlaneNames, c.principal_plane);
         if (c.tilt_deg != 0) j["tilt_deg"] = num(c.tilt_deg);
         if (const auto process = format_process_text(c.process, c.process_beam)) j["process"] = *process;
         damage(c.damage);
@@ -247,8 +236,7 @@ ojson layout_json(const Layout& layout) {
     if (layout.goals.solve) {
         const SolveGoals& sg = *layout.goals.solve;
         ojson j = ojson::object();
-        if (sg.aim == SolveGoals::Aim::EqualConfocal) j["aim"] = "equal-confocal";
-        if (sg.aim == SolveGoals::Aim::Focus) j["aim"] = "focus";
+        if (sg.aim != SolveGoals::Aim::Waist) j["aim"] = text_of(kSolveAimNames, sg.aim);
         if (!sg.move.empty()) {
             ojson m = ojson::object();
             for (const auto& [id, r] : sg.move) m[id] = pair(r.first, r.second);

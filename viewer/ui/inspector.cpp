@@ -1,5 +1,6 @@
 #include "ui/inspector.hpp"
 
+#include <array>
 #include <cmath>
 #include <cstdio>
 #include <optional>
@@ -8,6 +9,7 @@
 
 #include "analysis/phase_setting.hpp"
 #include "io/layout_reader.hpp"
+#include "layout/enum_names.hpp"
 #include "layout/process_text.hpp"
 #include "layout/visit.hpp"
 
@@ -56,13 +58,23 @@ bool choice_field(const char* label, int* value, const char* const* names, int c
     return ImGui::Combo(label, value, names, count);
 }
 
+// A choice among a table's values, labelled with their file texts (layout/enum_names.hpp); true
+// when the user chose another one (then *value is it).
+template <class Value, size_t N>
+bool table_field(const char* label, Value* value, const std::array<NamedValue<Value>, N>& table) {
+    std::array<std::string, N> texts;
+    std::array<const char*, N> names{};
+    for (size_t i = 0; i < N; ++i) texts[i] = std::string(table[i].text), names[i] = texts[i].c_str();
+    int at = static_cast<int>(position_in(table, *value));
+    if (!choice_field(label, &at, names.data(), static_cast<int>(N))) return false;
+    *value = table[static_cast<size_t>(at)].value;
+    return true;
+}
+
 // A plate's role from a list; one edit on a choice.
 void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
-    static const char* const names[] = {"window", "half-wave", "quarter-wave", "polarizing-cube", "polarizer"};
-    int role = static_cast<int>(plate.role);
-    if (choice_field("role", &role, names, 5)) {
+    if (table_field("role", &plate.role, kPlateRoleNames)) {
         using R = Plate::Role;
-        plate.role = static_cast<R>(role);
         const bool wave = plate.role == R::HalfWave || plate.role == R::QuarterWave;
         // Keys of the old role that the new one does not take go back to their defaults.
         if (!wave) plate.design_nm = 0, plate.retarder_material.clear(), plate.order = 0, plate.retarder_thickness_um = 0;
@@ -212,18 +224,8 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 name_field("material", "material", &crystal.material, doc, st);
                 field("length", "length (mm)", &crystal.length_mm, "%.3f", doc, st);
                 field("cut", "cut angle (deg)", &crystal.cut_deg, "%.3f", doc, st);
-                static const char* const types[] = {"type-I", "type-II"};
-                int type = crystal.phase_matching == Crystal::PhaseMatching::TypeII ? 1 : 0;
-                if (choice_field("phase matching", &type, types, 2)) {
-                    crystal.phase_matching = type ? Crystal::PhaseMatching::TypeII : Crystal::PhaseMatching::TypeI;
-                    doc.edit(st.scratch);
-                }
-                static const char* const axes[] = {"vertical", "horizontal"};
-                int axis = crystal.optic_axis_horizontal ? 1 : 0;
-                if (choice_field("optic axis plane", &axis, axes, 2)) {
-                    crystal.optic_axis_horizontal = axis == 1;
-                    doc.edit(st.scratch);
-                }
+                if (table_field("phase matching", &crystal.phase_matching, kPhaseMatchingNames)) doc.edit(st.scratch);
+                if (table_field("optic axis plane", &crystal.optic_axis_horizontal, kOpticAxisNames)) doc.edit(st.scratch);
                 field("tilt", "tilt (deg, + = face normal up)", &crystal.tilt_deg, "%.3f", doc, st);
                 process_buttons(doc, st);
                 field("damage_i", "damage (GW/cm², 0 none)", &crystal.damage.intensity_gw_cm2, "%.1f", doc, st);
@@ -243,22 +245,12 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 if (plate.role == R::PolarizingCube || plate.role == R::Polarizer)
                     field("extinction", "extinction ratio", &plate.extinction_ratio, "%.0f", doc, st);
                 if (plate.role == R::PolarizingCube) {
-                    static const char* const sides[] = {"left", "right"};
-                    int side = plate.reflects_left ? 0 : 1;
-                    if (choice_field("reflects to", &side, sides, 2)) {
-                        plate.reflects_left = side == 0;
-                        doc.edit(st.scratch);
-                    }
+                    if (table_field("reflects to", &plate.reflects_left, kCubeReflectsNames)) doc.edit(st.scratch);
                 }
             },
             [&](Dichroic& dichroic) {
                 field("edge", "edge (nm)", &dichroic.edge_nm, "%.1f", doc, st);
-                static const char* const sides[] = {"shorter", "longer"};
-                int side = dichroic.reflects_shorter ? 0 : 1;
-                if (choice_field("reflects", &side, sides, 2)) {
-                    dichroic.reflects_shorter = side == 0;
-                    doc.edit(st.scratch);
-                }
+                if (table_field("reflects", &dichroic.reflects_shorter, kDichroicReflectsNames)) doc.edit(st.scratch);
                 name_field("glass", "substrate glass", &dichroic.substrate.material, doc, st);
                 field("thickness", "substrate (mm)", &dichroic.substrate.thickness_mm, "%.3f", doc, st);
             },
