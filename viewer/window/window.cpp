@@ -9,11 +9,13 @@
 #include <memory>
 #include <ostream>
 #include <string>
+#include <string_view>
 
 #include "analysis/report.hpp"
 #include "cli/load.hpp"
 #include "edit/config_folder.hpp"
 #include "edit/recent_files.hpp"
+#include "edit/window_settings.hpp"
 #include "io/layout_reader.hpp"
 #include "io/lens_catalog.hpp"
 #include "render/cpu_rasterizer.hpp"
@@ -58,13 +60,19 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
     IMGUI_CHECKVERSION();
     ImGui::CreateContext();
     // Dear ImGui's own window settings live with the user's configuration, never in the folder
-    // the program was started from (edit/config_folder.hpp).
-    const std::string ini_file = edit::user_config_file("imgui.ini").string();
-    {
-        std::error_code ec;
-        std::filesystem::create_directories(std::filesystem::path(ini_file).parent_path(), ec);
-    }
-    ImGui::GetIO().IniFilename = ini_file.c_str();  // read by ImGui until the context is destroyed
+    // the program was started from; ImGui opens no file (IniFilename null): the program reads
+    // the text and writes it through write_file_safely when ImGui asks (edit/window_settings.hpp).
+    const std::filesystem::path settings_file = edit::window_settings_path();
+    ImGui::GetIO().IniFilename = nullptr;
+    if (const std::string settings = edit::load_window_settings(settings_file); !settings.empty())
+        ImGui::LoadIniSettingsFromMemory(settings.data(), settings.size());
+    const auto save_settings = [&] {
+        size_t size = 0;
+        const char* text = ImGui::SaveIniSettingsToMemory(&size);
+        const std::string error = edit::save_window_settings(settings_file, std::string_view(text, size));
+        if (!error.empty()) state.editor.status = "window settings not kept: " + error;
+        ImGui::GetIO().WantSaveIniSettings = false;
+    };
     render::Texture font;
     render::configure_context(font);
     ImGui_ImplGlfw_InitForOther(window, true);
@@ -112,6 +120,7 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
         ImGui::NewFrame();
         ui::draw_document_frame(state);
         ImGui::Render();
+        if (ImGui::GetIO().WantSaveIniSettings) save_settings();  // set by ImGui a few seconds after a change
         int fw = 0, fh = 0;
         glfwGetFramebufferSize(window, &fw, &fh);
         if (fw <= 0 || fh <= 0) continue;
@@ -149,6 +158,7 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
             state.editor.status = error.empty() ? "exported " + req.path : error;
         }
     }
+    save_settings();
     glDeleteTextures(1, &texture);
     ImGui_ImplGlfw_Shutdown();
     ImGui::DestroyContext();
