@@ -70,9 +70,6 @@ struct PolarizationAdvice {
     };
     std::vector<PlateSetting> plates;
 };
-// "o (horizontal)" …, and the advice in words ("" when none).
-std::string needed_polarization_text(const PolarizationAdvice& a);
-std::string polarization_advice_text(const PolarizationAdvice& a);
 
 // The overlap at the target: the one definition the solvers and the tolerance run use too
 // (analysis/target_summary.hpp, overlap_at_target).
@@ -148,11 +145,8 @@ struct VerdictLine {
     std::string summary;  // the number behind it, or why it does not apply
     std::string action;   // what to do ("" when met or not applicable)
 };
-// "met", "NOT MET" or "n/a".
-const char* verdict_state_text(const VerdictLine& l);
-// The state and the summary in one line: "met  θ_pm …", "n/a — the target is not a crystal".
-std::string verdict_line_text(const VerdictLine& l);
-// What `report --check` asks of each line: met, or not applicable.
+// What `report --check` asks of each line: met, or not applicable. (The words for a line, an
+// advice and the light after the target: report/report_words.hpp.)
 bool verdict_passes(const VerdictLine& l);
 
 // One figure behind the verdict with its limit (goals.verdict): met within the limit, near
@@ -193,8 +187,6 @@ struct RendezvousReport {
 
 RendezvousReport build_report(const Layout& layout, const MaterialLibrary& library);
 
-// Where a beam's light goes after the target, in words ("absorbed in dump D1", …).
-std::string after_target_text(const ReportBeam& beam);
 // The file's and the command line's name of a process: "sfg" or "shg:BEAM".
 std::string process_key(const Layout& layout, const PhaseMatchingReport& p);
 

@@ -2,6 +2,7 @@
 
 #include "findings/finding_json.hpp"
 #include "polarization/polarization_model.hpp"
+#include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
 
 namespace rv {

@@ -2,6 +2,7 @@
 
 #include <sstream>
 
+#include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
 #include "units/number_text.hpp"
 

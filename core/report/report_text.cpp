@@ -4,6 +4,7 @@
 #include <sstream>
 
 #include "polarization/polarization_model.hpp"
+#include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
 #include "units/number_text.hpp"
 

@@ -6,6 +6,7 @@
 #include "analysis/report.hpp"
 #include "materials/dispersion.hpp"
 #include "polarization/polarization_model.hpp"
+#include "report/report_words.hpp"
 #include "support/layouts.hpp"
 #include "units/constants.hpp"
 

@@ -4,6 +4,7 @@
 #include "analysis/calibrate.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/phase_matching.hpp"
+#include "report/report_words.hpp"
 #include "units/constants.hpp"
 
 #include <cmath>

@@ -11,6 +11,7 @@
 #include "hardening/report_numbers.hpp"
 #include "io/layout_reader.hpp"
 #include "io/layout_writer.hpp"
+#include "report/report_words.hpp"
 #include "support/tolerance.hpp"
 
 namespace {

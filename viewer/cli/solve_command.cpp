@@ -12,6 +12,7 @@
 #include "io/layout_reader.hpp"
 #include "io/lens_parts.hpp"
 #include "report/report_json.hpp"
+#include "report/report_words.hpp"
 #include "solve/default_solve_goals.hpp"
 #include "solve/solve_outcome.hpp"
 #include "solve/telescope.hpp"

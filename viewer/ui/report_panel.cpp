@@ -3,6 +3,7 @@
 #include <imgui.h>
 
 #include "polarization/polarization_model.hpp"
+#include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
 #include "units/number_text.hpp"
 

@@ -6,6 +6,7 @@
 #include "analysis/sweep.hpp"
 #include "io/diagnostic.hpp"
 #include "io/layout_reader.hpp"
+#include "report/report_words.hpp"
 #include "solve/default_solve_goals.hpp"
 #include "units/number_text.hpp"
 
