@@ -11,7 +11,7 @@ import subprocess
 import sys
 import tempfile
 
-# Keys whose value is null when the figure does not apply (viewer/cli/report_command.cpp,
+# Keys whose value is null when the figure does not apply (core/report/report_json.cpp,
 # optional_number); a null anywhere else is a number the report could not give (NaN).
 # delta_k_l and sinc2_now are null when a wave lies where the crystal's index formula has no real
 # value (phase_matching.outside_index_data says so).

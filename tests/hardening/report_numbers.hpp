@@ -1,6 +1,6 @@
 #pragma once
 // Every number of a rendezvous report with a name, so that a property test can say which one
-// broke: the numbers `rendezvous report --json` prints (viewer/cli/report_command.cpp) and the
+// broke: the numbers `rendezvous report --json` prints (core/report/report_json.cpp) and the
 // per-hit and envelope numbers behind them.
 
 #include <string>
