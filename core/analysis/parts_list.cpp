@@ -38,8 +38,8 @@ struct SpecOf {
                        },
                        [&](const ThickLens& t) {
                            spec.kind = "singlet lens";
-                           if (!t.shape.empty()) {
-                               add(word("shape", t.shape));
+                           if (t.shape) {
+                               add(word("shape", *t.shape));
                                add(number("focal_length", t.focal_length_mm, "mm"));
                                add(number("design_wavelength", t.design_wavelength_nm, "nm"));
                            } else {

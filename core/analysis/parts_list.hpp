@@ -30,7 +30,7 @@ struct SpecField {
 
 struct PartSpec {
     std::string kind;  // e.g. "thin lens", "flat mirror", "half-wave plate", "translation stage"
-    std::string part;  // the catalog id (a lens's `part`), "" when the file gives none
+    std::optional<std::string> part;  // the catalog id (a lens's `part`), absent when the file gives none
     std::vector<SpecField> fields;
     bool operator==(const PartSpec&) const = default;
 };

@@ -4,16 +4,27 @@
 
 namespace rv {
 
-std::optional<PulseFigures> pulse_figures(double power_mw, double rep_khz, double fwhm_fs, double wt_um, double ws_um) {
-    if (!(power_mw > 0 && rep_khz > 0 && fwhm_fs > 0 && wt_um > 0 && ws_um > 0)) return std::nullopt;
+std::optional<PulseFigures> pulse_figures(const PulseInputs& in) {
+    if (!(in.power_mw > 0 && in.repetition_rate_khz > 0 && in.fwhm_fs > 0 && in.radius_tangential_um > 0 &&
+          in.radius_sagittal_um > 0))
+        return std::nullopt;
     PulseFigures f;
-    const double energy_j = power_mw * 1e-3 / (rep_khz * 1e3);
-    f.energy_uj = energy_j * 1e6;
-    f.peak_power_w = kGaussianPeakFactor * energy_j / (fwhm_fs * 1e-15);
-    const double area_cm2 = kPi * (wt_um * 1e-4) * (ws_um * 1e-4) / 2;  // π w_t w_s / 2
+    const double energy_j = mw_to_w(in.power_mw) / khz_to_hz(in.repetition_rate_khz);
+    f.energy_uj = j_to_uj(energy_j);
+    f.peak_power_w = kGaussianPeakFactor * energy_j / fs_to_s(in.fwhm_fs);
+    const double area_cm2 = kPi * um_to_cm(in.radius_tangential_um) * um_to_cm(in.radius_sagittal_um) / 2;  // π w_t w_s / 2
     f.peak_intensity_w_cm2 = f.peak_power_w / area_cm2;
     f.peak_fluence_j_cm2 = energy_j / area_cm2;
     return f;
+}
+
+std::optional<PulseFigures> pulse_figures(double power_mw, double repetition_rate_khz, double fwhm_fs,
+                                          double radius_tangential_um, double radius_sagittal_um) {
+    return pulse_figures(PulseInputs{.power_mw = power_mw,
+                                     .repetition_rate_khz = repetition_rate_khz,
+                                     .fwhm_fs = fwhm_fs,
+                                     .radius_tangential_um = radius_tangential_um,
+                                     .radius_sagittal_um = radius_sagittal_um});
 }
 
 }  // namespace rv

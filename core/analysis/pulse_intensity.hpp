@@ -20,7 +20,17 @@ struct PulseFigures {
 
 inline constexpr double kGaussianPeakFactor = 0.9394372786996513;  // 2√(ln 2/π)
 
+struct PulseInputs {
+    double power_mw = 0;              // average power
+    double repetition_rate_khz = 0;
+    double fwhm_fs = 0;               // pulse length
+    double radius_tangential_um = 0;  // 1/e² intensity radii
+    double radius_sagittal_um = 0;
+};
+
 // nullopt unless power, repetition rate, pulse length and both radii are positive.
+std::optional<PulseFigures> pulse_figures(const PulseInputs& in);
+// The same by position, kept for core/analysis/report_beams.cpp until it names its arguments.
 std::optional<PulseFigures> pulse_figures(double power_mw, double repetition_rate_khz, double fwhm_fs,
                                           double radius_tangential_um, double radius_sagittal_um);
 

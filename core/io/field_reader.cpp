@@ -8,6 +8,7 @@
 #include <unordered_map>
 
 #include "io/closest_name.hpp"
+#include "units/constants.hpp"
 
 namespace rv {
 
@@ -261,10 +262,10 @@ std::optional<double> FieldReader::wavelength_nm(const std::string& key, Need ne
     if (!v || (*v >= kMinWavelength_nm && *v <= kMaxWavelength_nm)) return v;
     // A unit slip: the same number in µm or pm would be a wavelength.
     std::string likely;
-    if (*v * 1e3 >= kMinWavelength_nm && *v * 1e3 <= kMaxWavelength_nm)
-        likely = " — micrometres? " + number_text(*v) + " µm is " + number_text(*v * 1e3) + " nm";
-    else if (*v * 1e-3 >= kMinWavelength_nm && *v * 1e-3 <= kMaxWavelength_nm)
-        likely = " — picometres? " + number_text(*v) + " pm is " + number_text(*v * 1e-3) + " nm";
+    if (um_to_nm(*v) >= kMinWavelength_nm && um_to_nm(*v) <= kMaxWavelength_nm)
+        likely = " — micrometres? " + number_text(*v) + " µm is " + number_text(um_to_nm(*v)) + " nm";
+    else if (pm_to_nm(*v) >= kMinWavelength_nm && pm_to_nm(*v) <= kMaxWavelength_nm)
+        likely = " — picometres? " + number_text(*v) + " pm is " + number_text(pm_to_nm(*v)) + " nm";
     error(key, "must be a wavelength between " + number_text(kMinWavelength_nm) + " and " +
                    number_text(kMaxWavelength_nm) + " nm (got " + number_text(*v) + likely + ")");
     return std::nullopt;

@@ -372,7 +372,7 @@ bool Reader::read_fields(Lens& lens, FieldReader& f, const std::string&) {
     auto read = read_lens(f);
     if (!read) return false;
     lens = std::move(*read);
-    lens.part = part.value_or("");
+    lens.part = part;
     return true;
 }
 

@@ -50,7 +50,7 @@ ojson beam_json(const BeamSource& b) {
 struct KindWriter {
     ojson& j;
     void operator()(const Lens& lens) const {
-        if (!lens.part.empty()) j["part"] = lens.part;
+        if (lens.part) j["part"] = *lens.part;
         std::visit(overloaded{
                        [&](const IdealLens& ideal) { j["focal_length_mm"] = num(ideal.focal_length_mm); },
                        [&](const ThinChromaticLens& thin) {
@@ -60,8 +60,8 @@ struct KindWriter {
                                j["design_wavelength_nm"] = num(thin.design_wavelength_nm);
                        },
                        [&](const ThickLens& t) {
-                           if (!t.shape.empty()) {
-                               j["shape"] = t.shape;
+                           if (t.shape) {
+                               j["shape"] = *t.shape;
                                j["focal_length_mm"] = num(t.focal_length_mm);
                            } else {
                                if (std::isfinite(t.front_radius_mm)) j["front_radius_mm"] = num(t.front_radius_mm);
@@ -69,7 +69,7 @@ struct KindWriter {
                            }
                            j["center_thickness_mm"] = num(t.center_thickness_mm);
                            j["glass"] = t.glass;
-                           if (!t.shape.empty() && t.design_wavelength_nm != 587.6)
+                           if (t.shape && t.design_wavelength_nm != 587.6)
                                j["design_wavelength_nm"] = num(t.design_wavelength_nm);
                        },
                    },

@@ -66,8 +66,7 @@ std::vector<std::string> part_differences(const CatalogLens& part, const Element
                        },
                        [&](const ThickLens& a) {
                            const auto& b = std::get<ThickLens>(here.model);
-                           if (!a.shape.empty() && !b.shape.empty())
-                               d.text("shape", a.shape, b.shape);  // radii decide otherwise
+                           if (a.shape && b.shape) d.text("shape", *a.shape, *b.shape);  // radii decide otherwise
                            d.number("front radius", a.front_radius_mm, b.front_radius_mm, "mm");
                            d.number("back radius", a.back_radius_mm, b.back_radius_mm, "mm");
                            d.number("centre thickness", a.center_thickness_mm, b.center_thickness_mm, "mm");
@@ -89,14 +88,14 @@ Diagnostics check_lens_parts(const Layout& layout, const std::vector<CatalogLens
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
         const auto* lens = std::get_if<Lens>(&e.kind);
-        if (!lens || lens->part.empty() || std::find(skip.begin(), skip.end(), e.id) != skip.end())
+        if (!lens || !lens->part || std::find(skip.begin(), skip.end(), e.id) != skip.end())
             continue;
         const std::string pointer = child_pointer(child_pointer("/elements", i), "part");
         const auto found = std::find_if(catalog.begin(), catalog.end(),
-                                        [&](const CatalogLens& c) { return c.id == lens->part; });
+                                        [&](const CatalogLens& c) { return c.id == *lens->part; });
         if (found == catalog.end()) {
-            std::string m = "no lens of the catalog has id \"" + lens->part + "\"";
-            if (const auto near = closest_name(lens->part, ids))
+            std::string m = "no lens of the catalog has id \"" + *lens->part + "\"";
+            if (const auto near = closest_name(*lens->part, ids))
                 m += "; did you mean \"" + *near + "\"?";
             m += " (remove \"part\", or use the catalog it came from)";
             out.push_back({Diagnostic::Severity::Error, pointer, 0, 0, m, e.id});
@@ -104,7 +103,7 @@ Diagnostics check_lens_parts(const Layout& layout, const std::vector<CatalogLens
         }
         const std::vector<std::string> diff = part_differences(*found, e);
         if (diff.empty()) continue;
-        std::string m = "the catalog's \"" + lens->part + "\" is not this lens: ";
+        std::string m = "the catalog's \"" + *lens->part + "\" is not this lens: ";
         for (size_t k = 0; k < diff.size(); ++k) m += (k ? "; " : "") + diff[k];
         m += " (remove \"part\" if the lens is not that stock lens, or give it the catalog's "
              "numbers)";

@@ -89,7 +89,7 @@ struct ThickLens {  // singlet from radii (or a named shape solved at the design
     double back_radius_mm = 0.0;   // R2
     double center_thickness_mm = 0.0;
     std::string glass;
-    std::string shape;             // "" when given by radii; else the named shape it came from
+    std::optional<std::string> shape;  // the named shape it came from; absent when given by radii
     double focal_length_mm = 0.0;  // with a named shape: the focal length asked for
     double design_wavelength_nm = 587.6;
     bool operator==(const ThickLens&) const = default;
@@ -106,15 +106,16 @@ struct TestOnlyLensModel {
 struct Lens {
     // Handled with a std::visit (layout/visit.hpp) wherever each model matters.
     std::variant<IdealLens, ThinChromaticLens, ThickLens RV_TEST_ONLY_LENS_MODEL> model;
-    // The catalog id of the stock lens this is ("part" in the file; "" when none): what the
+    // The catalog id of the stock lens this is ("part" in the file; absent when none): what the
     // build sheet's parts list names and what solve writes for each lens it chose. The optics
     // are the model's and the element's aperture, never looked up from the id;
     // io/lens_parts.hpp checks the id and those numbers against a catalog where one is known.
-    std::string part;
+    std::optional<std::string> part;
     Lens() = default;
     template <class Model>
         requires(!std::is_same_v<std::decay_t<Model>, Lens>)
-    explicit Lens(Model m, std::string part_id = {}) : model(std::move(m)), part(std::move(part_id)) {}
+    explicit Lens(Model m, std::optional<std::string> part_id = std::nullopt)
+        : model(std::move(m)), part(std::move(part_id)) {}
     bool operator==(const Lens&) const = default;
 };
 

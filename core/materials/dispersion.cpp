@@ -11,9 +11,9 @@ IndexSample from_derivatives(const IndexDerivatives& d, double wavelength_um, bo
     IndexSample s{};
     s.index = d.n;
     s.group_index = d.n - l * d.dn;
-    // λ³/(2π c²) n'' is in fs²/µm; × 1e3 µm/mm.
-    s.gvd_fs2_per_mm = l * l * l / (2.0 * kPi * c * c) * d.d2n * 1e3;
-    s.tod_fs3_per_mm = -l * l * l * l / (4.0 * kPi * kPi * c * c * c) * (3.0 * d.d2n + l * d.d3n) * 1e3;
+    // λ³/(2π c²) n'' is in fs²/µm (λ in µm, c in µm/fs), given per mm.
+    s.gvd_fs2_per_mm = per_um_to_per_mm(l * l * l / (2.0 * kPi * c * c) * d.d2n);
+    s.tod_fs3_per_mm = per_um_to_per_mm(-l * l * l * l / (4.0 * kPi * kPi * c * c * c) * (3.0 * d.d2n + l * d.d3n));
     s.in_valid_range = in_range;
     return s;
 }

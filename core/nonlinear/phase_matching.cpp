@@ -73,10 +73,10 @@ double delta_k_per_mm(const Material& m, double l1, double l2, MixingType type, 
                       PrincipalPlane plane) {
     const WavePolarities w = polarities(type);
     const double l3 = sum_frequency_nm(l1, l2);
-    // k = 2π n / λ; with λ in nm, × 1e6 nm/mm.
-    return 2 * kPi * 1e6 *
-           (n_of(m, l3, w.wave3, angle, plane) / l3 - n_of(m, l1, w.wave1, angle, plane) / l1 -
-            n_of(m, l2, w.wave2, angle, plane) / l2);
+    // k = 2π n / λ; with λ in nm, per nm, given per mm.
+    return per_nm_to_per_mm(2 * kPi *
+                            (n_of(m, l3, w.wave3, angle, plane) / l3 - n_of(m, l1, w.wave1, angle, plane) / l1 -
+                             n_of(m, l2, w.wave2, angle, plane) / l2));
 }
 
 std::optional<double> phase_matching_angle_rad(const Material& m, double l1, double l2,
@@ -128,7 +128,7 @@ Acceptance acceptance(const Material& m, double l1, double l2, MixingType type, 
     const double dl = 1e-3;  // nm
     auto dk_at = [&](double x) { return delta_k_per_mm(m, x, shg ? x : l2, type, angle, plane); };
     const double dk_dlambda = (dk_at(l1 + dl) - dk_at(l1 - dl)) / (2 * dl);
-    return {1e3 * kSincHalfWidth / (length_mm * std::abs(dk_dangle)),
+    return {rad_to_mrad(kSincHalfWidth / (length_mm * std::abs(dk_dangle))),
             kSincHalfWidth / (length_mm * std::abs(dk_dlambda))};
 }
 

@@ -14,13 +14,21 @@ double effective_lambda_over_pi_mm(const GaussianBeam& beam) {
 }
 }  // namespace
 
+GaussianBeam beam_from_waist(const Waist& waist) {
+    GaussianBeam beam{{0.0, 0.0}, waist.wavelength_nm, waist.index, waist.m2};
+    const double w0_mm = um_to_mm(waist.waist_um);
+    const double z_r_mm = w0_mm * w0_mm / effective_lambda_over_pi_mm(beam);
+    beam.q_mm = {-waist.distance_to_waist_mm, z_r_mm};
+    return beam;
+}
+
 GaussianBeam beam_from_waist(double waist_um, double distance_to_waist_mm, double wavelength_nm,
                              double index, double m2) {
-    GaussianBeam beam{{0.0, 0.0}, wavelength_nm, index, m2};
-    const double w0_mm = um_to_mm(waist_um);
-    const double z_r_mm = w0_mm * w0_mm / effective_lambda_over_pi_mm(beam);
-    beam.q_mm = {-distance_to_waist_mm, z_r_mm};
-    return beam;
+    return beam_from_waist(Waist{.waist_um = waist_um,
+                                 .distance_to_waist_mm = distance_to_waist_mm,
+                                 .wavelength_nm = wavelength_nm,
+                                 .index = index,
+                                 .m2 = m2});
 }
 
 GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m, double index_after) {

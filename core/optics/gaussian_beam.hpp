@@ -28,8 +28,18 @@ struct GaussianBeam {
     double m2;                  // beam-quality factor M² ≥ 1 in this plane
 };
 
-// A beam whose waist of radius waist_um lies distance_to_waist_mm downstream of the point
-// described (negative: the waist is behind, upstream).
+// A beam given by its waist, named at the call: beam_from_waist({.waist_um = 40,
+// .distance_to_waist_mm = 120, .wavelength_nm = 1064}).
+struct Waist {
+    double waist_um = 0.0;              // second-moment waist radius
+    double distance_to_waist_mm = 0.0;  // where the waist lies downstream of the point described
+                                        // (negative: behind, upstream)
+    double wavelength_nm = 0.0;         // vacuum wavelength
+    double index = 1.0;                 // of the medium the beam is in
+    double m2 = 1.0;                    // beam-quality factor in this plane
+};
+GaussianBeam beam_from_waist(const Waist& waist);
+// The same by position, kept only for core/trace/propagate.cpp until it names its arguments.
 GaussianBeam beam_from_waist(double waist_um, double distance_to_waist_mm, double wavelength_nm,
                              double index = 1.0, double m2 = 1.0);
 

@@ -91,7 +91,7 @@ std::optional<double> retardance_waves(const Plate& plate, double nm, const Mate
     };
     // Thickness of birefringent material: given, or the one that makes the nominal retardance
     // at the design wavelength.
-    const double thickness_nm = plate.retarder_thickness_um > 0 ? plate.retarder_thickness_um * 1e3
+    const double thickness_nm = plate.retarder_thickness_um > 0 ? um_to_nm(plate.retarder_thickness_um)
                                                                 : at_design * plate.design_nm / birefringence(plate.design_nm);
     const double waves = birefringence(nm) * thickness_nm / nm;
     if (!std::isfinite(waves)) return std::nullopt;

@@ -271,14 +271,14 @@ Aligner::Aligner(const Layout& layout, const MaterialLibrary& library, JudgeCont
     const std::vector<BeamAtTarget> at = evaluate_beams_at_target(layout, library);
     design_direction_.assign(beams, {1, 0});
     lateral_scale_mm_.assign(beams, 1);
-    angle_scale_rad_.assign(beams, 1e-3);
+    angle_scale_rad_.assign(beams, mrad_to_rad(1.0));
     rayleigh_mm_.assign(beams, 1);
     for (size_t b = 0; b < at.size() && b < beams; ++b) {
         if (!at[b].reached) continue;
         design_direction_[b] = at[b].direction;
-        lateral_scale_mm_[b] = std::max(at[b].tangential.radius_um * 1e-3, 1e-6);
+        lateral_scale_mm_[b] = std::max(um_to_mm(at[b].tangential.radius_um), 1e-6);
         rayleigh_mm_[b] = std::max(std::min(at[b].tangential.rayleigh_mm, at[b].sagittal.rayleigh_mm), 1e-9);
-        angle_scale_rad_[b] = std::max(at[b].tangential.waist_um * 1e-3 / at[b].tangential.rayleigh_mm, 1e-9);
+        angle_scale_rad_[b] = std::max(um_to_mm(at[b].tangential.waist_um) / at[b].tangential.rayleigh_mm, 1e-9);
     }
 }
 

@@ -32,7 +32,7 @@ Family family_of(const CatalogLens& c) {
                    },
                    [&](const ThickLens& t) {
                        f.glass = t.glass;
-                       f.shape = t.shape;
+                       f.shape = t.shape.value_or("");
                        f.design_wavelength_nm = t.design_wavelength_nm;
                    },
                },

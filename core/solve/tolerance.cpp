@@ -97,7 +97,7 @@ void apply_perturbation(Layout& l, const Perturbation& p, double amount) {
     Element& e = l.elements[p.element];
     switch (p.kind) {
         case Perturbation::Kind::Position: e.at_mm += amount * p.direction; break;
-        case Perturbation::Kind::Angle: e.normal_deg += rad_to_deg(amount * 1e-3); break;
+        case Perturbation::Kind::Angle: e.normal_deg += rad_to_deg(mrad_to_rad(amount)); break;
         case Perturbation::Kind::Stage: std::get<Stage>(e.kind).position_mm += amount; break;
         case Perturbation::Kind::FocalLength: {
             Lens& lens = std::get<Lens>(e.kind);

@@ -19,6 +19,18 @@ inline constexpr double nm_to_mm(double length_nm) { return length_nm * 1e-6; }
 inline constexpr double nm_to_um(double length_nm) { return length_nm * 1e-3; }
 inline constexpr double mm_to_um(double length_mm) { return length_mm * 1e3; }
 inline constexpr double um_to_mm(double length_um) { return length_um * 1e-3; }
+inline constexpr double um_to_nm(double length_um) { return length_um * 1e3; }
+inline constexpr double pm_to_nm(double length_pm) { return length_pm * 1e-3; }
+inline constexpr double um_to_cm(double length_um) { return length_um * 1e-4; }
+// A quantity per µm as per mm (× 1000 µm/mm): GVD in fs²/µm → fs²/mm, k in rad/µm → rad/mm.
+inline constexpr double per_um_to_per_mm(double per_um) { return per_um * 1e3; }
+inline constexpr double per_nm_to_per_mm(double per_nm) { return per_nm * 1e6; }
+inline constexpr double mrad_to_rad(double angle_mrad) { return angle_mrad * 1e-3; }
+inline constexpr double rad_to_mrad(double angle_rad) { return angle_rad * 1e3; }
+inline constexpr double mw_to_w(double power_mw) { return power_mw * 1e-3; }
+inline constexpr double khz_to_hz(double rate_khz) { return rate_khz * 1e3; }
+inline constexpr double fs_to_s(double time_fs) { return time_fs * 1e-15; }
+inline constexpr double j_to_uj(double energy_j) { return energy_j * 1e6; }
 inline constexpr double deg_to_rad(double angle_deg) { return angle_deg * kPi / 180.0; }
 inline constexpr double rad_to_deg(double angle_rad) { return angle_rad * 180.0 / kPi; }
 

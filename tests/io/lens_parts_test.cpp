@@ -37,7 +37,7 @@ TEST_CASE("a lens's part reads and writes back") {
     CHECK(*back.layout == l);
     // Without it, the writer writes none.
     const rv::Layout plain = layout_from(with_lens(R"("focal_length_mm": 100)"));
-    CHECK(std::get<rv::Lens>(plain.find("L1")->kind).part.empty());
+    CHECK_FALSE(std::get<rv::Lens>(plain.find("L1")->kind).part.has_value());
     CHECK(rv::write_layout(plain).find("\"part\"") == std::string::npos);
 }
 
@@ -130,7 +130,7 @@ TEST_CASE("the parts list names a lens by its part") {
     const rv::PartSpec with = rv::part_spec(a.elements[1]);
     const rv::PartSpec without = rv::part_spec(b.elements[1]);
     CHECK(with.part == "ideal-f100-d25.4");
-    CHECK(without.part.empty());
+    CHECK_FALSE(without.part.has_value());
     CHECK(with.fields == without.fields);  // the specification stays beside the id
     CHECK_FALSE(with == without);          // and the id makes it another part
 }

@@ -11,7 +11,7 @@ TEST_CASE("free-space q against the closed forms", "[gaussian]") {
     // Kogelnik & Li, Appl. Opt. 5, 1550 (1966): w(z) = w0 √(1 + (z/zR)²), R = z (1 + (zR/z)²),
     // ψ = arctan(z/zR); check values computed from them (docs/physics.md §1.1)
     // for w0 = 100 µm at 1064 nm in air.
-    const rv::GaussianBeam at_waist = rv::beam_from_waist(100.0, 0.0, 1064.0);
+    const rv::GaussianBeam at_waist = rv::beam_from_waist({.waist_um = 100.0, .distance_to_waist_mm = 0.0, .wavelength_nm = 1064.0});
     CHECK_THAT(rv::rayleigh_range_mm(at_waist), near(29.52625, 1e-5));
     CHECK_THAT(rv::radius_um(at_waist), near(100.0, 1e-9));
     CHECK(std::isinf(rv::wavefront_radius_mm(at_waist)));
@@ -38,7 +38,7 @@ TEST_CASE("M² by the embedded-Gaussian convention", "[gaussian]") {
     // ISO 11146 propagation law (summary by S. Prahl, laserbeamsize docs):
     // W(z)² = W0² + (M² λ z / (π W0))², with z_R = π W0² / (M² λ).
     const double w0_mm = 0.3, m2 = 1.7, lambda_mm = 780e-6, z_mm = 250.0;
-    const rv::GaussianBeam b = rv::propagate(rv::beam_from_waist(300.0, 0.0, 780.0, 1.0, m2),
+    const rv::GaussianBeam b = rv::propagate(rv::beam_from_waist({.waist_um = 300.0, .distance_to_waist_mm = 0.0, .wavelength_nm = 780.0, .m2 = m2}),
                                              rv::free_space(z_mm));
     const double theta = m2 * lambda_mm / (rv::kPi * w0_mm);
     CHECK_THAT(rv::radius_um(b),

@@ -47,7 +47,7 @@ TEST_CASE("thin-lens focusing agrees with Self's equation", "[gaussian][self]") 
     for (const Case& c : cases) {
         CAPTURE(c.name);
         const rv::GaussianBeam in =
-            rv::beam_from_waist(c.w0_mm * 1e3, -c.s_mm, c.lambda_nm, 1.0, c.m2);
+            rv::beam_from_waist({.waist_um = rv::mm_to_um(c.w0_mm), .distance_to_waist_mm = -c.s_mm, .wavelength_nm = c.lambda_nm, .m2 = c.m2});
         const rv::GaussianBeam out = rv::propagate(in, rv::thin_lens(c.f_mm));
         const SelfResult oracle = self_equation(c.w0_mm, c.s_mm, c.f_mm, c.lambda_nm * 1e-6, c.m2);
         // Relative error ≤ 1e-9 against the closed form.
@@ -69,11 +69,11 @@ TEST_CASE("the Gaussian image never lies beyond f + f²/(2 z_R)", "[gaussian][se
     double best = 0.0;
     for (double s = 0.0; s < 600.0; s += 0.25) {
         const rv::GaussianBeam out =
-            rv::propagate(rv::beam_from_waist(200.0, -s, 1030.0), rv::thin_lens(f));
+            rv::propagate(rv::beam_from_waist({.waist_um = 200.0, .distance_to_waist_mm = -s, .wavelength_nm = 1030.0}), rv::thin_lens(f));
         best = std::max(best, rv::distance_to_waist_mm(out));
     }
     const double at_peak = rv::distance_to_waist_mm(
-        rv::propagate(rv::beam_from_waist(200.0, -(f + zr), 1030.0), rv::thin_lens(f)));
+        rv::propagate(rv::beam_from_waist({.waist_um = 200.0, .distance_to_waist_mm = -(f + zr), .wavelength_nm = 1030.0}), rv::thin_lens(f)));
     CHECK_THAT(at_peak, near_rel(f + f * f / (2 * zr), 1e-12));
     CHECK(best <= at_peak + 1e-9);
 }

@@ -108,7 +108,7 @@ void add_envelope(Scene& s, const ReportBeam& b, Colour colour, double exaggerat
         while (k < env.size() && env[k].s_mm < s0 - 1e-9) ++k;
         for (size_t j = k; j < env.size() && env[j].s_mm <= s1 + 1e-9; ++j) {
             const Vec2 c = seg.from_mm + (env[j].s_mm - s0) * d;
-            const double half = env[j].radius_tangential_um * 1e-3 * exaggeration;
+            const double half = um_to_mm(env[j].radius_tangential_um) * exaggeration;
             upper.push_back(c + half * across);
             lower.push_back(c - half * across);
         }

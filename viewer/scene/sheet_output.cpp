@@ -46,7 +46,7 @@ std::string field_text(const SpecField& f) {
                                                       : f.unit));
 }
 std::string spec_text(const PartSpec& s) {
-    std::string t = s.part.empty() ? s.kind : s.part + " (" + s.kind + ")";
+    std::string t = s.part ? *s.part + " (" + s.kind + ")" : s.kind;
     for (size_t i = 0; i < s.fields.size(); ++i) t += (i ? ", " : ": ") + field_text(s.fields[i]);
     return t;
 }
@@ -171,7 +171,7 @@ std::string offset_text(const SheetPlace& p) {
 void print_text(std::ostream& out, const Layout& layout, const BuildSheet& sheet,
                 const std::vector<Path>& paths) {
     out << "Build sheet: " << layout.name << "\n" << convention_text(layout, sheet) << "\n";
-    const bool any_part = std::any_of(sheet.parts.begin(), sheet.parts.end(), [](const PartGroup& g) { return !g.spec.part.empty(); });
+    const bool any_part = std::any_of(sheet.parts.begin(), sheet.parts.end(), [](const PartGroup& g) { return g.spec.part.has_value(); });
     out << "Parts (" << layout.elements.size() << " elements, " << sheet.parts.size() << " different parts; "
         << (any_part ? "a catalog id where the file names one, and" : "no catalog ids in the file, so")
         << " each part's specification)\n";
@@ -279,7 +279,7 @@ nlohmann::json sheet_json(const Layout& layout, const BuildSheet& sheet,
         nlohmann::json ids = nlohmann::json::array();
         for (size_t e : g.elements) ids.push_back(layout.elements[e].id);
         parts.push_back({{"kind", g.spec.kind},
-                         {"part", g.spec.part.empty() ? nlohmann::json(nullptr) : nlohmann::json(g.spec.part)},
+                         {"part", g.spec.part ? nlohmann::json(*g.spec.part) : nlohmann::json(nullptr)},
                          {"spec", spec_json(g.spec)},
                          {"count", g.elements.size()},
                          {"ids", ids}});

@@ -178,11 +178,11 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                                },
                                [&](ThickLens& thick) {
                                    name_field("glass", "glass", &thick.glass, doc, st);
-                                   if (thick.shape.empty()) {
+                                   if (!thick.shape) {
                                        field("r1", "front radius (mm)", &thick.front_radius_mm, "%.2f", doc, st);
                                        field("r2", "back radius (mm)", &thick.back_radius_mm, "%.2f", doc, st);
                                    } else {
-                                       ImGui::Text("shape: %s", thick.shape.c_str());
+                                       ImGui::Text("shape: %s", thick.shape->c_str());
                                        field("f", "focal length (mm)", &thick.focal_length_mm, "%.2f", doc, st);
                                    }
                                    field("ct", "centre thickness (mm)", &thick.center_thickness_mm, "%.2f", doc, st);
@@ -191,10 +191,10 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                            lens.model);
                 // A lens whose numbers or diameter were edited is no longer its catalog part: the id
                 // goes (io/lens_parts.hpp would refuse the disagreement), within the same edit.
-                if (!lens.part.empty()) {
-                    ImGui::Text("part: %s", lens.part.c_str());
+                if (lens.part) {
+                    ImGui::Text("part: %s", lens.part->c_str());
                     if (!(lens.model == model_before) || e.aperture_mm != aperture_before_mm) {
-                        lens.part.clear();
+                        lens.part.reset();
                         if (st.editing) doc.preview(st.scratch);
                         else doc.edit(st.scratch);
                     }
