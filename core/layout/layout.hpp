@@ -240,8 +240,8 @@ struct Element {
     double aperture_mm = kDefaultAperture_mm;
     double transmission = 1.0;  // fraction of the power it passes on (coating losses); 1: lossless
     ElementKind kind;
-    // A new field must also be compared in trace.cpp's compare_elements (the retrace's test of
-    // what changed), which spells this comparison out field by field.
+    // The retrace's test of what changed uses this equality (trace/retrace_memo.cpp); a field
+    // that ties elements together must also be flagged as a link there, as id and aim_at are.
     bool operator==(const Element&) const = default;
 };
 

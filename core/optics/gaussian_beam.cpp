@@ -22,15 +22,6 @@ GaussianBeam beam_from_waist(const Waist& waist) {
     return beam;
 }
 
-GaussianBeam beam_from_waist(double waist_um, double distance_to_waist_mm, double wavelength_nm,
-                             double index, double m2) {
-    return beam_from_waist(Waist{.waist_um = waist_um,
-                                 .distance_to_waist_mm = distance_to_waist_mm,
-                                 .wavelength_nm = wavelength_nm,
-                                 .index = index,
-                                 .m2 = m2});
-}
-
 GaussianBeam propagate(const GaussianBeam& beam, const RayMatrix& m, double index_after) {
     GaussianBeam out = beam;
     // (A q + B)/(C q + D), dividing by multiplying with the conjugate: q never lies on the real

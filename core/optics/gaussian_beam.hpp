@@ -39,9 +39,6 @@ struct Waist {
     double m2 = 1.0;                    // beam-quality factor in this plane
 };
 GaussianBeam beam_from_waist(const Waist& waist);
-// The same by position, kept only for core/trace/propagate.cpp until it names its arguments.
-GaussianBeam beam_from_waist(double waist_um, double distance_to_waist_mm, double wavelength_nm,
-                             double index = 1.0, double m2 = 1.0);
 
 // ABCD law; index_after is the index of the medium after the matrix (the same as before for
 // free space, lenses and mirrors).

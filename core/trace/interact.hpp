@@ -44,7 +44,10 @@ struct HitContext {
     // A finding about `element` (SIZE_MAX: none); the caller fills in the kind's numbers.
     Finding& finding(Finding::Kind kind, size_t element, const Vec2& where, double amount = 0) const;
     // A finding (once per element) when the beam's wavelength lies outside the material's range.
-    void note_material(const Material& m) const;
+    void note_material(const Material& m) const {
+        if (!covers(m, beam.wavelength_nm)) note_out_of_range(m);
+    }
+    void note_out_of_range(const Material& m) const;
     // The finding for a material with no real index at the beam's wavelength (on a pole).
     void no_real_index(const Vec2& where) const;
 };

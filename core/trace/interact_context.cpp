@@ -13,8 +13,7 @@ Finding& HitContext::finding(Finding::Kind kind, size_t e, const Vec2& where, do
     return f;
 }
 
-void HitContext::note_material(const Material& m) const {
-    if (covers(m, beam.wavelength_nm)) return;
+void HitContext::note_out_of_range(const Material& m) const {
     for (size_t e : noted)
         if (e == element) return;
     noted.push_back(element);

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <tuple>
 
+#include "layout/visit.hpp"
 #include "optics/thick_lens.hpp"
 #include "units/constants.hpp"
 
@@ -17,16 +18,20 @@ RayMatrix hit_matrix(const Layout& layout, const TraceHit& hit, Plane plane) {
     switch (hit.interaction) {
         case Interaction::ThinLens: {
             const Lens& lens = std::get<Lens>(e.kind);
-            if (const auto* t = std::get_if<ThickLens>(&lens.model)) {
-                const double n = hit.lens_index;
-                const Vec2 normal = direction_deg(e.normal_deg);
-                ThickSinglet shape{t->front_radius_mm, t->back_radius_mm, t->center_thickness_mm};
-                if (hit.direction_in.dot(normal) < 0)  // met from the back: faces reversed
-                    shape = {-t->back_radius_mm, -t->front_radius_mm, t->center_thickness_mm};
-                const RayMatrix half_back = free_space(-t->center_thickness_mm / 2);
-                return half_back * thick_singlet_matrix(shape, n) * half_back;
-            }
-            return thin_lens(hit.focal_length_mm);
+            const auto thin = [&](const auto&) { return thin_lens(hit.focal_length_mm); };
+            return std::visit(
+                overloaded{[&](const IdealLens& l) { return thin(l); }, [&](const ThinChromaticLens& l) { return thin(l); },
+                           [&](const ThickLens& t) {
+                               // The singlet's own matrix between its vertices, referred to its centre plane.
+                               const double n = hit.lens_index;
+                               const Vec2 normal = direction_deg(e.normal_deg);
+                               ThickSinglet shape{t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm};
+                               if (hit.direction_in.dot(normal) < 0)  // met from the back: faces reversed
+                                   shape = {-t.back_radius_mm, -t.front_radius_mm, t.center_thickness_mm};
+                               const RayMatrix half_back = free_space(-t.center_thickness_mm / 2);
+                               return RayMatrix(half_back * thick_singlet_matrix(shape, n) * half_back);
+                           }},
+                lens.model);
         }
         case Interaction::Reflect:
             if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->radius_of_curvature_mm)
@@ -34,9 +39,12 @@ RayMatrix hit_matrix(const Layout& layout, const TraceHit& hit, Plane plane) {
             return RayMatrix::Identity();
         case Interaction::Refract:
             return tilted_interface(hit.index_before, hit.index_after, hit.cos_aoi, hit.sin_aoi, plane);
-        default:
+        case Interaction::Retroreflect:  // the apex fold: a plane mirror pair, no power
+        case Interaction::TargetPlane:
+        case Interaction::Absorb:
             return RayMatrix::Identity();
     }
+    return RayMatrix::Identity();
 }
 
 double clipped_fraction(const TraceHit& hit, double w_t_um, double w_s_um) {
@@ -88,9 +96,16 @@ double locate_waist_mm(const Layout& layout, const Path& path, size_t k, Gaussia
 
 // The source's beams in both planes, at the start of the path.
 void source_beams(const BeamSource& src, GaussianBeam& t, GaussianBeam& s) {
-    t = beam_from_waist(src.waist_um.tangential, src.waist_at_mm.tangential, src.wavelength_nm, 1.0,
-                        src.m2.tangential);
-    s = beam_from_waist(src.waist_um.sagittal, src.waist_at_mm.sagittal, src.wavelength_nm, 1.0, src.m2.sagittal);
+    t = beam_from_waist({.waist_um = src.waist_um.tangential,
+                         .distance_to_waist_mm = src.waist_at_mm.tangential,
+                         .wavelength_nm = src.wavelength_nm,
+                         .index = 1.0,
+                         .m2 = src.m2.tangential});
+    s = beam_from_waist({.waist_um = src.waist_um.sagittal,
+                         .distance_to_waist_mm = src.waist_at_mm.sagittal,
+                         .wavelength_nm = src.wavelength_nm,
+                         .index = 1.0,
+                         .m2 = src.m2.sagittal});
 }
 
 // Both planes through one hit's matrices, into the medium after it.

@@ -15,27 +15,6 @@ double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
 }
 }  // namespace
 
-void StepAccelerator::begin(const std::vector<PlacedOptic>& placed, bool since_last,
-                            const std::vector<size_t>& changed) {
-    replaying_ = !steps_.empty();
-    if (!replaying_) return;
-    since_last = since_last && moved_known_;
-    double moved2 = since_last ? moved2_mm2_ : 0, grown = since_last ? grown_mm_ : 0;
-    auto widen = [&](size_t i) {
-        moved2 = std::max(moved2, (placed[i].at - placed_at_mm_[i]).squaredNorm());
-        grown = std::max(grown, placed[i].reach - placed_reach_mm_[i]);
-    };
-    if (since_last) {
-        for (size_t i : changed) widen(i);
-    } else {
-        for (size_t i = 0; i < placed.size(); ++i) widen(i);
-    }
-    moved2_mm2_ = moved2;
-    grown_mm_ = grown;
-    moved_known_ = true;
-    moved_mm_ = std::sqrt(moved2) + grown;
-}
-
 void StepAccelerator::record(const std::vector<StepTaken>& taken, const std::vector<PlacedOptic>& placed) {
     steps_.resize(taken.size());
     for (size_t k = 0; k < taken.size(); ++k) {

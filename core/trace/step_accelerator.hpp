@@ -13,6 +13,8 @@
 // full search (tests/trace/trace_cache_test.cpp compares them); when the condition fails the
 // step is searched among all elements and the steps are recorded again.
 
+#include <algorithm>
+#include <cmath>
 #include <cstdint>
 #include <limits>
 #include <optional>
@@ -86,6 +88,27 @@ private:
     double moved_mm_ = 0;  // this trace's bound δ
     bool replaying_ = false;
 };
+
+inline void StepAccelerator::begin(const std::vector<PlacedOptic>& placed, bool since_last,
+                            const std::vector<size_t>& changed) {
+    replaying_ = !steps_.empty();
+    if (!replaying_) return;
+    since_last = since_last && moved_known_;
+    double moved2 = since_last ? moved2_mm2_ : 0, grown = since_last ? grown_mm_ : 0;
+    auto widen = [&](size_t i) {
+        moved2 = std::max(moved2, (placed[i].at - placed_at_mm_[i]).squaredNorm());
+        grown = std::max(grown, placed[i].reach - placed_reach_mm_[i]);
+    };
+    if (since_last) {
+        for (size_t i : changed) widen(i);
+    } else {
+        for (size_t i = 0; i < placed.size(); ++i) widen(i);
+    }
+    moved2_mm2_ = moved2;
+    grown_mm_ = grown;
+    moved_known_ = true;
+    moved_mm_ = std::sqrt(moved2) + grown;
+}
 
 template <class Consider, class SearchAll>
 std::optional<SurfaceCrossing> StepAccelerator::next(const Vec2& p, const Vec2& d, double max_dist, size_t step,

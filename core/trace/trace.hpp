@@ -18,6 +18,12 @@
 //   a ray arriving at its centre would be sent to the aimed-at element's centre.
 // Refractive indices of glasses are the catalogue values relative to air (air is n = 1 for
 // geometry, docs/physics.md §0.3); group indices are absolute (air by Ciddor 1996).
+//
+// How it is built: the ray's state is one value (ray_state.hpp); one step finds the next
+// surface through the step accelerator (step_accelerator.hpp) and lets the element act on the
+// ray through interact() (interact.hpp; one function per kind in interact_*.cpp, chosen by
+// std::visit); placing the elements is placed_optics.hpp; what a retrace keeps between calls is
+// retrace_memo.hpp; trace_cache.hpp holds them together.
 
 #include <vector>
 

@@ -34,7 +34,7 @@ std::vector<rv::RayMatrix> chain20(rv::Plane plane) {
 void Chain20PropagateBothPlanes(benchmark::State& state) {
     const std::vector<rv::RayMatrix> t = chain20(rv::Plane::Tangential);
     const std::vector<rv::RayMatrix> s = chain20(rv::Plane::Sagittal);
-    const rv::GaussianBeam start = rv::beam_from_waist(900, -200, 1030, 1.0, 1.1);
+    const rv::GaussianBeam start = rv::beam_from_waist({.waist_um = 900, .distance_to_waist_mm = -200, .wavelength_nm = 1030, .index = 1.0, .m2 = 1.1});
     for (auto _ : state) {
         rv::GaussianBeam bt = start, bs = start;
         for (size_t i = 0; i < t.size(); ++i) {
@@ -48,7 +48,7 @@ void Chain20PropagateBothPlanes(benchmark::State& state) {
 BENCHMARK(Chain20PropagateBothPlanes);
 
 void Chain20BuildAndPropagate(benchmark::State& state) {
-    const rv::GaussianBeam start = rv::beam_from_waist(900, -200, 1030, 1.0, 1.1);
+    const rv::GaussianBeam start = rv::beam_from_waist({.waist_um = 900, .distance_to_waist_mm = -200, .wavelength_nm = 1030, .index = 1.0, .m2 = 1.1});
     for (auto _ : state) {
         const std::vector<rv::RayMatrix> t = chain20(rv::Plane::Tangential);
         rv::GaussianBeam b = start;

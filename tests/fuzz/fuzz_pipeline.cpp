@@ -35,7 +35,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     }
     // A few edits from a seed taken from the input, so that a reproducer replays the same run.
     const std::uint32_t seed = static_cast<std::uint32_t>(size * 2654435761u);
-    const rv::test::RetraceRun run = rv::test::check_retraces(*r.layout, rv::material_library_for(*r.layout), seed, 6);
+    const rv::test::RetraceRun run = rv::test::check_retraces(*r.layout, rv::material_library_for(*r.layout), seed, 4);
     if (run.difference) {
         std::fprintf(stderr, "retrace differs from a fresh trace: %s\n", run.difference->c_str());
         __builtin_trap();

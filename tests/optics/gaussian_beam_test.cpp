@@ -50,12 +50,12 @@ TEST_CASE("M² by the embedded-Gaussian convention", "[gaussian]") {
 TEST_CASE("a waist inside a medium", "[gaussian]") {
     // docs/physics.md §1.4 (computed from it): w0 = 30 µm at 1064 nm in BBO with n_o = 1.65452 has
     // z_R = 2.6574 mm in air and 4.3967 mm in the crystal (z_R = π n w0² / λ0).
-    CHECK_THAT(rv::rayleigh_range_mm(rv::beam_from_waist(30.0, 0.0, 1064.0)), near(2.6574, 1e-4));
-    CHECK_THAT(rv::rayleigh_range_mm(rv::beam_from_waist(30.0, 0.0, 1064.0, 1.65452)),
+    CHECK_THAT(rv::rayleigh_range_mm(rv::beam_from_waist({.waist_um = 30.0, .distance_to_waist_mm = 0.0, .wavelength_nm = 1064.0})), near(2.6574, 1e-4));
+    CHECK_THAT(rv::rayleigh_range_mm(rv::beam_from_waist({.waist_um = 30.0, .distance_to_waist_mm = 0.0, .wavelength_nm = 1064.0, .index = 1.65452})),
                near(4.3967, 1e-4));
     // Crossing a flat face keeps the radius and multiplies q by n (plane_interface det = 1/n),
     // so a waist that would form d behind the face in air forms n·d inside.
-    const rv::GaussianBeam in_air = rv::beam_from_waist(30.0, 2.0, 1064.0);
+    const rv::GaussianBeam in_air = rv::beam_from_waist({.waist_um = 30.0, .distance_to_waist_mm = 2.0, .wavelength_nm = 1064.0});
     const rv::GaussianBeam inside = rv::propagate(in_air, rv::plane_interface(1.0, 1.65452), 1.65452);
     CHECK_THAT(rv::radius_um(inside), near_rel(rv::radius_um(in_air), 1e-12));
     CHECK_THAT(rv::distance_to_waist_mm(inside), near_rel(2.0 * 1.65452, 1e-12));
@@ -65,7 +65,7 @@ TEST_CASE("a waist inside a medium", "[gaussian]") {
 TEST_CASE("translate is free space", "[gaussian]") {
     // Kogelnik & Li 1966: free space of length L takes q to q + L; translate() is the shortcut
     // the propagation uses, so it must equal the matrix form exactly.
-    const rv::GaussianBeam b = rv::beam_from_waist(120.0, -35.0, 780.0, 1.0, 1.3);
+    const rv::GaussianBeam b = rv::beam_from_waist({.waist_um = 120.0, .distance_to_waist_mm = -35.0, .wavelength_nm = 780.0, .index = 1.0, .m2 = 1.3});
     for (double length_mm : {0.0, 12.5, -40.0, 1e4}) {
         const rv::GaussianBeam m = rv::propagate(b, rv::free_space(length_mm));
         CHECK(rv::translate(b, length_mm).q_mm == m.q_mm);

@@ -87,7 +87,7 @@ TEST_CASE("a tilted plate in the path acts as its effective lengths", "[propagat
     const double after = t.path.hits[2].s_mm - t.path.hits[1].s_mm;
     for (rv::Plane plane : {rv::Plane::Tangential, rv::Plane::Sagittal}) {
         const rv::GaussianBeam q = rv::propagate(
-            rv::beam_from_waist(40, 120, 1064),
+            rv::beam_from_waist({.waist_um = 40, .distance_to_waist_mm = 120, .wavelength_nm = 1064}),
             rv::free_space(after) * rv::tilted_plate_matrix(3, n, rv::kPi / 4, plane) * rv::free_space(before));
         const rv::GaussianBeam& got = plane == rv::Plane::Tangential ? t.caustic.target_tangential
                                                                       : t.caustic.target_sagittal;
