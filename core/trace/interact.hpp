@@ -27,6 +27,11 @@ enum class HitOutcome {
     Refused,   // the hit cannot be computed (no real index): taken back, and the path ends
 };
 
+// A finding on `path` about element `element` of `layout` (SIZE_MAX: none), at `where`; the
+// caller fills in the kind's numbers.
+Finding& add_finding(Path& path, const Layout& layout, Finding::Kind kind, size_t element, const Vec2& where,
+                     double amount = 0);
+
 // What an element's interaction may read and the findings it may make.
 struct HitContext {
     const Layout& layout;
@@ -42,7 +47,9 @@ struct HitContext {
     const SurfaceCrossing& crossing;
 
     // A finding about `element` (SIZE_MAX: none); the caller fills in the kind's numbers.
-    Finding& finding(Finding::Kind kind, size_t element, const Vec2& where, double amount = 0) const;
+    Finding& finding(Finding::Kind kind, size_t element, const Vec2& where, double amount = 0) const {
+        return add_finding(path, layout, kind, element, where, amount);
+    }
     // A finding (once per element) when the beam's wavelength lies outside the material's range.
     void note_material(const Material& m) const {
         if (!covers(m, beam.wavelength_nm)) note_out_of_range(m);

@@ -4,7 +4,8 @@
 
 namespace rv {
 
-Finding& HitContext::finding(Finding::Kind kind, size_t e, const Vec2& where, double amount) const {
+Finding& add_finding(Path& path, const Layout& layout, Finding::Kind kind, size_t e, const Vec2& where,
+                     double amount) {
     Finding& f = path.findings.emplace_back();
     f.kind = kind;
     if (e < layout.elements.size()) f.element = layout.elements[e].id;

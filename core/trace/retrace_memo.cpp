@@ -4,16 +4,9 @@
 #include <numeric>
 #include <stdexcept>
 
-namespace rv {
+#include "trace/segment_distance.hpp"
 
-namespace {
-double squared_distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
-    const Vec2 ab = b - a;
-    const double len2 = ab.squaredNorm();
-    const double t = len2 > 0 ? std::clamp((c - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
-    return (a + t * ab - c).squaredNorm();
-}
-}  // namespace
+namespace rv {
 
 // An element as it was at the previous retrace, now: noted as changed when it differs at all
 // (Element's own equality); a change of what links elements (an id, a stage, an aim_at) is

@@ -1,19 +1,10 @@
 #include "trace/step_accelerator.hpp"
 
-#include <algorithm>
 #include <cmath>
 
-namespace rv {
+#include "trace/segment_distance.hpp"
 
-namespace {
-// Distance from point c to the segment [a, b].
-double distance_to_segment(const Vec2& c, const Vec2& a, const Vec2& b) {
-    const Vec2 ab = b - a;
-    const double len2 = ab.squaredNorm();
-    const double t = len2 > 0 ? std::clamp((c - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
-    return (a + t * ab - c).norm();
-}
-}  // namespace
+namespace rv {
 
 void StepAccelerator::record(const std::vector<StepTaken>& taken, const std::vector<PlacedOptic>& placed) {
     steps_.resize(taken.size());
@@ -27,7 +18,7 @@ void StepAccelerator::record(const std::vector<StepTaken>& taken, const std::vec
         if (taken[k].met) step.candidates.push_back(*taken[k].met);
         for (size_t i = 0; i < placed.size(); ++i)
             if (placed[i].traced && i != taken[k].met &&
-                distance_to_segment(placed[i].at, step.from_mm, step.to_mm) <= placed[i].reach + kTraceMargin_mm)
+                std::sqrt(squared_distance_to_segment(placed[i].at, step.from_mm, step.to_mm)) <= placed[i].reach + kTraceMargin_mm)
                 step.candidates.push_back(static_cast<uint32_t>(i));
     }
     moved2_mm2_ = grown_mm_ = 0;  // nothing has moved since this recording

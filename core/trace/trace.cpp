@@ -103,12 +103,7 @@ BeamTracer::BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, Tra
 }
 
 Finding& BeamTracer::finding(Finding::Kind kind, size_t element, const Vec2& where, double amount) {
-    Finding& f = path_.findings.emplace_back();
-    f.kind = kind;
-    if (element < layout_.elements.size()) f.element = layout_.elements[element].id;
-    f.where_mm = where;
-    f.amount = amount;
-    return f;
+    return add_finding(path_, layout_, kind, element, where, amount);
 }
 
 inline void BeamTracer::consider(size_t i, const RayState& ray, double max_dist, SurfaceCrossing& best) const {
