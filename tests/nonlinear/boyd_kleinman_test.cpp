@@ -4,7 +4,9 @@
 #include <cmath>
 
 #include "support/tolerance.hpp"
+#include "units/constants.hpp"
 
+using rv::kPi;
 using rv::test::near;
 
 TEST_CASE("h_m at the optimum focusing", "[boyd-kleinman]") {
@@ -26,9 +28,9 @@ TEST_CASE("the table of h_m", "[boyd-kleinman]") {
         CHECK_THAT(o.sigma_m, near(r.sigma_m, 2e-3));
     }
     // Weak focusing limit h → ξ for ξ ≪ 1 at σ = 0 (Boyd & Kleinman 1968).
-    CHECK_THAT(rv::boyd_kleinman_h(0, 0.01), near(0.01, 1e-5));
+    CHECK_THAT(rv::boyd_kleinman_h(0, 0, 0.01), near(0.01, 1e-5));
     // σ = 0, computed from docs/physics.md §5: h(0, 2.84) = 0.5347.
-    CHECK_THAT(rv::boyd_kleinman_h(0, 2.84), near(0.5347, 1e-4));
+    CHECK_THAT(rv::boyd_kleinman_h(0, 0, 2.84), near(0.5347, 1e-4));
 }
 
 TEST_CASE("walk-off parameter", "[boyd-kleinman]") {
@@ -40,11 +42,16 @@ TEST_CASE("walk-off parameter", "[boyd-kleinman]") {
 }
 
 TEST_CASE("h in the strong-focusing limit", "[boyd-kleinman]") {
-    // Boyd & Kleinman 1968: for ξ → ∞ the integral tends to 2π e^{−σ} (σ > 0), so h_m → π²/ξ.
-    // The approach is slow (logarithmic tails): the numerical value at ξ = 1000 lies within 10 %
-    // of the limit used beyond it; a huge ξ from a sub-micron focus neither overflows nor stalls.
-    const double numeric = rv::boyd_kleinman_optimum(1000).h_m;
-    CHECK_THAT(numeric, near(9.8696 / 1000, 0.1 * 9.8696 / 1000));
+    // Derived here from BK's h(σ, 0, ξ) = |I|²/(4ξ), I = ∫_{−ξ}^{ξ} e^{iστ}/(1 + iτ) dτ (real by
+    // symmetry): I = ∫ cos(στ)/(1 + τ²) + ∫ τ sin(στ)/(1 + τ²). For ξ → ∞ with u = σξ fixed the
+    // first term → π and the second → 2 Si(u), largest at u = π. So h_m ξ → (π + 2 Si(π))²/4 =
+    // 11.7151 at σ_m = π/ξ (Si(π) = 1.8519370520, Abramowitz & Stegun table 5.1). BK's own
+    // π²/ξ is the limit at fixed σ > 0 (residue at τ = i), not the maximum over σ.
+    const double limit = std::pow(kPi + 2 * 1.8519370520, 2) / 4;
+    const rv::BoydKleinmanOptimum o = rv::boyd_kleinman_optimum(1e4);
+    CHECK_THAT(o.h_m * 1e4, near(limit, 0.01 * limit));
+    CHECK_THAT(o.sigma_m * 1e4, near(kPi, 0.05 * kPi));
+    // A huge ξ from a sub-micron focus neither overflows nor stalls.
     const rv::BoydKleinmanOptimum huge = rv::boyd_kleinman_optimum(1.3e15);
     CHECK(std::isfinite(huge.h_m));
     CHECK(huge.h_m > 0);
