@@ -105,12 +105,12 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
             (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
     }
     const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
-    // Geometry (trace/crystal_axes.hpp): the first beam's direction inside at the crystal's
-    // centre plane and the index it was refracted with give the 3-D wave vector and ψ.
+    // Geometry (trace/crystal_axes.hpp): the first beam's wave-vector direction inside at the
+    // crystal's centre plane and the index it was refracted with give the 3-D wave vector and ψ.
     const CrystalPose pose = crystal_pose(direction_deg(xe.normal_deg), xc);
     const Path& path = beams[i].path;
     const bool at_centre = path.target_hit.has_value();
-    const Vec2 d = at_centre ? path.hits[*path.target_hit].direction_in : pose.face_normal;
+    const Vec2 d = at_centre ? path.hits[*path.target_hit].wave_direction_in() : pose.face_normal;
     const double index_here = at_centre ? path.hits[*path.target_hit].index_after : 1.0;
     const PhaseNow now =
         phase_now(m, l1, l2, type, xe, xc, d, index_here);  // the tolerance run's too

@@ -4,9 +4,7 @@
 
 namespace rv {
 
-namespace {
-
-IndexSample from_derivatives(const IndexDerivatives& d, double wavelength_um, bool in_range) {
+IndexSample sample_from_derivatives(const IndexDerivatives& d, double wavelength_um, bool in_range) {
     const double l = wavelength_um, c = kSpeedOfLight_um_per_fs;
     IndexSample s{};
     s.index = d.n;
@@ -18,6 +16,8 @@ IndexSample from_derivatives(const IndexDerivatives& d, double wavelength_um, bo
     return s;
 }
 
+namespace {
+
 IndexDerivatives derivatives(const Material& m, double wavelength_nm, Axis axis) {
     const size_t i = static_cast<size_t>(axis) < m.axes.size() ? static_cast<size_t>(axis) : 0;
     return evaluate(m.axes[i], nm_to_um(wavelength_nm));
@@ -26,7 +26,7 @@ IndexDerivatives derivatives(const Material& m, double wavelength_nm, Axis axis)
 }  // namespace
 
 IndexSample sample_index(const Material& material, double wavelength_nm, Axis axis) {
-    return from_derivatives(derivatives(material, wavelength_nm, axis), nm_to_um(wavelength_nm),
+    return sample_from_derivatives(derivatives(material, wavelength_nm, axis), nm_to_um(wavelength_nm),
                             covers(material, wavelength_nm));
 }
 
@@ -40,7 +40,7 @@ IndexSample absolute_index(const Material& material, const Material& air, double
              g.d3n * a.n + 3 * g.d2n * a.dn + 3 * g.dn * a.d2n + g.n * a.d3n};
         in_range = in_range && covers(air, wavelength_nm);
     }
-    return from_derivatives(g, nm_to_um(wavelength_nm), in_range);
+    return sample_from_derivatives(g, nm_to_um(wavelength_nm), in_range);
 }
 
 }  // namespace rv

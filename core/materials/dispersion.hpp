@@ -8,6 +8,7 @@
 // Reference: Diels & Rudolph, "Ultrashort Laser Pulse Phenomena" (2nd ed., 2006), ch. 1;
 // H. Abramczyk, "Introduction to Laser Spectroscopy" (2005), p. 107 for the GVD form.
 
+#include "materials/dispersion_formula.hpp"
 #include "materials/material.hpp"
 #include "units/constants.hpp"
 
@@ -22,6 +23,9 @@ struct IndexSample {
 };
 
 IndexSample sample_index(const Material& material, double wavelength_nm, Axis axis = Axis::X);
+
+// The sample from an index and its λ-derivatives (λ in µm), by the formulas above.
+IndexSample sample_from_derivatives(const IndexDerivatives& derivatives, double wavelength_um, bool in_range);
 
 // The same sample with the index made absolute (vacuum-referenced): for a set given relative
 // to air, n_abs = n_rel · n_air, with all derivatives by the product rule; otherwise unchanged.

@@ -19,6 +19,7 @@ namespace rv {
 struct LensGlass {
     double design_wavelength_nm = 0;
     double index = 1, design_index = 1, group_index = 1;  // absolute group index
+    double gvd_fs2_per_mm = 0, tod_fs3_per_mm = 0;         // absolute (thick singlets)
     // A thick singlet's effective focal length at `index`, and the radii and centre thickness
     // it was computed for (NaN: none yet).
     std::array<double, 3> efl_shape{std::numeric_limits<double>::quiet_NaN(), 0, 0};

@@ -48,13 +48,36 @@ Vec3 wave_vector_inside(const CrystalPose& pose, const Vec2& k_inside, double in
     return wave_vector_from_outside(pose, cos_a * pose.face_normal + sin_a * perpendicular(pose.face_normal), m);
 }
 
-double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec3& k) {
+Vec3 reference_axis(const CrystalPose& pose) {
     const Frame f = frame_of(pose);
     const double cut = pose.cut_rad, tau = pose.tilt_rad;
-    const Vec3 axis = pose.axis_in_table_plane
-                          ? Vec3(std::cos(cut) * (std::cos(tau) * f.n + std::sin(tau) * f.z) + std::sin(cut) * f.t)
-                          : Vec3(std::cos(cut + tau) * f.n + std::sin(cut + tau) * f.z);
-    return std::acos(std::clamp(std::abs(k.dot(axis)), 0.0, 1.0));
+    return pose.axis_in_table_plane
+               ? Vec3(std::cos(cut) * (std::cos(tau) * f.n + std::sin(tau) * f.z) + std::sin(cut) * f.t)
+               : Vec3(std::cos(cut + tau) * f.n + std::sin(cut + tau) * f.z);
+}
+
+double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec3& k) {
+    return std::acos(std::clamp(std::abs(k.dot(reference_axis(pose))), 0.0, 1.0));
+}
+
+Vec3 away_from_axis(const CrystalPose& pose, const Vec3& k) {
+    Vec3 c = reference_axis(pose);
+    if (k.dot(c) < 0) c = -c;  // the axis line's direction on k's side: cos ψ = k·c ≥ 0
+    // k = cos ψ c + sin ψ (−u)… written for u: the part of k across the axis, turned to point
+    // away from it (c = cos ψ k − sin ψ u, so u = (cos ψ k − c)/sin ψ).
+    const Vec3 across = k.dot(c) * k - c;
+    const double len = across.norm();
+    return len > 1e-12 ? Vec3(across / len) : Vec3::Zero();
+}
+
+WalkoffTurn walkoff_turn(const CrystalPose& pose, const Vec2& k_inside, double index, double walkoff_rad) {
+    if (walkoff_rad == 0) return {};
+    const Vec3 k = wave_vector_inside(pose, k_inside, index);
+    const Vec3 u = away_from_axis(pose, k);
+    const Vec2 side = perpendicular(k_inside);
+    const double s = std::sin(walkoff_rad), c = std::cos(walkoff_rad);
+    const double across = s * (u.x() * side.x() + u.y() * side.y());  // in the table plane, ⟂ k
+    return {std::atan2(across, c), s * u.z() / std::hypot(c, across)};
 }
 
 double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec2& k_inside, double index) {

@@ -55,6 +55,25 @@ double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec2& k_inside
 // ψ for a wave vector inside.
 double angle_to_reference_axis_rad(const CrystalPose& pose, const Vec3& k);
 
+// The crystal's reference axis as placed (cut and tilt applied), a unit vector of either sign.
+Vec3 reference_axis(const CrystalPose& pose);
+
+// The unit vector perpendicular to the wave vector k, in the plane of k and the reference axis,
+// pointing away from the axis: the energy of a B wave runs along cos ρ k + sin ρ u
+// (nonlinear/wave_dispersion.hpp; ρ < 0 turns it towards the axis). Zero when k lies along the
+// axis or across it (no walk-off there).
+Vec3 away_from_axis(const CrystalPose& pose, const Vec3& k);
+
+// How the trace carries a B wave's walk-off ρ for a wave vector k (table-plane direction
+// k_inside, as wave_vector_inside takes it): the energy's turn from k_inside in the table plane
+// (counter-clockwise +, drawn) and its slope out of the table plane (+ up, carried as a height).
+// Small tilts: the vertical part is taken along z, as the trace's plane is the table's.
+struct WalkoffTurn {
+    double table_rad = 0;       // the turn of the drawn ray in the table plane
+    double vertical_slope = 0;  // rise per mm of table-plane travel
+};
+WalkoffTurn walkoff_turn(const CrystalPose& pose, const Vec2& k_inside, double index, double walkoff_rad);
+
 // The fraction of a beam's power in the A wave (Malus: cos² of the angle between the
 // polarization and the A direction; circular light splits evenly).
 double a_wave_fraction(const Polarization& polarization, bool axis_in_table_plane);

@@ -39,7 +39,7 @@ struct HitContext {
     const BeamSource& beam;
     Polarization wave;  // the polarization that picks its wave in a birefringent crystal
     const Material& air;
-    double air_group_index = 1;
+    const Medium& air_medium;  // the medium outside every slab, at the beam's wavelength
     BeamSamples& samples;
     Path& path;
     std::vector<size_t>& noted;  // elements whose out-of-range material was reported

@@ -14,6 +14,7 @@ namespace {
 struct FocalLength {
     double f_mm = 0;
     double glass_index = 1, glass_group_index = 1;  // 1 for an ideal lens
+    double glass_gvd_fs2_per_mm = 0, glass_tod_fs3_per_mm = 0;  // thick singlets only
 };
 
 // The focal length at the beam's wavelength, from the glass samples kept for this lens.
@@ -35,15 +36,18 @@ FocalLength focal_length(const Lens& lens, const HitContext& ctx) {
                    },
                    [&](const ThickLens& t) {
                        LensGlass& g = slot.get(glass, 2, [&] {
-                           return LensGlass{0, sample_index(*glass, nm).index, 1,
-                                            absolute_index(*glass, ctx.air, nm).group_index};
+                           const IndexSample a = absolute_index(*glass, ctx.air, nm);
+                           LensGlass made{0, sample_index(*glass, nm).index, 1, a.group_index};
+                           made.gvd_fs2_per_mm = a.gvd_fs2_per_mm;
+                           made.tod_fs3_per_mm = a.tod_fs3_per_mm;
+                           return made;
                        });
                        const std::array<double, 3> shape{t.front_radius_mm, t.back_radius_mm, t.center_thickness_mm};
                        if (g.efl_shape != shape) {  // the EFL at this glass index, kept for this shape
                            g.efl_shape = shape;
                            g.efl_mm = thick_lens_properties({shape[0], shape[1], shape[2]}, g.index).effective_focal_length_mm;
                        }
-                       return FocalLength{g.efl_mm, g.index, g.group_index};
+                       return FocalLength{g.efl_mm, g.index, g.group_index, g.gvd_fs2_per_mm, g.tod_fs3_per_mm};
                    }},
         lens.model);
 }
@@ -71,6 +75,8 @@ HitOutcome interact(const Lens& lens, const HitContext& ctx, RayState& ray, Trac
                               // Its glass counts for timing at this plane (TraceHit::lumped_glass_mm).
                               hit.lumped_glass_mm = thick.center_thickness_mm;
                               hit.lumped_group_index = f.glass_group_index;
+                              hit.lumped_gvd_fs2_per_mm = f.glass_gvd_fs2_per_mm - ctx.air_medium.gvd_fs2_per_mm;
+                              hit.lumped_tod_fs3_per_mm = f.glass_tod_fs3_per_mm - ctx.air_medium.tod_fs3_per_mm;
                           }},
                lens.model);
     return HitOutcome::GoOn;

@@ -1,8 +1,10 @@
-// Slabs: plates, crystals and dichroic substrates, refracted at both faces by Snell's law.
+// Slabs: plates, crystals and dichroic substrates, refracted at both faces by Snell's law; an
+// extraordinary wave's energy walks off inside a crystal (its wave vector refracts).
 #include <cmath>
 
 #include "materials/dispersion.hpp"
 #include "nonlinear/phase_matching.hpp"
+#include "nonlinear/wave_dispersion.hpp"
 #include "trace/crystal_axes.hpp"
 #include "trace/interact.hpp"
 
@@ -17,8 +19,8 @@ const Crystal* birefringent(const HitContext& ctx) {
 
 bool a_wave(const HitContext& ctx, const Crystal& c) { return a_wave_fraction(ctx.wave, c.optic_axis_horizontal) >= 0.5; }
 
-// Phase and group index of the beam inside the slab for a ray running along `dir` there,
-// refracted at the face with index `refracted_with` (1: the outside direction, the first
+// Phase and group index, GVD and TOD of the beam inside the slab for a ray running along `dir`
+// there, refracted at the face with index `refracted_with` (1: the outside direction, the first
 // guess). Birefringent: the A (ordinary) wave when most of the beam's power is in it, else the
 // B wave at its angle ψ to the reference axis (trace/crystal_axes.hpp).
 Medium slab_medium(const HitContext& ctx, const Vec2& dir, double refracted_with) {
@@ -29,13 +31,35 @@ Medium slab_medium(const HitContext& ctx, const Vec2& dir, double refracted_with
         const CrystalIndices& x = ctx.samples.crystal[ctx.element].get(
             &m, static_cast<int>(c->principal_plane), [&] { return crystal_indices(m, nm, c->principal_plane); });
         const bool a = a_wave(ctx, *c);
+        const Polarity polarity = a ? Polarity::A : Polarity::B;
         const double psi = a ? 0.0 : angle_to_reference_axis_rad(crystal_pose(pl.normal, *c), dir, refracted_with);
-        const WaveIndex w = wave_index(x, a ? Polarity::A : Polarity::B, psi);
-        return Medium{w.index, w.group_index};
+        const WaveIndex w = wave_index(x, polarity, psi);
+        const IndexSample d = wave_sample(x, polarity, psi);
+        return Medium{w.index, w.group_index, d.gvd_fs2_per_mm, d.tod_fs3_per_mm};
     }
     return ctx.samples.slab[ctx.element].get(&m, 0, [&] {
-        return Medium{sample_index(m, nm, Axis::X).index, absolute_index(m, ctx.air, nm, Axis::X).group_index};
+        const IndexSample g = absolute_index(m, ctx.air, nm, Axis::X);
+        return Medium{sample_index(m, nm, Axis::X).index, g.group_index, g.gvd_fs2_per_mm, g.tod_fs3_per_mm};
     });
+}
+
+// The walk-off of the B wave whose wave vector runs along `k` inside the crystal with `index`
+// (none for the A wave and other slabs).
+WalkoffTurn walkoff_inside(const HitContext& ctx, const Vec2& k, double index) {
+    const Crystal* c = birefringent(ctx);
+    if (!c || a_wave(ctx, *c)) return {};
+    const PlacedOptic& pl = ctx.placed[ctx.element];
+    const CrystalPose pose = crystal_pose(pl.normal, *c);
+    const CrystalIndices& x = ctx.samples.crystal[ctx.element].get(
+        pl.material, static_cast<int>(c->principal_plane),
+        [&] { return crystal_indices(*pl.material, ctx.beam.wavelength_nm, c->principal_plane); });
+    const double rho = walkoff_rad(x, Polarity::B, angle_to_reference_axis_rad(pose, k, index));
+    return walkoff_turn(pose, k, index, rho);
+}
+
+Vec2 turned(const Vec2& d, double angle_rad) {
+    const double c = std::cos(angle_rad), s = std::sin(angle_rad);
+    return {c * d.x() - s * d.y(), s * d.x() + c * d.y()};
 }
 
 // Whether the beam's index in the slab depends on its direction there: the B wave of a
@@ -51,7 +75,7 @@ HitOutcome refract_at_slab_face(const HitContext& ctx, RayState& ray, TraceHit& 
     hit.interaction = Interaction::Refract;
     const Vec2& n = ctx.crossing.normal;
     const bool entering = !ray.inside.has_value();
-    Medium next{1.0, ctx.air_group_index};
+    Medium next = ctx.air_medium;
     std::optional<Vec2> out;
     if (entering) {
         // Guess the medium from the straight-on index, refine the direction for an index that
@@ -69,7 +93,14 @@ HitOutcome refract_at_slab_face(const HitContext& ctx, RayState& ray, TraceHit& 
         }
         out = refract(ray.d, n, 1.0, next.index);
     } else {
-        out = refract(ray.d, n, ray.medium.index, 1.0);
+        // The wave vector refracts by Snell's law, not the energy's direction: a walked-off ray
+        // turns back to its wave vector, whose incidence the face's matrices take too.
+        const Vec2 k = hit.wave_direction_in();
+        if (ray.walkoff_rad != 0) {
+            hit.cos_aoi = std::min(1.0, std::abs(k.dot(n)));
+            hit.sin_aoi = std::min(1.0, std::abs(k.x() * n.y() - k.y() * n.x()));
+        }
+        out = refract(k, n, ray.medium.index, 1.0);
     }
     if (!out) {
         ctx.finding(Finding::Kind::TotalInternalReflection, ctx.element, hit.point_mm);
@@ -77,9 +108,23 @@ HitOutcome refract_at_slab_face(const HitContext& ctx, RayState& ray, TraceHit& 
     }
     ray.d = *out;
     ray.medium = next;
+    ray.walkoff_rad = 0;
+    ray.vertical_slope = 0;
     if (entering) {
         ray.inside = ctx.element;
         ctx.note_material(*ctx.placed[ctx.element].material);
+        // An extraordinary wave's energy walks off its wave vector (nonlinear/wave_dispersion.hpp):
+        // drawn turned in the table plane, carried as a slope out of it.
+        const WalkoffTurn w = walkoff_inside(ctx, *out, next.index);
+        if (w.table_rad != 0) {
+            const double along_k = std::cos(w.table_rad);  // RayState's Medium: per mm of the ray
+            ray.d = turned(*out, w.table_rad);
+            ray.walkoff_rad = w.table_rad;
+            ray.medium.group_index *= along_k;
+            ray.medium.gvd_fs2_per_mm *= along_k;
+            ray.medium.tod_fs3_per_mm *= along_k;
+        }
+        ray.vertical_slope = w.vertical_slope;
     } else {
         ray.inside.reset();
     }

@@ -31,7 +31,13 @@ struct TraceHit {
     Interaction interaction = Interaction::TargetPlane;
     Face face = Face::Only;
     Vec2 point_mm{0, 0};
-    Vec2 direction_in{1, 0}, direction_out{1, 0};
+    Vec2 direction_in{1, 0}, direction_out{1, 0};  // the chief ray's (the energy's) directions
+    // Arriving inside a crystal as a B wave: the energy's turn from the wave vector in the table
+    // plane (RayState::walkoff_rad), so the wave vector is direction_in turned back by it; its
+    // slope out of the table plane, and the chief ray's height above the table plane here.
+    double walkoff_in_rad = 0;
+    double vertical_slope_in = 0;
+    double vertical_mm = 0;
     double s_mm = 0;          // geometric path length from the beam's start to this hit
     // Group delay from the beam's start to this hit, fs: every segment through this one at its
     // group index (length × n_g / c), plus the lumped glass of the thick singlets before it
@@ -48,10 +54,19 @@ struct TraceHit {
     // thickness and the glass's absolute group index (0 and 1 for every other hit).
     double lumped_glass_mm = 0;
     double lumped_group_index = 1;
+    // …and for the pulse its GVD and TOD less the air's it replaces (per mm, fs² and fs³).
+    double lumped_gvd_fs2_per_mm = 0, lumped_tod_fs3_per_mm = 0;
     // Lenses: the focal length at the beam's wavelength (thick singlets: the EFL) and the
     // glass's index there (1 for an ideal lens), so that propagation need not recompute them.
     double focal_length_mm = 0;
     double lens_index = 1;
+
+    // The wave vector's direction as the hit is met (direction_in unless a walk-off turned it).
+    Vec2 wave_direction_in() const {
+        if (walkoff_in_rad == 0) return direction_in;
+        const double c = std::cos(walkoff_in_rad), s = std::sin(walkoff_in_rad);
+        return {c * direction_in.x() + s * direction_in.y(), -s * direction_in.x() + c * direction_in.y()};
+    }
 };
 
 struct TraceSegment {
@@ -60,6 +75,7 @@ struct TraceSegment {
     std::optional<size_t> inside;  // the slab element the segment runs in; none = air
     double index = 1.0;            // phase index for the Gaussian beam (air: 1, docs/physics.md §0.3)
     double group_index = 1.0;      // absolute group index for timing (air: Ciddor 1996)
+    double gvd_fs2_per_mm = 0, tod_fs3_per_mm = 0;  // for the pulse (RayState's Medium)
 };
 
 struct Path {

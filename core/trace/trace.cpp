@@ -55,7 +55,7 @@ private:
     // The group delay once past a hit: its own plus its lumped glass (a thick singlet's centre
     // thickness at the glass's group index less the air's).
     double delay_after(const TraceHit& hit) const {
-        return hit.lumped_glass_mm > 0 ? hit.group_delay_fs + group_delay_fs(hit.lumped_group_index - air_group_index_,
+        return hit.lumped_glass_mm > 0 ? hit.group_delay_fs + group_delay_fs(hit.lumped_group_index - air_.group_index,
                                                                                hit.lumped_glass_mm)
                                        : hit.group_delay_fs;
     }
@@ -79,7 +79,7 @@ private:
     const bool go_on_;    // keep every step of a path that stopped at the target, and go on
     const bool stop_at_target_;
     const bool last_beam_;
-    double air_group_index_ = 1.0;
+    Medium air_;  // the air at this beam's wavelength
     std::optional<size_t> target_;
 };
 
@@ -92,7 +92,7 @@ BeamTracer::BeamTracer(const Layout& layout, size_t beam, TraceCache& cache, Tra
       go_on_(mode.go_on), stop_at_target_(mode.stop_at_target && !mode.go_on),
       last_beam_(beam + 1 == layout.beams.size()) {
     path_.beam = beam;
-    air_group_index_ = memo_.air_group_index;
+    air_ = memo_.air_medium;
     // The target's index holds while the layout's elements keep their names (a retrace
     // compared the target's name and the names of the changed elements).
     if (retrace_ && cache.retrace.links_same() && cache.target)
@@ -224,7 +224,7 @@ RayState BeamTracer::resume() {
         RayState start;
         start.p_mm = beam_.start_mm;
         start.d = direction_deg(beam_.direction_deg);
-        start.medium = Medium{1.0, air_group_index_};
+        start.medium = air_;
         return start;
     }
     const StepStart st = retrace.start(beam_index_, keep);
@@ -259,7 +259,7 @@ bool BeamTracer::step(RayState& ray, size_t count) {
         if (const std::optional<size_t> want = std::exchange(ray.expect, std::nullopt))
             check_aim(ray, *want, p, d, std::nullopt, 0, false);
         const Vec2 q = p + exit * d;
-        path_.segments.push_back({p, q, exit, std::nullopt, 1.0, air_group_index_});
+        path_.segments.push_back({p, q, exit, std::nullopt, 1.0, air_.group_index, air_.gvd_fs2_per_mm, air_.tod_fs3_per_mm});
         finding(Finding::Kind::LeftTable, SIZE_MAX, q);
         return false;
     }
@@ -270,8 +270,10 @@ bool BeamTracer::step(RayState& ray, size_t count) {
     // The element the last aim_at mirror sent the ray to, judged once this hit is known.
     const std::optional<size_t> aimed = std::exchange(ray.expect, std::nullopt);
     const Vec2 h = p + c->dist * d;
-    path_.segments.push_back({p, h, c->dist, ray.inside, ray.medium.index, ray.medium.group_index});
+    path_.segments.push_back({p, h, c->dist, ray.inside, ray.medium.index, ray.medium.group_index,
+                              ray.medium.gvd_fs2_per_mm, ray.medium.tod_fs3_per_mm});
     ray.s_mm += c->dist;
+    ray.vertical_mm += ray.vertical_slope * c->dist;
     ray.delay_fs += group_delay_fs(ray.medium.group_index, c->dist);
     const size_t e = c->element;
     const ElementKind& kind = layout_.elements[e].kind;
@@ -293,9 +295,12 @@ bool BeamTracer::step(RayState& ray, size_t count) {
     hit.height_mm = c->height;
     hit.half_aperture_mm = pl.half_aperture;
     hit.index_before = ray.medium.index;
+    hit.walkoff_in_rad = ray.walkoff_rad;
+    hit.vertical_slope_in = ray.vertical_slope;
+    hit.vertical_mm = ray.vertical_mm;
     ray.last_surface = std::make_pair(e, c->face);
 
-    const HitContext context{layout_,    placed_,      beam_, wave_polarization_, *cache_.air, air_group_index_,
+    const HitContext context{layout_,    placed_,      beam_, wave_polarization_, *cache_.air, air_,
                              memo_.samples, path_, memo_.noted, e,     *c};
     const HitOutcome outcome =
         std::visit([&](const auto& element_kind) { return interact(element_kind, context, ray, hit); }, kind);
@@ -375,7 +380,8 @@ void trace_layout(const Layout& layout, const MaterialLibrary& library, TraceCac
         beam = TraceCache::Beam{};
         c.retrace.reset_beam(b);
         beam.wavelength_nm = layout.beams[b].wavelength_nm;
-        beam.air_group_index = sample_index(*c.air, beam.wavelength_nm).group_index;
+        const IndexSample air = sample_index(*c.air, beam.wavelength_nm);
+        beam.air_medium = Medium{1.0, air.group_index, air.gvd_fs2_per_mm, air.tod_fs3_per_mm};
         beam.samples.resize(n);
     }
     if (retrace) {

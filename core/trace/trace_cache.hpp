@@ -34,7 +34,7 @@ namespace rv {
 struct TraceCache {
     struct Beam {
         double wavelength_nm = 0;
-        double air_group_index = 1;
+        Medium air_medium;  // index 1 (docs/physics.md §0.3), Ciddor's group index, GVD, TOD
         BeamSamples samples;
         StepAccelerator accelerator;
         std::vector<StepTaken> taken;  // this trace's steps (a retrace tests them for changes)

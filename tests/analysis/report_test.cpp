@@ -116,7 +116,8 @@ TEST_CASE("the extraordinary index in the trace follows the geometric angle", "[
     const rv::ReportBeam& pump = r.beams[0];
     REQUIRE(pump.at_target.reached);
     const rv::TraceHit& hit = pump.path.hits[*pump.path.target_hit];
-    const double theta = rv::deg_to_rad(geometric_theta_deg(element(l, "X"), x.cut_deg, hit.direction_in));
+    // The wave vector's direction (the drawn ray is the energy's, turned by the walk-off).
+    const double theta = rv::deg_to_rad(geometric_theta_deg(element(l, "X"), x.cut_deg, hit.wave_direction_in()));
     const rv::Material& bbo = *rv::MaterialLibrary::builtin().find("BBO");
     const double no = rv::sample_index(bbo, 1030, rv::Axis::Ordinary).index;
     const double ne = rv::sample_index(bbo, 1030, rv::Axis::Extraordinary).index;

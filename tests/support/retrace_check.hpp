@@ -57,11 +57,17 @@ inline std::optional<std::string> path_difference(const std::vector<Path>& a, co
             if (x.focal_length_mm != y.focal_length_mm || x.lumped_group_index != y.lumped_group_index ||
                 x.lumped_glass_mm != y.lumped_glass_mm || x.half_aperture_mm != y.half_aperture_mm)
                 return differ(p, "lens or aperture", k);
+            if (x.walkoff_in_rad != y.walkoff_in_rad || x.vertical_slope_in != y.vertical_slope_in ||
+                x.vertical_mm != y.vertical_mm)
+                return differ(p, "walk-off", k);
+            if (x.lumped_gvd_fs2_per_mm != y.lumped_gvd_fs2_per_mm || x.lumped_tod_fs3_per_mm != y.lumped_tod_fs3_per_mm)
+                return differ(p, "lumped dispersion", k);
         }
         for (size_t k = 0; k < a[p].segments.size(); ++k) {
             const TraceSegment &x = a[p].segments[k], &y = b[p].segments[k];
             if (x.from_mm != y.from_mm || x.to_mm != y.to_mm || x.length_mm != y.length_mm || x.inside != y.inside ||
-                x.index != y.index || x.group_index != y.group_index)
+                x.index != y.index || x.group_index != y.group_index || x.gvd_fs2_per_mm != y.gvd_fs2_per_mm ||
+                x.tod_fs3_per_mm != y.tod_fs3_per_mm)
                 return differ(p, "segment", k);
         }
         for (size_t k = 0; k < a[p].findings.size(); ++k)
