@@ -3,14 +3,19 @@
 #include <algorithm>
 #include <cmath>
 
+#include "units/clamped_int.hpp"
+
 namespace rv {
 
 namespace {
 
-// How many holes fit along a side: the count of k ≥ 0 with (k + ½)·pitch < side.
+// How many holes fit along a side: the count of k ≥ 0 with (k + ½)·pitch < side, at most
+// kMaxHolesAlong (the quotient is clamped before it is cast: a huge double cast to int is
+// undefined behaviour).
 int holes_along(double side_mm, double pitch_mm) {
     if (!(pitch_mm > 0) || !(side_mm > 0) || !std::isfinite(side_mm / pitch_mm)) return 0;
-    int n = std::max(0, static_cast<int>(std::ceil(side_mm / pitch_mm - 0.5)));
+    if (side_mm / pitch_mm > kMaxHolesAlong) return kMaxHolesAlong;
+    int n = clamped_int(std::ceil(side_mm / pitch_mm - 0.5), 0, kMaxHolesAlong);
     while ((n + 0.5) * pitch_mm < side_mm) ++n;
     while (n > 0 && (n - 0.5) * pitch_mm >= side_mm) --n;
     return n;
@@ -18,8 +23,7 @@ int holes_along(double side_mm, double pitch_mm) {
 
 // The square a coordinate lies in, kept to the holes that exist.
 int square_of(double coordinate_mm, double pitch_mm, int count) {
-    const double k = std::floor(coordinate_mm / pitch_mm);
-    return static_cast<int>(std::clamp(k, 0.0, static_cast<double>(count - 1)));
+    return clamped_int(std::floor(coordinate_mm / pitch_mm), 0, count - 1);
 }
 
 }  // namespace

@@ -21,6 +21,10 @@
 
 namespace rv {
 
+// The most holes counted along one side (a 25 km table): a count beyond it is this. Layouts
+// stay far below; the bound keeps the count an int whatever the table's size.
+inline constexpr int kMaxHolesAlong = 1'000'000;
+
 struct HoleGrid {
     double pitch_mm = 25.0;
     int columns = 0;  // holes along x

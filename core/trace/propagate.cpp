@@ -6,6 +6,7 @@
 
 #include "layout/visit.hpp"
 #include "optics/thick_lens.hpp"
+#include "units/clamped_int.hpp"
 #include "units/constants.hpp"
 
 namespace rv {
@@ -177,7 +178,7 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
     // Samples along one segment starting at s0 with the beams (bt, bs) at its start.
     auto sample_segment = [&](const GaussianBeam& bt, const GaussianBeam& bs, double length) {
         if (!options.sample_envelope || !(length >= 0) || !std::isfinite(length)) return;
-        const int n = std::clamp(static_cast<int>(length / options.envelope_step_mm), 1, 400);
+        const int n = clamped_int(length / options.envelope_step_mm, 1, 400);
         for (int i = 0; i <= n; ++i) {
             const double z = length * i / n;
             out.envelope.push_back({s0 + z, radius_um(translate(bt, z)), radius_um(translate(bs, z))});
@@ -239,17 +240,26 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
     // Denser samples around the target: `samples_near_target` points over ±3 Rayleigh ranges,
     // taken from the state at the start of each segment that overlaps that window (so the
     // samples follow the beam through the crystal's faces and any other element there).
+    // Counted first, then stepped: sample k stands at lo + k·step, and each segment takes the
+    // indices that fall in it, so there are at most samples_near_target + (segments) of them
+    // whatever the Rayleigh range. (Stepping x += step never ended when a Rayleigh range near
+    // 1e-13 mm put the step below the spacing of doubles at the target: issue 19.)
     if (out.reaches_target && options.sample_envelope) {
         const double zr = std::min(rayleigh_range_mm(out.target_tangential), rayleigh_range_mm(out.target_sagittal));
         const double lo = target_s - 3 * zr, hi = target_s + 3 * zr;
-        const double step = (hi - lo) / (options.samples_near_target - 1);
-        for (const SegmentStart& seg : segment_starts) {
-            const double a = std::max(lo, seg.s_mm), b = std::min(hi, seg.s_mm + seg.length_mm);
-            for (double x = lo + std::ceil((a - lo) / step) * step; x <= b; x += step) {
-                const double z = x - seg.s_mm;
-                out.envelope.push_back({x, radius_um(translate(seg.t, z)), radius_um(translate(seg.s, z))});
+        const int n = std::max(options.samples_near_target, 2);
+        const double step = (hi - lo) / (n - 1);
+        if (std::isfinite(lo) && std::isfinite(hi) && step > 0)
+            for (const SegmentStart& seg : segment_starts) {
+                const double a = std::max(lo, seg.s_mm), b = std::min(hi, seg.s_mm + seg.length_mm);
+                if (!(a <= b)) continue;
+                const int first = clamped_int(std::ceil((a - lo) / step), 0, n);
+                const int last = clamped_int(std::floor((b - lo) / step), -1, n - 1);
+                for (int k = first; k <= last; ++k) {
+                    const double x = lo + k * step, z = x - seg.s_mm;
+                    out.envelope.push_back({x, radius_um(translate(seg.t, z)), radius_um(translate(seg.s, z))});
+                }
             }
-        }
         std::stable_sort(out.envelope.begin(), out.envelope.end(),
                          [](const EnvelopeSample& a, const EnvelopeSample& b) { return a.s_mm < b.s_mm; });
     }

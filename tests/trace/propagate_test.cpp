@@ -134,6 +134,31 @@ TEST_CASE("the envelope is sampled along the path and densely near the target", 
     CHECK(near_target >= 100);
 }
 
+TEST_CASE("a Rayleigh range below the spacing of doubles at the target keeps the envelope bounded", "[propagate][hardening]") {
+    // Issue 19: the samples near the target were stepped x += step, which never passes the
+    // window's end once step < the spacing of doubles there; this allocated until bad_alloc.
+    // Hand computation (thin lens, f ≪ z_R, so w0' = λf/(πw) at the lens's focus): the source's
+    // z_R = π·(1 mm)²/1.064e-3 mm = 2952.6 mm, so at the lens w = √(1 + (500/2952.6)²) mm =
+    // 1.01424 mm; w0' = 1.064e-3 · 1e-4 / (π · 1.01424) mm = 3.3393e-8 mm; z_R' = πw0'²/λ =
+    // 3.2925e-12 mm. The window ±3 z_R' in 200 steps gives 9.9e-14 mm, below the spacing of
+    // doubles at 600 mm (1.14e-13).
+    const Traced t = run(layout_json(
+        R"({"id": "b", "wavelength_nm": 1064, "start_mm": [0, 0], "direction_deg": 0, "waist_um": 1000})",
+        R"({"id": "L", "type": "lens", "at_mm": [500, 0], "focal_length_mm": 1e-4},
+           {"id": "T", "type": "target", "at_mm": [600, 0]})", "T"));
+    REQUIRE(t.caustic.reaches_target);
+    const double zr_mm = rv::rayleigh_range_mm(t.caustic.target_tangential);
+    CHECK_THAT(zr_mm * 1e12, near_rel(3.2925, 1e-3));
+    const double spacing_mm = std::nextafter(600.0, 1e9) - 600.0;
+    REQUIRE(6 * zr_mm / 200 < spacing_mm);  // the case that used to loop
+    // At most 401 samples per segment (2 segments) and 201 near the target, plus one per segment.
+    CHECK(t.caustic.envelope.size() <= 2 * 401 + 201 + 2);
+    for (const rv::EnvelopeSample& e : t.caustic.envelope) {
+        CHECK(std::isfinite(e.s_mm));
+        CHECK(std::isfinite(e.radius_tangential_um));
+    }
+}
+
 TEST_CASE("two colours through one N-BK7 lens focus apart by the chromatic shift", "[propagate][chromatic]") {
     // docs/physics.md §1.5 (computed from it): a thin N-BK7 lens with f(1064) = 100 mm (so
     // f(587.6) = 100·(n(1064) − 1)/(n_d − 1)); collimated beams, w0 = 1.000 mm at the lens:

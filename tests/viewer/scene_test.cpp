@@ -2,17 +2,22 @@
 #include <stb_image.h>
 
 #include <catch2/catch.hpp>
+#include <cmath>
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
+#include <stdexcept>
+#include <vector>
 
 #include "analysis/report.hpp"
 #include "io/layout_reader.hpp"
 #include "render/headless.hpp"
 #include "render/png.hpp"
+#include "scene/clip_segment.hpp"
 #include "scene/scene.hpp"
 #include "scene/svg_writer.hpp"
 #include "scene/wavelength_colour.hpp"
+#include "ui/plot_axes.hpp"
 
 using Catch::Matchers::WithinAbs;
 
@@ -177,4 +182,100 @@ TEST_CASE("the rendered demo matches its golden image", "[render][golden]") {
     stbi_image_free(golden);
     CHECK(far < static_cast<size_t>(w) * h / 200);
     CHECK(total / (3.0 * w * h) < 1.0);
+}
+
+// Issue 19 §2: drawing has bounds that do not depend on the table's size or on a step of doubles.
+namespace {
+Demo hostile(void (*edit)(rv::Layout&)) {
+    Demo d = demo();
+    edit(d.layout);
+    d.report = rv::build_report(d.layout, rv::material_library_for(d.layout));
+    d.scene = rv::scene::build_scene(d.layout, d.report);
+    return d;
+}
+rv::Stage& stage_s1(rv::Layout& l) {
+    for (rv::Element& e : l.elements)
+        if (e.id == "S1") return std::get<rv::Stage>(e.kind);
+    throw std::logic_error("the demo has a stage S1");
+}
+}  // namespace
+
+TEST_CASE("a segment is clipped to a box in doubles", "[scene][hardening]") {
+    using rv::Vec2;
+    const rv::scene::Box box{Vec2(0, 0), Vec2(10, 10)};
+    // Hand computation: (−10, 5) → (20, 5) crosses x = 0 at t = 1/3 and x = 10 at t = 2/3.
+    const auto across = rv::scene::clip_segment(Vec2(-10, 5), Vec2(20, 5), box);
+    REQUIRE(across);
+    CHECK(across->first == Vec2(0, 5));
+    CHECK(across->second == Vec2(10, 5));
+    // From inside to 1e300 mm along the diagonal: cut where it leaves the box at (10, 10).
+    const auto far = rv::scene::clip_segment(Vec2(5, 5), Vec2(1e300, 1e300), box);
+    REQUIRE(far);
+    CHECK(far->first == Vec2(5, 5));
+    CHECK_THAT(far->second.x(), WithinAbs(10, 1e-9));
+    CHECK_THAT(far->second.y(), WithinAbs(10, 1e-9));
+    // Wholly outside, or with an end that is not finite: nothing to draw.
+    CHECK_FALSE(rv::scene::clip_segment(Vec2(20, 20), Vec2(30, 40), box));
+    CHECK_FALSE(rv::scene::clip_segment(Vec2(5, 5), Vec2(std::nan(""), 5), box));
+    CHECK_FALSE(rv::scene::clip_segment(Vec2(-1.7e308, 5), Vec2(1.7e308, 5), box));  // length overflows
+}
+
+TEST_CASE("plot ticks are counted before they are placed", "[scene][hardening]") {
+    // 0 to 1 in steps of 0.2: k = 0 … 5.
+    CHECK(rv::ui::tick_indices(0, 1, 0.2) == std::vector<long long>{0, 1, 2, 3, 4, 5});
+    // A span of 6e-13 mm at 926 mm (a Rayleigh range of 1e-13 mm): its step 1e-13 is below the
+    // spacing of doubles there (1.1e-13); stepping x += step never ended. No ticks instead.
+    CHECK(rv::ui::tick_indices(926, 926 + 6e-13, rv::ui::nice_step(6e-13, 6)).empty());
+    CHECK(rv::ui::tick_indices(0, 1e300, 1).empty());  // more than kMaxTicks
+    CHECK(rv::ui::tick_indices(0, 1, 0).empty());
+}
+
+TEST_CASE("a huge table's holes are counted not listed and its SVG stays small", "[scene][svg][hardening]") {
+    // 1e5 mm square on a 25 mm grid: 4000 × 4000 = 1.6e7 holes, beyond kMaxDrawnHoles; the SVG
+    // was 765 MB before (one circle per hole).
+    const Demo d = hostile([](rv::Layout& l) { l.table.width_mm = l.table.height_mm = 1e5; });
+    CHECK(d.scene.holes_mm.empty());
+    CHECK(d.scene.holes_not_drawn == 4000LL * 4000);
+    const std::string svg = rv::scene::write_svg(d.scene);
+    CHECK(svg.size() < 1'000'000);
+    CHECK(svg.find("mounting holes not drawn: 16000000, more than 250000") != std::string::npos);
+    // 1e6 mm: 1.6e9 holes, which ran out of memory while the scene was built.
+    const Demo huge = hostile([](rv::Layout& l) { l.table.width_mm = l.table.height_mm = 1e6; });
+    CHECK(huge.scene.holes_not_drawn == 40000LL * 40000);
+}
+
+TEST_CASE("the SVG writer refuses a drawing beyond its size limit", "[svg][hardening]") {
+    rv::scene::Scene s;
+    s.width_mm = 900;
+    s.height_mm = 600;
+    // Each shape writes well over 10 bytes; 8 million of them exceed 64 MiB.
+    rv::scene::Polyline p{{rv::Vec2(1, 1), rv::Vec2(2, 2)}, {0, 0, 0, 255}, 0.5, false, false, false, false};
+    s.shapes.assign(8'000'000, p);
+    CHECK_THROWS_AS(rv::scene::write_svg(s), rv::scene::SvgTooLarge);
+    CHECK_THROWS_WITH(rv::scene::write_svg(s), Catch::Contains("would exceed 67108864 bytes (64 MiB) of SVG"));
+}
+
+TEST_CASE("a stage at 1e300 mm is drawn clipped in the SVG and the frame", "[scene][svg][render][hardening]") {
+    const Demo d = hostile([](rv::Layout& l) {
+        rv::Stage& s = stage_s1(l);
+        s.travel_max_mm = 1e300;
+        s.position_mm = 0;
+    });
+    const std::string svg = rv::scene::write_svg(d.scene);
+    // No coordinate beyond the clip margin: a 1e300 coordinate printed "%.3f" is 304 characters.
+    CHECK(svg.find("nan") == std::string::npos);
+    CHECK(svg.find("inf") == std::string::npos);
+    CHECK(svg.find("0000000000000000") == std::string::npos);
+    // The frame used to crash in the draw list (a dash pattern stepped in float over 1e300 mm).
+    const rv::render::Framebuffer fb = rv::render::render_frame(d.layout, d.report, d.scene, 400, 250);
+    CHECK(fb.width == 400);
+    CHECK(fb.rgba.size() == 400u * 250 * 4);
+}
+
+TEST_CASE("a table of 1e-9 mm renders without running away", "[render][hardening]") {
+    // 1e-9 mm in an 800 px canvas is 7.5e11 px per mm: every optic lies 1e14 px off the canvas,
+    // and a float dash loop over such a length never ended.
+    const Demo d = hostile([](rv::Layout& l) { l.table.width_mm = l.table.height_mm = 1e-9; });
+    const rv::render::Framebuffer fb = rv::render::render_frame(d.layout, d.report, d.scene, 400, 250);
+    CHECK(fb.rgba.size() == 400u * 250 * 4);
 }

@@ -1,6 +1,7 @@
 // rendezvous render: the viewer frame to PNG (CPU raster, no display) or the table to SVG.
 #include <ostream>
 #include <stdexcept>
+#include <string>
 #include <vector>
 
 #include "analysis/report.hpp"
@@ -25,6 +26,17 @@ int run_render(const RenderOptions& o, std::ostream& out, std::ostream& err) {
     const scene::Scene scene = scene::build_scene(*layout, report);
     // An image never replaces the layout it was drawn from.
     const SafeWriteRules rules = o.demo ? SafeWriteRules{} : keep_input(o.layout);
+    // The SVG is made before anything is written: a refused one leaves no PNG behind either.
+    std::string svg;
+    if (!o.svg.empty()) {
+        try {
+            svg = scene::write_svg(scene);
+        } catch (const scene::SvgTooLarge& e) {
+            err << "rendezvous: cannot write " << (o.svg == "-" ? std::string("the SVG") : o.svg) << ": " << e.what()
+                << "\n";
+            return 2;
+        }
+    }
     try {
         // "-": the image on standard output, the summary on standard error.
         const bool to_stdout = o.png == "-" || o.svg == "-";
@@ -40,12 +52,17 @@ int run_render(const RenderOptions& o, std::ostream& out, std::ostream& err) {
                 rules);
             say << "wrote " << o.png << " (" << o.width << "x" << o.height << ")\n";
         }
-        if (o.svg == "-") {
-            out << scene::write_svg(scene);
-            say << "wrote the SVG to standard output\n";
-        } else if (!o.svg.empty()) {
-            write_file_safely(o.svg, scene::write_svg(scene), rules);
-            say << "wrote " << o.svg << "\n";
+        if (!o.svg.empty()) {
+            if (o.svg == "-") {
+                out << svg;
+                say << "wrote the SVG to standard output\n";
+            } else {
+                write_file_safely(o.svg, svg, rules);
+                say << "wrote " << o.svg << "\n";
+            }
+            if (scene.holes_not_drawn > 0)
+                say << "the mounting holes are not drawn: " << scene.holes_not_drawn << " of them, more than "
+                    << scene::kMaxDrawnHoles << "\n";
         }
     } catch (const std::runtime_error& e) {
         err << "rendezvous: " << e.what() << "\n";  // "cannot write PATH: REASON"

@@ -7,6 +7,8 @@
 #include <cstring>
 #include <thread>
 
+#include "units/clamped_int.hpp"
+
 namespace rv::render {
 
 namespace {
@@ -39,8 +41,8 @@ inline void blend(std::uint8_t* dst, int r, int g, int b, int a) {
 
 inline Rgba sample(const Texture* t, float u, float v) {
     if (!t || !t->rgba) return {255, 255, 255, 255};
-    const int x = std::clamp(static_cast<int>(u * t->width), 0, t->width - 1);
-    const int y = std::clamp(static_cast<int>(v * t->height), 0, t->height - 1);
+    const int x = clamped_int(u * t->width, 0, t->width - 1);
+    const int y = clamped_int(v * t->height, 0, t->height - 1);
     const std::uint8_t* p = t->rgba + (static_cast<size_t>(y) * t->width + x) * 4;
     return {p[0], p[1], p[2], p[3]};
 }
@@ -74,10 +76,11 @@ void fill_triangle(Vert v0, Vert v1, Vert v2, const Texture* tex, const Clip& cl
         std::swap(v1, v2);
         area = -area;
     }
-    const int x_min = std::max(clip.x0, static_cast<int>(std::floor(std::min({v0.x, v1.x, v2.x}))));
-    const int x_max = std::min(clip.x1 - 1, static_cast<int>(std::ceil(std::max({v0.x, v1.x, v2.x}))));
-    const int y_min = std::max(clip.y0, static_cast<int>(std::floor(std::min({v0.y, v1.y, v2.y}))));
-    const int y_max = std::min(clip.y1 - 1, static_cast<int>(std::ceil(std::max({v0.y, v1.y, v2.y}))));
+    // Clamped to the clip before the cast (a vertex far off the canvas, or NaN, is no UB).
+    const int x_min = clamped_int(std::floor(std::min({v0.x, v1.x, v2.x})), clip.x0, clip.x1);
+    const int x_max = clamped_int(std::ceil(std::max({v0.x, v1.x, v2.x})), clip.x0 - 1, clip.x1 - 1);
+    const int y_min = clamped_int(std::floor(std::min({v0.y, v1.y, v2.y})), clip.y0, clip.y1);
+    const int y_max = clamped_int(std::ceil(std::max({v0.y, v1.y, v2.y})), clip.y0 - 1, clip.y1 - 1);
     if (x_min > x_max || y_min > y_max) return;
     const bool tl0 = top_left(v1.x, v1.y, v2.x, v2.y);
     const bool tl1 = top_left(v2.x, v2.y, v0.x, v0.y);
@@ -129,10 +132,10 @@ bool fill_rectangle(const ImDrawVert* v, const ImDrawIdx* idx, const Texture* te
     const float x0 = std::min(a.pos.x, c.pos.x), x1 = std::max(a.pos.x, c.pos.x);
     const float y0 = std::min(a.pos.y, c.pos.y), y1 = std::max(a.pos.y, c.pos.y);
     if (x0 == x1 || y0 == y1) return true;
-    const int px0 = std::max(clip.x0, static_cast<int>(std::ceil(x0 - 0.5f)));
-    const int px1 = std::min(clip.x1, static_cast<int>(std::ceil(x1 - 0.5f)));
-    const int py0 = std::max(clip.y0, static_cast<int>(std::ceil(y0 - 0.5f)));
-    const int py1 = std::min(clip.y1, static_cast<int>(std::ceil(y1 - 0.5f)));
+    const int px0 = clamped_int(std::ceil(x0 - 0.5f), clip.x0, clip.x1);
+    const int px1 = clamped_int(std::ceil(x1 - 0.5f), clip.x0, clip.x1);
+    const int py0 = clamped_int(std::ceil(y0 - 0.5f), clip.y0, clip.y1);
+    const int py1 = clamped_int(std::ceil(y1 - 0.5f), clip.y0, clip.y1);
     const Rgba col = unpack(a.col);
     const bool flat_uv = a.uv.x == c.uv.x && a.uv.y == c.uv.y;
     const Rgba texel0 = sample(tex, a.uv.x, a.uv.y);
@@ -180,14 +183,11 @@ void rasterize_band(const ImDrawData& data, Framebuffer& fb, int band_y0, int ba
         const ImDrawList* list = data.CmdLists[n];
         for (const ImDrawCmd& cmd : list->CmdBuffer) {
             if (cmd.UserCallback) continue;  // no callbacks in this program
-            Clip clip{static_cast<int>((cmd.ClipRect.x - offset.x) * scale.x),
-                      static_cast<int>((cmd.ClipRect.y - offset.y) * scale.y),
-                      static_cast<int>((cmd.ClipRect.z - offset.x) * scale.x),
-                      static_cast<int>((cmd.ClipRect.w - offset.y) * scale.y)};
-            clip.x0 = std::max(clip.x0, 0);
-            clip.y0 = std::max({clip.y0, 0, band_y0});
-            clip.x1 = std::min(clip.x1, fb.width);
-            clip.y1 = std::min({clip.y1, fb.height, band_y1});
+            // Clamped to the framebuffer (and the band) before the cast.
+            Clip clip{clamped_int((cmd.ClipRect.x - offset.x) * scale.x, 0, fb.width),
+                      clamped_int((cmd.ClipRect.y - offset.y) * scale.y, std::max(0, band_y0), fb.height),
+                      clamped_int((cmd.ClipRect.z - offset.x) * scale.x, 0, fb.width),
+                      clamped_int((cmd.ClipRect.w - offset.y) * scale.y, 0, std::min(fb.height, band_y1))};
             if (clip.x0 >= clip.x1 || clip.y0 >= clip.y1) continue;
             const Texture* tex = static_cast<const Texture*>(cmd.TextureId);
             const ImDrawVert* verts = list->VtxBuffer.Data + cmd.VtxOffset;

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "analysis/breadboard_holes.hpp"
 #include "polarization/polarization_model.hpp"
 #include "layout/visit.hpp"
 #include "trace/poses.hpp"
@@ -190,9 +191,18 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
         for (double f : {1.0, 2.0, 5.0, 10.0, 20.0, 50.0, 100.0, 200.0, 500.0})
             if (f <= want) s.envelope_exaggeration = f;
     }
-    if (options.holes)  // the first hole half a pitch from the edge (common practice)
-        for (double x = s.grid_mm / 2; x < s.width_mm; x += s.grid_mm)
-            for (double y = s.grid_mm / 2; y < s.height_mm; y += s.grid_mm) s.holes_mm.emplace_back(x, y);
+    if (options.holes) {  // the first hole half a pitch from the edge (common practice)
+        // Counted first (analysis/breadboard_holes, the build sheet's grid), then listed.
+        const HoleGrid grid = hole_grid(layout.table);
+        const long long count = static_cast<long long>(grid.columns) * grid.rows;
+        if (count > kMaxDrawnHoles) {
+            s.holes_not_drawn = count;
+        } else {
+            s.holes_mm.reserve(static_cast<size_t>(count));
+            for (int c = 0; c < grid.columns; ++c)
+                for (int r = 0; r < grid.rows; ++r) s.holes_mm.push_back(hole_centre_mm(grid, c, r));
+        }
+    }
 
     std::vector<Path> paths;
     for (const ReportBeam& b : report.beams) paths.push_back(b.path);

@@ -44,11 +44,18 @@ struct Scene {
     std::string title;
     Colour table_colour{236, 238, 240, 255};
     std::vector<Vec2> holes_mm;
+    // A grid of more than kMaxDrawnHoles holes is not drawn (holes_mm empty): its count, which
+    // the SVG's title block states. 0 when the holes are drawn.
+    long long holes_not_drawn = 0;
     std::vector<Polyline> shapes;   // in drawing order: elements, envelopes, beams, markers
     std::vector<Label> labels;
     std::vector<LegendEntry> legend;
     double envelope_exaggeration = 20;  // the drawn half-width is w(s) × this factor
 };
+
+// The most holes a scene lists (a 12.5 m square table on a 25 mm grid): beyond it the grid
+// is not drawn, so that neither the scene nor its SVG grows with the table's area unbounded.
+inline constexpr long long kMaxDrawnHoles = 250'000;
 
 struct SceneOptions {
     // The drawn half-width is w(s) × this factor; 0 picks a round factor (1, 2, 5, 10, …) that

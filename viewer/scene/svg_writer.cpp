@@ -1,7 +1,11 @@
 #include "scene/svg_writer.hpp"
 
+#include <algorithm>
 #include <cstdio>
 #include <sstream>
+#include <vector>
+
+#include "scene/clip_segment.hpp"
 
 namespace rv::scene {
 
@@ -27,6 +31,34 @@ std::string svg_escape(const std::string& s) {
     return out;
 }
 
+namespace {
+
+bool inside(const Box& box, const Vec2& p) {
+    return p.x() >= box.min.x() && p.x() <= box.max.x() && p.y() >= box.min.y() && p.y() <= box.max.y();
+}
+
+// The point lists a shape is drawn as: itself when it lies inside `box`; otherwise, for an
+// outline, each of its segments clipped to the box; an area not wholly inside, nothing.
+std::vector<std::vector<Vec2>> drawn_parts(const Polyline& p, const Box& box) {
+    if (std::all_of(p.points_mm.begin(), p.points_mm.end(), [&](const Vec2& q) { return inside(box, q); }))
+        return {p.points_mm};
+    std::vector<std::vector<Vec2>> parts;
+    if (p.filled || p.band || p.points_mm.size() < 2) return parts;
+    const size_t n = p.points_mm.size();
+    for (size_t i = 0; i + 1 < n + (p.closed ? 1 : 0); ++i)
+        if (const auto part = clip_segment(p.points_mm[i], p.points_mm[(i + 1) % n], box))
+            parts.push_back({part->first, part->second});
+    return parts;
+}
+
+void check_size(std::ostringstream& o) {
+    if (static_cast<std::size_t>(o.tellp()) > kMaxSvgBytes)
+        throw SvgTooLarge("the drawing would exceed " + std::to_string(kMaxSvgBytes) + " bytes (" +
+                          std::to_string(kMaxSvgBytes >> 20) + " MiB) of SVG; nothing was written");
+}
+
+}  // namespace
+
 std::string write_svg(const Scene& s) {
     const double margin = 20, block = 40;  // mm: a frame around the table, a title block below
     const double w = s.width_mm + 2 * margin, h = s.height_mm + 2 * margin + block;
@@ -44,24 +76,33 @@ std::string write_svg(const Scene& s) {
     o << "<g fill=\"#b8bec6\">\n";
     for (const Vec2& p : s.holes_mm) o << "<circle cx=\"" << X(p.x()) << "\" cy=\"" << Y(p.y()) << "\" r=\"1.5\"/>\n";
     o << "</g>\n";
-    for (const Polyline& p : s.shapes) {
-        std::string pts;
-        for (const Vec2& q : p.points_mm) pts += X(q.x()) + "," + Y(q.y()) + " ";
-        const bool area = p.filled;
-        o << "<" << (p.closed || area ? "polygon" : "polyline") << " points=\"" << pts << "\"";
-        if (area) {
-            o << " fill=\"" << svg_rgb(p.colour) << "\"";
-            if (p.colour.a < 255) o << " fill-opacity=\"" << svg_number(p.colour.a / 255.0) << "\"";
-            o << (p.width_mm > 0 ? " stroke=\"#505a66\" stroke-width=\"" + svg_number(p.width_mm) + "\"" : std::string(" stroke=\"none\""));
-        } else {
-            o << " fill=\"none\" stroke=\"" << svg_rgb(p.colour) << "\" stroke-width=\"" << svg_number(p.width_mm) << "\"";
-            if (p.dashed) o << " stroke-dasharray=\"4 2.5\"";
+    check_size(o);
+    const Box frame = grown({Vec2(0, 0), Vec2(s.width_mm, s.height_mm)}, kSvgClipMargin_mm);
+    for (const Polyline& shape : s.shapes) {
+        for (const std::vector<Vec2>& points : drawn_parts(shape, frame)) {
+            Polyline p = shape;
+            if (points.size() != shape.points_mm.size()) p.closed = false;  // a clipped piece
+            std::string pts;
+            for (const Vec2& q : points) pts += X(q.x()) + "," + Y(q.y()) + " ";
+            const bool area = p.filled;
+            o << "<" << (p.closed || area ? "polygon" : "polyline") << " points=\"" << pts << "\"";
+            if (area) {
+                o << " fill=\"" << svg_rgb(p.colour) << "\"";
+                if (p.colour.a < 255) o << " fill-opacity=\"" << svg_number(p.colour.a / 255.0) << "\"";
+                o << (p.width_mm > 0 ? " stroke=\"#505a66\" stroke-width=\"" + svg_number(p.width_mm) + "\"" : std::string(" stroke=\"none\""));
+            } else {
+                o << " fill=\"none\" stroke=\"" << svg_rgb(p.colour) << "\" stroke-width=\"" << svg_number(p.width_mm) << "\"";
+                if (p.dashed) o << " stroke-dasharray=\"4 2.5\"";
+            }
+            o << "/>\n";
+            check_size(o);
         }
-        o << "/>\n";
     }
     for (const Label& l : s.labels)
-        o << "<text x=\"" << X(l.at_mm.x()) << "\" y=\"" << Y(l.at_mm.y()) << "\" font-size=\"" << svg_number(l.height_mm)
-          << "\" fill=\"" << svg_rgb(l.colour) << "\">" << svg_escape(l.text) << "</text>\n";
+        if (inside(frame, l.at_mm))
+            o << "<text x=\"" << X(l.at_mm.x()) << "\" y=\"" << Y(l.at_mm.y()) << "\" font-size=\""
+              << svg_number(l.height_mm) << "\" fill=\"" << svg_rgb(l.colour) << "\">" << svg_escape(l.text)
+              << "</text>\n";
     // Title block: name, legend, scale bar (100 mm), exaggeration of the envelopes.
     const double top = margin * 2 + s.height_mm;
     o << "<text x=\"" << svg_number(margin) << "\" y=\"" << svg_number(top + 6) << "\" font-size=\"7\" fill=\"#1e1e28\">"
@@ -79,7 +120,11 @@ std::string write_svg(const Scene& s) {
       << svg_number(top + 28) << "\" stroke=\"#1e1e28\" stroke-width=\"1\"/>\n"
       << "<text x=\"" << svg_number(margin + 104) << "\" y=\"" << svg_number(top + 30) << "\" font-size=\"5\" fill=\"#1e1e28\">100 mm"
       << " (true scale when printed at 100 %); beam envelopes × " << svg_number(s.envelope_exaggeration) << "</text>\n";
+    if (s.holes_not_drawn > 0)
+        o << "<text x=\"" << svg_number(margin) << "\" y=\"" << svg_number(top + 37) << "\" font-size=\"4\" fill=\"#1e1e28\">"
+          << "mounting holes not drawn: " << s.holes_not_drawn << ", more than " << kMaxDrawnHoles << "</text>\n";
     o << "</svg>\n";
+    check_size(o);
     return o.str();
 }
 

@@ -13,6 +13,18 @@ double nice_step(double span, int count) {
     return 10 * p;
 }
 
+std::vector<long long> tick_indices(double lo, double hi, double step) {
+    std::vector<long long> out;
+    if (!(step > 0) || !std::isfinite(lo) || !std::isfinite(hi)) return out;
+    const double first = std::ceil(lo / step), last = std::floor((hi + 1e-9 * step) / step);
+    // More than kMaxTicks means the values no longer differ in a double: no ticks at all.
+    if (!std::isfinite(first) || !std::isfinite(last) || last - first > kMaxTicks || std::abs(first) > 1e15 ||
+        std::abs(last) > 1e15)
+        return out;
+    for (double k = first; k <= last; ++k) out.push_back(static_cast<long long>(k));
+    return out;
+}
+
 PlotAxes draw_axes(ImDrawList* draw, ImVec2 origin, ImVec2 size, double x0, double x1, double y0, double y1,
                    const std::string& x_label, const std::string& y_label, const std::string& title) {
     const ImU32 ink = IM_COL32(40, 40, 50, 255), grid = IM_COL32(220, 222, 226, 255);
@@ -21,13 +33,17 @@ PlotAxes draw_axes(ImDrawList* draw, ImVec2 origin, ImVec2 size, double x0, doub
     draw->AddText(ImVec2(origin.x + 8, origin.y + 3), ink, title.c_str());
     char buf[32];
     const double sx = nice_step(x1 - x0, 6), sy = nice_step(y1 - y0, 4);
-    for (double x = std::ceil(x0 / sx) * sx; x <= x1 + 1e-9 * sx; x += sx) {
+    // Ticks counted first, then placed at k·step: stepping x += sx never ended when the span
+    // was below the spacing of doubles at x0 (a Rayleigh range of 1e-13 mm at s = 900 mm).
+    for (const long long k : tick_indices(x0, x1, sx)) {
+        const double x = k * sx;
         const ImVec2 p = a.to_screen(x, y0);
         draw->AddLine(ImVec2(p.x, a.min_px.y), ImVec2(p.x, a.max_px.y), grid);
         std::snprintf(buf, sizeof buf, "%g", std::abs(x) < 1e-12 * sx ? 0.0 : x);
         draw->AddText(ImVec2(p.x - 10, a.max_px.y + 3), ink, buf);
     }
-    for (double y = std::ceil(y0 / sy) * sy; y <= y1 + 1e-9 * sy; y += sy) {
+    for (const long long k : tick_indices(y0, y1, sy)) {
+        const double y = k * sy;
         const ImVec2 p = a.to_screen(x0, y);
         draw->AddLine(ImVec2(a.min_px.x, p.y), ImVec2(a.max_px.x, p.y), grid);
         std::snprintf(buf, sizeof buf, "%g", y);

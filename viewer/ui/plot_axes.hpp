@@ -4,6 +4,7 @@
 #include <imgui.h>
 
 #include <string>
+#include <vector>
 
 namespace rv::ui {
 
@@ -23,5 +24,11 @@ PlotAxes draw_axes(ImDrawList* draw, ImVec2 origin, ImVec2 size, double x0, doub
 
 // A round step giving about `count` ticks over `span` (1, 2 or 5 × 10^k).
 double nice_step(double span, int count);
+
+// The ticks k·step in [lo, hi] as their indices k, counted before any is listed: none when the
+// step is not positive, a bound is not finite, or there would be more than kMaxTicks (a span
+// below the spacing of doubles at lo, where k·step no longer differ).
+inline constexpr double kMaxTicks = 100;
+std::vector<long long> tick_indices(double lo, double hi, double step);
 
 }  // namespace rv::ui

@@ -4,19 +4,41 @@
 #include <cmath>
 #include <cstdio>
 
+#include "scene/clip_segment.hpp"
+#include "units/clamped_int.hpp"
+
 namespace rv::ui {
 
 namespace {
 
 ImU32 col(const scene::Colour& c) { return IM_COL32(c.r, c.g, c.b, c.a); }
 
+// The most dashes one segment gets: a clipped segment is at most the canvas's diagonal plus the
+// margin long (far fewer dashes); the cap holds whatever the caller passes.
+constexpr int kMaxDashes = 4096;
+
+// Counted first, then stepped by an integer: a float s += 13 px stops growing near 2^28 px and
+// never passed the length of a segment 1e15 px long (a table of 1e-9 mm; issue 19).
 void dashed_line(ImDrawList* draw, ImVec2 a, ImVec2 b, ImU32 c, float width) {
     const float dx = b.x - a.x, dy = b.y - a.y, len = std::sqrt(dx * dx + dy * dy);
     const float dash = 8, gap = 5;
-    for (float s = 0; s < len; s += dash + gap) {
-        const float e = std::min(len, s + dash);
+    if (!(len > 0) || !std::isfinite(len)) return;
+    const int dashes = clamped_int(std::ceil(len / (dash + gap)), 0, kMaxDashes);
+    for (int k = 0; k < dashes; ++k) {
+        const float s = k * (dash + gap), e = std::min(len, s + dash);
         draw->AddLine(ImVec2(a.x + dx * s / len, a.y + dy * s / len), ImVec2(a.x + dx * e / len, a.y + dy * e / len), c, width);
     }
+}
+
+// The table area the canvas shows, in mm, with a margin of `margin_px` pixels.
+scene::Box visible_mm(const View& v, float margin_px) {
+    const Vec2 a = v.to_table(ImVec2(v.origin_px.x - margin_px, v.origin_px.y - margin_px));
+    const Vec2 b = v.to_table(ImVec2(v.origin_px.x + v.size_px.x + margin_px, v.origin_px.y + v.size_px.y + margin_px));
+    return {a.cwiseMin(b), a.cwiseMax(b)};
+}
+
+bool inside(const scene::Box& box, const Vec2& p) {
+    return p.x() >= box.min.x() && p.x() <= box.max.x() && p.y() >= box.min.y() && p.y() <= box.max.y();
 }
 
 }  // namespace
@@ -31,6 +53,7 @@ View fit_view(const ImVec2& origin, const ImVec2& size, double w_mm, double h_mm
 }
 
 void draw_table(ImDrawList* draw, const scene::Scene& s, const View& v) {
+    const scene::Box near = visible_mm(v, 64);  // what may be drawn: the canvas and a margin
     draw->PushClipRect(v.origin_px, ImVec2(v.origin_px.x + v.size_px.x, v.origin_px.y + v.size_px.y), true);
     draw->AddRectFilled(v.origin_px, ImVec2(v.origin_px.x + v.size_px.x, v.origin_px.y + v.size_px.y), IM_COL32(250, 250, 252, 255));
     const ImVec2 t0 = v.to_screen(Vec2(0, s.height_mm)), t1 = v.to_screen(Vec2(s.width_mm, 0));
@@ -38,29 +61,51 @@ void draw_table(ImDrawList* draw, const scene::Scene& s, const View& v) {
     draw->AddRect(t0, t1, IM_COL32(144, 152, 160, 255));
     if (s.grid_mm * v.px_per_mm >= 6)
         for (const Vec2& h : s.holes_mm) {
+            if (!inside(near, h)) continue;
             const ImVec2 p = v.to_screen(h);
             draw->AddRectFilled(ImVec2(p.x - 1, p.y - 1), ImVec2(p.x + 1, p.y + 1), IM_COL32(184, 190, 198, 255));
         }
+    // Shapes are drawn as they are when every point lies within a million pixels of the canvas
+    // (far within float's range: every shape of a table drawn whole, or zoomed in); otherwise
+    // an outline is drawn clipped in mm, segment by segment, and an area not at all. A dashed
+    // segment is always clipped to the canvas first, so its dashes are few.
+    const scene::Box far = scene::grown(near, 1e6 / v.px_per_mm);
+    auto dashed = [&](const Vec2& a, const Vec2& b, ImU32 c, float width) {
+        if (inside(near, a) && inside(near, b)) dashed_line(draw, v.to_screen(a), v.to_screen(b), c, width);
+        else if (const auto part = scene::clip_segment(a, b, near))
+            dashed_line(draw, v.to_screen(part->first), v.to_screen(part->second), c, width);
+    };
     for (const scene::Polyline& p : s.shapes) {
         if (p.points_mm.size() < 2) continue;
+        const float width = std::max(1.0f, static_cast<float>(p.width_mm * v.px_per_mm));
+        const size_t n = p.points_mm.size();
+        if (!p.band && !p.filled && p.dashed) {
+            for (size_t i = 0; i + 1 < n; ++i) dashed(p.points_mm[i], p.points_mm[i + 1], col(p.colour), width);
+            continue;
+        }
+        if (!std::all_of(p.points_mm.begin(), p.points_mm.end(), [&](const Vec2& q) { return inside(far, q); })) {
+            if (p.band || p.filled) continue;
+            for (size_t i = 0; i + 1 < n + (p.closed ? 1 : 0); ++i)
+                if (const auto part = scene::clip_segment(p.points_mm[i], p.points_mm[(i + 1) % n], near))
+                    draw->AddLine(v.to_screen(part->first), v.to_screen(part->second), col(p.colour), width);
+            continue;
+        }
         std::vector<ImVec2> pts;
         for (const Vec2& q : p.points_mm) pts.push_back(v.to_screen(q));
-        const float width = std::max(1.0f, static_cast<float>(p.width_mm * v.px_per_mm));
         if (p.band) {
-            const size_t n = pts.size() / 2;
-            for (size_t i = 0; i + 1 < n; ++i)
+            const size_t half = pts.size() / 2;
+            for (size_t i = 0; i + 1 < half; ++i)
                 draw->AddQuadFilled(pts[i], pts[i + 1], pts[pts.size() - 2 - i], pts[pts.size() - 1 - i], col(p.colour));
         } else if (p.filled) {
             draw->AddConvexPolyFilled(pts.data(), static_cast<int>(pts.size()), col(p.colour));
             draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), IM_COL32(80, 90, 102, 255), ImDrawFlags_Closed, 1.0f);
-        } else if (p.dashed) {
-            for (size_t i = 0; i + 1 < pts.size(); ++i) dashed_line(draw, pts[i], pts[i + 1], col(p.colour), width);
         } else {
             draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), col(p.colour),
                               p.closed ? ImDrawFlags_Closed : ImDrawFlags_None, width);
         }
     }
-    for (const scene::Label& l : s.labels) draw->AddText(v.to_screen(l.at_mm), col(l.colour), l.text.c_str());
+    for (const scene::Label& l : s.labels)
+        if (inside(near, l.at_mm)) draw->AddText(v.to_screen(l.at_mm), col(l.colour), l.text.c_str());
     // Legend and scale bar in the canvas's lower left corner.
     float y = v.origin_px.y + v.size_px.y - 18.0f * (s.legend.size() + 2);
     const float x = v.origin_px.x + 12;
@@ -70,7 +115,8 @@ void draw_table(ImDrawList* draw, const scene::Scene& s, const View& v) {
         draw->AddText(ImVec2(x + 38, y), IM_COL32(30, 30, 40, 255), e.text.c_str());
         y += 18;
     }
-    const float bar = static_cast<float>(100 * v.px_per_mm);
+    // At most a few canvases long (a table of 1e-9 mm gives 1e14 px per 100 mm).
+    const float bar = static_cast<float>(std::min(100 * v.px_per_mm, 4.0 * v.size_px.x));
     draw->AddLine(ImVec2(x, y + 10), ImVec2(x + bar, y + 10), IM_COL32(30, 30, 40, 255), 2.0f);
     char text[96];
     std::snprintf(text, sizeof text, "100 mm   (envelopes x %.0f)", s.envelope_exaggeration);
