@@ -29,6 +29,10 @@ BeamAtTarget beam_at_target(const Layout& layout, const Path& path, const BeamsA
     out.sagittal.waist_offset_mm = beams.waist_offset_sagittal_mm;
     out.hit_mm = hit.point_mm;
     out.direction = hit.direction_in;
+    out.wave_direction = hit.wave_direction_in();
+    out.vertical_mm = hit.vertical_mm;
+    out.vertical_slope = hit.vertical_slope_in;
+    out.pulse = pulse_at_hit(layout.beams[path.beam], path, *path.target_hit);
     out.index = hit.index_before;
     out.q_tangential = beams.tangential;
     out.q_sagittal = beams.sagittal;
@@ -96,7 +100,9 @@ Mismatch mismatch_at_target(const BeamAtTarget& a, const BeamAtTarget& b) {
     m.waist_offset_mm = (m.waist_offset_tangential_mm + m.waist_offset_sagittal_mm) / 2;
     m.waist_ratio = (b.tangential.waist_um + b.sagittal.waist_um) /
                     (a.tangential.waist_um + a.sagittal.waist_um);
-    m.lateral_um = mm_to_um((b.hit_mm - a.hit_mm).norm());
+    m.lateral_tangential_um = mm_to_um((b.hit_mm - a.hit_mm).norm());
+    m.lateral_sagittal_um = mm_to_um(std::abs(b.vertical_mm - a.vertical_mm));
+    m.lateral_um = std::hypot(m.lateral_tangential_um, m.lateral_sagittal_um);
     const double cross = a.direction.x() * b.direction.y() - a.direction.y() * b.direction.x();
     m.angle_mrad = 1e3 * std::atan2(std::abs(cross), a.direction.dot(b.direction));
     m.delay_fs = a.arrival_fs - b.arrival_fs;
@@ -111,8 +117,11 @@ OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y, d
     const double tilt = std::atan2(x.direction.x() * y.direction.y() - x.direction.y() * y.direction.x(),
                                    x.direction.dot(y.direction));
     OverlapFigures o;
+    // Out of the table plane: the heights differ by v0 and part by the difference of slopes.
+    const double v0_um = mm_to_um(y.vertical_mm - x.vertical_mm);
+    const double v_tilt = y.vertical_slope - x.vertical_slope;
     o.spatial = transverse_overlap_1d(x.tangential.radius_um, y.tangential.radius_um, d0_um) *
-                transverse_overlap_1d(x.sagittal.radius_um, y.sagittal.radius_um, 0);
+                transverse_overlap_1d(x.sagittal.radius_um, y.sagittal.radius_um, v0_um);
     // The mean over z in [−h, h] by 8-point Gauss–Legendre quadrature (nodes and weights:
     // Abramowitz & Stegun, Handbook of Mathematical Functions, Table 25.4): the integrand is
     // smooth on the scale of the crystal, and the Monte Carlo evaluates it per sample.
@@ -121,8 +130,9 @@ OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y, d
     auto at = [&](double z) {
         auto r = [z](const GaussianBeam& q) { return radius_um(propagate(q, free_space(z))); };
         const double d = d0_um + mm_to_um(tilt * z);
+        const double v = v0_um + mm_to_um(v_tilt * z);
         return transverse_overlap_1d(r(x.q_tangential), r(y.q_tangential), d) *
-               transverse_overlap_1d(r(x.q_sagittal), r(y.q_sagittal), 0);
+               transverse_overlap_1d(r(x.q_sagittal), r(y.q_sagittal), v);
     };
     const double half_mm = (x.half_crystal_path_mm + y.half_crystal_path_mm) / 2;
     if (half_mm > 0) {

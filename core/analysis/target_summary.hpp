@@ -6,12 +6,16 @@
 // Caustic), and the Rayleigh range in the medium at the target.
 // Mismatch (second beam relative to the first): waist offsets subtracted per plane (reported:
 // the mean of the two planes), waist ratio (mean radius of beam 2 / beam 1), lateral offset of
-// the chief-ray crossings in the target plane, angle between the chief rays, and the delay
-// (arrival of the first beam minus the second).
+// the chief-ray crossings in the target plane (tangential: in the table plane; sagittal: out of
+// it, where an extraordinary wave walks off in a crystal whose optic axis lies in the vertical
+// plane, trace/ray_state.hpp), angle between the chief rays, and the delay (arrival of the
+// first beam minus the second). The chief ray is the energy's: an extraordinary input's walk-off
+// in the target crystal is in the crossing, the direction and the overlap along the crystal.
 
 #include <optional>
 #include <vector>
 
+#include "analysis/pulse_at_target.hpp"
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
 #include "trace/path.hpp"
@@ -30,7 +34,12 @@ struct BeamAtTarget {
     double arrival_fs = 0;    // emission time + group delay to the target centre
     PlaneAtTarget tangential, sagittal;
     Vec2 hit_mm{0, 0};        // chief-ray crossing of the target plane
-    Vec2 direction{1, 0};
+    Vec2 direction{1, 0};     // the chief ray's (the energy's) direction there
+    Vec2 wave_direction{1, 0};  // the wave vector's (differs inside a crystal by the walk-off)
+    // Out of the table plane (walk-off in a crystal whose optic axis is in the vertical plane):
+    // the chief ray's height at the crossing and its slope there (+ up).
+    double vertical_mm = 0, vertical_slope = 0;
+    PulseAtTarget pulse;      // GDD, TOD and pulse length at the target centre
     double index = 1;         // phase index of the medium at the target
     GaussianBeam q_tangential{}, q_sagittal{};  // at the target plane
     // Half the chief ray's path inside the target crystal (its centre plane lies midway between
@@ -57,7 +66,8 @@ struct Mismatch {
     double waist_offset_tangential_mm = 0, waist_offset_sagittal_mm = 0;
     double waist_offset_mm = 0;  // mean of the two planes
     double waist_ratio = 1;      // mean waist of beam 2 over beam 1
-    double lateral_um = 0;       // distance between the chief-ray crossings
+    double lateral_um = 0;       // distance between the chief-ray crossings (both planes)
+    double lateral_tangential_um = 0, lateral_sagittal_um = 0;  // in and out of the table plane
     double angle_mrad = 0;       // angle between the chief rays
     double delay_fs = 0;         // arrival of beam 1 minus beam 2
 };
@@ -69,10 +79,12 @@ Mismatch mismatch_at_target(const BeamAtTarget& first, const BeamAtTarget& secon
 // tolerance run (docs/user-guide.md, The report, "Overlap"):
 //   spatial: the transverse intensity overlap of the two Gaussians at the target plane, per
 //            plane (nonlinear/overlap.hpp), the tangential one offset by the distance between the
-//            chief-ray crossings across the bisector of the two chief rays;
+//            chief-ray crossings across the bisector of the two chief rays, the sagittal one by
+//            the difference of their heights out of the table plane;
 //   spatial_along_crystal: the same averaged along the crystal from its entrance to its exit
 //            (each beam propagated there in the crystal, the offset growing with the angle
-//            between the chief rays; the extent is the mean of the two beams' paths inside), by
+//            between the chief rays in each plane — a walk-off included; the extent is the
+//            mean of the two beams' paths inside), by
 //            8-point Gauss–Legendre quadrature; at the target plane alone for a target that is
 //            not a crystal;
 //   temporal: the cross-correlation factor of the two pulses at the delay (both lengths given);

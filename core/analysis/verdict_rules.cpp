@@ -11,7 +11,9 @@ SpaceFigures space_figures(const BeamAtTarget& a, const BeamAtTarget& b, const M
     SpaceFigures f;
     f.waist_offset_rayleigh = std::abs(m.waist_offset_mm) / shorter;
     f.waist_ratio = std::max(m.waist_ratio, 1 / m.waist_ratio);
-    f.lateral_radius = m.lateral_um / std::hypot(a.tangential.radius_um, b.tangential.radius_um);
+    // Per plane, as the overlap's exponent adds them: exp(−2 (d_t²/Σw_t² + d_s²/Σw_s²)).
+    f.lateral_radius = std::hypot(m.lateral_tangential_um / std::hypot(a.tangential.radius_um, b.tangential.radius_um),
+                                  m.lateral_sagittal_um / std::hypot(a.sagittal.radius_um, b.sagittal.radius_um));
     return f;
 }
 

@@ -3,8 +3,9 @@
 // build_report, which words the verdict, and the tolerance run, which judges every aligned
 // build with it (solve/tolerance.hpp). Thresholds: goals.verdict (VerdictThresholds).
 //   space (two beams): |waist separation| / shorter Rayleigh range ≤ max_waist_offset_rayleigh,
-//          larger/smaller mean waist ≤ max_waist_ratio, chief-ray distance in the target plane /
-//          √(w1² + w2²) (tangential radii there) ≤ max_lateral_offset_radius, and each goal waist
+//          larger/smaller mean waist ≤ max_waist_ratio, chief-ray distance in the target plane
+//          over √(w1² + w2²), per plane and added in quadrature (√((d_t/√Σw_t²)² + (d_s/√Σw_s²)²),
+//          the sagittal part a walk-off out of the table plane) ≤ max_lateral_offset_radius, and each goal waist
 //          (goals.waist_um, mean of the planes) within max_goal_waist_error of its goal;
 //   space (one beam): |mean waist offset| / its shorter Rayleigh range, and its goal waist;
 //   time: |delay| / √(τ1² + τ2²) ≤ max_delay_xcorr;
@@ -18,7 +19,7 @@ namespace rv {
 struct SpaceFigures {
     double waist_offset_rayleigh = 0;  // |waist separation| / shorter Rayleigh range
     double waist_ratio = 1;            // larger over smaller (≥ 1)
-    double lateral_radius = 0;         // chief-ray distance / √(w1² + w2²)
+    double lateral_radius = 0;         // chief-ray distance / √(w1² + w2²), both planes
 };
 // Both beams must have reached the target; m = mismatch_at_target(a, b).
 SpaceFigures space_figures(const BeamAtTarget& a, const BeamAtTarget& b, const Mismatch& m);

@@ -271,6 +271,8 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     b.waist_at_mm = f.plane_pair("waist_at_mm", Need::Optional).value_or(PlanePair{});
     b.m2 = f.plane_pair("m2", Need::Optional, at_least(1.0)).value_or(PlanePair{1, 1});
     b.pulse_fwhm_fs = f.number("pulse_fwhm_fs", Need::Optional, positive()).value_or(0);
+    // The source's chirp, either sign; bounded so that the stretched length stays finite.
+    b.input_gdd_fs2 = f.number("input_gdd_fs2", Need::Optional, between(-1e9, 1e9));
     b.emit_time_fs = f.number("emit_time_fs", Need::Optional).value_or(0);
     b.power_mw = f.number("power_mw", Need::Optional, positive()).value_or(0);
     b.repetition_rate_khz = f.number("repetition_rate_khz", Need::Optional, positive()).value_or(0);
@@ -283,7 +285,7 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     else if (f.has("polarization_angle_deg"))
         f.error("polarization_angle_deg", "only allowed with \"polarization\": \"linear\"");
     f.finish({"id", "wavelength_nm", "start_mm", "direction_deg", "waist_um", "waist_at_mm", "m2",
-              "pulse_fwhm_fs", "emit_time_fs", "polarization", "polarization_angle_deg",
+              "pulse_fwhm_fs", "input_gdd_fs2", "emit_time_fs", "polarization", "polarization_angle_deg",
               "power_mw", "repetition_rate_khz", "polarized_fraction"});
     if (!b.id.empty()) {
         if (element_pointers_.count(b.id))

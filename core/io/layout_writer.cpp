@@ -36,6 +36,7 @@ ojson beam_json(const BeamSource& b) {
     if (!(b.waist_at_mm == PlanePair{})) j["waist_at_mm"] = plane_pair(b.waist_at_mm);
     if (!(b.m2 == PlanePair{1, 1})) j["m2"] = plane_pair(b.m2);
     if (b.pulse_fwhm_fs > 0) j["pulse_fwhm_fs"] = num(b.pulse_fwhm_fs);
+    if (b.input_gdd_fs2) j["input_gdd_fs2"] = num(*b.input_gdd_fs2);
     if (b.emit_time_fs != 0) j["emit_time_fs"] = num(b.emit_time_fs);
     if (b.polarization.kind != Polarization::Kind::Horizontal)  // the default, left out
         j["polarization"] = text_of(kPolarizationNames, b.polarization.kind);

@@ -64,6 +64,9 @@ struct BeamSource {
     PlanePair waist_at_mm;        // waist position along the beam from start, + downstream
     PlanePair m2{1.0, 1.0};
     double pulse_fwhm_fs = 0.0;   // 0: not given (no temporal overlap)
+    // The chirp (GDD, fs²) the pulse leaves the source with; pulse_fwhm_fs is then the length
+    // of its transform-limited form. Not given: transform-limited (analysis/pulse_at_target.hpp).
+    std::optional<double> input_gdd_fs2;
     double emit_time_fs = 0.0;
     Polarization polarization;
     double polarized_fraction = 1.0;  // degree of polarization; the rest is unpolarized

@@ -75,7 +75,13 @@ json target_json(const ReportBeam& b) {
             {"peak_fluence_j_cm2", pulse(b.pulse_at_target, &PulseFigures::peak_fluence_j_cm2)},
             {"peak_intensity_at_waist_w_cm2",
              pulse(b.pulse_at_waist, &PulseFigures::peak_intensity_w_cm2)},
-            {"polarization", polarization_json(b)}};
+            {"polarization", polarization_json(b)},
+            {"vertical_offset_mm", t.vertical_mm},
+            {"pulse",
+             {{"gdd_fs2", t.pulse.gdd_fs2},
+              {"tod_fs3", t.pulse.tod_fs3},
+              {"fwhm_fs", optional_number(t.pulse.fwhm_fs)},
+              {"compensation_gdd_fs2", t.pulse.compensation_gdd_fs2()}}}};
 }
 
 json mismatch_json(const Mismatch& m, const std::optional<double>& confocal_ratio) {
@@ -85,6 +91,7 @@ json mismatch_json(const Mismatch& m, const std::optional<double>& confocal_rati
             {"waist_ratio", m.waist_ratio},
             {"confocal_ratio", optional_number(confocal_ratio)},
             {"lateral_um", m.lateral_um},
+            {"lateral_planes_um", planes(m.lateral_tangential_um, m.lateral_sagittal_um)},
             {"angle_mrad", m.angle_mrad},
             {"delay_fs", m.delay_fs}};
 }
@@ -199,15 +206,7 @@ void to_json(json& j, const FocusingReport& f) {
          {"xi", f.xi},
          {"h_m", f.h_m},
          {"sigma_m", f.sigma_m},
-         {"walkoff_parameter", f.walkoff_parameter},
-         {"h_m_walkoff", f.h_m_walkoff},
-         {"sigma_m_walkoff", f.sigma_m_walkoff},
-         {"xi_optimum", f.xi_optimum},
-         {"h_mm", f.h_mm},
-         {"confocal_optimum_mm", f.confocal_optimum_mm},
-         {"waist_now_um", f.waist_now_um},
-         {"waist_optimum_um", f.waist_optimum_um},
-         {"focal_length_scale", f.focal_length_scale}};
+         {"walkoff_parameter", f.walkoff_parameter}};
 }
 
 void to_json(json& j, const ReportBeam& b) {

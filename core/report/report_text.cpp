@@ -62,6 +62,21 @@ void write_power(const RendezvousReport& r, std::ostream& out) {
     }
 }
 
+// Each arm's dispersion to the target centre and the pulse length there.
+void write_pulses(const RendezvousReport& r, std::ostream& out) {
+    bool any = false;
+    for (const ReportBeam& b : r.beams) {
+        if (!b.at_target.reached) continue;
+        if (!any) out << "\nPulses at the target (Gaussian; GDD and TOD of the path, the source's chirp included)\n";
+        any = true;
+        const PulseAtTarget& p = b.at_target.pulse;
+        out << "  " << b.id << ": GDD " << fmt("%+.0f", p.gdd_fs2) << " fs², TOD " << fmt("%+.0f", p.tod_fs3)
+            << " fs³";
+        if (p.fwhm_fs) out << ", pulse " << fmt("%.1f", *p.fwhm_fs) << " fs FWHM";
+        out << "; " << fmt("%+.0f", p.compensation_gdd_fs2()) << " fs² before the target gives the shortest pulse\n";
+    }
+}
+
 }  // namespace
 
 void write_report_text(const RendezvousReport& r, std::ostream& out) {
@@ -89,13 +104,15 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
         out << line;
     }
     write_power(r, out);
+    write_pulses(r, out);
     if (r.mismatch) {
         const Mismatch& m = *r.mismatch;
         out << "\nMismatch (" << r.beams[1].id << " relative to " << r.beams[0].id << ")\n"
             << "  waist offset " << fmt("%+.3f", m.waist_offset_mm) << " mm, waist ratio "
             << fmt("%.3f", m.waist_ratio) << ", confocal ratio "
             << fmt("%.3f", r.confocal_ratio.value_or(0)) << ", lateral "
-            << fmt("%.1f", m.lateral_um) << " µm, angle " << fmt("%.3f", m.angle_mrad) << " mrad\n"
+            << fmt("%.1f", m.lateral_um) << " µm (t " << fmt("%.1f", m.lateral_tangential_um) << ", s "
+            << fmt("%.1f", m.lateral_sagittal_um) << "), angle " << fmt("%.3f", m.angle_mrad) << " mrad\n"
             << "  delay (" << r.beams[0].id << " − " << r.beams[1].id << ") "
             << format_duration_fs(m.delay_fs, true) << "\n";
     }
@@ -156,17 +173,11 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             << p.polarization_note << "\n";
     }
     if (!r.focusing.empty()) {
-        out << "\nFocusing (Boyd–Kleinman, focus at the centre)\n";
+        out << "\nFocusing (Boyd–Kleinman, no walk-off; optimum ξ = 2.84)\n";
         for (const FocusingReport& f : r.focusing)
             out << "  " << f.beam << ": ξ = L/b = " << fmt("%.3f", f.xi)
-                << ", walk-off parameter B = " << fmt("%.2f", f.walkoff_parameter)
-                << ", h_m = " << fmt("%.3f", f.h_m_walkoff) << " with walk-off ("
-                << fmt("%.3f", f.h_m) << " without)\n"
-                << "    optimum for this B: ξ = " << fmt("%.2f", f.xi_optimum)
-                << ", h = " << fmt("%.3f", f.h_mm) << " — waist radius "
-                << fmt("%.1f", f.waist_optimum_um) << " µm in the crystal (now "
-                << fmt("%.1f", f.waist_now_um) << " µm): focusing lens f × "
-                << fmt("%.2f", f.focal_length_scale) << " for a collimated input\n";
+                << ", h_m = " << fmt("%.3f", f.h_m)
+                << ", walk-off parameter B = " << fmt("%.2f", f.walkoff_parameter) << "\n";
         if (r.confocal_ratio)
             out << "  confocal parameters b1/b2 = " << fmt("%.3f", *r.confocal_ratio)
                 << " (1 = matched)\n";

@@ -189,7 +189,7 @@ double delta_k_l_of(const Layout& l, const JudgeContext& c, const std::vector<Be
     if (!c.process || c.first_beam >= at.size() || !at[c.first_beam].reached) return 0;
     const Element& xe = l.elements[c.target];
     const Crystal& xc = std::get<Crystal>(xe.kind);
-    const PhaseNow p = phase_now(*c.material, c.first_nm, c.second_nm, c.mixing, xe, xc, at[c.first_beam].direction,
+    const PhaseNow p = phase_now(*c.material, c.first_nm, c.second_nm, c.mixing, xe, xc, at[c.first_beam].wave_direction,
                                  at[c.first_beam].index);
     return p.delta_k_per_mm * xc.length_mm;
 }

@@ -67,6 +67,10 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
             add(n + ".target.hit_mm.y", t.hit_mm.y());
             add(n + ".target.angle_deg", b.crossing_angle_deg);
             add(n + ".target.index", t.index);
+            add(n + ".target.vertical_offset_mm", t.vertical_mm);
+            add(n + ".target.pulse.gdd_fs2", t.pulse.gdd_fs2);
+            add(n + ".target.pulse.tod_fs3", t.pulse.tod_fs3);
+            if (t.pulse.fwhm_fs) add(n + ".target.pulse.fwhm_fs", *t.pulse.fwhm_fs);
         }
     }
     if (r.mismatch) {
@@ -76,6 +80,8 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add("mismatch.waist_offset_planes_mm.sagittal", m.waist_offset_sagittal_mm);
         add("mismatch.waist_ratio", m.waist_ratio);
         add("mismatch.lateral_um", m.lateral_um);
+        add("mismatch.lateral_planes_um.tangential", m.lateral_tangential_um);
+        add("mismatch.lateral_planes_um.sagittal", m.lateral_sagittal_um);
         add("mismatch.angle_mrad", m.angle_mrad);
         add("mismatch.delay_fs", m.delay_fs);
     }
@@ -120,11 +126,6 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add(n + ".h_m", f.h_m);
         add(n + ".sigma_m", f.sigma_m);
         add(n + ".walkoff_parameter", f.walkoff_parameter);
-        add(n + ".h_m_walkoff", f.h_m_walkoff);
-        add(n + ".xi_optimum", f.xi_optimum);
-        add(n + ".h_mm", f.h_mm);
-        add(n + ".waist_optimum_um", f.waist_optimum_um);
-        add(n + ".focal_length_scale", f.focal_length_scale);
     }
     return out;
 }

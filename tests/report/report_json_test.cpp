@@ -90,6 +90,12 @@ void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout
     if (b.pulse_at_target)
         CHECK(at.at("peak_intensity_w_cm2").get<double>() ==
               b.pulse_at_target->peak_intensity_w_cm2);
+    CHECK(at.at("vertical_offset_mm").get<double>() == t.vertical_mm);
+    const json& pulse = at.at("pulse");
+    CHECK(pulse.at("gdd_fs2").get<double>() == t.pulse.gdd_fs2);
+    CHECK(pulse.at("tod_fs3").get<double>() == t.pulse.tod_fs3);
+    check_optional(pulse.at("fwhm_fs"), t.pulse.fwhm_fs);
+    CHECK(pulse.at("compensation_gdd_fs2").get<double>() == -t.pulse.gdd_fs2);
 }
 
 void check_process(const json& j, const rv::PhaseMatchingReport& p) {
@@ -143,6 +149,7 @@ void check_report_json(const rv::Layout& layout) {
         CHECK(m.at("waist_offset_mm").get<double>() == r.mismatch->waist_offset_mm);
         CHECK(m.at("waist_ratio").get<double>() == r.mismatch->waist_ratio);
         CHECK(m.at("lateral_um").get<double>() == r.mismatch->lateral_um);
+        check_planes(m.at("lateral_planes_um"), r.mismatch->lateral_tangential_um, r.mismatch->lateral_sagittal_um);
         CHECK(m.at("angle_mrad").get<double>() == r.mismatch->angle_mrad);
         CHECK(m.at("delay_fs").get<double>() == r.mismatch->delay_fs);
         check_optional(m.at("confocal_ratio"), r.confocal_ratio);

@@ -86,7 +86,8 @@ inline std::optional<std::string> at_target_difference(const std::vector<BeamAtT
             x.direction != y.direction || x.tangential.waist_offset_mm != y.tangential.waist_offset_mm ||
             x.sagittal.waist_offset_mm != y.sagittal.waist_offset_mm || x.tangential.waist_um != y.tangential.waist_um ||
             x.sagittal.waist_um != y.sagittal.waist_um || x.tangential.radius_um != y.tangential.radius_um ||
-            x.sagittal.radius_um != y.sagittal.radius_um)
+            x.sagittal.radius_um != y.sagittal.radius_um || x.wave_direction != y.wave_direction ||
+            x.vertical_mm != y.vertical_mm || x.vertical_slope != y.vertical_slope || !(x.pulse == y.pulse))
             return std::string(what) + ": beam " + std::to_string(i);
     }
     return std::nullopt;
