@@ -125,6 +125,7 @@ struct PhaseMatchingReport {
     std::string outside_index_data;
     bool first_needs_a = true, second_needs_a = true;  // the inputs' polarities for the type
     double walkoff_mrad = 0;        // of the generated (B) wave at θ_pm
+    double focusing_walkoff_mrad = 0;  // the ρ of Boyd–Kleinman's B (report_focusing.cpp)
     double angular_acceptance_internal_mrad = 0;  // FWHM, internal
     double angular_acceptance_external_mrad = 0;  // ≈ n × internal
     double spectral_acceptance_nm = 0;            // FWHM of wave 1
@@ -136,7 +137,12 @@ struct PhaseMatchingReport {
 struct FocusingReport {
     std::string beam;
     double xi = 0, h_m = 0, sigma_m = 0;  // Boyd–Kleinman, no walk-off, focus at the centre
-    double walkoff_parameter = 0;         // B = ρ √(L k1)/2
+    double walkoff_parameter = 0;         // B = ρ √(L k1)/2 (ρ: report_focusing.cpp says which)
+    double h_m_walkoff = 0, sigma_m_walkoff = 0;  // h_m(ξ, B): with the crystal's walk-off
+    double xi_optimum = 0, h_mm = 0;              // the best focusing for this B
+    double confocal_optimum_mm = 0;               // L/ξ_m, in the crystal
+    double waist_now_um = 0, waist_optimum_um = 0;  // w0 = √(b λ/(2π n))
+    double focal_length_scale = 0;  // w0(optimum)/w0(now): the focusing lens's f scales by it
 };
 
 struct VerdictLine {

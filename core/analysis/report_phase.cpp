@@ -165,6 +165,11 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const double b_lambda =
         w.wave3 == Polarity::B ? r.output_nm : (w.wave1 == Polarity::B ? l1 : l2);
     r.walkoff_mrad = 1e3 * std::abs(walkoff_rad(m, b_lambda, *pm, plane));
+    // Boyd–Kleinman's B (report_focusing.cpp): the e input's walk-off when an input is e (type
+    // II, type I eeo), else the generated e wave's (type I ooe).
+    const double focus_lambda =
+        w.wave1 == Polarity::B ? l1 : (w.wave2 == Polarity::B ? l2 : r.output_nm);
+    r.focusing_walkoff_mrad = 1e3 * std::abs(walkoff_rad(m, focus_lambda, *pm, plane));
     const Acceptance acc = acceptance(m, l1, l2, type, *pm, length, plane);
     r.angular_acceptance_internal_mrad = acc.angular_internal_fwhm_mrad;
     r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_1;

@@ -12,7 +12,7 @@
 //
 // G is analytic near the real axis except for the pole at s = 2i and the branch point at
 // s = ξ + i: the s range is cut at ξ and panels grow geometrically away from 0 and ξ, each with
-// a 32-point Gauss–Legendre rule, no longer than the σ oscillation and the walk-off Gaussian
+// a 16-point Gauss–Legendre rule, no longer than the σ oscillation and the walk-off Gaussian
 // allow; the Gaussian's tail beyond 7 widths (e^{−49}) is dropped. For one (ξ, B) the weighted
 // G is kept, so each σ costs one complex exponential per node.
 //
@@ -39,8 +39,8 @@ namespace {
 
 using Complex = std::complex<double>;
 
-constexpr int kOrder = 32;               // Gauss–Legendre points per panel
-constexpr double kPanelPhase_rad = 20;   // σ_hi × panel length, well inside the rule's reach
+constexpr int kOrder = 16;              // Gauss–Legendre points per panel
+constexpr double kPanelPhase_rad = 8;   // σ_hi × panel length: the rule's error ≈ 4³²/32! ≈ 1e-16
 constexpr double kXiSmall = 1e-6, kXiLarge = 1e5;
 
 struct GaussLegendre {
@@ -133,6 +133,19 @@ public:
         }
         return std::max(0.0, sum / (2 * xi_));
     }
+    // h at σ = j·step, j = 0 … count − 1: e^{i j step s} by repeated multiplication (one sine
+    // and cosine per node for the whole grid).
+    std::vector<double> h_grid(double step, int count) const {
+        std::vector<Complex> sum(count, 0.0);
+        for (size_t k = 0; k < s_.size(); ++k) {
+            const Complex turn = std::polar(1.0, step * s_[k]);
+            Complex term = c_[k];
+            for (int j = 0; j < count; ++j) sum[j] += term, term *= turn;
+        }
+        std::vector<double> out(count);
+        for (int j = 0; j < count; ++j) out[j] = std::max(0.0, sum[j].real() / (2 * xi_));
+        return out;
+    }
 
 private:
     double xi_;
@@ -190,26 +203,29 @@ double loose_focus_limit(double b, double xi) {
            (2 * xi);
 }
 
-BoydKleinmanOptimum search_sigma(const Kernel& kernel, double b, double xi, int grid_points) {
+BoydKleinmanOptimum search_sigma(const Kernel& kernel, double b, double xi, int grid_points,
+                                 double tol) {
     const double sigma_hi = sigma_search_limit(b, xi), width = width_in_sigma(b, xi);
-    std::vector<double> grid;
-    for (int j = 0; j <= grid_points; ++j) grid.push_back(sigma_hi * j / grid_points);
-    if (xi > 4)
-        for (int j = 1; j <= grid_points; ++j) grid.push_back(12 / xi * j / grid_points);
-    if (width > 0 && 6 * width < sigma_hi)
-        for (int j = 1; j <= grid_points / 2; ++j) grid.push_back(6 * width * j / (grid_points / 2));
+    std::vector<std::pair<double, double>> grid;  // (σ, h)
+    auto add_grid = [&](double end, int intervals) {
+        const std::vector<double> h = kernel.h_grid(end / intervals, intervals + 1);
+        for (int j = 0; j <= intervals; ++j) grid.push_back({end * j / intervals, h[j]});
+    };
+    add_grid(sigma_hi, grid_points);
+    if (xi > 4) add_grid(12 / xi, grid_points);
+    if (width > 0 && 6 * width < sigma_hi) add_grid(6 * width, grid_points / 2);
     std::sort(grid.begin(), grid.end());
-    grid.erase(std::unique(grid.begin(), grid.end()), grid.end());
     size_t best = 0;
-    double best_h = -1;
-    for (size_t j = 0; j < grid.size(); ++j) {
-        const double h = kernel.h(grid[j]);
-        if (h > best_h) best_h = h, best = j;
-    }
-    const double lo = grid[best > 0 ? best - 1 : 0], hi = grid[std::min(best + 1, grid.size() - 1)];
-    if (!(hi > lo)) return {best_h, grid[best]};
-    const auto [sigma, h] = brent_max([&](double s) { return kernel.h(s); }, lo, hi, 1e-9);
-    return h >= best_h ? BoydKleinmanOptimum{h, sigma} : BoydKleinmanOptimum{best_h, grid[best]};
+    for (size_t j = 0; j < grid.size(); ++j)
+        if (grid[j].second > grid[best].second) best = j;
+    const double best_h = grid[best].second;
+    size_t below = best, above = best;
+    while (below > 0 && grid[below].first >= grid[best].first) --below;
+    while (above + 1 < grid.size() && grid[above].first <= grid[best].first) ++above;
+    const double lo = grid[below].first, hi = grid[above].first;
+    if (!(hi > lo)) return {best_h, grid[best].first};
+    const auto [sigma, h] = brent_max([&](double s) { return kernel.h(s); }, lo, hi, tol);
+    return h >= best_h ? BoydKleinmanOptimum{h, sigma} : BoydKleinmanOptimum{best_h, grid[best].first};
 }
 
 }  // namespace
@@ -236,7 +252,7 @@ BoydKleinmanOptimum boyd_kleinman_optimum(double xi, double walkoff_b) {
         return {at_limit.h_m * kXiLarge / xi, at_limit.sigma_m * kXiLarge / xi};
     }
     const Kernel kernel(xi, b, sigma_search_limit(b, xi));
-    return search_sigma(kernel, b, xi, 48);
+    return search_sigma(kernel, b, xi, 48, 1e-9);
 }
 
 BoydKleinmanBest boyd_kleinman_best_focus(double walkoff_b) {
@@ -247,10 +263,10 @@ BoydKleinmanBest boyd_kleinman_best_focus(double walkoff_b) {
     const auto h_of_log_xi = [&](double log_xi) {
         const double xi = std::exp(log_xi);
         const Kernel kernel(xi, b, sigma_search_limit(b, xi));
-        inner = search_sigma(kernel, b, xi, 16);
+        inner = search_sigma(kernel, b, xi, 16, 1e-6);
         return inner.h_m;
     };
-    const auto [log_xi, h_mm] = brent_max(h_of_log_xi, std::log(0.5), std::log(6.0), 1e-7);
+    const auto [log_xi, h_mm] = brent_max(h_of_log_xi, std::log(0.5), std::log(6.0), 1e-5);
     const double xi = std::exp(log_xi);
     const BoydKleinmanOptimum at = boyd_kleinman_optimum(xi, b);
     return {xi, std::max(h_mm, at.h_m), at.sigma_m};

@@ -206,7 +206,15 @@ void to_json(json& j, const FocusingReport& f) {
          {"xi", f.xi},
          {"h_m", f.h_m},
          {"sigma_m", f.sigma_m},
-         {"walkoff_parameter", f.walkoff_parameter}};
+         {"walkoff_parameter", f.walkoff_parameter},
+         {"h_m_walkoff", f.h_m_walkoff},
+         {"sigma_m_walkoff", f.sigma_m_walkoff},
+         {"xi_optimum", f.xi_optimum},
+         {"h_mm", f.h_mm},
+         {"confocal_optimum_mm", f.confocal_optimum_mm},
+         {"waist_now_um", f.waist_now_um},
+         {"waist_optimum_um", f.waist_optimum_um},
+         {"focal_length_scale", f.focal_length_scale}};
 }
 
 void to_json(json& j, const ReportBeam& b) {

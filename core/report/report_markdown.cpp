@@ -77,6 +77,19 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                 << " | " << fmt("%.3f", p.sinc2_now) << " | " << fmt("%.1f", p.walkoff_mrad)
                 << " |\n";
     }
+    if (!r.focusing.empty()) {
+        out << "\n## Focusing (Boyd–Kleinman)\n\n| beam | ξ = L/b | B | h_m with walk-off | "
+               "h_m without | optimum ξ | h at the optimum | waist now (µm) | optimum waist (µm) | "
+               "lens f × |\n"
+            << "|---|---|---|---|---|---|---|---|---|---|\n";
+        for (const FocusingReport& f : r.focusing)
+            out << "| " << f.beam << " | " << fmt("%.3f", f.xi) << " | "
+                << fmt("%.2f", f.walkoff_parameter) << " | " << fmt("%.3f", f.h_m_walkoff) << " | "
+                << fmt("%.3f", f.h_m) << " | " << fmt("%.2f", f.xi_optimum) << " | "
+                << fmt("%.3f", f.h_mm) << " | " << fmt("%.1f", f.waist_now_um) << " | "
+                << fmt("%.1f", f.waist_optimum_um) << " | " << fmt("%.2f", f.focal_length_scale)
+                << " |\n";
+    }
     if (!r.findings.empty()) {
         out << "\n## Findings\n\n";
         for (const Finding& f : r.findings)

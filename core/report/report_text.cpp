@@ -173,11 +173,17 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             << p.polarization_note << "\n";
     }
     if (!r.focusing.empty()) {
-        out << "\nFocusing (Boyd–Kleinman, no walk-off; optimum ξ = 2.84)\n";
+        out << "\nFocusing (Boyd–Kleinman, focus at the centre)\n";
         for (const FocusingReport& f : r.focusing)
             out << "  " << f.beam << ": ξ = L/b = " << fmt("%.3f", f.xi)
-                << ", h_m = " << fmt("%.3f", f.h_m)
-                << ", walk-off parameter B = " << fmt("%.2f", f.walkoff_parameter) << "\n";
+                << ", walk-off parameter B = " << fmt("%.2f", f.walkoff_parameter)
+                << ", h_m = " << fmt("%.3f", f.h_m_walkoff) << " with walk-off ("
+                << fmt("%.3f", f.h_m) << " without)\n"
+                << "    optimum for this B: ξ = " << fmt("%.2f", f.xi_optimum)
+                << ", h = " << fmt("%.3f", f.h_mm) << " — waist radius "
+                << fmt("%.1f", f.waist_optimum_um) << " µm in the crystal (now "
+                << fmt("%.1f", f.waist_now_um) << " µm): focusing lens f × "
+                << fmt("%.2f", f.focal_length_scale) << " for a collimated input\n";
         if (r.confocal_ratio)
             out << "  confocal parameters b1/b2 = " << fmt("%.3f", *r.confocal_ratio)
                 << " (1 = matched)\n";

@@ -126,6 +126,11 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add(n + ".h_m", f.h_m);
         add(n + ".sigma_m", f.sigma_m);
         add(n + ".walkoff_parameter", f.walkoff_parameter);
+        add(n + ".h_m_walkoff", f.h_m_walkoff);
+        add(n + ".xi_optimum", f.xi_optimum);
+        add(n + ".h_mm", f.h_mm);
+        add(n + ".waist_optimum_um", f.waist_optimum_um);
+        add(n + ".focal_length_scale", f.focal_length_scale);
     }
     return out;
 }

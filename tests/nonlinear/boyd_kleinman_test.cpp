@@ -2,6 +2,8 @@
 #include "nonlinear/boyd_kleinman.hpp"
 
 #include <cmath>
+#include <complex>
+#include <vector>
 
 #include "support/tolerance.hpp"
 #include "units/constants.hpp"
@@ -56,4 +58,101 @@ TEST_CASE("h in the strong-focusing limit", "[boyd-kleinman]") {
     CHECK(std::isfinite(huge.h_m));
     CHECK(huge.h_m > 0);
     CHECK(huge.h_m < 1e-13);
+}
+
+namespace {
+
+// An independent h(σ, B, ξ): the double integral of Boyd & Kleinman 1968 as written,
+//   (1/(4ξ)) ∫∫ dτ dτ' e^{iσ(τ−τ')} e^{−(B²/ξ)(τ−τ')²} / ((1 + iτ)(1 − iτ')),
+// by the tensor composite Simpson rule on an n × n grid (no change of variables, no closed form).
+double h_by_double_integral(double sigma, double b, double xi, int n) {
+    using C = std::complex<double>;
+    const double step = 2 * xi / n, a = b * b / xi;
+    std::vector<C> f(n + 1), g(n + 1);
+    std::vector<double> weight(n + 1), gauss(n + 1);
+    for (int i = 0; i <= n; ++i) {
+        const double tau = -xi + i * step;
+        f[i] = std::exp(C(0, sigma * tau)) / C(1, tau);
+        g[i] = std::exp(C(0, -sigma * tau)) / C(1, -tau);
+        weight[i] = (i == 0 || i == n) ? 1 : (i % 2 ? 4 : 2);
+        gauss[i] = std::exp(-a * (i * step) * (i * step));
+    }
+    C sum = 0;
+    for (int i = 0; i <= n; ++i) {
+        C row = 0;
+        for (int j = 0; j <= n; ++j) row += weight[j] * g[j] * gauss[std::abs(i - j)];
+        sum += weight[i] * f[i] * row;
+    }
+    return (sum * (step / 3) * (step / 3)).real() / (4 * xi);
+}
+
+}  // namespace
+
+TEST_CASE("h with walk-off against an independent double integral", "[boyd-kleinman]") {
+    // The definition (Boyd & Kleinman 1968, h(σ, B, ξ) with μ = 0, no absorption) integrated
+    // directly in two dimensions; B = 3 and B = 9 are the demo and 10 mm BBO regimes.
+    struct Case { double sigma, b, xi; };
+    for (const Case& c : {Case{0.57, 0, 2.84}, Case{0.8, 3, 1.4}, Case{0.3, 9, 1.4},
+                          Case{0.6, 3, 10}, Case{0.2, 0.5, 0.1}, Case{0.1, 9, 0.5},
+                          Case{1.5, 1, 3}, Case{0, 3, 0.16}}) {
+        CAPTURE(c.sigma, c.b, c.xi);
+        const double reference = h_by_double_integral(c.sigma, c.b, c.xi, 1600);
+        const double ours = rv::boyd_kleinman_h(c.sigma, c.b, c.xi);
+        CHECK_THAT(ours, near(reference, 1e-5 * reference + 1e-9));
+    }
+    // Walk-off only lowers h at the optimum σ: h_m(ξ, B) < h_m(ξ, 0).
+    CHECK(rv::boyd_kleinman_optimum(1.4, 3).h_m < rv::boyd_kleinman_optimum(1.4, 0).h_m);
+}
+
+TEST_CASE("h_m in the loose-focusing limit with and without walk-off", "[boyd-kleinman]") {
+    // Boyd & Kleinman 1968: h → ξ for ξ ≪ 1 (B = 0). With walk-off, derived here: for ξ ≪ 1
+    // the factor 1/((1 + iτ)(1 − iτ')) → 1 and σ_m → 0, so with s = τ − τ' and a = B²/ξ
+    //   h → (1/(2ξ)) ∫_0^{2ξ} (2ξ − s) e^{−a s²} ds
+    //     = (1/(2ξ)) [2ξ (√π/(2√a)) erf(2ξ√a) − (1 − e^{−4aξ²})/(2a)].
+    const double xi = 0.01;
+    CHECK_THAT(rv::boyd_kleinman_optimum(xi).h_m, near(xi, 0.01 * xi));
+    for (double b : {3.0, 9.0}) {
+        CAPTURE(b);
+        const double a = b * b / xi, r = std::sqrt(a);
+        const double limit = (2 * xi * std::sqrt(kPi) / (2 * r) * std::erf(2 * xi * r) -
+                              (1 - std::exp(-4 * a * xi * xi)) / (2 * a)) /
+                             (2 * xi);
+        CHECK(limit < 0.95 * xi);  // walk-off matters here (4B²ξ = 0.36 and 3.24)
+        CHECK_THAT(rv::boyd_kleinman_optimum(xi, b).h_m, near(limit, 0.01 * limit));
+    }
+}
+
+TEST_CASE("the optimum focusing against the walk-off parameter", "[boyd-kleinman]") {
+    // Boyd & Kleinman 1968: B = 0 gives ξ_m = 2.84 and h_mm = 1.068 (from memory; reproduced
+    // above). As B grows h_mm falls monotonically and ξ_m moves towards 1.39 (BK's Fig. of h_mm
+    // and ξ_m against B, from memory). The large-B limit, derived here: when the walk-off
+    // Gaussian e^{−(B²/ξ)s²} is narrow (√ξ/B ≪ 1), G(s) → G(0) = 2 atan ξ and e^{iσs} → 1, so
+    //   h → (1/(4ξ)) 2 atan ξ √(πξ)/B = (√π/(2B)) atan(ξ)/√ξ,
+    // largest where 2ξ/(1 + ξ²) = atan ξ, i.e. ξ_m → 1.3917 and h_mm → 0.7116/B.
+    const rv::BoydKleinmanBest zero = rv::boyd_kleinman_best_focus(0);
+    CHECK_THAT(zero.xi_m, near(2.84, 0.01));
+    CHECK_THAT(zero.h_mm, near(1.068, 0.0005));
+    double previous_h = zero.h_mm, previous_xi = zero.xi_m;
+    for (double b : {0.25, 0.5, 1.0, 2.0, 4.0, 8.0, 16.0, 30.0}) {
+        CAPTURE(b);
+        const rv::BoydKleinmanBest best = rv::boyd_kleinman_best_focus(b);
+        CHECK(best.h_mm < previous_h);
+        CHECK(best.xi_m <= previous_xi + 1e-3);
+        CHECK(best.xi_m > 1.3);
+        // The optimum is a maximum of the same function the report evaluates.
+        CHECK_THAT(rv::boyd_kleinman_optimum(best.xi_m, b).h_m, near(best.h_mm, 1e-6));
+        CHECK(rv::boyd_kleinman_optimum(best.xi_m * 1.1, b).h_m < best.h_mm);
+        CHECK(rv::boyd_kleinman_optimum(best.xi_m / 1.1, b).h_m < best.h_mm);
+        previous_h = best.h_mm, previous_xi = best.xi_m;
+    }
+    // Solve 2ξ/(1 + ξ²) = atan ξ by bisection for the derived limit.
+    double lo = 1, hi = 2;
+    for (int i = 0; i < 60; ++i) {
+        const double m = (lo + hi) / 2;
+        (2 * m / (1 + m * m) > std::atan(m) ? lo : hi) = m;
+    }
+    const double xi_limit = lo, h_limit_times_b = std::sqrt(kPi) / 2 * std::atan(lo) / std::sqrt(lo);
+    const rv::BoydKleinmanBest large = rv::boyd_kleinman_best_focus(30);
+    CHECK_THAT(large.xi_m, near(xi_limit, 0.02 * xi_limit));
+    CHECK_THAT(large.h_mm * 30, near(h_limit_times_b, 0.02 * h_limit_times_b));
 }
