@@ -1,8 +1,9 @@
 // An extraordinary input's walk-off in the target crystal (issue 16 §1): the chief ray (the
 // energy) drifts by ρ·z in the plane of the optic axis, and the offset at the centre, the overlap
 // along the crystal and the verdict include it. Fixtures: tests/layouts/walkoff/, a type-II SFG
-// of 1030 nm (o) and 780 nm (e) in 1 mm BBO cut for it at normal incidence, both beams on one line with
-// 21 µm waists at the crystal centre, the optic axis in the vertical plane or in the table plane.
+// of 1030 nm (o) and 780 nm (e) in 1 mm BBO (Kato 1986's set) cut for it at normal incidence,
+// both beams on one line with 21 µm waists at the crystal centre, the optic axis in the vertical
+// plane or in the table plane.
 #include <cmath>
 #include <string>
 
@@ -28,8 +29,9 @@ rv::Layout fixture(const char* name) {
 // ρ of BBO's e wave at 780 nm at θ = the cut (normal incidence): Boyd, Nonlinear Optics (3rd
 // ed., 2008) §2.3, tan ρ = ½ n_e(θ)² (n_e⁻² − n_o⁻²) sin 2θ, written out here.
 double tan_rho_780(const rv::Layout& l) {
-    const double cut_deg = std::get<rv::Crystal>(l.find("X")->kind).cut_deg;
-    const rv::Material& bbo = rv::test::material("BBO");
+    const rv::Crystal& x = std::get<rv::Crystal>(l.find("X")->kind);
+    const double cut_deg = x.cut_deg;
+    const rv::Material& bbo = rv::test::material(x.material.c_str());
     const double no = rv::sample_index(bbo, 780, rv::Axis::Ordinary).index;
     const double ne = rv::sample_index(bbo, 780, rv::Axis::Extraordinary).index;
     const double th = rv::deg_to_rad(cut_deg);
