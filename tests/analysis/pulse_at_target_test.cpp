@@ -109,6 +109,29 @@ TEST_CASE("the GDD of one N-BK7 window from the Schott Sellmeier", "[pulse][disp
     CHECK(p.tod_fs3 > 0);  // N-BK7's TOD is positive in the near infrared (from memory)
 }
 
+TEST_CASE("a thick singlet adds its centre thickness of glass to the GDD", "[pulse][dispersion]") {
+    // The lens is met as one plane; its glass replaces that much air: GDD = t (k''_glass − k''_air),
+    // here against the Schott formula's k'' (the same central difference as above).
+    const double l = 0.8, h = 1e-3, c = rv::kSpeedOfLight_um_per_fs;
+    const double d2n = (n_bk7(l + h) - 2 * n_bk7(l) + n_bk7(l - h)) / (h * h);
+    const double gvd_fs2_per_mm = l * l * l / (2 * rv::kPi * c * c) * d2n * 1e3;
+    auto arm = [](const std::string& lens) {
+        return rv::test::layout_json(
+            R"({"id": "b", "wavelength_nm": 800, "start_mm": [100, 500], "direction_deg": 0, "waist_um": 500, "pulse_fwhm_fs": 20})",
+            lens + R"(, {"id": "T", "type": "target", "at_mm": [600, 500]})", "T");
+    };
+    const rv::MaterialLibrary& lib = rv::MaterialLibrary::builtin();
+    const rv::RendezvousReport thick = rv::build_report(
+        rv::test::layout_from(arm(R"({"id": "L", "type": "lens", "at_mm": [300, 500], "shape": "convex-plano", "focal_length_mm": 300, "center_thickness_mm": 6, "glass": "N-BK7"})")),
+        lib);
+    const rv::RendezvousReport ideal =
+        rv::build_report(rv::test::layout_from(arm(R"({"id": "L", "type": "lens", "at_mm": [300, 500], "focal_length_mm": 300})")), lib);
+    REQUIRE(thick.beams[0].at_target.reached);
+    REQUIRE(ideal.beams[0].at_target.reached);
+    CHECK_THAT(thick.beams[0].at_target.pulse.gdd_fs2 - ideal.beams[0].at_target.pulse.gdd_fs2,
+               near_rel(6 * gvd_fs2_per_mm, 3e-3));
+}
+
 TEST_CASE("a source's own chirp adds to the path and its compensation restores the pulse", "[pulse][dispersion]") {
     const rv::MaterialLibrary& lib = rv::MaterialLibrary::builtin();
     const rv::RendezvousReport plain = rv::build_report(rv::test::layout_from(one_window(10, "")), lib);

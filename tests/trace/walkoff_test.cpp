@@ -11,6 +11,7 @@
 #include "io/layout_reader.hpp"
 #include "materials/dispersion.hpp"
 #include "materials/material_library.hpp"
+#include "nonlinear/wave_dispersion.hpp"
 #include "support/layouts.hpp"
 #include "units/constants.hpp"
 
@@ -171,4 +172,17 @@ TEST_CASE("the walk-off is the same in either plane of the optic axis", "[walkof
     CHECK_THAT(v.overlap->spatial_along_crystal, near_rel(t.overlap->spatial_along_crystal, 0.01));
     // The delay through the crystal is that of its thickness along k in both (cos ρ, Medium).
     CHECK_THAT(v.mismatch->delay_fs, near(t.mismatch->delay_fs, 1e-6));
+    // So is the e input's dispersion: air to the entrance plus (L/2) k''_e(θ) to the centre,
+    // k''_e at θ = the cut from the crystal's own set (nonlinear/wave_dispersion.hpp).
+    const rv::BeamAtTarget &ev = v.beams[1].at_target, &et = t.beams[1].at_target;
+    CHECK_THAT(ev.pulse.gdd_fs2, near(et.pulse.gdd_fs2, 1e-6));
+    CHECK_THAT(ev.pulse.tod_fs3, near(et.pulse.tod_fs3, 1e-6));
+    const rv::Material& bbo = rv::test::material("BBO:Kato1986");
+    const double inside =
+        0.5 * rv::wave_sample(rv::crystal_indices(bbo, 780), rv::Polarity::B, rv::deg_to_rad(41.2)).gvd_fs2_per_mm;
+    const rv::Path& p = v.beams[1].path;
+    double air = 0;
+    for (size_t k = 0; k + 1 < p.segments.size() && k < *p.target_hit; ++k) air += p.segments[k].length_mm * p.segments[k].gvd_fs2_per_mm;
+    CHECK_THAT(ev.pulse.gdd_fs2, near(air + inside, 1e-9));
+    CHECK(inside > 50);  // BBO's e wave at 780 nm: about 150 fs²/mm (from memory)
 }
