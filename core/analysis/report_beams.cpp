@@ -55,10 +55,12 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
             if (src.power_mw > 0 && b.power.reached) {
                 b.target_power_mw = src.power_mw * b.power.at_target[0];
                 b.pulse_at_target =
-                    pulse_figures(*b.target_power_mw, src.repetition_rate_khz, src.pulse_fwhm_fs,
+                    pulse_figures(*b.target_power_mw, src.repetition_rate_khz,
+                                  b.at_target.pulse.fwhm_fs.value_or(0),  // the length at the target
                                   b.at_target.tangential.radius_um, b.at_target.sagittal.radius_um);
                 b.pulse_at_waist =
-                    pulse_figures(*b.target_power_mw, src.repetition_rate_khz, src.pulse_fwhm_fs,
+                    pulse_figures(*b.target_power_mw, src.repetition_rate_khz,
+                                  b.at_target.pulse.fwhm_fs.value_or(0),
                                   b.at_target.tangential.waist_um, b.at_target.sagittal.waist_um);
             }
         }

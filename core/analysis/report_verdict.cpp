@@ -115,7 +115,8 @@ void time_line(const Layout& layout, const MaterialLibrary& library, const Rende
     const VerdictThresholds& t = layout.goals.verdict;
     const bool both = both_reach(r.beams);
     if (both && r.overlap && r.overlap->temporal) {
-        const double t1 = layout.beams[0].pulse_fwhm_fs, t2 = layout.beams[1].pulse_fwhm_fs;
+        // The pulse lengths at the target (analysis/pulse_at_target.hpp), as the overlap's.
+        const double t1 = r.beams[0].at_target.pulse.fwhm_fs.value(), t2 = r.beams[1].at_target.pulse.fwhm_fs.value();
         const double xcorr = cross_correlation_fwhm_fs(t1, t2);
         const double d = r.mismatch->delay_fs;
         v.time.met = delay_met(d, xcorr, t);

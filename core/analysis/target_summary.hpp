@@ -98,4 +98,8 @@ struct OverlapFigures {
 OverlapFigures overlap_at_target(const BeamAtTarget& first, const BeamAtTarget& second, double first_pulse_fwhm_fs,
                                  double second_pulse_fwhm_fs);
 
+// The same with each beam's pulse length at the target (BeamAtTarget::pulse, analysis/
+// pulse_at_target.hpp): the one the report, the solvers and the tolerance run use.
+OverlapFigures overlap_at_target(const BeamAtTarget& first, const BeamAtTarget& second);
+
 }  // namespace rv

@@ -144,9 +144,12 @@ JudgeContext judge_context(const Layout& layout, const MaterialLibrary& library,
     c.thresholds = layout.goals.verdict;
     c.target = index_of(layout, layout.target);
     c.two_beams = layout.beams.size() >= 2;
-    if (c.two_beams && layout.beams[0].pulse_fwhm_fs > 0 && layout.beams[1].pulse_fwhm_fs > 0) {
+    // The pulse lengths at the target, as the report's (analysis/pulse_at_target.hpp).
+    if (c.two_beams && nominal.beams.size() >= 2 && nominal.beams[0].at_target.pulse.fwhm_fs &&
+        nominal.beams[1].at_target.pulse.fwhm_fs) {
         c.time_judged = true;
-        c.cross_correlation_fs = cross_correlation_fwhm_fs(layout.beams[0].pulse_fwhm_fs, layout.beams[1].pulse_fwhm_fs);
+        c.cross_correlation_fs = cross_correlation_fwhm_fs(*nominal.beams[0].at_target.pulse.fwhm_fs,
+                                                           *nominal.beams[1].at_target.pulse.fwhm_fs);
     }
     c.phase_applies = nominal.target_is_crystal;
     if (c.phase_applies && !nominal.chosen_process_missing && !nominal.phase_matching.empty()) {
@@ -164,7 +167,7 @@ JudgeContext judge_context(const Layout& layout, const MaterialLibrary& library,
     return c;
 }
 
-Figures figures_of(const Layout& layout, const std::vector<BeamAtTarget>& at) {
+Figures figures_of(const Layout&, const std::vector<BeamAtTarget>& at) {
     Figures f;
     if (at.size() == 1) {
         f.valid = at[0].reached;
@@ -179,7 +182,7 @@ Figures figures_of(const Layout& layout, const std::vector<BeamAtTarget>& at) {
     f.waist_ratio = m.waist_ratio;
     f.lateral_um = m.lateral_um;
     f.delay_fs = m.delay_fs;
-    f.overlap = overlap_at_target(at[0], at[1], layout.beams[0].pulse_fwhm_fs, layout.beams[1].pulse_fwhm_fs).combined;
+    f.overlap = overlap_at_target(at[0], at[1]).combined;
     return f;
 }
 

@@ -143,3 +143,30 @@ TEST_CASE("a source's own chirp adds to the path and its compensation restores t
     REQUIRE(p.fwhm_fs);
     CHECK_THAT(*p.fwhm_fs, near(20, 1e-4));
 }
+
+TEST_CASE("the pulse length at the target sets the peak intensity and the temporal overlap", "[pulse][report]") {
+    // Peak power 2√(ln 2/π) E/τ (Gaussian pulse; analysis/pulse_intensity.hpp): with τ at the
+    // target the peak intensity falls by τ0/τ.
+    const rv::MaterialLibrary& lib = rv::MaterialLibrary::builtin();
+    const std::string power = R"(, "power_mw": 100, "repetition_rate_khz": 80000)";
+    const rv::RendezvousReport r = rv::build_report(rv::test::layout_from(one_window(10, power)), lib);
+    const rv::RendezvousReport compensated = rv::build_report(
+        rv::test::layout_from(
+            one_window(10, power + R"(, "input_gdd_fs2": )" + std::to_string(-r.beams[0].at_target.pulse.gdd_fs2))),
+        lib);
+    REQUIRE(r.beams[0].pulse_at_target);
+    REQUIRE(compensated.beams[0].pulse_at_target);
+    const double tau = *r.beams[0].at_target.pulse.fwhm_fs;
+    CHECK_THAT(r.beams[0].pulse_at_target->peak_intensity_w_cm2,
+               near_rel(compensated.beams[0].pulse_at_target->peak_intensity_w_cm2 * 20 / tau, 1e-6));
+    // The bundled SFG demo: the overlap's temporal factor uses the lengths at the target,
+    // exp(−4 ln 2 Δt²/(τ1² + τ2²)) (cross-correlation of Gaussian pulses, nonlinear/overlap.hpp).
+    const rv::RendezvousReport demo = rv::build_report(rv::test::bundled_layout("sfg-bbo.json"), lib);
+    REQUIRE(demo.overlap);
+    REQUIRE(demo.overlap->temporal);
+    const double t1 = *demo.beams[0].at_target.pulse.fwhm_fs, t2 = *demo.beams[1].at_target.pulse.fwhm_fs;
+    CHECK(t1 > 250);  // 250 fs and 120 fs at their sources, stretched by the glass on the way
+    CHECK(t2 > 120);
+    const double dt = demo.mismatch->delay_fs;
+    CHECK_THAT(*demo.overlap->temporal, near_rel(std::exp(-4 * std::log(2.0) * dt * dt / (t1 * t1 + t2 * t2)), 1e-12));
+}
