@@ -17,6 +17,12 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     if (target.crystal) r.crystal_length_mm = target.crystal->length_mm;
     r.beams = s::trace_beams(layout, library, true);
     r.findings = s::report_findings(layout, r.beams, target);
+    for (const ReportBeam& b : r.beams)
+        if (b.at_target.reached)
+            if (std::optional<DamageThresholdReport> d = s::damage_threshold_for(layout, b, target))
+                r.damage_thresholds.push_back(std::move(*d));
+    r.b_integral = s::b_integrals(layout, library, target, r.beams);
+    for (Finding& f : s::b_integral_findings(r.b_integral)) r.findings.push_back(std::move(f));
     r.invisible = s::invisible_beams(r.beams);
     s::add_target_figures(layout, r);
     r.stage = s::stage_of(layout, library, r.beams);
@@ -26,6 +32,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
             r.invisible.push_back(std::move(line));
         r.polarization = s::polarization_advice(layout, library, *target.crystal, r);
         r.focusing = s::focusing(*target.crystal, r);
+        r.generated = s::generated_light(layout, library, target, r);
     }
     r.verdict = s::verdict(layout, library, target, r);
     return r;

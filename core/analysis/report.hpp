@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "analysis/power_budget.hpp"
+#include "analysis/report_output.hpp"
 #include "analysis/pulse_intensity.hpp"
 #include "analysis/target_summary.hpp"
 #include "layout/layout.hpp"
@@ -184,6 +185,12 @@ struct RendezvousReport {
     bool chosen_process_missing = false;  // the set process's beams do not reach the crystal
     std::vector<FocusingReport> focusing;
     std::vector<PolarizationAdvice> polarization;
+    // What the crystal's process generates, and the nonlinear-optics safety figures: the
+    // B-integral of each beam and the damage threshold each beam at the target is judged
+    // against (analysis/report_output.hpp).
+    std::optional<GeneratedLightReport> generated;
+    std::vector<BIntegralReport> b_integral;
+    std::vector<DamageThresholdReport> damage_thresholds;
     Verdict verdict;
     // Every finding of the trace, the propagation and the report, each with its beam (JSON
     // `warnings`, the command `check` and the viewer's list all show exactly these).

@@ -24,11 +24,8 @@ std::string invisible_kind(double nm) {
 std::vector<Finding> damage_findings(const Layout& layout, const ReportBeam& b,
                                      const TargetElement& target) {
     std::vector<Finding> found;
-    const DamageThreshold* damage = nullptr;
-    if (target.element) {
-        if (const auto* c = std::get_if<Crystal>(&target.element->kind)) damage = &c->damage;
-        if (const auto* t = std::get_if<Target>(&target.element->kind)) damage = &t->damage;
-    }
+    // The file's threshold, else a typical published one (analysis/report_output.cpp).
+    const std::optional<DamageThresholdReport> damage = damage_threshold_for(layout, b, target);
     if (!damage || !b.pulse_at_target) return found;
     // At the target plane, and at the waist when the waist lies inside the crystal.
     PulseFigures worst = *b.pulse_at_target;
@@ -36,17 +33,20 @@ std::vector<Finding> damage_findings(const Layout& layout, const ReportBeam& b,
         std::abs(b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2;
     if (b.pulse_at_waist && target.crystal && offset_mm <= target.crystal->length_mm / 2)
         worst = *b.pulse_at_waist;
-    const double threshold_w_cm2 = damage->intensity_gw_cm2 * 1e9;
-    if (damage->intensity_gw_cm2 > 0 && worst.peak_intensity_w_cm2 > threshold_w_cm2) {
+    if (damage->intensity_gw_cm2 && worst.peak_intensity_w_cm2 > *damage->intensity_gw_cm2 * 1e9) {
         Finding f{Finding::Kind::DamageIntensity, layout.target};
         f.amount = worst.peak_intensity_w_cm2;
-        f.limit = threshold_w_cm2;
+        f.limit = *damage->intensity_gw_cm2 * 1e9;
+        f.typical_threshold = damage->typical;
+        f.material = damage->typical ? damage->material : "";
         found.push_back(f);
     }
-    if (damage->fluence_j_cm2 > 0 && worst.peak_fluence_j_cm2 > damage->fluence_j_cm2) {
+    if (damage->fluence_j_cm2 && worst.peak_fluence_j_cm2 > *damage->fluence_j_cm2) {
         Finding f{Finding::Kind::DamageFluence, layout.target};
         f.amount = worst.peak_fluence_j_cm2;
-        f.limit = damage->fluence_j_cm2;
+        f.limit = *damage->fluence_j_cm2;
+        f.typical_threshold = damage->typical;
+        f.material = damage->typical ? damage->material : "";
         found.push_back(f);
     }
     return found;

@@ -10,6 +10,7 @@
 //   report_phase.cpp         phase matching of each process of the crystal
 //   report_polarization.cpp  the polarization each input needs, and the wave plate to turn
 //   report_focusing.cpp      Boyd–Kleinman focusing of each beam in the crystal
+//   report_output.cpp        the generated light, the B-integral, the damage threshold used
 //   report_verdict.cpp       the space, time and phase lines (limits: layout.goals.verdict,
 //                            tests: verdict_rules.hpp)
 
@@ -70,6 +71,19 @@ std::vector<PolarizationAdvice> polarization_advice(const Layout& layout,
 
 // report_focusing.cpp: each beam reaching the crystal, with the first process's walk-off.
 std::vector<FocusingReport> focusing(const Crystal& crystal, const RendezvousReport& r);
+
+// report_output.cpp: the damage threshold a beam at the target is judged against (the file's,
+// else a typical published figure for the crystal's material at the beam's pulse length; none
+// when neither exists); the generated light of the crystal's first process (when the powers,
+// pulse lengths and repetition rates are given and d_eff is known); the B-integral of each beam
+// in the target crystal and the thickest glass before it, and its findings.
+std::optional<DamageThresholdReport> damage_threshold_for(const Layout& layout, const ReportBeam& beam,
+                                                          const TargetElement& target);
+std::optional<GeneratedLightReport> generated_light(const Layout& layout, const MaterialLibrary& library,
+                                                    const TargetElement& target, const RendezvousReport& r);
+std::vector<BIntegralReport> b_integrals(const Layout& layout, const MaterialLibrary& library,
+                                         const TargetElement& target, const std::vector<ReportBeam>& beams);
+std::vector<Finding> b_integral_findings(const std::vector<BIntegralReport>& entries);
 
 // report_verdict.cpp: the three lines and the figures behind them.
 Verdict verdict(const Layout& layout, const MaterialLibrary& library, const TargetElement& target,

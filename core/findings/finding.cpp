@@ -11,6 +11,10 @@ std::string printf_text(const char* format, double v) { return format_number(for
 std::string mm2(double v) { return printf_text("%.2f", v); }
 std::string point_text(const Vec2& p) { return "(" + mm2(p.x()) + ", " + mm2(p.y()) + ") mm"; }
 std::string shortest(double v) { return printf_text("%.6g", v); }
+// A damage threshold that is a typical published figure, not the file's (analysis/report_output).
+std::string typical_note(const Finding& f) {
+    return f.typical_threshold ? " (a typical published figure for " + f.material + "; give the maker's in the file)" : "";
+}
 
 }  // namespace
 
@@ -34,6 +38,8 @@ const char* finding_code(Finding::Kind k) {
         case K::DamageFluence: return "damage";  // one code since the first release; the numbers tell which
         case K::ThinLensTiming: return "thin-lens-timing";
         case K::CoincidentOptics: return "coincident-optics";
+        case K::BIntegral: return "b-integral";
+        case K::BIntegralBreakUp: return "b-integral-break-up";
     }
     return "finding";
 }
@@ -43,7 +49,8 @@ Finding::Severity finding_severity(Finding::Kind k) {
     switch (k) {
         case K::MaterialOutOfRange:
         case K::Paraxial:
-        case K::ThinLensTiming: return Finding::Severity::Warning;
+        case K::ThinLensTiming:
+        case K::BIntegral: return Finding::Severity::Warning;
         case K::CoincidentOptics: return Finding::Severity::Problem;
         default: return Finding::Severity::Problem;
     }
@@ -53,7 +60,7 @@ const char* severity_name(Finding::Severity s) { return s == Finding::Severity::
 
 std::vector<Finding::Kind> all_finding_kinds() {
     std::vector<Finding::Kind> kinds;
-    for (int k = 0; k <= static_cast<int>(Finding::Kind::CoincidentOptics); ++k) kinds.push_back(static_cast<Finding::Kind>(k));
+    for (int k = 0; k <= static_cast<int>(Finding::Kind::BIntegralBreakUp); ++k) kinds.push_back(static_cast<Finding::Kind>(k));
     return kinds;
 }
 
@@ -88,15 +95,22 @@ std::string finding_text(const Finding& f) {
                    point_text(f.where_mm) + "; put a beam dump in its path";
         case K::DamageIntensity:
             return "peak intensity " + printf_text("%.3g", f.amount * 1e-9) + " GW/cm² in " + e +
-                   " exceeds its damage threshold " + printf_text("%.3g", f.limit * 1e-9) + " GW/cm²";
+                   " exceeds its damage threshold " + printf_text("%.3g", f.limit * 1e-9) + " GW/cm²" + typical_note(f);
         case K::DamageFluence:
             return "peak fluence " + printf_text("%.3g", f.amount) + " J/cm² in " + e + " exceeds its damage threshold " +
-                   printf_text("%.3g", f.limit) + " J/cm²";
+                   printf_text("%.3g", f.limit) + " J/cm²" + typical_note(f);
         case K::ThinLensTiming:
             return "a thin lens adds no glass to the delay; give its radii and centre thickness to count it";
         case K::CoincidentOptics:
             return "lies " + printf_text("%.3f", f.amount) + " mm from " + f.other_element +
                    ": two optics in one place, the trace meets only one of them; move one";
+        case K::BIntegral:
+            return "B-integral " + printf_text("%.2g", f.amount) + " rad in " + e + " (" + f.material +
+                   ") reaches " + printf_text("%.2g", f.limit) +
+                   " rad: self-phase modulation broadens the spectrum; lower the intensity or the length";
+        case K::BIntegralBreakUp:
+            return "B-integral " + printf_text("%.2g", f.amount) + " rad in " + e + " (" + f.material +
+                   ") exceeds π: self-focusing can break up the beam and damage " + e + "; lower the intensity";
     }
     return finding_code(f.kind);
 }
@@ -119,6 +133,8 @@ std::vector<std::pair<const char*, double>> finding_numbers(const Finding& f) {
         case K::DamageIntensity: return {{"peak_intensity_w_cm2", f.amount}, {"threshold_w_cm2", f.limit}};
         case K::DamageFluence: return {{"peak_fluence_j_cm2", f.amount}, {"threshold_j_cm2", f.limit}};
         case K::CoincidentOptics: return {{"distance_mm", f.amount}};
+        case K::BIntegral:
+        case K::BIntegralBreakUp: return {{"b_integral_rad", f.amount}, {"level_rad", f.limit}};
         default: return {};
     }
 }

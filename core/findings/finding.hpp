@@ -35,6 +35,9 @@ struct Finding {
         ThinLensTiming,          // the report: a thin glass lens adds no glass to the delay
         CoincidentOptics,        // the report: `element` and other_element lie within 0.1 mm
                                  // (amount = their distance, mm); the trace meets only one of them
+        BIntegral,               // the report: amount = B (rad) of the beam in `element` (material),
+                                 // limit = 1 rad (self-phase modulation, spectral broadening)
+        BIntegralBreakUp,        // the report: amount = B (rad), limit = π (beam break-up, damage risk)
     };
     enum class Severity {
         Problem,  // the layout does not work as drawn (light lost, missing, or a risk to the optics)
@@ -53,6 +56,7 @@ struct Finding {
     std::string element_type = {};  // HitBackOfOptic: the element's type name ("mirror", …)
     std::string other_element = {};  // CoincidentOptics: the other optic's id
     std::string beam = {};     // the beam's id; set by the report (a path knows its beam by index)
+    bool typical_threshold = false;  // DamageIntensity/Fluence: a typical figure for `material`, not the file's
 };
 
 // The stable code printed and written for each kind ("missed-optic", …), and its severity.

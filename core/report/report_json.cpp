@@ -2,6 +2,7 @@
 
 #include "findings/finding_json.hpp"
 #include "polarization/polarization_model.hpp"
+#include "report/report_output_format.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
 
@@ -253,6 +254,9 @@ void to_json(json& j, const RendezvousReport& r) {
         j["phase_matching"]["processes"] = r.phase_matching;
     }
     j["focusing"] = r.focusing;
+    j["generated"] = r.generated ? json(*r.generated) : json(nullptr);
+    j["b_integral"] = r.b_integral;
+    j["damage_thresholds"] = r.damage_thresholds;
     json warnings = json::array();
     for (const Finding& f : r.findings) warnings.push_back(finding_json(f));
     j["warnings"] = warnings;

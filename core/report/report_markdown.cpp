@@ -2,6 +2,7 @@
 
 #include <sstream>
 
+#include "report/report_output_format.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
 #include "units/number_text.hpp"
@@ -90,6 +91,7 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                 << fmt("%.1f", f.waist_optimum_um) << " | " << fmt("%.2f", f.focal_length_scale)
                 << " |\n";
     }
+    write_generated_light_markdown(r, out);
     if (!r.findings.empty()) {
         out << "\n## Findings\n\n";
         for (const Finding& f : r.findings)

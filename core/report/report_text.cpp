@@ -4,6 +4,7 @@
 #include <sstream>
 
 #include "polarization/polarization_model.hpp"
+#include "report/report_output_format.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
 #include "units/number_text.hpp"
@@ -193,7 +194,9 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
         for (const Finding& f : r.findings)
             out << "  [" << finding_code(f.kind) << "] " << finding_line(f) << "\n";
     }
+    write_generated_light_text(r, out);
     out << "\nSafety\n";
+    write_nonlinear_safety_text(r, out);
     for (const std::string& s : r.invisible) out << "  invisible: " << s << "\n";
     for (const ReportBeam& b : r.beams)
         out << "  after the target, " << b.id << ": " << after_target_text(b) << "\n";

@@ -33,7 +33,9 @@ MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offse
                "met", "action", "theta_pm_deg", "incidence_now_deg", "incidence_needed_deg", "rotate_by_deg",
                "rotation_axis", "walkoff_mrad", "internal_fwhm", "external_fwhm", "spectral_acceptance_fwhm_nm",
                "outside_index_data", "spatial_along_crystal", "azimuth_deg", "goes_to", "polarization",
-               "power_fraction", "fwhm_fs"}
+               "power_fraction", "fwhm_fs",
+               "generated", "depleted_average_mw", "material", "fluence_j_cm2", "intensity_gw_cm2", "regime",
+               "reference_pulse_fs", "reference_wavelength_nm", "scaled", "source"}
 
 
 def reject_constant(name):
