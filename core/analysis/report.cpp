@@ -2,6 +2,7 @@
 // order they depend on each other.
 #include "analysis/report.hpp"
 
+#include "analysis/report_materials.hpp"
 #include "analysis/report_sections.hpp"
 #include "layout/process_text.hpp"
 
@@ -16,6 +17,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     r.target_is_crystal = target.crystal != nullptr;
     if (target.crystal) r.crystal_length_mm = target.crystal->length_mm;
     r.beams = s::trace_beams(layout, library, true);
+    r.materials = materials_used(layout, library, r.beams);
     r.findings = s::report_findings(layout, r.beams, target);
     for (const ReportBeam& b : r.beams)
         if (b.at_target.reached)

@@ -171,6 +171,14 @@ struct Verdict {
     std::vector<VerdictFigure> figures;
 };
 
+// A dispersion data set the report used (analysis/report_materials.hpp).
+struct MaterialDataReport {
+    std::string name;    // the set, e.g. "BBO:Kato1986"
+    std::string source;  // its citation
+    double min_wavelength_nm = 0, max_wavelength_nm = 0;  // the range of its fit
+    std::vector<std::string> used_by;  // the element ids ("air": the beams' paths)
+};
+
 struct RendezvousReport {
     std::string layout_name, target;
     bool target_is_crystal = false;
@@ -184,6 +192,7 @@ struct RendezvousReport {
     std::vector<PhaseMatchingReport> phase_matching;
     bool chosen_process_missing = false;  // the set process's beams do not reach the crystal
     std::vector<FocusingReport> focusing;
+    std::vector<MaterialDataReport> materials;  // every data set behind the indices
     std::vector<PolarizationAdvice> polarization;
     // What the crystal's process generates, and the nonlinear-optics safety figures: the
     // B-integral of each beam and the damage threshold each beam at the target is judged

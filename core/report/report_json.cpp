@@ -240,6 +240,14 @@ void to_json(json& j, const ReportBeam& b) {
     j["power"] = power_json(b);
 }
 
+void to_json(json& j, const MaterialDataReport& m) {
+    j = {{"name", m.name},
+         {"source", m.source},
+         {"min_wavelength_nm", m.min_wavelength_nm},
+         {"max_wavelength_nm", m.max_wavelength_nm},
+         {"used_by", m.used_by}};
+}
+
 void to_json(json& j, const RendezvousReport& r) {
     json beams = json::object();
     for (const ReportBeam& b : r.beams) beams[b.id] = b;
@@ -254,6 +262,7 @@ void to_json(json& j, const RendezvousReport& r) {
         j["phase_matching"]["processes"] = r.phase_matching;
     }
     j["focusing"] = r.focusing;
+    j["materials"] = r.materials;
     j["generated"] = r.generated ? json(*r.generated) : json(nullptr);
     j["b_integral"] = r.b_integral;
     j["damage_thresholds"] = r.damage_thresholds;

@@ -92,6 +92,17 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                 << " |\n";
     }
     write_generated_light_markdown(r, out);
+    if (!r.materials.empty()) {
+        out << "\n## Data sets (dispersion)\n\n| set | range (µm) | source | used by |\n"
+            << "|---|---|---|---|\n";
+        for (const MaterialDataReport& m : r.materials) {
+            out << "| " << m.name << " | " << fmt("%.3g", m.min_wavelength_nm * 1e-3) << "–"
+                << fmt("%.3g", m.max_wavelength_nm * 1e-3) << " | " << m.source << " | ";
+            for (size_t i = 0; i < m.used_by.size(); ++i)
+                out << (i ? ", " : "") << "`" << m.used_by[i] << "`";
+            out << " |\n";
+        }
+    }
     if (!r.findings.empty()) {
         out << "\n## Findings\n\n";
         for (const Finding& f : r.findings)

@@ -189,6 +189,15 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             out << "  confocal parameters b1/b2 = " << fmt("%.3f", *r.confocal_ratio)
                 << " (1 = matched)\n";
     }
+    if (!r.materials.empty()) {
+        out << "\nData sets (dispersion)\n";
+        for (const MaterialDataReport& m : r.materials) {
+            out << "  " << m.name << ", " << fmt("%.3g", m.min_wavelength_nm * 1e-3) << "–"
+                << fmt("%.3g", m.max_wavelength_nm * 1e-3) << " µm (" << m.source << "): ";
+            for (size_t i = 0; i < m.used_by.size(); ++i) out << (i ? ", " : "") << m.used_by[i];
+            out << "\n";
+        }
+    }
     if (!r.findings.empty()) {
         out << "\nFindings\n";
         for (const Finding& f : r.findings)
