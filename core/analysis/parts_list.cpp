@@ -87,11 +87,10 @@ struct SpecOf {
         add(number("thickness", p.slab.thickness_mm, "mm"));
         const bool wave = p.role == Plate::Role::HalfWave || p.role == Plate::Role::QuarterWave;
         if (wave) {
-            if (p.design_nm > 0) add(number("design_wavelength", p.design_nm, "nm"));
-            if (!p.retarder_material.empty()) add(word("retarder", p.retarder_material));
+            if (p.design_nm) add(number("design_wavelength", *p.design_nm, "nm"));
+            if (p.retarder_material) add(word("retarder", *p.retarder_material));
             if (p.order != 0) add(number("order", p.order, ""));
-            if (p.retarder_thickness_um > 0)
-                add(number("retarder_thickness", p.retarder_thickness_um, "um"));
+            if (p.retarder_thickness_um) add(number("retarder_thickness", *p.retarder_thickness_um, "um"));
         }
         if (p.role == Plate::Role::PolarizingCube || p.role == Plate::Role::Polarizer)
             add(number("extinction_ratio", p.extinction_ratio, ""));

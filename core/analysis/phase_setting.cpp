@@ -36,7 +36,9 @@ PhaseSetting set_crystal_for_process(const Layout& layout, const MaterialLibrary
             throw std::invalid_argument("no beam has id \"" + choice->beam + "\" (expected shg:BEAM with a beam's id)");
     }
     crystal->process = choice->process;
-    crystal->process_beam = choice->beam;
+    crystal->process_beam = choice->process == Crystal::Process::SecondHarmonic
+                                ? std::optional<std::string>(choice->beam)
+                                : std::nullopt;
     s.normal_before_deg = target->normal_deg;
     s.tilt_before_deg = crystal->tilt_deg;
     // Turn or tilt to the process's angle, judged by the report; a second pass takes up what the

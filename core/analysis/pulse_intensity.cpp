@@ -18,13 +18,4 @@ std::optional<PulseFigures> pulse_figures(const PulseInputs& in) {
     return f;
 }
 
-std::optional<PulseFigures> pulse_figures(double power_mw, double repetition_rate_khz, double fwhm_fs,
-                                          double radius_tangential_um, double radius_sagittal_um) {
-    return pulse_figures(PulseInputs{.power_mw = power_mw,
-                                     .repetition_rate_khz = repetition_rate_khz,
-                                     .fwhm_fs = fwhm_fs,
-                                     .radius_tangential_um = radius_tangential_um,
-                                     .radius_sagittal_um = radius_sagittal_um});
-}
-
 }  // namespace rv

@@ -30,8 +30,5 @@ struct PulseInputs {
 
 // nullopt unless power, repetition rate, pulse length and both radii are positive.
 std::optional<PulseFigures> pulse_figures(const PulseInputs& in);
-// The same by position, kept for core/analysis/report_beams.cpp until it names its arguments.
-std::optional<PulseFigures> pulse_figures(double power_mw, double repetition_rate_khz, double fwhm_fs,
-                                          double radius_tangential_um, double radius_sagittal_um);
 
 }  // namespace rv

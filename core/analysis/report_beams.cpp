@@ -33,7 +33,7 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
         b.path = p;
         b.element_ids.reserve(p.hits.size());
         for (const TraceHit& h : p.hits) b.element_ids.push_back(layout.elements[h.element].id);
-        if (src.power_mw > 0) b.source_power_mw = src.power_mw;
+        b.source_power_mw = src.power_mw;
         b.caustic = propagate_path(layout, p, options);
         b.at_target = beam_at_target(layout, p, b.caustic);
         b.confocal_tangential_mm = 2 * b.at_target.tangential.rayleigh_mm;
@@ -52,16 +52,19 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
         if (with_power) {
             b.power = trace_power(layout, library, p, b.caustic);
             b.at_target_polarization = describe(b.power.at_target);
-            if (src.power_mw > 0 && b.power.reached) {
-                b.target_power_mw = src.power_mw * b.power.at_target[0];
-                b.pulse_at_target =
-                    pulse_figures(*b.target_power_mw, src.repetition_rate_khz,
-                                  b.at_target.pulse.fwhm_fs.value_or(0),  // the length at the target
-                                  b.at_target.tangential.radius_um, b.at_target.sagittal.radius_um);
-                b.pulse_at_waist =
-                    pulse_figures(*b.target_power_mw, src.repetition_rate_khz,
-                                  b.at_target.pulse.fwhm_fs.value_or(0),
-                                  b.at_target.tangential.waist_um, b.at_target.sagittal.waist_um);
+            if (src.power_mw && b.power.reached) {
+                b.target_power_mw = *src.power_mw * b.power.at_target[0];
+                if (src.repetition_rate_khz && b.at_target.pulse.fwhm_fs) {
+                    PulseInputs at{.power_mw = *b.target_power_mw,
+                                   .repetition_rate_khz = *src.repetition_rate_khz,
+                                   .fwhm_fs = *b.at_target.pulse.fwhm_fs,  // the length at the target
+                                   .radius_tangential_um = b.at_target.tangential.radius_um,
+                                   .radius_sagittal_um = b.at_target.sagittal.radius_um};
+                    b.pulse_at_target = pulse_figures(at);
+                    at.radius_tangential_um = b.at_target.tangential.waist_um;
+                    at.radius_sagittal_um = b.at_target.sagittal.waist_um;
+                    b.pulse_at_waist = pulse_figures(at);
+                }
             }
         }
         beams.push_back(std::move(b));

@@ -62,7 +62,7 @@ std::vector<Finding> report_findings(const Layout& layout, const std::vector<Rep
     for (const ReportBeam& b : beams) add_beam_findings(layout, b, target, out);
     // Thin glass lenses carry no thickness, so their glass is missing from the timing (about
     // 1.5–1.8 ps per mm, docs/physics.md §7): say so where it matters, with two pulsed beams.
-    if (both_reach(beams) && layout.beams[0].pulse_fwhm_fs > 0 && layout.beams[1].pulse_fwhm_fs > 0)
+    if (both_reach(beams) && layout.beams[0].pulse_fwhm_fs && layout.beams[1].pulse_fwhm_fs)
         for (const Element& e : layout.elements)
             if (const auto* lens = std::get_if<Lens>(&e.kind);
                 lens && std::holds_alternative<ThinChromaticLens>(lens->model))

@@ -175,9 +175,9 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_1;
     r.spectral_acceptance_nm = acc.spectral_fwhm_nm;
     const std::string out = shg ? "SHG" : "SFG";
-    auto walk = [](double tau, double gvm) -> std::optional<double> {
-        if (tau <= 0 || gvm == 0) return std::nullopt;
-        return tau / std::abs(gvm);
+    auto walk = [](std::optional<double> tau_fs, double gvm) -> std::optional<double> {
+        if (!tau_fs || gvm == 0) return std::nullopt;
+        return *tau_fs / std::abs(gvm);
     };
     const double g31 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 1, plane);
     r.gvm.push_back({out + "–" + b1.id, g31, walk(b1.pulse_fwhm_fs, g31)});
@@ -185,7 +185,9 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
         const double g32 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 2, plane);
         const double g12 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 1, 2, plane);
         r.gvm.push_back({out + "–" + b2.id, g32, walk(b2.pulse_fwhm_fs, g32)});
-        const double shorter = std::min(b1.pulse_fwhm_fs, b2.pulse_fwhm_fs);
+        const std::optional<double> shorter =
+            b1.pulse_fwhm_fs && b2.pulse_fwhm_fs ? std::optional(std::min(*b1.pulse_fwhm_fs, *b2.pulse_fwhm_fs))
+                                                 : std::nullopt;
         r.gvm.push_back({b1.id + "–" + b2.id, g12, walk(shorter, g12)});
     }
     return r;
@@ -204,7 +206,7 @@ std::optional<size_t> chosen_process_index(const Layout& layout, const Crystal& 
                 if (p.sum_frequency) return k;
                 break;
             case Crystal::Process::SecondHarmonic:
-                if (!p.sum_frequency && layout.beams[p.first_beam].id == xc.process_beam) return k;
+                if (!p.sum_frequency && layout.beams[p.first_beam].id == xc.process_beam.value_or("")) return k;
                 break;
         }
     }

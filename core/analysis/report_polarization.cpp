@@ -27,8 +27,8 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
         return needs_h ? (st[0] + st[1]) / 2 : (st[0] - st[1]) / 2;
     };
     a.useful_fraction = s.power > 0 ? useful(b.power.at_target) / s.power : 0;
-    const double src_mw = layout.beams[b.path.beam].power_mw;
-    if (src_mw > 0) a.useful_mw = src_mw * useful(b.power.at_target);
+    const std::optional<double> src_mw = layout.beams[b.path.beam].power_mw;
+    if (src_mw) a.useful_mw = *src_mw * useful(b.power.at_target);
     // The angle of a plate that gives the most useful power: a 1° scan over 180°, then golden
     // section over ±1°.
     auto best_angle = [&](size_t plate) {
@@ -81,7 +81,7 @@ PolarizationAdvice advise_polarization(const Layout& layout, const MaterialLibra
     const Stokes at_best =
         target_stokes_with_plate(layout, library, b.path, b.caustic, plate, *a.plate_best_deg);
     a.useful_fraction_best = at_best[0] > 0 ? useful(at_best) / at_best[0] : 0;
-    if (src_mw > 0) a.useful_mw_best = src_mw * useful(at_best);
+    if (src_mw) a.useful_mw_best = *src_mw * useful(at_best);
     return a;
 }
 

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "analysis/report_sections.hpp"
+#include "units/constants.hpp"
 #include "units/number_text.hpp"
 
 namespace rv::report_sections {
@@ -33,10 +34,11 @@ std::vector<Finding> damage_findings(const Layout& layout, const ReportBeam& b,
         std::abs(b.at_target.tangential.waist_offset_mm + b.at_target.sagittal.waist_offset_mm) / 2;
     if (b.pulse_at_waist && target.crystal && offset_mm <= target.crystal->length_mm / 2)
         worst = *b.pulse_at_waist;
-    if (damage->intensity_gw_cm2 && worst.peak_intensity_w_cm2 > *damage->intensity_gw_cm2 * 1e9) {
+    if (const std::optional<double> threshold_gw_cm2 = damage->intensity_gw_cm2;
+        threshold_gw_cm2 && worst.peak_intensity_w_cm2 > gw_to_w(*threshold_gw_cm2)) {
         Finding f{Finding::Kind::DamageIntensity, layout.target};
         f.amount = worst.peak_intensity_w_cm2;
-        f.limit = *damage->intensity_gw_cm2 * 1e9;
+        f.limit = gw_to_w(*threshold_gw_cm2);
         f.typical_threshold = damage->typical;
         f.material = damage->typical ? damage->material : "";
         found.push_back(f);

@@ -109,7 +109,8 @@ Mismatch mismatch_at_target(const BeamAtTarget& a, const BeamAtTarget& b) {
     return m;
 }
 
-OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y, double t1_fs, double t2_fs) {
+OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y, std::optional<double> t1_fs,
+                                 std::optional<double> t2_fs) {
     // Offsets across the bisector of the two chief rays and the crystal's extent averaged over
     // both paths, so that the figure does not depend on which beam is listed first.
     const Vec2 across = perpendicular((x.direction + y.direction).normalized());
@@ -142,7 +143,7 @@ OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y, d
     } else {
         o.spatial_along_crystal = at(0);
     }
-    if (t1_fs > 0 && t2_fs > 0) o.temporal = temporal_overlap(t1_fs, t2_fs, x.arrival_fs - y.arrival_fs);
+    if (t1_fs && t2_fs) o.temporal = temporal_overlap(*t1_fs, *t2_fs, x.arrival_fs - y.arrival_fs);
     o.combined = o.spatial_along_crystal * o.temporal.value_or(1.0);
     return o;
 }

@@ -87,7 +87,8 @@ Mismatch mismatch_at_target(const BeamAtTarget& first, const BeamAtTarget& secon
 //            mean of the two beams' paths inside), by
 //            8-point Gauss–Legendre quadrature; at the target plane alone for a target that is
 //            not a crystal;
-//   temporal: the cross-correlation factor of the two pulses at the delay (both lengths given);
+//   temporal: the cross-correlation factor of the two pulses at the delay (both lengths given:
+//            the lengths at the target, BeamAtTarget::pulse);
 //   combined: spatial_along_crystal × temporal (or × 1).
 struct OverlapFigures {
     double spatial = 0;
@@ -95,8 +96,9 @@ struct OverlapFigures {
     std::optional<double> temporal;
     double combined = 0;
 };
-OverlapFigures overlap_at_target(const BeamAtTarget& first, const BeamAtTarget& second, double first_pulse_fwhm_fs,
-                                 double second_pulse_fwhm_fs);
+OverlapFigures overlap_at_target(const BeamAtTarget& first, const BeamAtTarget& second,
+                                 std::optional<double> first_pulse_fwhm_fs,
+                                 std::optional<double> second_pulse_fwhm_fs);
 
 // The same with each beam's pulse length at the target (BeamAtTarget::pulse, analysis/
 // pulse_at_target.hpp): the one the report, the solvers and the tolerance run use.

@@ -28,8 +28,8 @@ const Keys kCommonKeys = {"id", "type", "at_mm", "normal_deg", "aperture_mm", "t
 
 DamageThreshold read_damage(FieldReader& f) {
     DamageThreshold d;
-    d.fluence_j_cm2 = f.number("damage_fluence_j_cm2", Need::Optional, positive()).value_or(0);
-    d.intensity_gw_cm2 = f.number("damage_intensity_gw_cm2", Need::Optional, positive()).value_or(0);
+    d.fluence_j_cm2 = f.number("damage_fluence_j_cm2", Need::Optional, positive());
+    d.intensity_gw_cm2 = f.number("damage_intensity_gw_cm2", Need::Optional, positive());
     return d;
 }
 
@@ -166,8 +166,8 @@ std::optional<Layout> Reader::read(const json& doc) {
 ToleranceAdjusters Reader::read_adjusters(const json& v) {
     FieldReader f(v, "/goals/tolerance/adjust", "the adjusters", out_);
     ToleranceAdjusters a;
-    a.stage = f.id("stage", Need::Optional).value_or("");
-    a.crystal = f.id("crystal", Need::Optional).value_or("");
+    a.stage = f.id("stage", Need::Optional);
+    a.crystal = f.id("crystal", Need::Optional);
     a.refocus = f.strings("refocus", Need::Optional).value_or(std::vector<std::string>{});
     if (const json* walk = f.array("walk", Need::Optional)) {
         for (size_t i = 0; i < walk->size(); ++i) {
@@ -270,12 +270,12 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     b.waist_um = f.plane_pair("waist_um", Need::Required, positive()).value_or(PlanePair{});
     b.waist_at_mm = f.plane_pair("waist_at_mm", Need::Optional).value_or(PlanePair{});
     b.m2 = f.plane_pair("m2", Need::Optional, at_least(1.0)).value_or(PlanePair{1, 1});
-    b.pulse_fwhm_fs = f.number("pulse_fwhm_fs", Need::Optional, positive()).value_or(0);
+    b.pulse_fwhm_fs = f.number("pulse_fwhm_fs", Need::Optional, positive());
     // The source's chirp, either sign; bounded so that the stretched length stays finite.
     b.input_gdd_fs2 = f.number("input_gdd_fs2", Need::Optional, between(-1e9, 1e9));
     b.emit_time_fs = f.number("emit_time_fs", Need::Optional).value_or(0);
-    b.power_mw = f.number("power_mw", Need::Optional, positive()).value_or(0);
-    b.repetition_rate_khz = f.number("repetition_rate_khz", Need::Optional, positive()).value_or(0);
+    b.power_mw = f.number("power_mw", Need::Optional, positive());
+    b.repetition_rate_khz = f.number("repetition_rate_khz", Need::Optional, positive());
     b.polarized_fraction = f.number("polarized_fraction", Need::Optional, between(0, 1)).value_or(1.0);
     using K = Polarization::Kind;
     if (const auto pol = f.choice("polarization", Need::Optional, texts_of(kPolarizationNames)))
@@ -422,15 +422,14 @@ bool Reader::read_fields(Plate& p, FieldReader& f, const std::string&) {
     only("reflects", p.role == R::PolarizingCube, "polarizing cubes");
     p.fast_axis_deg = f.number("fast_axis_deg", Need::Optional).value_or(0);
     if (wave) {
-        p.retarder_thickness_um = f.number("retarder_thickness_um", Need::Optional, positive()).value_or(0);
-        p.design_nm = f.wavelength_nm("design_nm", p.retarder_thickness_um > 0 ? Need::Optional : Need::Required)
-                          .value_or(0);
+        p.retarder_thickness_um = f.number("retarder_thickness_um", Need::Optional, positive());
+        p.design_nm = f.wavelength_nm("design_nm", p.retarder_thickness_um ? Need::Optional : Need::Required);
         if (f.has("retarder_material")) {
-            p.retarder_material = material_name(f, "retarder_material").value_or("");
-            const Material* m = library_.find(p.retarder_material);
+            p.retarder_material = material_name(f, "retarder_material");
+            const Material* m = p.retarder_material ? library_.find(*p.retarder_material) : nullptr;
             if (m && m->symmetry != Symmetry::Uniaxial)
                 f.error("retarder_material", "must be a uniaxial crystal (quartz, MgF2); " + m->name + " is not");
-        } else if (p.retarder_thickness_um > 0) {
+        } else if (p.retarder_thickness_um) {
             f.error("retarder_thickness_um", "needs \"retarder_material\" (the birefringence comes from it)");
         }
         p.order = static_cast<int>(f.number("order", Need::Optional, between(0, 1000)).value_or(0));
@@ -494,7 +493,7 @@ bool Reader::read_fields(Crystal& c, FieldReader& f, const std::string&) {
         // "sfg", or "shg:BEAM" (the beam's id is checked with the other references).
         if (const auto choice = parse_process_text(*process)) {
             c.process = choice->process;
-            c.process_beam = choice->beam;
+            if (choice->process == Crystal::Process::SecondHarmonic) c.process_beam = choice->beam;
         } else {
             f.error("process", "expected " + std::string(kProcessTextForms));
         }
@@ -602,10 +601,11 @@ void Reader::check_references(const json& doc, Layout& layout) {
         if (const auto* c = std::get_if<Crystal>(&e.kind); c && c->process == Crystal::Process::SecondHarmonic) {
             bool found = false;
             std::vector<std::string> beam_ids;
-            for (const BeamSource& b : layout.beams) found = found || b.id == c->process_beam, beam_ids.push_back(b.id);
+            const std::string beam = c->process_beam.value_or("");
+            for (const BeamSource& b : layout.beams) found = found || b.id == beam, beam_ids.push_back(b.id);
             if (!found) {
-                std::string m = "no beam has id \"" + c->process_beam + "\"";
-                if (const auto near = closest_name(c->process_beam, beam_ids))
+                std::string m = "no beam has id \"" + beam + "\"";
+                if (const auto near = closest_name(beam, beam_ids))
                     m += "; did you mean \"shg:" + *near + "\"?";
                 error(pointer_of(e.id, "process"), m);
             }
@@ -679,17 +679,17 @@ void Reader::check_adjusters(const Layout& layout, const std::function<std::stri
         if (is_wanted(*e)) return "";
         return "\"" + id + "\" is a " + type_name(e->kind) + "; expected " + wanted;
     };
-    if (!a.stage.empty())
-        if (const std::string m = kind_error(a.stage, [](const Element& e) { return std::holds_alternative<Stage>(e.kind); },
+    if (a.stage)
+        if (const std::string m = kind_error(*a.stage, [](const Element& e) { return std::holds_alternative<Stage>(e.kind); },
                                              "a stage (re-zeroed for zero delay)");
             !m.empty())
             error(base + "/stage", m);
-    if (!a.crystal.empty()) {
-        const std::string m = kind_error(a.crystal, [](const Element& e) { return std::holds_alternative<Crystal>(e.kind); },
+    if (a.crystal) {
+        const std::string m = kind_error(*a.crystal, [](const Element& e) { return std::holds_alternative<Crystal>(e.kind); },
                                          "the target crystal (its angle re-peaked)");
         if (!m.empty()) error(base + "/crystal", m);
-        else if (a.crystal != layout.target)
-            error(base + "/crystal", "\"" + a.crystal + "\" is not the target (\"" + layout.target +
+        else if (*a.crystal != layout.target)
+            error(base + "/crystal", "\"" + *a.crystal + "\" is not the target (\"" + layout.target +
                                          "\"); only the target crystal's angle is re-peaked");
     }
     std::map<std::string, std::string> first;  // id → where it was first listed

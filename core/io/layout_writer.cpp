@@ -35,7 +35,7 @@ ojson beam_json(const BeamSource& b) {
     j["waist_um"] = plane_pair(b.waist_um);
     if (!(b.waist_at_mm == PlanePair{})) j["waist_at_mm"] = plane_pair(b.waist_at_mm);
     if (!(b.m2 == PlanePair{1, 1})) j["m2"] = plane_pair(b.m2);
-    if (b.pulse_fwhm_fs > 0) j["pulse_fwhm_fs"] = num(b.pulse_fwhm_fs);
+    if (b.pulse_fwhm_fs) j["pulse_fwhm_fs"] = num(*b.pulse_fwhm_fs);
     if (b.input_gdd_fs2) j["input_gdd_fs2"] = num(*b.input_gdd_fs2);
     if (b.emit_time_fs != 0) j["emit_time_fs"] = num(b.emit_time_fs);
     if (b.polarization.kind != Polarization::Kind::Horizontal)  // the default, left out
@@ -43,8 +43,8 @@ ojson beam_json(const BeamSource& b) {
     if (b.polarization.kind == Polarization::Kind::Linear)
         j["polarization_angle_deg"] = num(b.polarization.angle_deg);
     if (b.polarized_fraction != 1.0) j["polarized_fraction"] = num(b.polarized_fraction);
-    if (b.power_mw > 0) j["power_mw"] = num(b.power_mw);
-    if (b.repetition_rate_khz > 0) j["repetition_rate_khz"] = num(b.repetition_rate_khz);
+    if (b.power_mw) j["power_mw"] = num(*b.power_mw);
+    if (b.repetition_rate_khz) j["repetition_rate_khz"] = num(*b.repetition_rate_khz);
     return j;
 }
 
@@ -94,10 +94,10 @@ struct KindWriter {
         j["material"] = p.slab.material;
         j["thickness_mm"] = num(p.slab.thickness_mm);
         if (p.fast_axis_deg != 0) j["fast_axis_deg"] = num(p.fast_axis_deg);
-        if (p.design_nm > 0) j["design_nm"] = num(p.design_nm);
-        if (!p.retarder_material.empty()) j["retarder_material"] = p.retarder_material;
+        if (p.design_nm) j["design_nm"] = num(*p.design_nm);
+        if (p.retarder_material) j["retarder_material"] = *p.retarder_material;
         if (p.order != 0) j["order"] = p.order;
-        if (p.retarder_thickness_um > 0) j["retarder_thickness_um"] = num(p.retarder_thickness_um);
+        if (p.retarder_thickness_um) j["retarder_thickness_um"] = num(*p.retarder_thickness_um);
         if ((p.role == R::PolarizingCube || p.role == R::Polarizer) && p.extinction_ratio != 1000)
             j["extinction_ratio"] = num(p.extinction_ratio);
         if (p.role == R::PolarizingCube && !p.reflects_left) j["reflects"] = text_of(kCubeReflectsNames, false);
@@ -118,12 +118,12 @@ struct KindWriter {
         if (c.optic_axis_horizontal) j["optic_axis"] = text_of(kOpticAxisNames, true);
         if (c.principal_plane != PrincipalPlane::XY) j["principal_plane"] = text_of(kPrincipalPlaneNames, c.principal_plane);
         if (c.tilt_deg != 0) j["tilt_deg"] = num(c.tilt_deg);
-        if (const auto process = format_process_text(c.process, c.process_beam)) j["process"] = *process;
+        if (const auto process = format_process_text(c.process, c.process_beam.value_or(""))) j["process"] = *process;
         damage(c.damage);
     }
     void damage(const DamageThreshold& d) const {
-        if (d.fluence_j_cm2 > 0) j["damage_fluence_j_cm2"] = num(d.fluence_j_cm2);
-        if (d.intensity_gw_cm2 > 0) j["damage_intensity_gw_cm2"] = num(d.intensity_gw_cm2);
+        if (d.fluence_j_cm2) j["damage_fluence_j_cm2"] = num(*d.fluence_j_cm2);
+        if (d.intensity_gw_cm2) j["damage_intensity_gw_cm2"] = num(*d.intensity_gw_cm2);
     }
     void operator()(const Target& t) const { damage(t.damage); }
     void operator()(const Dump&) const {}
@@ -223,14 +223,14 @@ ojson layout_json(const Layout& layout) {
     if (tol.adjust) {  // present, even empty ({}: no adjuster), unlike absent (the defaults)
         const ToleranceAdjusters& a = *tol.adjust;
         ojson aj = ojson::object();
-        if (!a.stage.empty()) aj["stage"] = a.stage;
+        if (a.stage) aj["stage"] = *a.stage;
         if (!a.walk.empty()) {
             ojson w = ojson::array();
             for (const std::vector<std::string>& ids : a.walk) w.push_back(ids);
             aj["walk"] = w;
         }
         if (!a.refocus.empty()) aj["refocus"] = a.refocus;
-        if (!a.crystal.empty()) aj["crystal"] = a.crystal;
+        if (a.crystal) aj["crystal"] = *a.crystal;
         tj["adjust"] = aj;
     }
     if (!tj.empty()) goals["tolerance"] = tj;

@@ -17,6 +17,21 @@ const char* type_name(const ElementKind& kind) {
     return std::visit(Names{}, kind);
 }
 
+const DamageThreshold* damage_threshold_of(const ElementKind& kind) {
+    struct Damage {
+        const DamageThreshold* operator()(const Lens&) const { return nullptr; }
+        const DamageThreshold* operator()(const Mirror&) const { return nullptr; }
+        const DamageThreshold* operator()(const Dichroic&) const { return nullptr; }
+        const DamageThreshold* operator()(const Plate&) const { return nullptr; }
+        const DamageThreshold* operator()(const Retroreflector&) const { return nullptr; }
+        const DamageThreshold* operator()(const Stage&) const { return nullptr; }
+        const DamageThreshold* operator()(const Crystal& c) const { return &c.damage; }
+        const DamageThreshold* operator()(const Target& t) const { return &t.damage; }
+        const DamageThreshold* operator()(const Dump&) const { return nullptr; }
+    };
+    return std::visit(Damage{}, kind);
+}
+
 const Element* Layout::find(const std::string& id) const {
     for (const Element& e : elements)
         if (e.id == id) return &e;

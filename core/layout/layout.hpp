@@ -63,15 +63,15 @@ struct BeamSource {
     PlanePair waist_um;           // second-moment waist radius
     PlanePair waist_at_mm;        // waist position along the beam from start, + downstream
     PlanePair m2{1.0, 1.0};
-    double pulse_fwhm_fs = 0.0;   // 0: not given (no temporal overlap)
+    std::optional<double> pulse_fwhm_fs;  // not given: no temporal overlap
     // The chirp (GDD, fs²) the pulse leaves the source with; pulse_fwhm_fs is then the length
     // of its transform-limited form. Not given: transform-limited (analysis/pulse_at_target.hpp).
     std::optional<double> input_gdd_fs2;
     double emit_time_fs = 0.0;
     Polarization polarization;
     double polarized_fraction = 1.0;  // degree of polarization; the rest is unpolarized
-    double power_mw = 0.0;        // 0: not given
-    double repetition_rate_khz = 0.0;  // 0: not given (no pulse energy or peak intensity)
+    std::optional<double> power_mw;             // average power at the start
+    std::optional<double> repetition_rate_khz;  // not given: no pulse energy or peak intensity
     bool operator==(const BeamSource&) const = default;
 };
 
@@ -154,11 +154,12 @@ struct Plate {
     // Wave plates: the nominal retardance (½ or ¼ wave, plus `order` whole waves) holds at
     // design_nm. With a birefringent retarder_material (quartz, MgF2) the retardance at another
     // wavelength follows from its published n_e − n_o; without one (an ideal plate) it scales as
-    // design_nm/λ. retarder_thickness_um > 0 gives the birefringent thickness itself instead.
-    double design_nm = 0.0;
-    std::string retarder_material;
+    // design_nm/λ. retarder_thickness_um gives the birefringent thickness itself instead.
+    // Wave plates only: the reader requires design_nm unless a thickness is given.
+    std::optional<double> design_nm;
+    std::optional<std::string> retarder_material;
     int order = 0;
-    double retarder_thickness_um = 0.0;
+    std::optional<double> retarder_thickness_um;
     // Polarizing cubes (transmit H, reflect V) and polarizers: power extinction ratio.
     double extinction_ratio = 1000.0;
     bool reflects_left = true;  // cubes: the reflected beam leaves 90° to the left of travel
@@ -180,8 +181,8 @@ struct Stage {
 
 // A damage threshold of a crystal or sample, as given by its maker (either or both).
 struct DamageThreshold {
-    double fluence_j_cm2 = 0.0;       // 0: not given
-    double intensity_gw_cm2 = 0.0;    // 0: not given
+    std::optional<double> fluence_j_cm2;
+    std::optional<double> intensity_gw_cm2;
     bool operator==(const DamageThreshold&) const = default;
 };
 
@@ -208,7 +209,7 @@ struct Crystal {
     // else the SHG of the first that does.
     enum class Process { Auto, SumFrequency, SecondHarmonic };
     Process process = Process::Auto;
-    std::string process_beam;  // beam id, with SecondHarmonic
+    std::optional<std::string> process_beam;  // beam id, with SecondHarmonic only
     DamageThreshold damage;
     bool operator==(const Crystal&) const = default;
 };
@@ -250,6 +251,9 @@ struct Element {
 
 // The file's type name of an element kind ("lens", "mirror", …).
 const char* type_name(const ElementKind& kind);
+
+// The damage threshold a kind carries (crystals and targets), else nullptr.
+const DamageThreshold* damage_threshold_of(const ElementKind& kind);
 
 struct UserMaterial {  // SCHOTT-form Sellmeier: n² − 1 = Σ B λ²/(λ² − C), λ in µm, C in µm²
     std::string id;
@@ -306,10 +310,10 @@ struct SolveGoals {
 // * crystal: the target crystal's angle re-peaked for sinc² (normal_deg when its optic axis
 //   lies in the table plane, tilt_deg when it lies in the vertical plane).
 struct ToleranceAdjusters {
-    std::string stage;                            // "" for none
+    std::optional<std::string> stage;
     std::vector<std::vector<std::string>> walk;   // each one or two element ids
     std::vector<std::string> refocus;             // lens ids
-    std::string crystal;                          // the target crystal's id, "" for none
+    std::optional<std::string> crystal;           // the target crystal's id
     bool operator==(const ToleranceAdjusters&) const = default;
 };
 

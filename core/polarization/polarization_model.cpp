@@ -83,16 +83,21 @@ std::optional<double> retardance_waves(const Plate& plate, double nm, const Mate
                                                                     : -1;
     if (nominal < 0) return std::nullopt;
     const double at_design = nominal + plate.order;
-    if (plate.retarder_material.empty()) return at_design * plate.design_nm / nm;  // ideal: Γ ∝ 1/λ
-    const Material* m = library.find(plate.retarder_material);
+    if (!plate.retarder_material) {  // ideal: Γ ∝ 1/λ
+        if (!plate.design_nm) return std::nullopt;
+        return at_design * *plate.design_nm / nm;
+    }
+    const Material* m = library.find(*plate.retarder_material);
     if (!m || m->symmetry != Symmetry::Uniaxial) return std::nullopt;
     auto birefringence = [&](double l) {
         return std::abs(sample_index(*m, l, Axis::Extraordinary).index - sample_index(*m, l, Axis::Ordinary).index);
     };
     // Thickness of birefringent material: given, or the one that makes the nominal retardance
     // at the design wavelength.
-    const double thickness_nm = plate.retarder_thickness_um > 0 ? um_to_nm(plate.retarder_thickness_um)
-                                                                : at_design * plate.design_nm / birefringence(plate.design_nm);
+    if (!plate.retarder_thickness_um && !plate.design_nm) return std::nullopt;
+    const double thickness_nm = plate.retarder_thickness_um
+                                    ? um_to_nm(*plate.retarder_thickness_um)
+                                    : at_design * *plate.design_nm / birefringence(*plate.design_nm);
     const double waves = birefringence(nm) * thickness_nm / nm;
     if (!std::isfinite(waves)) return std::nullopt;
     return waves;

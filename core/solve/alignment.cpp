@@ -67,8 +67,8 @@ AdjusterChoice resolve_adjusters(const Layout& layout, const MaterialLibrary& li
     }
     const ToleranceAdjusters& given = *layout.goals.tolerance.adjust;
     const std::string base = "/goals/tolerance/adjust";
-    if (!given.stage.empty()) a.stage = index_of(layout, given.stage);
-    if (!given.crystal.empty() && crystal) {
+    if (given.stage) a.stage = index_of(layout, *given.stage);
+    if (given.crystal && crystal) {
         a.crystal = target;
         a.crystal_tilts = !crystal->optic_axis_horizontal;
     }

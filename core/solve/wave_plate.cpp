@@ -41,8 +41,8 @@ WavePlateResult set_wave_plate(const Layout& layout, const MaterialLibrary& libr
         out.error = beam->id + " does not reach the target";
         return out;
     }
-    const double source_mw = layout.beams[beam->path.beam].power_mw;
-    if (goal.power_mw && !(source_mw > 0)) {
+    const double source_mw = layout.beams[beam->path.beam].power_mw.value_or(0);
+    if (goal.power_mw && !layout.beams[beam->path.beam].power_mw) {
         out.error = beam->id + " has no power_mw in the layout to set a power from";
         return out;
     }

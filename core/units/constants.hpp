@@ -31,6 +31,7 @@ inline constexpr double mw_to_w(double power_mw) { return power_mw * 1e-3; }
 inline constexpr double khz_to_hz(double rate_khz) { return rate_khz * 1e3; }
 inline constexpr double fs_to_s(double time_fs) { return time_fs * 1e-15; }
 inline constexpr double j_to_uj(double energy_j) { return energy_j * 1e6; }
+inline constexpr double gw_to_w(double power_gw) { return power_gw * 1e9; }
 inline constexpr double deg_to_rad(double angle_deg) { return angle_deg * kPi / 180.0; }
 inline constexpr double rad_to_deg(double angle_rad) { return angle_rad * 180.0 / kPi; }
 

@@ -179,14 +179,16 @@ TEST_CASE("peak intensity and fluence of a Gaussian pulse", "[polarization][inte
     // Textbook: E = P/f; P_peak = 0.94 E/τ for a Gaussian pulse (common practice, the factor
     // 2√(ln 2/π)); I_peak = 2 P_peak/(π w²) (Siegman, Lasers, 1986). 1 W at 1 kHz, 100 fs,
     // w = 100 µm: 1 mJ, 9.39 GW, 5.98e13 W/cm², 6.37 J/cm².
-    const auto f = rv::pulse_figures(1000, 1, 100, 100, 100);
+    const auto f = rv::pulse_figures({.power_mw = 1000, .repetition_rate_khz = 1, .fwhm_fs = 100,
+                                      .radius_tangential_um = 100, .radius_sagittal_um = 100});
     REQUIRE(f);
     CHECK_THAT(f->energy_uj, near_rel(1000, 1e-12));
     CHECK_THAT(f->peak_power_w, near_rel(0.94 * 1e-3 / 100e-15, 1e-3));
     CHECK_THAT(f->peak_intensity_w_cm2, near_rel(2 * f->peak_power_w / (rv::kPi * 1e-4), 1e-12));
     CHECK_THAT(f->peak_intensity_w_cm2, near_rel(5.98e13, 1e-3));
     CHECK_THAT(f->peak_fluence_j_cm2, near_rel(2 * 1e-3 / (rv::kPi * 1e-4), 1e-12));
-    CHECK_FALSE(rv::pulse_figures(1000, 0, 100, 100, 100));  // no repetition rate: no pulse figures
+    CHECK_FALSE(rv::pulse_figures({.power_mw = 1000, .repetition_rate_khz = 0, .fwhm_fs = 100,
+                                   .radius_tangential_um = 100, .radius_sagittal_um = 100}));  // no repetition rate: no pulse figures
 }
 
 TEST_CASE("a damage threshold below the peak intensity is a warning", "[polarization][intensity]") {

@@ -61,9 +61,8 @@ void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout
         check_planes(elements[i].at("radius_um"), b.caustic.at_hits[i].radius_tangential_um,
                      b.caustic.at_hits[i].radius_sagittal_um);
     }
-    const double source_mw = layout.beams[b.path.beam].power_mw;
-    if (source_mw > 0)
-        CHECK(j.at("power").at("source_mw").get<double>() == source_mw);
+    if (const std::optional<double> source_mw = layout.beams[b.path.beam].power_mw)
+        CHECK(j.at("power").at("source_mw").get<double>() == *source_mw);
     else
         CHECK(j.at("power").at("source_mw").is_null());
     CHECK(j.at("power").at("losses").size() == b.power.losses.size());

@@ -87,11 +87,12 @@ public:
         io.KeyCtrl = io.KeyShift = false;
         frame();
     }
-    // A click in the middle of an inspector field (its rectangle from the last frame).
+    // A click inside an inspector field's box (its rectangle from the last frame spans the box,
+    // which starts at the left, and the label after it: the middle may fall on the label).
     void click_field(const std::string& key) {
         REQUIRE(state.inspector.field_rects.count(key) == 1);
         const rv::ui::FieldRect r = state.inspector.field_rects[key];
-        const ImVec2 centre((r.min.x + r.max.x) / 2, (r.min.y + r.max.y) / 2);
+        const ImVec2 centre(std::min(r.min.x + 20, (r.min.x + r.max.x) / 2), (r.min.y + r.max.y) / 2);
         mouse(centre, true);
         mouse(centre, false);
     }

@@ -18,10 +18,14 @@ namespace rv::ui {
 namespace {
 
 // One numeric field: label with its unit; live preview while typing, one undo step on leaving.
-void field(const char* key, const char* label, double* value, const char* format, edit::Document& doc,
-           InspectorState& st) {
+// `store` puts a changed value where it belongs before the preview (for a value edited through a
+// stand-in, as an optional's).
+template <class Store>
+void field_through(const char* key, const char* label, double* value, const char* format, edit::Document& doc,
+                   InspectorState& st, Store store) {
     ImGui::SetNextItemWidth(120);
     const bool changed = ImGui::InputDouble(label, value, 0, 0, format, ImGuiInputTextFlags_AutoSelectAll);
+    if (changed) store();
     st.field_rects[key] = {ImGui::GetItemRectMin(), ImGui::GetItemRectMax()};
     if (ImGui::IsItemActivated()) {
         st.editing = true;
@@ -33,6 +37,19 @@ void field(const char* key, const char* label, double* value, const char* format
         st.editing = false;
         doc.finish_gesture(st.gesture);
     }
+}
+
+void field(const char* key, const char* label, double* value, const char* format, edit::Document& doc,
+           InspectorState& st) {
+    field_through(key, label, value, format, doc, st, [] {});
+}
+
+// A field for a value the file may leave out: shown as 0 when absent, and 0 typed removes it.
+void optional_field(const char* key, const char* label, std::optional<double>* value, const char* format,
+                    edit::Document& doc, InspectorState& st) {
+    double shown = value->value_or(0);
+    field_through(key, label, &shown, format, doc, st,
+                  [&] { *value = shown == 0 ? std::nullopt : std::optional<double>(shown); });
 }
 
 // A name field (a material or glass): applied as one edit when the field is left after typing;
@@ -50,6 +67,17 @@ void name_field(const char* key, const char* label, std::string* value, edit::Do
         doc.edit(st.scratch);
     }
     if (!ImGui::IsItemActive()) st.text.erase(key);
+}
+
+// A name the file may leave out: an empty field removes it.
+void optional_name_field(const char* key, const char* label, std::optional<std::string>* value, edit::Document& doc,
+                         InspectorState& st) {
+    std::string shown = value->value_or("");
+    const std::string before = shown;
+    name_field(key, label, &shown, doc, st);
+    if (shown == before) return;
+    *value = shown.empty() ? std::nullopt : std::optional<std::string>(shown);
+    doc.edit(st.scratch);
 }
 
 // A choice among names (one edit on a choice).
@@ -77,8 +105,8 @@ void role_field(Plate& plate, edit::Document& doc, InspectorState& st) {
         using R = Plate::Role;
         const bool wave = plate.role == R::HalfWave || plate.role == R::QuarterWave;
         // Keys of the old role that the new one does not take go back to their defaults.
-        if (!wave) plate.design_nm = 0, plate.retarder_material.clear(), plate.order = 0, plate.retarder_thickness_um = 0;
-        if (wave && plate.design_nm <= 0) plate.design_nm = 1000;  // a round design wavelength to edit
+        if (!wave) plate.design_nm.reset(), plate.retarder_material.reset(), plate.order = 0, plate.retarder_thickness_um.reset();
+        if (wave && !plate.design_nm) plate.design_nm = 1000;  // a round design wavelength to edit
         if (!wave && plate.role != R::Polarizer) plate.fast_axis_deg = 0;
         if (plate.role != R::PolarizingCube && plate.role != R::Polarizer) plate.extinction_ratio = 1000;
         if (plate.role != R::PolarizingCube) plate.reflects_left = true;
@@ -201,13 +229,8 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 }
             },
             [&](Mirror& mirror) {
-                double radius = mirror.radius_of_curvature_mm.value_or(0);
-                const double before = radius;
-                field("roc", "radius of curvature (mm, 0 flat)", &radius, "%.1f", doc, st);
-                if (radius != before) {  // 0 means flat: edited through the optional
-                    mirror.radius_of_curvature_mm = radius == 0 ? std::nullopt : std::optional<double>(radius);
-                    if (st.editing) doc.preview(st.scratch);
-                }
+                optional_field("roc", "radius of curvature (mm, 0 flat)", &mirror.radius_of_curvature_mm, "%.1f",
+                               doc, st);
                 field("retardance", "s - p phase (deg)", &mirror.retardance_deg, "%.2f", doc, st);
                 if (mirror.aim_at) ImGui::Text("aims at %s", mirror.aim_at->c_str());
             },
@@ -228,7 +251,7 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 if (table_field("optic axis plane", &crystal.optic_axis_horizontal, kOpticAxisNames)) doc.edit(st.scratch);
                 field("tilt", "tilt (deg, + = face normal up)", &crystal.tilt_deg, "%.3f", doc, st);
                 process_buttons(doc, st);
-                field("damage_i", "damage (GW/cm², 0 none)", &crystal.damage.intensity_gw_cm2, "%.1f", doc, st);
+                optional_field("damage_i", "damage (GW/cm², 0 none)", &crystal.damage.intensity_gw_cm2, "%.1f", doc, st);
             },
             [&](Plate& plate) {
                 role_field(plate, doc, st);
@@ -239,8 +262,8 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                     field("fast_axis", plate.role == R::Polarizer ? "transmission axis (deg)" : "fast axis (deg)",
                           &plate.fast_axis_deg, "%.2f", doc, st);
                 if (plate.role == R::HalfWave || plate.role == R::QuarterWave) {
-                    field("design", "design wavelength (nm)", &plate.design_nm, "%.1f", doc, st);
-                    name_field("retarder", "retarder material", &plate.retarder_material, doc, st);
+                    optional_field("design", "design wavelength (nm)", &plate.design_nm, "%.1f", doc, st);
+                    optional_name_field("retarder", "retarder material (empty: ideal)", &plate.retarder_material, doc, st);
                 }
                 if (plate.role == R::PolarizingCube || plate.role == R::Polarizer)
                     field("extinction", "extinction ratio", &plate.extinction_ratio, "%.0f", doc, st);
@@ -255,7 +278,7 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 field("thickness", "substrate (mm)", &dichroic.substrate.thickness_mm, "%.3f", doc, st);
             },
             [&](Target& target) {
-                field("damage_i", "damage (GW/cm², 0 none)", &target.damage.intensity_gw_cm2, "%.1f", doc, st);
+                optional_field("damage_i", "damage (GW/cm², 0 none)", &target.damage.intensity_gw_cm2, "%.1f", doc, st);
             },
             [](Retroreflector&) {},  // no fields of its own
             [](Dump&) {},
@@ -283,12 +306,19 @@ void beam_fields(edit::Document& doc, InspectorState& st) {
         ImGui::PushID(1000 + static_cast<int>(i));
         ImGui::Text("%s", b.id.c_str());
         const std::string owner = "beam " + b.id;
-        auto f = [&](const char* key, const char* label, double* value, const char* format) {
+        auto claim = [&] {
             if (!st.editing) {
                 st.element = b.id;
                 st.editing_beam = true;
             }
+        };
+        auto f = [&](const char* key, const char* label, double* value, const char* format) {
+            claim();
             field((owner + " " + key).c_str(), label, value, format, doc, st);
+        };
+        auto given = [&](const char* key, const char* label, std::optional<double>* value, const char* format) {
+            claim();
+            optional_field((owner + " " + key).c_str(), label, value, format, doc, st);
         };
         f("wavelength", "wavelength (nm)", &b.wavelength_nm, "%.2f");
         f("x", "start x (mm)", &b.start_mm.x(), "%.2f");
@@ -298,10 +328,10 @@ void beam_fields(edit::Document& doc, InspectorState& st) {
         f("waist_s", "waist s (µm)", &b.waist_um.sagittal, "%.1f");
         f("waist_at_t", "waist at, t (mm)", &b.waist_at_mm.tangential, "%.1f");
         f("waist_at_s", "waist at, s (mm)", &b.waist_at_mm.sagittal, "%.1f");
-        f("pulse", "pulse FWHM (fs)", &b.pulse_fwhm_fs, "%.1f");
+        given("pulse", "pulse FWHM (fs, 0 none)", &b.pulse_fwhm_fs, "%.1f");
         f("emit", "emission time (fs)", &b.emit_time_fs, "%.1f");
-        f("power", "power (mW)", &b.power_mw, "%.1f");
-        f("rate", "repetition rate (kHz)", &b.repetition_rate_khz, "%.1f");
+        given("power", "power (mW, 0 none)", &b.power_mw, "%.1f");
+        given("rate", "repetition rate (kHz, 0 none)", &b.repetition_rate_khz, "%.1f");
         if (b.polarization.kind == Polarization::Kind::Linear) f("pol", "polarization (deg)", &b.polarization.angle_deg, "%.1f");
         ImGui::PopID();
     }

@@ -99,12 +99,12 @@ void draw_caustic_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Rende
 }
 
 void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout& layout, const RendezvousReport& r) {
-    if (r.beams.size() < 2 || !r.mismatch || layout.beams[0].pulse_fwhm_fs <= 0 || layout.beams[1].pulse_fwhm_fs <= 0) {
+    if (r.beams.size() < 2 || !r.mismatch || !layout.beams[0].pulse_fwhm_fs || !layout.beams[1].pulse_fwhm_fs) {
         draw_axes(draw, origin, size, -1, 1, 0, 1, "fs", "", "Timing: two pulsed beams at the target needed");
         return;
     }
     const double d = r.mismatch->delay_fs;  // beam 1 − beam 2: beam 2 arrives at t0 − d
-    const double tau1 = layout.beams[0].pulse_fwhm_fs, tau2 = layout.beams[1].pulse_fwhm_fs;
+    const double tau1 = *layout.beams[0].pulse_fwhm_fs, tau2 = *layout.beams[1].pulse_fwhm_fs;
     const double span = std::max(2 * std::hypot(tau1, tau2), std::abs(d) + 1.5 * std::max(tau1, tau2));
     const double centre = -d / 2;
     char title[128];
