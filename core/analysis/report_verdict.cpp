@@ -163,7 +163,7 @@ void phase_line(const Layout& layout, const TargetElement& target, const Rendezv
         v.phase.met = false;
         v.phase.summary =
             std::string(crystal && crystal->process == Crystal::Process::SecondHarmonic
-                            ? "SHG of " + crystal->process_beam
+                            ? "SHG of " + crystal->process_beam.value_or("")
                             : "SFG") +
             " (the crystal's process): its beam" +
             (crystal && crystal->process == Crystal::Process::SecondHarmonic ? " does" : "s do") +
