@@ -16,7 +16,10 @@
 #include "render/headless.hpp"
 #include "trace/poses.hpp"
 #include "ui/frame.hpp"
+#include "ui/help_window.hpp"
+#include "ui/input_queue.hpp"
 #include "ui/keys.hpp"
+#include "ui/shortcuts.hpp"
 
 namespace {
 
@@ -120,11 +123,16 @@ TEST_CASE("dragging a lens moves it by the snapped amount and undo restores it",
     const double offset_before = signal_waist_offset_mm(doc);
     const double px_per_mm = s.state.last_view.px_per_mm;
     const ImVec2 from = s.screen_of("L2_S");
-    // 63 mm to the right: the lens lands on the nearest hole, x = 375 mm (310 + 63 = 373).
+    // 63 mm to the right: the lens lands on its breadboard hole, the one drawn (hand computation
+    // with holes at (k + 1/2) x 25 mm, analysis/breadboard_holes.hpp): x 310 + 63 = 373 lies in
+    // the square 350..375, hole x = 362.5; y 500 is on the line between two squares and counts to
+    // the one above, hole y = 512.5.
     s.drag(from, ImVec2(from.x + static_cast<float>(63 * px_per_mm), from.y));
     const rv::Vec2 moved = doc.layout().elements[l2].at_mm;
-    CHECK(moved.x() == 375.0);
-    CHECK(moved.y() == 500.0);
+    CHECK(moved.x() == 362.5);
+    CHECK(moved.y() == 512.5);
+    const auto& holes = doc.scene().holes_mm;  // the holes the table view draws (scene.cpp)
+    CHECK(std::find(holes.begin(), holes.end(), moved) != holes.end());
     CHECK(s.state.editor.selected == l2);
     CHECK(doc.dirty());
     CHECK(signal_waist_offset_mm(doc) != offset_before);  // the report followed the lens
@@ -449,4 +457,46 @@ TEST_CASE("File > Build sheet writes the pages and the Markdown of the layout in
     CHECK_FALSE(rv::render::export_build_sheet(doc, dir / "sheet.png").empty());  // not an .svg name
     CHECK_FALSE(std::filesystem::exists(dir / "sheet.png"));
     std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("a click and a key press shorter than a frame both take effect through the input queue", "[viewer][input]") {
+    // Issue 17 §1: press and release queued between two frames (as GLFW delivers a quick tap);
+    // Dear ImGui 1.86 reads key state once per frame, so the queue splits them over frames.
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t n = doc.layout().elements.size();
+    const ImVec2 at = s.screen_of("HWP_P");
+    rv::ui::InputQueue q;
+    q.push(rv::ui::InputEvent::cursor(at.x, at.y));
+    q.push(rv::ui::InputEvent::button(0, true));
+    q.push(rv::ui::InputEvent::button(0, false));
+    q.push(rv::ui::InputEvent::key(rv::ui::keys::kDelete, true));
+    q.push(rv::ui::InputEvent::key(rv::ui::keys::kDelete, false));
+    CHECK(q.apply_frame(ImGui::GetIO()) == 2);  // the release waits: one transition per frame
+    s.frame();
+    for (int k = 0; k < 5 && !q.empty(); ++k) {
+        q.apply_frame(ImGui::GetIO());
+        s.frame();
+    }
+    CHECK(q.empty());
+    CHECK(doc.layout().elements.size() == n - 1);
+    CHECK(s.state.last_action == rv::ui::Action::Delete);
+}
+
+TEST_CASE("every shortcut of the table is dispatched and listed in the help", "[viewer][help]") {
+    const std::vector<rv::ui::HelpRow> rows = rv::ui::help_rows();
+    std::vector<bool> seen(rv::ui::kActionCount, false);
+    for (const rv::ui::Shortcut& sc : rv::ui::shortcuts()) {
+        CAPTURE(rv::ui::keys_text(sc));
+        rv::edit::Document doc(demo());
+        Session s(doc);
+        s.state.editor.selected = index_of(doc.layout(), "HWP_P");
+        s.key(sc.key, sc.ctrl, sc.shift);
+        CHECK(s.state.last_action == sc.action);
+        seen[static_cast<size_t>(sc.action)] = true;
+        CHECK(std::any_of(rows.begin(), rows.end(), [&](const rv::ui::HelpRow& r) {
+            return r.keys == rv::ui::keys_text(sc) && r.what == sc.description;
+        }));
+    }
+    CHECK(std::all_of(seen.begin(), seen.end(), [](bool b) { return b; }));  // every action has a key
 }

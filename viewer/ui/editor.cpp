@@ -6,10 +6,10 @@
 #include <cmath>
 #include <cstdio>
 
+#include "analysis/breadboard_holes.hpp"
 #include "layout/element_kinds.hpp"
 #include "layout/visit.hpp"
 #include "trace/poses.hpp"
-#include "ui/keys.hpp"
 #include "units/constants.hpp"
 
 namespace rv::ui {
@@ -22,10 +22,6 @@ std::vector<Path> paths_of(const RendezvousReport& report) {
     return paths;
 }
 
-Vec2 snapped(const Vec2& p, double grid_mm) {
-    if (!(grid_mm > 0)) return p;
-    return {std::round(p.x() / grid_mm) * grid_mm, std::round(p.y() / grid_mm) * grid_mm};
-}
 
 bool id_taken(const Layout& l, const std::string& id) {
     return std::any_of(l.elements.begin(), l.elements.end(), [&](const Element& e) { return e.id == id; }) ||
@@ -38,6 +34,11 @@ std::string unused_id(const Layout& l, const std::string& stem) {
 }
 
 }  // namespace
+
+Vec2 snapped_to_hole(const Table& table, const Vec2& p_mm) {
+    const std::optional<HoleLocation> hole = hole_of(table, p_mm);
+    return hole ? hole->hole_mm : p_mm;
+}
 
 std::optional<size_t> element_at(const edit::Document& doc, const Vec2& p, double px_per_mm) {
     const Layout& l = doc.layout();
@@ -110,12 +111,6 @@ bool edit_on_canvas(edit::Document& doc, EditorState& s, const View& view) {
             s.drag.reset();
             return false;
         }
-        if (ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Escape), false)) {
-            doc.cancel_gesture(s.drag->gesture);
-            s.drag.reset();
-            s.status = "move cancelled";
-            return true;
-        }
         if (!io.MouseDown[ImGuiMouseButton_Left]) {
             doc.finish_gesture(s.drag->gesture);
             s.drag.reset();
@@ -126,7 +121,7 @@ bool edit_on_canvas(edit::Document& doc, EditorState& s, const View& view) {
         if (!ImGui::IsMouseDragging(ImGuiMouseButton_Left) && doc.layout().elements[s.drag->element].at_mm == s.drag->start_mm)
             return true;
         Vec2 at = cursor + s.drag->grab_offset_mm;
-        if (s.snap && !io.KeyAlt) at = snapped(at, doc.layout().table.grid_mm);
+        if (s.snap && !io.KeyAlt) at = snapped_to_hole(doc.layout().table, at);
         if (at != doc.layout().elements[s.drag->element].at_mm) {
             Layout next = doc.layout();
             next.elements[s.drag->element].at_mm = at;
@@ -237,7 +232,7 @@ void add_element(edit::Document& doc, EditorState& s, const std::string& type, c
     }
     Layout next = doc.layout();
     Element e;
-    e.at_mm = snapped(at_mm, next.table.grid_mm);
+    e.at_mm = snapped_to_hole(next.table, at_mm);
     e.kind = made->kind;
     e.normal_deg = made->normal_deg;
     e.id = unused_id(next, made->id_prefix);
@@ -267,29 +262,26 @@ void sync_selection(const edit::Document& doc, EditorState& s) {
     s.selection_revision = doc.revision();
 }
 
-void edit_shortcuts(edit::Document& doc, EditorState& s) {
-    const ImGuiIO& io = ImGui::GetIO();
-    if (s.drag || io.WantTextInput || s.locked) return;  // typing in a field is not a shortcut
-    auto pressed = [](int key) { return ImGui::IsKeyPressed(key, false); };
-    if (io.KeyCtrl && pressed(keys::kZ)) io.KeyShift ? doc.redo() : doc.undo();
-    else if (io.KeyCtrl && pressed(keys::kY)) doc.redo();
-    else if (io.KeyCtrl && pressed(keys::kD)) duplicate_selected(doc, s);
-    else if (io.KeyCtrl && pressed(keys::kS)) {
-        std::string error;
-        s.status = doc.save(error) ? "saved " + doc.path()->string() : error;
-    } else if (!io.KeyCtrl && pressed(keys::kR)) rotate_selected(doc, s, io.KeyShift ? -15.0 : 15.0);
-    else if (!io.KeyCtrl && pressed(keys::kM)) {
-        s.measuring = !s.measuring;
-        s.status = s.measuring ? "measuring: drag on the table (M again to edit)" : "editing";
-    } else if (!io.KeyCtrl && pressed(keys::kG)) {
-        s.snap = !s.snap;
-        s.status = s.snap ? "snapping to the hole grid" : "free placement (no snapping)";
-    } else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Delete))) delete_selected(doc, s);
-    else if (pressed(ImGui::GetKeyIndex(ImGuiKey_Escape))) {
-        select(doc, s, std::nullopt);
-        s.ruler.reset();
-    }
+bool cancel_drag(edit::Document& doc, EditorState& s) {
+    if (!s.drag) return false;
+    doc.cancel_gesture(s.drag->gesture);
+    s.drag.reset();
+    s.status = "move cancelled";
+    return true;
+}
 
+void select_next(const edit::Document& doc, EditorState& s, int step) {
+    const auto& elements = doc.layout().elements;
+    const long n = static_cast<long>(elements.size());
+    if (n == 0) return;
+    long i = s.selected ? static_cast<long>(*s.selected) : (step > 0 ? -1 : n);
+    for (long k = 0; k < n; ++k) {  // stages have no symbol: skipped, as a click skips them
+        i = ((i + step) % n + n) % n;
+        if (!std::holds_alternative<Stage>(elements[static_cast<size_t>(i)].kind)) {
+            select(doc, s, static_cast<size_t>(i));
+            return;
+        }
+    }
 }
 
 }  // namespace rv::ui

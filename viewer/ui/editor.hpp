@@ -1,9 +1,8 @@
 #pragma once
 // Editing on the table view: click selects the optic under the cursor, dragging it moves it
-// (snapped to the hole grid unless snapping is off), Esc cancels a drag, R / Shift+R turn the
-// selection by +15° / −15°, M toggles the measuring tool, Delete removes it, Ctrl+D duplicates it, Ctrl+Z undoes, Ctrl+Shift+Z
-// and Ctrl+Y redo, Ctrl+S saves, G toggles snapping. Every change goes through the Document,
-// which rebuilds the report and the scene.
+// (snapped to the nearest breadboard hole unless snapping is off or Alt is held), and the
+// operations the shortcuts (ui/shortcuts.hpp) and menus call. Every change goes through the
+// Document, which rebuilds the report and the scene.
 #include <optional>
 #include <string>
 #include <vector>
@@ -50,8 +49,14 @@ std::optional<size_t> element_at(const edit::Document& doc, const Vec2& table_mm
 // returns true when it took the mouse (a press on an element), so the view does not pan.
 bool edit_on_canvas(edit::Document& doc, EditorState& state, const View& view);
 
-// Keyboard shortcuts (window focused).
-void edit_shortcuts(edit::Document& doc, EditorState& state);
+// Ends a drag in progress, restoring where it started (Esc); false when there is none.
+bool cancel_drag(edit::Document& doc, EditorState& state);
+// Selects the next (step +1) or previous (−1) element with a symbol, wrapping around.
+void select_next(const edit::Document& doc, EditorState& state, int step);
+
+// Where snapping puts a point: the centre of its breadboard hole (analysis/breadboard_holes.hpp,
+// the grid the table view draws); the point itself when the table has no hole.
+Vec2 snapped_to_hole(const Table& table, const Vec2& p_mm);
 
 // Keeps the selection on the same element across changes of the layout (call once a frame).
 void sync_selection(const edit::Document& doc, EditorState& state);

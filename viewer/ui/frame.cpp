@@ -10,7 +10,9 @@
 
 #include "trace/poses.hpp"
 
-#include "ui/keys.hpp"
+#include "ui/actions.hpp"
+#include "ui/help_window.hpp"
+#include "ui/status_bar.hpp"
 #include "ui/plots.hpp"
 #include "ui/report_panel.hpp"
 #include "ui/table_view.hpp"
@@ -39,11 +41,13 @@ View interact(const View& fitted, ViewerState& state) {
         v.centre_mm += anchor - moved;
         state.view = v;
     }
-    if ((!editing && ImGui::IsItemHovered() && ImGui::IsMouseDoubleClicked(ImGuiMouseButton_Left)) ||
-        (!io.WantTextInput && ImGui::IsKeyPressed(keys::kF, false))) {
+    if (!editing && ImGui::IsItemHovered() && ImGui::IsMouseDoubleClicked(ImGuiMouseButton_Left)) {
         state.view.reset();
         v = fitted;
     }
+    // The status bar's readout: the table point under the cursor (the view as it is now).
+    if (ImGui::IsItemHovered() || ImGui::IsItemActive()) state.cursor_mm = v.to_table(io.MousePos);
+    else state.cursor_mm.reset();
     return v;
 }
 
@@ -75,10 +79,8 @@ void draw_menu_bar(ViewerState& st) {
     if (!ImGui::BeginMenuBar()) return;
     const bool free = !ed.locked;  // a previewed solution blocks saving and editing
     if (ImGui::BeginMenu("File")) {
-        if (ImGui::MenuItem("Save", "Ctrl+S", false, free && doc.path().has_value())) {
-            std::string error;
-            ed.status = doc.save(error) ? "saved " + doc.path()->string() : error;
-        }
+        if (ImGui::MenuItem("Save", keys_of(Action::Save).c_str(), false, free && doc.path().has_value()))
+            perform(Action::Save, st);
         if (ImGui::MenuItem("Save As...", nullptr, false, free)) st.open_save_as = true;
         if (ImGui::MenuItem("Open...", nullptr, false, free)) st.open_dialog = true;
         if (ImGui::MenuItem("Export PNG or SVG...")) st.export_dialog = true;
@@ -88,19 +90,24 @@ void draw_menu_bar(ViewerState& st) {
                 if (ImGui::MenuItem(f.c_str())) st.open_request = f;
             ImGui::EndMenu();
         }
+        ImGui::Separator();
+        if (ImGui::MenuItem("Quit", keys_of(Action::Quit).c_str())) perform(Action::Quit, st);
         ImGui::EndMenu();
     }
     if (ImGui::BeginMenu("Edit")) {
-        if (ImGui::MenuItem("Undo", "Ctrl+Z", false, free && doc.can_undo())) doc.undo();
-        if (ImGui::MenuItem("Redo", "Ctrl+Shift+Z / Ctrl+Y", false, free && doc.can_redo())) doc.redo();
+        // The keys shown are the shortcut table's (ui/shortcuts.hpp), as the help window's.
+        if (ImGui::MenuItem("Undo", keys_of(Action::Undo).c_str(), false, free && doc.can_undo())) perform(Action::Undo, st);
+        if (ImGui::MenuItem("Redo", keys_of(Action::Redo).c_str(), false, free && doc.can_redo())) perform(Action::Redo, st);
         ImGui::Separator();
         const bool any = free && ed.selected.has_value();
-        if (ImGui::MenuItem("Rotate +15°", "R", false, any)) rotate_selected(doc, ed, 15);
-        if (ImGui::MenuItem("Rotate −15°", "Shift+R", false, any)) rotate_selected(doc, ed, -15);
-        if (ImGui::MenuItem("Duplicate", "Ctrl+D", false, any)) duplicate_selected(doc, ed);
-        if (ImGui::MenuItem("Delete", "Delete", false, any)) delete_selected(doc, ed);
+        if (ImGui::MenuItem("Rotate +15°", keys_of(Action::RotateForward).c_str(), false, any)) perform(Action::RotateForward, st);
+        if (ImGui::MenuItem("Rotate −15°", keys_of(Action::RotateBack).c_str(), false, any)) perform(Action::RotateBack, st);
+        if (ImGui::MenuItem("Duplicate", keys_of(Action::Duplicate).c_str(), false, any)) perform(Action::Duplicate, st);
+        if (ImGui::MenuItem("Delete", keys_of(Action::Delete).c_str(), false, any)) perform(Action::Delete, st);
         ImGui::Separator();
-        ImGui::MenuItem("Snap to the hole grid", "G", &ed.snap);
+        if (ImGui::MenuItem("Select the next optic", keys_of(Action::SelectNext).c_str())) perform(Action::SelectNext, st);
+        if (ImGui::MenuItem("Snap to the breadboard holes", keys_of(Action::ToggleSnap).c_str(), ed.snap))
+            perform(Action::ToggleSnap, st);
         ImGui::EndMenu();
     }
     if (ImGui::BeginMenu("Add", free)) {
@@ -109,8 +116,13 @@ void draw_menu_bar(ViewerState& st) {
         ImGui::EndMenu();
     }
     if (ImGui::BeginMenu("View")) {
-        if (ImGui::MenuItem("Fit the table", "F")) st.view.reset();
-        ImGui::MenuItem("Measure distances", "M", &ed.measuring);
+        if (ImGui::MenuItem("Fit the table", keys_of(Action::FitView).c_str())) perform(Action::FitView, st);
+        if (ImGui::MenuItem("Measure distances", keys_of(Action::ToggleMeasure).c_str(), ed.measuring))
+            perform(Action::ToggleMeasure, st);
+        ImGui::EndMenu();
+    }
+    if (ImGui::BeginMenu("Help")) {
+        if (ImGui::MenuItem("Shortcuts", keys_of(Action::Help).c_str(), st.show_help)) perform(Action::Help, st);
         ImGui::EndMenu();
     }
     ImGui::EndMenuBar();
@@ -147,7 +159,7 @@ void draw_menu_bar(ViewerState& st) {
             ImGui::CloseCurrentPopup();
         }
         ImGui::SameLine();
-        if (ImGui::Button("Quit without saving")) st.quit = true;
+        if (ImGui::Button("Quit without saving")) quit_without_saving(st);
         ImGui::SameLine();
         if (ImGui::Button("Cancel")) {
             st.close_requested = false;
@@ -234,20 +246,24 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     ImGui::Begin("Rendezvous", nullptr,
                  ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoSavedSettings |
                      ImGuiWindowFlags_NoBringToFrontOnFocus | (doc ? ImGuiWindowFlags_MenuBar : 0));
+    float status_bar = 0;
     if (doc) {
+        update_status_line(*state);
         draw_menu_bar(*state);
         state->editor.locked = state->tools.previewing.has_value();
         sync_selection(*doc, state->editor);
-        edit_shortcuts(*doc, state->editor);
-        ImGui::Text("%s   %s", doc->title().c_str(), state->editor.status.c_str());
+        dispatch_shortcuts(*state);
+        update_status_line(*state);  // a message the menus or a shortcut just set
+        ImGui::Text("%s", doc->title().c_str());
+        status_bar = status_bar_height(*state, ImGui::GetContentRegionAvail().x);
     } else {
         ImGui::Text("%s", scene.title.c_str());
     }
     const float panel = 380;
     const ImVec2 avail = ImGui::GetContentRegionAvail();
     ImGui::BeginGroup();
-    const float plots = std::floor(avail.y * 0.3f);
-    ImGui::BeginChild("table", ImVec2(avail.x - panel, avail.y - plots), true);
+    const float plots = std::floor((avail.y - status_bar) * 0.3f);
+    ImGui::BeginChild("table", ImVec2(avail.x - panel, avail.y - status_bar - plots), true);
     const ImVec2 origin = ImGui::GetCursorScreenPos();
     const ImVec2 size = ImGui::GetContentRegionAvail();
     const View fitted = fit_view(origin, size, scene.width_mm, scene.height_mm);
@@ -258,13 +274,18 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
         draw_selection(ImGui::GetWindowDrawList(), *doc, *state->editor.selected, view);
     if (doc && state->editor.ruler) draw_ruler(ImGui::GetWindowDrawList(), *state->editor.ruler, view);
     ImGui::EndChild();
-    ImGui::BeginChild("plots", ImVec2(avail.x - panel, 0), true);
+    ImGui::BeginChild("plots", ImVec2(avail.x - panel, -status_bar), true);
     const ImVec2 p0 = ImGui::GetCursorScreenPos();
     const ImVec2 ps = ImGui::GetContentRegionAvail();
     const float half = std::floor(ps.x / 2);
     draw_caustic_plot(ImGui::GetWindowDrawList(), p0, ImVec2(half - 4, ps.y), report);
     draw_timing_plot(ImGui::GetWindowDrawList(), ImVec2(p0.x + half + 4, p0.y), ImVec2(ps.x - half - 4, ps.y), layout, report);
     ImGui::EndChild();
+    if (doc) {  // under the table and the plots, wrapped to their width
+        ImGui::PushTextWrapPos(ImGui::GetCursorPosX() + avail.x - panel);
+        draw_status_bar(*state);
+        ImGui::PopTextWrapPos();
+    }
     ImGui::EndGroup();
     ImGui::SameLine();
     ImGui::BeginChild("report", ImVec2(0, avail.y), true);
@@ -275,6 +296,7 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     draw_report_panel(report, layout, doc ? &state->editor.selected : nullptr, state ? &state->finding_rects : nullptr);
     ImGui::EndChild();
     ImGui::End();
+    if (doc) draw_help_window(*state);
 }
 
 }  // namespace rv::ui

@@ -1,13 +1,17 @@
 #pragma once
 // One frame of the viewer: the table view on the left, the report panel on the right. The
 // window (later) and the headless renderer both call this between NewFrame and Render.
+#include <filesystem>
+#include <memory>
 #include <optional>
+#include <string>
 
 #include "analysis/report.hpp"
 #include "edit/document.hpp"
 #include "scene/scene.hpp"
 #include "ui/editor.hpp"
 #include "ui/inspector.hpp"
+#include "ui/shortcuts.hpp"
 #include "ui/tools_panel.hpp"
 #include "ui/view.hpp"
 
@@ -42,7 +46,31 @@ struct ViewerState {
     std::optional<std::string> recovery_offer;
     // The window asked to close with unsaved changes: ask; quit once answered.
     bool close_requested = false, quit = false;
+    bool show_help = false;              // the help window (F1, Help ▸ Shortcuts)
+    std::optional<Action> last_action;   // the last shortcut performed (interface tests read it)
+    struct StatusLine {                  // the status bar's message (ui/status_bar.hpp)
+        std::string text;
+        double since_s = 0;              // ImGui's clock when it was shown
+        unsigned revision = 0;           // the document's revision then
+    } status_line;
+    std::optional<Vec2> cursor_mm;       // the table point under the cursor, while over the table
 };
+
+// Puts every panel in the state a fresh window has for state.doc (after File ▸ Open): the
+// selection, drag, ruler, inspector, solver results and messages, the view, the dialogs; the
+// sweep field names the new layout's first stage. Kept: the lens catalog, the recent files,
+// snapping on or off, the help window.
+void reset_panels(ViewerState& state);
+
+// File ▸ Open and Open Recent: reads the file; on success it becomes the document (`doc` owns
+// it), every panel is reset and the file heads the recent list (saved to `recent_file` when
+// given). Refused with the whole reason in the status line when there are unsaved changes or
+// the file does not read (every diagnostic); nothing changes then.
+bool open_layout(ViewerState& state, std::unique_ptr<edit::Document>& doc, const std::string& file,
+                 const std::filesystem::path* recent_file = nullptr);
+
+// The window's title: "Rendezvous — NAME", with the document's unsaved mark.
+std::string window_title(const edit::Document& doc);
 
 // Draws one frame; with a state, the table view pans (drag on empty table), zooms about the
 // cursor (wheel) and fits again on F or a double click; with a document as well, a menu bar,

@@ -1,9 +1,11 @@
 #pragma once
-// Key indices as the viewer reads them from ImGuiIO::KeysDown: GLFW's key codes, which the
-// GLFW backend of Dear ImGui 1.86 uses as indices (letters are their upper-case ASCII codes).
-// The headless frame maps ImGuiKey_Delete and ImGuiKey_Escape to the same codes, so interface
-// tests press the keys a user would.
+// Key indices as the viewer reads them from ImGuiIO::KeysDown: GLFW's key codes (letters are
+// their upper-case ASCII codes), which the window's input queue (ui/input_queue.hpp) writes
+// and configure_context's KeyMap names for ImGui. The headless frame uses the same indices, so
+// interface tests press the keys a user would.
 namespace rv::ui::keys {
-inline constexpr int kEscape = 256, kDelete = 261;
-inline constexpr int kD = 'D', kF = 'F', kG = 'G', kM = 'M', kR = 'R', kS = 'S', kY = 'Y', kZ = 'Z';
+inline constexpr int kTab = 258, kEscape = 256, kDelete = 261, kF1 = 290;
+inline constexpr int kD = 'D', kF = 'F', kG = 'G', kM = 'M', kQ = 'Q', kR = 'R', kS = 'S', kY = 'Y', kZ = 'Z';
+inline constexpr int kLeftShift = 340, kLeftControl = 341, kLeftAlt = 342, kLeftSuper = 343;
+inline constexpr int kRightShift = 344, kRightControl = 345, kRightAlt = 346, kRightSuper = 347;
 }  // namespace rv::ui::keys

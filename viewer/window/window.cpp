@@ -2,9 +2,10 @@
 #include "window/window.hpp"
 
 #include <GLFW/glfw3.h>
-#include <backends/imgui_impl_glfw.h>
 #include <imgui.h>
 
+#include <algorithm>
+#include <cfloat>
 #include <filesystem>
 #include <memory>
 #include <ostream>
@@ -22,21 +23,74 @@
 #include "render/export.hpp"
 #include "render/headless.hpp"
 #include "scene/scene.hpp"
+#include "ui/actions.hpp"
 #include "ui/frame.hpp"
+#include "ui/input_queue.hpp"
+#include "ui/status_bar.hpp"
 
 namespace rv::window {
+
+namespace {
+
+// The platform side of the input queue (ui/input_queue.hpp): GLFW's callbacks only queue what
+// happened; the loop feeds it to ImGui frame by frame. Any event, a resize or an expose wakes
+// the loop for a few frames (kSettleFrames: ImGui lays out popups and sizes windows in the
+// frames after an input).
+constexpr int kSettleFrames = 3;
+
+struct Platform {
+    ui::InputQueue queue;
+    int frames_due = kSettleFrames;
+};
+
+Platform& platform_of(GLFWwindow* w) { return *static_cast<Platform*>(glfwGetWindowUserPointer(w)); }
+
+void install_callbacks(GLFWwindow* window) {
+    glfwSetKeyCallback(window, [](GLFWwindow* w, int key, int, int action, int) {
+        Platform& p = platform_of(w);
+        // A held key's repeats change nothing in ImGui's key state, but wake a frame so that
+        // ImGui's own repeat (a held Backspace in a field) advances.
+        if (action != GLFW_REPEAT) p.queue.push(ui::InputEvent::key(key, action == GLFW_PRESS));
+        p.frames_due = kSettleFrames;
+    });
+    glfwSetCharCallback(window, [](GLFWwindow* w, unsigned c) {
+        platform_of(w).queue.push(ui::InputEvent::character(c));
+    });
+    glfwSetMouseButtonCallback(window, [](GLFWwindow* w, int button, int action, int) {
+        platform_of(w).queue.push(ui::InputEvent::button(button, action == GLFW_PRESS));
+    });
+    glfwSetCursorPosCallback(window, [](GLFWwindow* w, double x, double y) {
+        platform_of(w).queue.push(ui::InputEvent::cursor(static_cast<float>(x), static_cast<float>(y)));
+    });
+    glfwSetCursorEnterCallback(window, [](GLFWwindow* w, int entered) {
+        if (!entered) platform_of(w).queue.push(ui::InputEvent::cursor(-FLT_MAX, -FLT_MAX));
+    });
+    glfwSetScrollCallback(window, [](GLFWwindow* w, double x, double y) {
+        platform_of(w).queue.push(ui::InputEvent::scroll(static_cast<float>(x), static_cast<float>(y)));
+    });
+    glfwSetWindowFocusCallback(window, [](GLFWwindow* w, int focused) {
+        platform_of(w).queue.push(ui::InputEvent::focus(focused != 0));
+    });
+    glfwSetWindowRefreshCallback(window, [](GLFWwindow* w) { platform_of(w).frames_due = kSettleFrames; });
+    glfwSetFramebufferSizeCallback(window, [](GLFWwindow* w, int, int) { platform_of(w).frames_due = kSettleFrames; });
+}
+
+void set_clipboard(void* window, const char* text) { glfwSetClipboardString(static_cast<GLFWwindow*>(window), text); }
+const char* get_clipboard(void* window) { return glfwGetClipboardString(static_cast<GLFWwindow*>(window)); }
+
+}  // namespace
 
 int run_window(const Layout& layout, const std::optional<std::filesystem::path>& path, const WindowOptions& options,
                std::ostream& err) {
     auto doc = std::make_unique<edit::Document>(layout, path);
-    const std::string title = doc->title();
     if (!glfwInit()) {
         err << "rendezvous: error: cannot open a window (no display?); use `rendezvous render` for files\n";
         return 2;
     }
     glfwWindowHint(GLFW_CONTEXT_VERSION_MAJOR, 2);
     glfwWindowHint(GLFW_CONTEXT_VERSION_MINOR, 1);
-    GLFWwindow* window = glfwCreateWindow(options.width, options.height, ("Rendezvous — " + title).c_str(), nullptr, nullptr);
+    std::string title = ui::window_title(*doc);
+    GLFWwindow* window = glfwCreateWindow(options.width, options.height, title.c_str(), nullptr, nullptr);
     if (!window) {
         glfwTerminate();
         err << "rendezvous: error: cannot create a window with an OpenGL 2.1 context\n";
@@ -44,6 +98,8 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
     }
     glfwMakeContextCurrent(window);
     glfwSwapInterval(1);
+    Platform platform;
+    glfwSetWindowUserPointer(window, &platform);
 
     ui::ViewerState state;
     state.doc = doc.get();
@@ -63,7 +119,8 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
     // the program was started from; ImGui opens no file (IniFilename null): the program reads
     // the text and writes it through write_file_safely when ImGui asks (edit/window_settings.hpp).
     const std::filesystem::path settings_file = edit::window_settings_path();
-    ImGui::GetIO().IniFilename = nullptr;
+    ImGuiIO& io = ImGui::GetIO();
+    io.IniFilename = nullptr;
     if (const std::string settings = edit::load_window_settings(settings_file); !settings.empty())
         ImGui::LoadIniSettingsFromMemory(settings.data(), settings.size());
     const auto save_settings = [&] {
@@ -74,55 +131,72 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
         ImGui::GetIO().WantSaveIniSettings = false;
     };
     render::Texture font;
-    render::configure_context(font);
-    ImGui_ImplGlfw_InitForOther(window, true);
+    render::configure_context(font);  // the key map: GLFW's key codes (ui/keys.hpp)
+    io.BackendPlatformName = "rendezvous_glfw";
+    io.SetClipboardTextFn = set_clipboard;
+    io.GetClipboardTextFn = get_clipboard;
+    io.ClipboardUserData = window;
+    install_callbacks(window);
 
     GLuint texture = 0;
     glGenTextures(1, &texture);
     int tex_w = 0, tex_h = 0;
-    for (int frame = 0; !state.quit; ++frame) {
-        if (options.quit_after_frames > 0 && frame >= options.quit_after_frames) break;
-        glfwPollEvents();
+    double last_frame_s = glfwGetTime();
+    const bool continuous = options.quit_after_frames > 0;  // tests: N frames one after another
+    for (int frame = 0; !state.quit; ) {
+        if (continuous && frame >= options.quit_after_frames) break;
+        // Idle: wait for an event, or until the next thing due (the status line's message
+        // expires, the autosave of unsaved edits); a wake with nothing to do draws nothing.
+        if (!continuous && platform.frames_due == 0 && platform.queue.empty()) {
+            // ImGui's clock stands still between frames: the message's time left, less the time since.
+            const auto message_left_s = [&] { return ui::status_seconds_left(state) - (glfwGetTime() - last_frame_s); };
+            double wait_s = message_left_s();
+            if (doc->dirty()) wait_s = std::min(wait_s, last_autosave_s + 30.0 - glfwGetTime());
+            glfwWaitEventsTimeout(std::clamp(wait_s, 0.001, 30.0));
+            if (!state.status_line.text.empty() && message_left_s() <= 0) platform.frames_due = std::max(platform.frames_due, 1);
+        } else {
+            glfwPollEvents();
+        }
         if (glfwWindowShouldClose(window)) {  // the close box: ask first when there are unsaved changes
             glfwSetWindowShouldClose(window, GLFW_FALSE);
-            if (doc->dirty()) state.close_requested = true;
-            else break;
+            ui::request_quit(state);
+            if (state.quit) break;
+            platform.frames_due = kSettleFrames;
         }
         if (glfwGetTime() - last_autosave_s > 30.0) {
             std::string error;
-            if (!doc->autosave(error)) state.editor.status = error;
+            if (!doc->autosave(error)) state.editor.status = error, platform.frames_due = kSettleFrames;
             last_autosave_s = glfwGetTime();
         }
         if (state.open_request) {  // File ▸ Open or a recent file
             const std::string file = *state.open_request;
             state.open_request.reset();
-            const LayoutReadResult r = read_layout_file(file);
-            if (doc->dirty()) {
-                state.editor.status = "unsaved changes: save or undo them before opening another layout";
-            } else if (!r.layout) {
-                state.editor.status = r.diagnostics.empty() ? "cannot read " + file : format_diagnostic(r.diagnostics.front(), file);
-            } else {
-                doc = std::make_unique<edit::Document>(*r.layout, std::filesystem::path(file));
-                state.doc = doc.get();
-                state.editor = {};
-                state.inspector = {};
-                state.tools.solve = {};
-                state.tools.previewing.reset();
-                state.tools.tolerance.reset();
-                state.view.reset();
-                state.recent = edit::with_recent(state.recent, file);
-                edit::save_recent(recent_file, state.recent);
-                glfwSetWindowTitle(window, ("Rendezvous — " + doc->title()).c_str());
-                if (std::filesystem::exists(doc->recovery_path())) state.recovery_offer = doc->recovery_path().string();
-            }
+            ui::open_layout(state, doc, file, &recent_file);
+            platform.frames_due = kSettleFrames;
         }
-        ImGui_ImplGlfw_NewFrame();
+        if (!continuous && platform.frames_due == 0 && platform.queue.empty()) continue;
+        if (!platform.queue.empty()) platform.frames_due = kSettleFrames;  // an event still to apply
+        platform.queue.apply_frame(io);
+        --platform.frames_due;
+        ++frame;
+        const unsigned revision_before = doc->revision();
+        const double now_s = glfwGetTime();
+        io.DeltaTime = static_cast<float>(std::max(now_s - last_frame_s, 1e-4));
+        last_frame_s = now_s;
+        int ww = 0, wh = 0, fw = 0, fh = 0;
+        glfwGetWindowSize(window, &ww, &wh);
+        glfwGetFramebufferSize(window, &fw, &fh);
+        io.DisplaySize = ImVec2(static_cast<float>(ww), static_cast<float>(wh));
+        if (ww > 0 && wh > 0) io.DisplayFramebufferScale = ImVec2(static_cast<float>(fw) / ww, static_cast<float>(fh) / wh);
         ImGui::NewFrame();
         ui::draw_document_frame(state);
         ImGui::Render();
-        if (ImGui::GetIO().WantSaveIniSettings) save_settings();  // set by ImGui a few seconds after a change
-        int fw = 0, fh = 0;
-        glfwGetFramebufferSize(window, &fw, &fh);
+        if (doc->revision() != revision_before) platform.frames_due = kSettleFrames;  // the drawing follows the change
+        if (const std::string now_title = ui::window_title(*doc); now_title != title) {  // the unsaved mark
+            title = now_title;
+            glfwSetWindowTitle(window, title.c_str());
+        }
+        if (io.WantSaveIniSettings) save_settings();  // set by ImGui a few seconds after a change
         if (fw <= 0 || fh <= 0) continue;
         render::Framebuffer fb(fw, fh);
         fb.clear(255, 255, 255);
@@ -156,12 +230,13 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
             state.export_request.reset();
             const std::string error = render::export_document(*doc, req.path, req.svg, options.threads);
             state.editor.status = error.empty() ? "exported " + req.path : error;
+            platform.frames_due = kSettleFrames;
         }
     }
     save_settings();
     glDeleteTextures(1, &texture);
-    ImGui_ImplGlfw_Shutdown();
     ImGui::DestroyContext();
+    glfwSetWindowUserPointer(window, nullptr);
     glfwDestroyWindow(window);
     glfwTerminate();
     return 0;

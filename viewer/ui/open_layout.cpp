@@ -1,0 +1,65 @@
+// Switching the window to another layout file: reading it, and a fresh state for every panel.
+#include <imgui.h>
+
+#include <cstdio>
+#include <filesystem>
+
+#include "edit/recent_files.hpp"
+#include "io/layout_reader.hpp"
+#include "ui/frame.hpp"
+
+namespace rv::ui {
+
+void reset_panels(ViewerState& st) {
+    const bool snap = st.editor.snap;
+    st.editor = {};
+    st.editor.snap = snap;
+    st.inspector = {};
+    std::vector<CatalogLens> catalog = std::move(st.tools.catalog);
+    st.tools = {};
+    st.tools.catalog = std::move(catalog);
+    if (st.doc) {  // the sweep field names this layout's stage, not the previous file's
+        for (const Element& e : st.doc->layout().elements)
+            if (std::holds_alternative<Stage>(e.kind)) {
+                std::snprintf(st.tools.sweep_field, sizeof st.tools.sweep_field, "%s.position_mm", e.id.c_str());
+                break;
+            }
+    }
+    st.view.reset();
+    st.finding_rects.clear();
+    st.open_save_as = st.export_dialog = st.sheet_dialog = st.open_dialog = false;
+    st.export_request.reset();
+    st.open_request.reset();
+    st.recovery_offer.reset();
+    st.close_requested = false;
+    st.last_action.reset();
+    st.status_line = {};
+    st.cursor_mm.reset();
+}
+
+bool open_layout(ViewerState& st, std::unique_ptr<edit::Document>& doc, const std::string& file,
+                 const std::filesystem::path* recent_file) {
+    if (doc && doc->dirty()) {
+        st.editor.status = "not opened " + file + ": unsaved changes; save or undo them first";
+        return false;
+    }
+    const LayoutReadResult r = read_layout_file(file);
+    if (!r.layout) {
+        std::string why;
+        for (const Diagnostic& d : r.diagnostics) why += (why.empty() ? "" : "\n") + format_diagnostic(d, file);
+        st.editor.status = why.empty() ? "cannot read " + file : why;
+        return false;
+    }
+    doc = std::make_unique<edit::Document>(*r.layout, std::filesystem::path(file));
+    st.doc = doc.get();
+    reset_panels(st);
+    st.recent = edit::with_recent(st.recent, file);
+    if (recent_file) edit::save_recent(*recent_file, st.recent);
+    if (std::filesystem::exists(doc->recovery_path())) st.recovery_offer = doc->recovery_path().string();
+    st.editor.status = "opened " + file;
+    return true;
+}
+
+std::string window_title(const edit::Document& doc) { return "Rendezvous — " + doc.title(); }
+
+}  // namespace rv::ui
