@@ -58,7 +58,7 @@ TEST_CASE("the SHG demo is realistic and its figures scale as published", "[repo
     for (const rv::BIntegralReport& b : r.b_integral)
         if (b.in_crystal) b_crystal = b.b_rad;
     REQUIRE(b_crystal > 0);
-    layout.beams[0].power_mw = 4000;  // the demo gives 2000 mW
+    layout.beams[0].power_mw = 2 * layout.beams[0].power_mw.value();
     const rv::RendezvousReport r2 = rv::build_report(layout, rv::MaterialLibrary::builtin());
     REQUIRE(r2.generated);
     CHECK_THAT(r2.generated->average_mw_best, near_rel(4 * r.generated->average_mw_best, 1e-9));
