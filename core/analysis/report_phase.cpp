@@ -43,24 +43,6 @@ MixingType mixing_type(const Material& m, const Crystal& c, double l1, double l2
     return first.value_or(candidates.front());
 }
 
-const char* type_text(MixingType t) {
-    switch (t) {
-        case MixingType::TypeI:
-            return "type-I (ooe)";
-        case MixingType::TypeI_BBA:
-            return "type-I (eeo)";
-        case MixingType::TypeII_ABB:
-            return "type-II (oee)";
-        case MixingType::TypeII_BAB:
-            return "type-II (eoe)";
-        case MixingType::TypeII_ABA:
-            return "type-II (oeo)";
-        case MixingType::TypeII_BAA:
-            return "type-II (eoo)";
-    }
-    return "";
-}
-
 // The fraction of a beam's power at the target in the crystal's A (ordinary) wave: from the
 // traced polarization when the power trace ran, else from the source's.
 double a_fraction_at_target(const ReportBeam& b, const BeamSource& src, const Crystal& xc) {
@@ -88,7 +70,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const PrincipalPlane plane = xc.principal_plane;
     const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
     r.mixing = type;
-    r.type = type_text(type);
+    r.type = mixing_type_label(type);
     const WavePolarities w = polarities(type);
     r.first_needs_a = w.wave1 == Polarity::A;
     r.second_needs_a = w.wave2 == Polarity::A;

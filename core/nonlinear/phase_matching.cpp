@@ -63,6 +63,24 @@ WavePolarities polarities(MixingType type) {
     return {P::A, P::A, P::B};
 }
 
+const char* mixing_type_label(MixingType t) {
+    switch (t) {
+        case MixingType::TypeI:
+            return "type-I (ooe)";
+        case MixingType::TypeI_BBA:
+            return "type-I (eeo)";
+        case MixingType::TypeII_ABB:
+            return "type-II (oee)";
+        case MixingType::TypeII_BAB:
+            return "type-II (eoe)";
+        case MixingType::TypeII_ABA:
+            return "type-II (oeo)";
+        case MixingType::TypeII_BAA:
+            return "type-II (eoo)";
+    }
+    return "";
+}
+
 double sum_frequency_nm(double l1, double l2) { return 1.0 / (1.0 / l1 + 1.0 / l2); }
 
 WaveIndex wave_index(const Material& m, double nm, Polarity pol, double angle, PrincipalPlane plane) {

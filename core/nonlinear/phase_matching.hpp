@@ -41,6 +41,9 @@ struct WavePolarities {
     Polarity wave1, wave2, wave3;
 };
 WavePolarities polarities(MixingType type);
+// The trade's name of a type with its polarity triple (o = A, e = B; inputs, then the output):
+// "type-I (ooe)", "type-II (eoe)" …
+const char* mixing_type_label(MixingType type);
 
 double sum_frequency_nm(double lambda1_nm, double lambda2_nm);
 
