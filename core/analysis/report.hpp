@@ -11,6 +11,7 @@
 #include "analysis/report_output.hpp"
 #include "analysis/pulse_intensity.hpp"
 #include "analysis/target_summary.hpp"
+#include "analysis/verdict_line.hpp"
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
 #include "analysis/crystal_angle.hpp"
@@ -146,14 +147,9 @@ struct FocusingReport {
     double focal_length_scale = 0;  // w0(optimum)/w0(now): the focusing lens's f scales by it
 };
 
-struct VerdictLine {
-    bool applies = true;  // false when the question does not arise (phase without a crystal)
-    bool met = false;     // only when it applies
-    std::string summary;  // the number behind it, or why it does not apply
-    std::string action;   // what to do ("" when met or not applicable)
-};
-// What `report --check` asks of each line: met, or not applicable. (The words for a line, an
-// advice and the light after the target: report/report_words.hpp.)
+// What `report --check` asks of each line (analysis/verdict_line.hpp): met, or not applicable.
+// (The words for a line: report/verdict_words.hpp; for an advice and the light after the
+// target: report/report_words.hpp.)
 bool verdict_passes(const VerdictLine& l);
 
 // One figure behind the verdict with its limit (goals.verdict): met within the limit, near

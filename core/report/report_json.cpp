@@ -5,6 +5,8 @@
 #include "report/report_output_format.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
+#include "report/verdict_json.hpp"
+#include "report/verdict_words.hpp"
 
 namespace rv {
 
@@ -109,11 +111,17 @@ json overlap_json(const OverlapReport& o, bool target_is_crystal) {
 }  // namespace
 
 // `met` is null when the line does not apply (`applies` false: phase without a crystal).
+// `summary` and `action` are the line's words (report/verdict_words.hpp); `reading` and
+// `actions` the same as data (report/verdict_json.hpp).
 void to_json(json& j, const VerdictLine& l) {
+    json actions = json::array();
+    for (const VerdictAction& a : l.actions) actions.push_back(verdict_action_json(a));
     j = {{"applies", l.applies},
          {"met", l.applies ? json(l.met) : json(nullptr)},
-         {"summary", l.summary},
-         {"action", optional_text(l.action)}};
+         {"summary", verdict_reading_text(l.reading)},
+         {"action", optional_text(verdict_actions_text(l))},
+         {"reading", verdict_reading_json(l.reading)},
+         {"actions", actions}};
 }
 
 void to_json(json& j, const Verdict& v) {

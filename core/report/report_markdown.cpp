@@ -5,6 +5,7 @@
 #include "report/report_output_format.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
+#include "report/verdict_words.hpp"
 #include "units/number_text.hpp"
 
 namespace rv {
@@ -25,8 +26,8 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
     for (const auto& [name, line] :
          {std::pair{"space", &r.verdict.space}, std::pair{"time", &r.verdict.time},
           std::pair{"phase", &r.verdict.phase}})
-        out << "| " << name << " | " << verdict_state_text(*line) << " | " << line->summary << " | "
-            << line->action << " |\n";
+        out << "| " << name << " | " << verdict_state_text(*line) << " | " << verdict_reading_text(line->reading)
+            << " | " << verdict_actions_text(*line) << " |\n";
     out << "\n## At the target\n\n| beam | λ (nm) | path (mm) | arrival (ps) | waist t/s (µm) | "
            "waist offset t/s (mm) | Rayleigh t/s (mm) |\n"
         << "|---|---|---|---|---|---|---|\n";

@@ -7,6 +7,7 @@
 #include "report/report_output_format.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
+#include "report/verdict_words.hpp"
 #include "units/number_text.hpp"
 
 namespace rv {
@@ -219,7 +220,8 @@ std::string verdict_text(const Verdict& v, bool with_actions) {
          {std::pair{"space", &v.space}, std::pair{"time", &v.time}, std::pair{"phase", &v.phase}}) {
         text += "  " + std::string(name) + std::string(7 - std::string(name).size(), ' ') +
                 verdict_line_text(*line) + "\n";
-        if (with_actions && !line->action.empty()) text += "         -> " + line->action + "\n";
+        const std::string action = verdict_actions_text(*line);
+        if (with_actions && !action.empty()) text += "         -> " + action + "\n";
     }
     return text;
 }

@@ -1,6 +1,7 @@
 #include "report/report_words.hpp"
 
 #include "findings/finding.hpp"
+#include "report/verdict_words.hpp"
 #include "units/number_text.hpp"
 
 namespace rv {
@@ -50,7 +51,7 @@ const char* verdict_state_text(const VerdictLine& l) {
 }
 
 std::string verdict_line_text(const VerdictLine& l) {
-    return std::string(verdict_state_text(l)) + (l.applies ? "  " : " — ") + l.summary;
+    return std::string(verdict_state_text(l)) + (l.applies ? "  " : " — ") + verdict_reading_text(l.reading);
 }
 
 }  // namespace rv

@@ -5,6 +5,7 @@
 #include "materials/dispersion.hpp"
 #include "nonlinear/phase_matching.hpp"
 #include "report/report_words.hpp"
+#include "report/verdict_words.hpp"
 #include "units/constants.hpp"
 
 #include <cmath>
@@ -99,9 +100,7 @@ TEST_CASE("turning the crystal as advised phase-matches it", "[report][phase]") 
         CHECK_THAT(theta, near(p.theta_pm_deg, 2e-3));
         const rv::Material& bbo = *rv::MaterialLibrary::builtin().find("BBO");
         const double dkl = rv::delta_k_per_mm(bbo, 1030, 780, rv::MixingType::TypeI, rv::deg_to_rad(theta)) * x.length_mm;
-        // sinc²(ΔkL/2), 1 at ΔkL = 0 exactly (the default set's closed form can land there).
-        const double half_dkl = dkl / 2;
-        CHECK((half_dkl == 0 ? 1.0 : std::pow(std::sin(half_dkl) / half_dkl, 2)) > 0.999);
+        CHECK(std::pow(std::sin(dkl / 2) / (dkl / 2), 2) > 0.999);
         CHECK(after.verdict.phase.met);
     }
 }
@@ -196,7 +195,8 @@ TEST_CASE("a verdict line that does not apply says n/a and passes the check", "[
     CHECK_FALSE(phase.applies);
     CHECK(std::string(rv::verdict_state_text(phase)) == "n/a");
     CHECK(rv::verdict_line_text(phase) == "n/a — the target is not a crystal");
-    CHECK(phase.action.empty());
+    CHECK(phase.actions.empty());
+    CHECK(std::holds_alternative<rv::verdict_reading::TargetNotCrystal>(phase.reading));
     CHECK(rv::verdict_passes(phase));
     CHECK(microscope.verdict.time.applies);
 
@@ -225,6 +225,49 @@ TEST_CASE("a delay above 10 ps is said in ps in the time verdict", "[report][ver
     CHECK_THAT(delay_fs - before_fs, near(52000, 1e-6));
     char expected[64];
     std::snprintf(expected, sizeof expected, "delay %+.3f ps = ", delay_fs * 1e-3);
-    CHECK(r.verdict.time.summary.rfind(expected, 0) == 0);
-    CHECK(r.verdict.time.summary.find(" fs = ") == std::string::npos);
+    const std::string summary = rv::verdict_reading_text(r.verdict.time.reading);
+    CHECK(summary.rfind(expected, 0) == 0);
+    CHECK(summary.find(" fs = ") == std::string::npos);
+}
+
+TEST_CASE("applying the verdict's actions, read as data, meets the time and phase lines",
+          "[report][verdict]") {
+    // Findings are data: a program can follow the advice without reading its words. The demo's
+    // time line asks for a stage move and its phase line for a crystal tilt; doing exactly what
+    // the actions say must meet both lines on the re-run.
+    rv::Layout l = demo();
+    const rv::RendezvousReport r = report(l);
+    REQUIRE_FALSE(r.verdict.time.met);
+    REQUIRE_FALSE(r.verdict.phase.met);
+    REQUIRE(r.verdict.time.actions.size() == 1);
+    const auto* move = std::get_if<rv::verdict_action::MoveStage>(&r.verdict.time.actions[0]);
+    REQUIRE(move);
+    auto& stage = std::get<rv::Stage>(element(l, move->stage).kind);
+    CHECK_THAT(move->to_mm - stage.position_mm, near(move->move_mm, 1e-9));
+    stage.position_mm = move->to_mm;
+    bool turned = false;
+    for (const rv::VerdictAction& a : r.verdict.phase.actions)
+        if (const auto* turn = std::get_if<rv::verdict_action::RotateCrystal>(&a)) {
+            CHECK(turn->process_key == "sfg");
+            if (turn->rotation == rv::CrystalRotation::Turn)
+                element(l, r.target).normal_deg -= turn->by_deg;
+            else  // a tilt of + by_deg raises the face normal: tilt_deg grows by it
+                std::get<rv::Crystal>(element(l, r.target).kind).tilt_deg += turn->by_deg;
+            turned = true;
+        }
+    REQUIRE(turned);
+    const rv::RendezvousReport after = report(l);
+    CHECK(after.verdict.time.met);
+    CHECK(after.verdict.phase.met);
+    CHECK(after.verdict.time.actions.empty());
+    CHECK(after.verdict.phase.actions.empty());
+    // The reading carries the figures the line is judged by.
+    const auto* delay = std::get_if<rv::verdict_reading::Delay>(&after.verdict.time.reading);
+    REQUIRE(delay);
+    CHECK(delay->delay_fs == after.mismatch->delay_fs);
+    const auto* angles = std::get_if<rv::verdict_reading::PhaseAngles>(&after.verdict.phase.reading);
+    REQUIRE(angles);
+    CHECK(angles->sinc2 == after.phase_matching.front().sinc2_now);
+    CHECK(angles->process.first_beam == "pump");
+    CHECK(angles->process.second_beam == "signal");
 }

@@ -54,7 +54,8 @@ check("phase  met" not in text, "text: phase not 'met'")
 markdown = run("report", microscope, "--markdown").stdout
 check("| phase | n/a | the target is not a crystal |  |\n" in markdown, "markdown: phase n/a row")
 phase = report_json(microscope).get("verdict", {}).get("phase")
-check(phase == {"applies": False, "met": None, "summary": "the target is not a crystal", "action": None},
+check(phase == {"applies": False, "met": None, "summary": "the target is not a crystal", "action": None,
+                "reading": {"code": "target_not_crystal"}, "actions": []},
       f"json: verdict.phase (got {phase})")
 sfg_report = report_json(sfg)
 sfg_phase = sfg_report.get("verdict", {}).get("phase", {})

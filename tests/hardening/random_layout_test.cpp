@@ -12,6 +12,7 @@
 #include "io/layout_reader.hpp"
 #include "io/layout_writer.hpp"
 #include "report/report_words.hpp"
+#include "report/verdict_words.hpp"
 #include "support/tolerance.hpp"
 
 namespace {
@@ -72,9 +73,11 @@ bool has_non_finite_text(const std::string& s) {
 }
 
 std::vector<std::string> report_texts(const rv::RendezvousReport& r) {
-    std::vector<std::string> t = {r.verdict.space.summary, r.verdict.space.action,
-                                  r.verdict.time.summary,  r.verdict.time.action,
-                                  r.verdict.phase.summary, r.verdict.phase.action};
+    std::vector<std::string> t;
+    for (const rv::VerdictLine* l : {&r.verdict.space, &r.verdict.time, &r.verdict.phase}) {
+        t.push_back(rv::verdict_reading_text(l->reading));
+        t.push_back(rv::verdict_actions_text(*l));
+    }
     for (const rv::Finding& f : r.findings) t.push_back(rv::finding_line(f));
     for (const rv::ReportBeam& b : r.beams) t.push_back(rv::after_target_text(b));
     for (const rv::PhaseMatchingReport& p : r.phase_matching) t.push_back(p.polarization_note);

@@ -8,6 +8,7 @@
 #include "analysis/report.hpp"
 #include "findings/finding.hpp"
 #include "report/report_json.hpp"
+#include "report/verdict_words.hpp"
 #include "report/report_markdown.hpp"
 #include "report/report_text.hpp"
 #include "report/safety_cautions.hpp"
@@ -40,11 +41,16 @@ void check_line(const json& j, const rv::VerdictLine& l) {
         CHECK(j.at("met").get<bool>() == l.met);
     else
         CHECK(j.at("met").is_null());
-    CHECK(j.at("summary").get<std::string>() == l.summary);
-    if (l.action.empty())
+    CHECK(j.at("summary").get<std::string>() == rv::verdict_reading_text(l.reading));
+    const std::string action = rv::verdict_actions_text(l);
+    if (action.empty())
         CHECK(j.at("action").is_null());
     else
-        CHECK(j.at("action").get<std::string>() == l.action);
+        CHECK(j.at("action").get<std::string>() == action);
+    // The same as data: a code for the reading, one entry with a code per action.
+    CHECK(j.at("reading").at("code").is_string());
+    REQUIRE(j.at("actions").size() == l.actions.size());
+    for (const json& a : j.at("actions")) CHECK(a.at("code").is_string());
 }
 
 void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout) {
@@ -231,9 +237,10 @@ TEST_CASE("the text and Markdown reports print every verdict line finding and ca
         const rv::RendezvousReport r = rv::build_report(layout, rv::material_library_for(layout));
         const std::string text = rv::report_text(r), markdown = rv::report_markdown(r);
         for (const rv::VerdictLine* l : {&r.verdict.space, &r.verdict.time, &r.verdict.phase}) {
-            CHECK(text.find(l->summary) != std::string::npos);
-            CHECK(markdown.find(l->summary) != std::string::npos);
-            CHECK(text.find(l->action) != std::string::npos);
+            const std::string summary = rv::verdict_reading_text(l->reading);
+            CHECK(text.find(summary) != std::string::npos);
+            CHECK(markdown.find(summary) != std::string::npos);
+            CHECK(text.find(rv::verdict_actions_text(*l)) != std::string::npos);
         }
         for (const rv::Finding& f : r.findings) {
             CHECK(text.find(rv::finding_line(f)) != std::string::npos);

@@ -5,6 +5,7 @@
 #include "polarization/polarization_model.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
+#include "report/verdict_words.hpp"
 #include "units/number_text.hpp"
 
 namespace rv::ui {
@@ -22,8 +23,9 @@ void verdict_line(const char* name, const VerdictLine& l) {
         return;
     }
     ImGui::TextColored(colour, "%-6s %s", name, verdict_state_text(l));
-    ImGui::TextWrapped("%s", l.summary.c_str());
-    if (!l.action.empty()) ImGui::TextWrapped("-> %s", l.action.c_str());
+    ImGui::TextWrapped("%s", verdict_reading_text(l.reading).c_str());
+    const std::string action = verdict_actions_text(l);
+    if (!action.empty()) ImGui::TextWrapped("-> %s", action.c_str());
     ImGui::Spacing();
 }
 
