@@ -129,7 +129,7 @@ const MaterialLibrary& MaterialLibrary::builtin() {
         Data data;
         data.materials = published_sets();
         data.aliases = {{"CaF2", "CaF2:Malitson1963"}, {"air", "air:Ciddor1996"},
-                        {"BBO", "BBO:Kato1986"},       {"LBO", "LBO:Chen1989"},
+                        {"BBO", "BBO:Tamosauskas2018"}, {"LBO", "LBO:Chen1989"},
                         {"KTP", "KTP:Kato2002"},       {"quartz", "quartz:Ghosh1999"},
                         {"MgF2", "MgF2:Dodge1984"}};
         lib.data_ = std::make_shared<const Data>(std::move(data));

@@ -1,7 +1,7 @@
 #pragma once
 // The built-in dispersion library and lookup by the names layout files use.
 //
-// Names: a family name gives its default set ("BBO" → "BBO:Kato1986"); a specific set is
+// Names: a family name gives its default set ("BBO" → "BBO:Tamosauskas2018"); a specific set is
 // "FAMILY:SET" ("BBO:Eimerl1987"). User-defined materials are added by id. The library is a
 // value: adding a material returns a new library, the built-in one never changes.
 

@@ -69,8 +69,14 @@ TEST_CASE("BBO ordinary and extraordinary indices in four published sets", "[mat
         CHECK_THAT(n_at(r.set, 1064, rv::Axis::Ordinary), near(1.65, 0.006));
         CHECK_THAT(n_at(r.set, 1064, rv::Axis::Extraordinary), near(1.54, 0.006));
     }
-    // The family name selects Kato 1986 by default.
-    CHECK(rv::MaterialLibrary::builtin().find("BBO")->name == "BBO:Kato1986");
+    // The family name selects Tamošauskas 2018 by default: its published range (0.188–5.2 µm)
+    // covers the common lines and their harmonics (issue 16 §7), where Kato 1986 (to 1.06 µm)
+    // leaves 1064 nm outside.
+    const rv::Material& bbo = *rv::MaterialLibrary::builtin().find("BBO");
+    CHECK(bbo.name == "BBO:Tamosauskas2018");
+    for (double nm : {213.0, 266.0, 400.0, 515.0, 532.0, 800.0, 1030.0, 1064.0, 1550.0, 2000.0})
+        CHECK(rv::covers(bbo, nm));
+    CHECK_FALSE(rv::covers(material("BBO:Kato1986"), 1064.0));
 }
 
 TEST_CASE("LBO and KTP principal indices at 1064 nm", "[materials]") {
