@@ -30,8 +30,7 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
     r.stage = s::stage_of(layout, library, r.beams);
     if (s::nonlinear_material(library, target)) {
         s::add_phase_matching(layout, library, target, r);
-        for (std::string& line : s::invisible_outputs(r.phase_matching))
-            r.invisible.push_back(std::move(line));
+        for (InvisibleLight& light : s::invisible_outputs(r)) r.invisible.push_back(std::move(light));
         r.polarization = s::polarization_advice(layout, library, *target.crystal, r);
         r.focusing = s::focusing(*target.crystal, r);
         r.generated = s::generated_light(layout, library, target, r);
@@ -45,6 +44,11 @@ std::string process_key(const Layout& layout, const PhaseMatchingReport& p) {
     return *format_process_text(
         p.sum_frequency ? Crystal::Process::SumFrequency : Crystal::Process::SecondHarmonic,
         layout.beams[p.first_beam].id);
+}
+
+ProcessBeams process_beams(const RendezvousReport& r, const PhaseMatchingReport& p) {
+    return {p.sum_frequency, r.beams[p.first_beam].id,
+            p.sum_frequency ? r.beams[p.second_beam].id : std::string()};
 }
 
 bool verdict_passes(const VerdictLine& l) {

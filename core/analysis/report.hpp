@@ -175,6 +175,17 @@ struct MaterialDataReport {
     std::vector<std::string> used_by;  // the element ids ("air": the beams' paths)
 };
 
+// Light the eye does not see, for the safety block (its words: report/report_words.hpp).
+// Outside 400–700 nm the eye does not see the beam; 700–1400 nm still reaches the retina
+// (IEC 60825-1's retinal hazard region, common practice).
+struct InvisibleLight {
+    enum class Band { Ultraviolet, NearInfrared, Infrared };
+    Band band = Band::Infrared;
+    double wavelength_nm = 0;
+    std::string beam;                     // a beam's id; empty for a generated wave
+    std::optional<ProcessBeams> process;  // the process that generates it
+};
+
 struct RendezvousReport {
     std::string layout_name, target;
     bool target_is_crystal = false;
@@ -200,12 +211,14 @@ struct RendezvousReport {
     // Every finding of the trace, the propagation and the report, each with its beam (JSON
     // `warnings`, the command `check` and the viewer's list all show exactly these).
     std::vector<Finding> findings;
-    std::vector<std::string> invisible;  // "1030 nm (pump): near infrared" …
+    std::vector<InvisibleLight> invisible;  // beams first, then the generated waves
 };
 
 RendezvousReport build_report(const Layout& layout, const MaterialLibrary& library);
 
 // The file's and the command line's name of a process: "sfg" or "shg:BEAM".
 std::string process_key(const Layout& layout, const PhaseMatchingReport& p);
+// A process's beams by id (its words: report/verdict_words.hpp, process_beams_text).
+ProcessBeams process_beams(const RendezvousReport& r, const PhaseMatchingReport& p);
 
 }  // namespace rv

@@ -2,22 +2,21 @@
 // the file gives for its target (the maker's figure; analysis/pulse_intensity.hpp for the
 // formulas), and which wavelengths are invisible. Never an exposure limit.
 #include <cmath>
+#include <optional>
 
 #include "analysis/report_sections.hpp"
 #include "units/constants.hpp"
-#include "units/number_text.hpp"
 
 namespace rv::report_sections {
 
 namespace {
 
-// Outside 400–700 nm the eye does not see the beam; 700–1400 nm still reaches the retina
-// (IEC 60825-1's retinal hazard region, common practice).
-std::string invisible_kind(double nm) {
-    if (nm < 400) return "ultraviolet";
-    if (nm > 1400) return "infrared";
-    if (nm > 700) return "near infrared, reaches the retina";
-    return "";
+// The band of a wavelength the eye does not see (InvisibleLight), none inside 400–700 nm.
+std::optional<InvisibleLight::Band> invisible_band(double nm) {
+    if (nm < 400) return InvisibleLight::Band::Ultraviolet;
+    if (nm > 1400) return InvisibleLight::Band::Infrared;
+    if (nm > 700) return InvisibleLight::Band::NearInfrared;
+    return std::nullopt;
 }
 
 }  // namespace
@@ -54,19 +53,19 @@ std::vector<Finding> damage_findings(const Layout& layout, const ReportBeam& b,
     return found;
 }
 
-std::vector<std::string> invisible_beams(const std::vector<ReportBeam>& beams) {
-    std::vector<std::string> out;
+std::vector<InvisibleLight> invisible_beams(const std::vector<ReportBeam>& beams) {
+    std::vector<InvisibleLight> out;
     for (const ReportBeam& b : beams)
-        if (const std::string kind = invisible_kind(b.wavelength_nm); !kind.empty())
-            out.push_back(format_number("%.0f nm", b.wavelength_nm) + " (" + b.id + "): " + kind);
+        if (const auto band = invisible_band(b.wavelength_nm))
+            out.push_back({*band, b.wavelength_nm, b.id, std::nullopt});
     return out;
 }
 
-std::vector<std::string> invisible_outputs(const std::vector<PhaseMatchingReport>& processes) {
-    std::vector<std::string> out;
-    for (const PhaseMatchingReport& p : processes)
-        if (const std::string kind = invisible_kind(p.output_nm); !kind.empty())
-            out.push_back(format_number("%.1f nm", p.output_nm) + " (" + p.process + "): " + kind);
+std::vector<InvisibleLight> invisible_outputs(const RendezvousReport& r) {
+    std::vector<InvisibleLight> out;
+    for (const PhaseMatchingReport& p : r.phase_matching)
+        if (const auto band = invisible_band(p.output_nm))
+            out.push_back({*band, p.output_nm, std::string(), process_beams(r, p)});
     return out;
 }
 

@@ -38,11 +38,11 @@ std::vector<ReportBeam> trace_beams(const Layout& layout, const MaterialLibrary&
                                     bool with_power);
 
 // report_safety.cpp: peak intensity and fluence against the target's damage threshold; the
-// beams' invisible wavelengths and the processes' invisible outputs ("1030 nm (pump): …").
+// beams' invisible wavelengths and the processes' invisible outputs.
 std::vector<Finding> damage_findings(const Layout& layout, const ReportBeam& beam,
                                      const TargetElement& target);
-std::vector<std::string> invisible_beams(const std::vector<ReportBeam>& beams);
-std::vector<std::string> invisible_outputs(const std::vector<PhaseMatchingReport>& processes);
+std::vector<InvisibleLight> invisible_beams(const std::vector<ReportBeam>& beams);
+std::vector<InvisibleLight> invisible_outputs(const RendezvousReport& r);
 
 // report_findings.cpp: coincident optics, then each beam's trace and propagation findings and
 // the report's own (paraxial, unterminated, stray, damage), then thin lenses in the timing.

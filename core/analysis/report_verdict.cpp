@@ -133,12 +133,6 @@ void time_line(const Layout& layout, const MaterialLibrary& library, const Rende
     }
 }
 
-// The beams of a phase-matching process, by id.
-ProcessBeams process_beams(const RendezvousReport& r, const PhaseMatchingReport& p) {
-    return {p.sum_frequency, r.beams[p.first_beam].id,
-            p.sum_frequency ? r.beams[p.second_beam].id : std::string()};
-}
-
 void phase_line(const Layout& layout, const TargetElement& target, const RendezvousReport& r,
                 Verdict& v) {
     const VerdictThresholds& t = layout.goals.verdict;

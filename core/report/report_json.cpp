@@ -14,6 +14,12 @@ namespace {
 
 using nlohmann::json;
 
+std::vector<std::string> invisible_texts(const RendezvousReport& r) {
+    std::vector<std::string> out;
+    for (const InvisibleLight& l : r.invisible) out.push_back(invisible_light_text(l));
+    return out;
+}
+
 json planes(double t, double s) {
     return {{"tangential", t}, {"sagittal", s}};
 }
@@ -280,7 +286,7 @@ void to_json(json& j, const RendezvousReport& r) {
     json unconverted = json::array();
     for (const ReportBeam& b : r.beams) unconverted.push_back(b.id + ": " + after_target_text(b));
     j["safety"] = {
-        {"invisible", r.invisible}, {"unconverted", unconverted}, {"cautions", safety_cautions()}};
+        {"invisible", invisible_texts(r)}, {"unconverted", unconverted}, {"cautions", safety_cautions()}};
 }
 
 }  // namespace rv

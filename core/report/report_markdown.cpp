@@ -110,7 +110,7 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
             out << "- `" << finding_code(f.kind) << "` " << finding_line(f) << "\n";
     }
     out << "\n## Safety\n\n";
-    for (const std::string& s : r.invisible) out << "- Invisible: " << s << "\n";
+    for (const InvisibleLight& s : r.invisible) out << "- Invisible: " << invisible_light_text(s) << "\n";
     for (const ReportBeam& b : r.beams)
         out << "- After the target, " << b.id << ": " << after_target_text(b) << "\n";
     for (const std::string& c : safety_cautions()) out << "- " << c << "\n";

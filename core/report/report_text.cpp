@@ -207,7 +207,7 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
     write_generated_light_text(r, out);
     out << "\nSafety\n";
     write_nonlinear_safety_text(r, out);
-    for (const std::string& s : r.invisible) out << "  invisible: " << s << "\n";
+    for (const InvisibleLight& s : r.invisible) out << "  invisible: " << invisible_light_text(s) << "\n";
     for (const ReportBeam& b : r.beams)
         out << "  after the target, " << b.id << ": " << after_target_text(b) << "\n";
     out << "\nLaser safety\n";

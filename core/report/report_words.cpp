@@ -39,6 +39,15 @@ std::string polarization_advice_text(const PolarizationAdvice& a) {
     return "";
 }
 
+std::string invisible_light_text(const InvisibleLight& light) {
+    const char* band = light.band == InvisibleLight::Band::Ultraviolet    ? "ultraviolet"
+                       : light.band == InvisibleLight::Band::NearInfrared ? "near infrared, reaches the retina"
+                                                                          : "infrared";
+    // A beam's wavelength is the file's (whole nm in practice); a generated one has a decimal.
+    return light.process ? fmt("%.1f nm", light.wavelength_nm) + " (" + process_beams_text(*light.process) + "): " + band
+                         : fmt("%.0f nm", light.wavelength_nm) + " (" + light.beam + "): " + band;
+}
+
 std::string after_target_text(const ReportBeam& b) {
     if (!b.absorbed_in.empty()) return "absorbed in dump " + b.absorbed_in;
     if (b.end_after_target) return finding_text(*b.end_after_target);

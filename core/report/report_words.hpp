@@ -17,6 +17,9 @@ std::string verdict_line_text(const VerdictLine& l);
 std::string needed_polarization_text(const PolarizationAdvice& a);
 std::string polarization_advice_text(const PolarizationAdvice& a);
 
+// "1030 nm (pump): near infrared, reaches the retina", "257.5 nm (SFG of pump + signal): ultraviolet".
+std::string invisible_light_text(const InvisibleLight& light);
+
 // Where a beam's light goes after the target, in words ("absorbed in dump D1", …).
 std::string after_target_text(const ReportBeam& beam);
 

@@ -145,8 +145,13 @@ TEST_CASE("the safety block names the invisible beams and where the light ends",
     // 1030 and 780 nm are near infrared (common practice: 700–1400 nm reaches the retina);
     // the 390 nm second harmonic of the signal is ultraviolet.
     REQUIRE(r.invisible.size() == 3);
-    CHECK(r.invisible[0] == "1030 nm (pump): near infrared, reaches the retina");
-    CHECK(r.invisible[2] == "390.0 nm (SHG of signal): ultraviolet");
+    CHECK(r.invisible[0].band == rv::InvisibleLight::Band::NearInfrared);
+    CHECK(r.invisible[0].beam == "pump");
+    CHECK(r.invisible[2].band == rv::InvisibleLight::Band::Ultraviolet);
+    REQUIRE(r.invisible[2].process);
+    CHECK_THAT(r.invisible[2].wavelength_nm, near(390.0, 1e-9));
+    CHECK(rv::invisible_light_text(r.invisible[0]) == "1030 nm (pump): near infrared, reaches the retina");
+    CHECK(rv::invisible_light_text(r.invisible[2]) == "390.0 nm (SHG of signal): ultraviolet");
     for (const rv::ReportBeam& b : r.beams) CHECK(rv::after_target_text(b) == "absorbed in dump D1");
 }
 

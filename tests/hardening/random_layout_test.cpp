@@ -81,7 +81,7 @@ std::vector<std::string> report_texts(const rv::RendezvousReport& r) {
     for (const rv::Finding& f : r.findings) t.push_back(rv::finding_line(f));
     for (const rv::ReportBeam& b : r.beams) t.push_back(rv::after_target_text(b));
     for (const rv::PhaseMatchingReport& p : r.phase_matching) t.push_back(p.polarization_note);
-    for (const std::string& s : r.invisible) t.push_back(s);
+    for (const rv::InvisibleLight& s : r.invisible) t.push_back(rv::invisible_light_text(s));
     return t;
 }
 

@@ -7,7 +7,10 @@
 #include <utility>
 #include <vector>
 
+#include <nlohmann/json.hpp>
+
 #include "analysis/report.hpp"
+#include "report/verdict_json.hpp"
 
 namespace rv::hardening {
 
@@ -131,6 +134,19 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add(n + ".h_mm", f.h_mm);
         add(n + ".waist_optimum_um", f.waist_optimum_um);
         add(n + ".focal_length_scale", f.focal_length_scale);
+    }
+    // The verdict's readings and actions as data (report/verdict_json.hpp): each number.
+    for (const auto& [name, line] : {std::pair{"space", &r.verdict.space},
+                                     std::pair{"time", &r.verdict.time},
+                                     std::pair{"phase", &r.verdict.phase}}) {
+        const std::string n = std::string("verdict.") + name;
+        auto add_json = [&](const std::string& prefix, const nlohmann::json& j) {
+            for (const auto& [key, value] : j.items())
+                if (value.is_number()) add(prefix + "." + key, value.get<double>());
+        };
+        add_json(n + ".reading", verdict_reading_json(line->reading));
+        for (size_t k = 0; k < line->actions.size(); ++k)
+            add_json(n + ".actions[" + std::to_string(k) + "]", verdict_action_json(line->actions[k]));
     }
     return out;
 }

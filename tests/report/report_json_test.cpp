@@ -10,6 +10,7 @@
 #include "report/report_json.hpp"
 #include "report/verdict_words.hpp"
 #include "report/report_markdown.hpp"
+#include "report/report_words.hpp"
 #include "report/report_text.hpp"
 #include "report/safety_cautions.hpp"
 #include "support/layouts.hpp"
@@ -202,7 +203,9 @@ void check_report_json(const rv::Layout& layout) {
     for (size_t k = 0; k < r.findings.size(); ++k)
         CHECK(j.at("warnings")[k].at("code").get<std::string>() ==
               rv::finding_code(r.findings[k].kind));
-    CHECK(j.at("safety").at("invisible").get<std::vector<std::string>>() == r.invisible);
+    REQUIRE(j.at("safety").at("invisible").size() == r.invisible.size());
+    for (size_t k = 0; k < r.invisible.size(); ++k)
+        CHECK(j.at("safety").at("invisible")[k] == rv::invisible_light_text(r.invisible[k]));
     CHECK(j.at("safety").at("cautions").get<std::vector<std::string>>() == rv::safety_cautions());
     CHECK(j.at("safety").at("unconverted").size() == r.beams.size());
 }
@@ -254,4 +257,25 @@ TEST_CASE("the text and Markdown reports print every verdict line finding and ca
         // The text's verdict block is the shared verdict_text, with the actions.
         CHECK(text.find("Verdict\n" + rv::verdict_text(r.verdict, true)) != std::string::npos);
     }
+}
+
+TEST_CASE("the verdict's actions in the JSON carry the numbers to apply", "[report][json][verdict]") {
+    // A script reads `verdict.time.actions[0]` of the demo and finds the stage and where to set
+    // it: the report's own stage figures (one evaluation), no sentence to parse.
+    const rv::Layout layout = rv::test::bundled_layout("sfg-bbo.json");
+    const rv::RendezvousReport r = rv::build_report(layout, rv::material_library_for(layout));
+    REQUIRE(r.stage);
+    const json j = json::parse(json(r).dump());
+    const json& time = j.at("verdict").at("time");
+    CHECK(time.at("reading").at("code") == "delay");
+    CHECK(time.at("reading").at("delay_fs").get<double>() == r.mismatch->delay_fs);
+    REQUIRE(time.at("actions").size() == 1);
+    const json& move = time.at("actions")[0];
+    CHECK(move.at("code") == "move_stage");
+    CHECK(move.at("stage") == r.stage->id);
+    CHECK(move.at("to_mm").get<double>() == r.stage->zero_delay_mm);
+    CHECK(move.at("move_mm").get<double>() == r.stage->move_mm);
+    const json& phase = j.at("verdict").at("phase");
+    CHECK(phase.at("reading").at("code") == "phase_angles");
+    CHECK(phase.at("reading").at("process").at("beams") == json::array({"pump", "signal"}));
 }
