@@ -40,10 +40,21 @@ void perform(Action action, ViewerState& st) {
     case Action::Redo: doc.redo(); break;
     case Action::Duplicate: duplicate_selected(doc, ed); break;
     case Action::Save: {
+        if (!doc.path()) {  // a new layout has no file yet: ask for one
+            show_file_dialog(st.file_dialog, FileDialogState::Mode::SaveAs, "");
+            break;
+        }
         std::string error;
         ed.status = doc.save(error) ? "saved " + doc.path()->string() : error;
         break;
     }
+    case Action::Open:
+        show_file_dialog(st.file_dialog, FileDialogState::Mode::Open, doc.path() ? doc.path()->parent_path().string() : "");
+        break;
+    case Action::SaveAs:
+        show_file_dialog(st.file_dialog, FileDialogState::Mode::SaveAs, doc.path() ? doc.path()->string() : "");
+        break;
+    case Action::AddHere: st.add_here_mm = st.cursor_mm.value_or(st.last_view.centre_mm); break;
     case Action::Quit: request_quit(st); break;
     case Action::RotateForward: rotate_selected(doc, ed, 15.0); break;
     case Action::RotateBack: rotate_selected(doc, ed, -15.0); break;
@@ -76,6 +87,7 @@ void dispatch_shortcuts(ViewerState& st) {
         st.doc->finish_gesture(st.editor.drag->gesture);
         st.editor.drag.reset();
     }
+    if (st.file_dialog.visible) return;  // keys belong to the Open / Save As dialog while it is up
     if (const std::optional<Action> a = pressed_action(ImGui::GetIO())) perform(*a, st);
 }
 

@@ -7,8 +7,8 @@
 #include <cstdio>
 
 #include "analysis/breadboard_holes.hpp"
+#include "edit/new_elements.hpp"
 #include "layout/element_kinds.hpp"
-#include "layout/visit.hpp"
 #include "trace/poses.hpp"
 #include "units/constants.hpp"
 
@@ -22,16 +22,6 @@ std::vector<Path> paths_of(const RendezvousReport& report) {
     return paths;
 }
 
-
-bool id_taken(const Layout& l, const std::string& id) {
-    return std::any_of(l.elements.begin(), l.elements.end(), [&](const Element& e) { return e.id == id; }) ||
-           std::any_of(l.beams.begin(), l.beams.end(), [&](const BeamSource& b) { return b.id == id; });
-}
-
-std::string unused_id(const Layout& l, const std::string& stem) {
-    for (int k = 2;; ++k)
-        if (const std::string id = stem + "_" + std::to_string(k); !id_taken(l, id)) return id;
-}
 
 }  // namespace
 
@@ -162,7 +152,7 @@ void duplicate_selected(edit::Document& doc, EditorState& s) {
     Layout next = doc.layout();
     Element copy = next.elements[*s.selected];
     if (std::holds_alternative<Stage>(copy.kind)) std::get<Stage>(copy.kind).carries.clear();
-    copy.id = unused_id(next, copy.id);
+    copy.id = edit::suffixed_id(next, copy.id);
     copy.at_mm += Vec2(next.table.grid_mm, next.table.grid_mm);
     next.elements.push_back(copy);
     doc.edit(std::move(next));
@@ -182,64 +172,73 @@ void rotate_selected(edit::Document& doc, EditorState& s, double degrees) {
     doc.edit(std::move(next));
 }
 
-namespace {
-
-// What the Add menu makes of each kind: its defaults (a 100 mm ideal lens, a flat mirror at 135°, a
-// 3 mm fused-silica window, a dump facing −x, a target plane) and the prefix of its id; nullopt for
-// a kind the window does not add yet (it needs a material, a pairing or what it carries). One
-// function per kind: a new kind must say.
-struct NewElement {
-    ElementKind kind;
-    double normal_deg = 0;
-    std::string id_prefix;
-};
-std::optional<NewElement> new_element_of(const ElementKind& kind) {
-    return std::visit(overloaded{
-                          [](const Lens&) -> std::optional<NewElement> {
-                              return NewElement{Lens{IdealLens{100.0}}, 0, "L"};
-                          },
-                          [](const Mirror&) -> std::optional<NewElement> { return NewElement{Mirror{}, 135, "M"}; },
-                          [](const Plate&) -> std::optional<NewElement> {
-                              Plate plate;
-                              plate.slab = Slab{"fused-silica", 3.0};
-                              return NewElement{plate, 0, "P"};
-                          },
-                          [](const Target&) -> std::optional<NewElement> { return NewElement{Target{}, 0, "T"}; },
-                          [](const Dump&) -> std::optional<NewElement> { return NewElement{Dump{}, 180, "D"}; },
-                          [](const Dichroic&) -> std::optional<NewElement> { return std::nullopt; },
-                          [](const Retroreflector&) -> std::optional<NewElement> { return std::nullopt; },
-                          [](const Stage&) -> std::optional<NewElement> { return std::nullopt; },
-                          [](const Crystal&) -> std::optional<NewElement> { return std::nullopt; },
-                      },
-                      kind);
-}
-
-}  // namespace
-
 std::vector<std::string> addable_element_types() {
     std::vector<std::string> out;
+    for (const edit::NewElementChoice& c : edit::new_element_choices(Layout{}))
+        if (std::find(out.begin(), out.end(), c.type) == out.end()) out.push_back(c.type);
+    out.push_back("stage");  // through add_stage, once its optics are chosen
+    // In ElementKind's order, as the reader lists the types.
+    std::vector<std::string> ordered;
     for (const std::string& type : element_type_names())
-        if (new_element_of(*element_kind_named(type))) out.push_back(type);
-    return out;
+        if (std::find(out.begin(), out.end(), type) != out.end()) ordered.push_back(type);
+    return ordered;
+}
+
+bool add_new_element(edit::Document& doc, EditorState& s, Element e, const Vec2& at_mm) {
+    Layout next = doc.layout();
+    if (!std::holds_alternative<Stage>(e.kind)) e.at_mm = snapped_to_hole(next.table, at_mm);
+    e.id = edit::numbered_id(next, e.id);
+    next.elements.push_back(e);
+    const unsigned before = doc.revision();
+    doc.edit(std::move(next));
+    if (doc.revision() == before) {
+        s.status = "cannot add " + e.id + ": " + doc.last_refusal();
+        return false;
+    }
+    select(doc, s, doc.layout().elements.size() - 1);
+    s.status = "added " + e.id;
+    return true;
+}
+
+bool add_stage(edit::Document& doc, EditorState& s, std::vector<std::string> carries) {
+    if (carries.empty()) {
+        s.status = "a stage carries at least one optic: choose what it carries";
+        return false;
+    }
+    return add_new_element(doc, s, edit::new_stage(std::move(carries)), {0, 0});
+}
+
+bool add_beam(edit::Document& doc, EditorState& s, const Vec2& at_mm) {
+    Layout next = doc.layout();
+    next.beams.push_back(edit::new_beam(next, snapped_to_hole(next.table, at_mm)));
+    const std::string id = next.beams.back().id;
+    const unsigned before = doc.revision();
+    doc.edit(std::move(next));
+    if (doc.revision() == before) {
+        s.status = "cannot add " + id + ": " + doc.last_refusal();
+        return false;
+    }
+    s.status = "added " + id;
+    return true;
 }
 
 void add_element(edit::Document& doc, EditorState& s, const std::string& type, const Vec2& at_mm) {
-    const std::optional<ElementKind> kind = element_kind_named(type);
-    const std::optional<NewElement> made = kind ? new_element_of(*kind) : std::nullopt;
-    if (!made) {
-        s.status = "cannot add a " + type + " from the window";
+    if (type == "stage") {  // carrying the selected optic, when it can
+        const std::vector<std::string> free = edit::carriable_ids(doc.layout());
+        if (s.selected && *s.selected < doc.layout().elements.size() &&
+            std::count(free.begin(), free.end(), doc.layout().elements[*s.selected].id)) {
+            add_stage(doc, s, {doc.layout().elements[*s.selected].id});
+            return;
+        }
+        s.status = "cannot add a stage from the window without an optic to carry: select one first";
         return;
     }
-    Layout next = doc.layout();
-    Element e;
-    e.at_mm = snapped_to_hole(next.table, at_mm);
-    e.kind = made->kind;
-    e.normal_deg = made->normal_deg;
-    e.id = unused_id(next, made->id_prefix);
-    next.elements.push_back(e);
-    doc.edit(std::move(next));
-    select(doc, s, doc.layout().elements.size() - 1);
-    s.status = "added " + e.id;
+    for (edit::NewElementChoice& c : edit::new_element_choices(doc.layout()))
+        if (c.type == type) {
+            add_new_element(doc, s, std::move(c.element), at_mm);
+            return;
+        }
+    s.status = "cannot add a " + type + " from the window";
 }
 
 void select(const edit::Document& doc, EditorState& s, std::optional<size_t> element) {

@@ -67,10 +67,18 @@ void select(const edit::Document& doc, EditorState& state, std::optional<size_t>
 void delete_selected(edit::Document& doc, EditorState& state);
 void duplicate_selected(edit::Document& doc, EditorState& state);
 void rotate_selected(edit::Document& doc, EditorState& state, double degrees);
-// Adds an element of a kind by its type name ("lens", …) with the window's defaults, selected;
-// a type the window cannot add is refused in state.status.
+// Adds an element of a kind by its type name ("lens", …) with its first Add choice's defaults
+// (edit/new_elements.hpp), selected; a stage carries the selected optic. A type the window cannot
+// add (or a stage with nothing selected to carry) is refused in state.status.
 void add_element(edit::Document& doc, EditorState& state, const std::string& type, const Vec2& at_mm);
-// The type names the Add menu offers, in ElementKind's order.
+// Adds an element (its id a stem that gets a number; placed on the hole nearest at_mm, a stage
+// excepted), selected; false with the reader's whole message in state.status if refused.
+bool add_new_element(edit::Document& doc, EditorState& state, Element element, const Vec2& at_mm);
+// A stage carrying the given optics (edit::carriable_ids), selected.
+bool add_stage(edit::Document& doc, EditorState& state, std::vector<std::string> carries);
+// A new beam starting on the hole nearest at_mm (edit::new_beam).
+bool add_beam(edit::Document& doc, EditorState& state, const Vec2& at_mm);
+// The type names the Add menu offers, in ElementKind's order (every kind).
 std::vector<std::string> addable_element_types();
 
 }  // namespace rv::ui

@@ -10,7 +10,10 @@
 
 #include "trace/poses.hpp"
 
+#include "edit/recent_files.hpp"
+#include "edit/templates.hpp"
 #include "ui/actions.hpp"
+#include "ui/add_menu.hpp"
 #include "ui/help_window.hpp"
 #include "ui/status_bar.hpp"
 #include "ui/plots.hpp"
@@ -79,10 +82,16 @@ void draw_menu_bar(ViewerState& st) {
     if (!ImGui::BeginMenuBar()) return;
     const bool free = !ed.locked;  // a previewed solution blocks saving and editing
     if (ImGui::BeginMenu("File")) {
-        if (ImGui::MenuItem("Save", keys_of(Action::Save).c_str(), false, free && doc.path().has_value()))
-            perform(Action::Save, st);
-        if (ImGui::MenuItem("Save As...", nullptr, false, free)) st.open_save_as = true;
-        if (ImGui::MenuItem("Open...", nullptr, false, free)) st.open_dialog = true;
+        // Save without a file yet (a new layout) asks for one, as Save As.
+        if (ImGui::MenuItem("Save", keys_of(Action::Save).c_str(), false, free)) perform(Action::Save, st);
+        if (ImGui::MenuItem("Save As...", keys_of(Action::SaveAs).c_str(), false, free)) perform(Action::SaveAs, st);
+        if (ImGui::MenuItem("Open...", keys_of(Action::Open).c_str(), false, free)) perform(Action::Open, st);
+        if (ImGui::BeginMenu("New from a template", free)) {
+            const std::vector<edit::LayoutTemplate>& templates = edit::layout_templates();
+            for (size_t k = 0; k < templates.size(); ++k)
+                if (ImGui::MenuItem(templates[k].name.c_str())) st.template_request = k;
+            ImGui::EndMenu();
+        }
         if (ImGui::MenuItem("Export PNG or SVG...")) st.export_dialog = true;
         if (ImGui::MenuItem("Build sheet...")) st.sheet_dialog = true;
         if (ImGui::BeginMenu("Open Recent", free && !st.recent.empty())) {
@@ -110,11 +119,7 @@ void draw_menu_bar(ViewerState& st) {
             perform(Action::ToggleSnap, st);
         ImGui::EndMenu();
     }
-    if (ImGui::BeginMenu("Add", free)) {
-        for (const std::string& type : addable_element_types())
-            if (ImGui::MenuItem(type.c_str())) add_element(doc, ed, type, st.last_view.centre_mm);
-        ImGui::EndMenu();
-    }
+    draw_add_menu(st, free);
     if (ImGui::BeginMenu("View")) {
         if (ImGui::MenuItem("Fit the table", keys_of(Action::FitView).c_str())) perform(Action::FitView, st);
         if (ImGui::MenuItem("Measure distances", keys_of(Action::ToggleMeasure).c_str(), ed.measuring))
@@ -126,10 +131,6 @@ void draw_menu_bar(ViewerState& st) {
         ImGui::EndMenu();
     }
     ImGui::EndMenuBar();
-    if (st.open_save_as) {
-        ImGui::OpenPopup("Save as");
-        st.open_save_as = false;
-    }
     if (st.recovery_offer) ImGui::OpenPopup("Recover unsaved edits");
     if (ImGui::BeginPopupModal("Recover unsaved edits", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
         ImGui::Text("Edits of a session that ended without saving are in\n%s", st.recovery_offer->c_str());
@@ -166,10 +167,6 @@ void draw_menu_bar(ViewerState& st) {
             ImGui::CloseCurrentPopup();
         }
         ImGui::EndPopup();
-    }
-    if (st.open_dialog) {
-        ImGui::OpenPopup("Open a layout");
-        st.open_dialog = false;
     }
     if (st.export_dialog) {
         ImGui::OpenPopup("Export");
@@ -209,26 +206,21 @@ void draw_menu_bar(ViewerState& st) {
         if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
         ImGui::EndPopup();
     }
-    if (ImGui::BeginPopupModal("Open a layout", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
-        ImGui::InputText("file", st.open_path, sizeof st.open_path);
-        if (ImGui::Button("Open")) {
-            st.open_request = st.open_path;
-            ImGui::CloseCurrentPopup();
-        }
-        ImGui::SameLine();
-        if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
-        ImGui::EndPopup();
-    }
-    if (ImGui::BeginPopupModal("Save as", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
-        ImGui::InputText("file", st.save_as_path, sizeof st.save_as_path);
-        if (ImGui::Button("Save")) {
+    draw_add_here_popup(st);
+    // File ▸ Open and Save As: Open hands the path to the window (open_layout), Save As saves
+    // here; a failure comes back in the dialog with the whole message.
+    if (const std::optional<std::string> chosen = draw_file_dialog(st.file_dialog, st.recent)) {
+        if (st.file_dialog.mode == FileDialogState::Mode::Open) {
+            st.open_request = *chosen;
+        } else {
             std::string error;
-            ed.status = doc.save_as(st.save_as_path, error) ? "saved " + std::string(st.save_as_path) : error;
-            ImGui::CloseCurrentPopup();
+            if (doc.save_as(*chosen, error)) {
+                ed.status = "saved " + *chosen;
+                st.recent = edit::with_recent(st.recent, *chosen);
+            } else {
+                reopen_with_error(st.file_dialog, error);
+            }
         }
-        ImGui::SameLine();
-        if (ImGui::Button("Cancel")) ImGui::CloseCurrentPopup();
-        ImGui::EndPopup();
     }
 }
 
@@ -294,6 +286,7 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
         draw_tools_panel(*doc, state->tools);
     }
     draw_report_panel(report, layout, doc ? &state->editor.selected : nullptr, state ? &state->finding_rects : nullptr);
+    if (doc) draw_goals_panel(*doc, state->goals);  // below the report, whose findings stay in view
     ImGui::EndChild();
     ImGui::End();
     if (doc) draw_help_window(*state);

@@ -10,6 +10,8 @@
 #include "edit/document.hpp"
 #include "scene/scene.hpp"
 #include "ui/editor.hpp"
+#include "ui/file_dialog.hpp"
+#include "ui/goals_panel.hpp"
 #include "ui/inspector.hpp"
 #include "ui/shortcuts.hpp"
 #include "ui/tools_panel.hpp"
@@ -27,8 +29,6 @@ struct ViewerState {
     InspectorState inspector;
     ToolsState tools;
     std::vector<std::pair<ImVec2, ImVec2>> finding_rects;  // last frame's finding rows
-    bool open_save_as = false;
-    char save_as_path[1024] = {};
     std::vector<std::string> recent;  // recent files, newest first
     std::optional<std::string> open_request;  // File ▸ Open or a recent file: the window opens it
     struct ExportRequest {
@@ -40,8 +40,11 @@ struct ViewerState {
     char export_path[1024] = "layout.png";
     bool sheet_dialog = false;  // File ▸ Build sheet: its dialog opens next frame
     char sheet_path[1024] = "build-sheet.svg";
-    bool open_dialog = false;
-    char open_path[1024] = {};
+    FileDialogState file_dialog;  // File ▸ Open and Save As (ui/file_dialog.hpp)
+    // File ▸ New: the template (edit/templates.hpp) the window makes the document next.
+    std::optional<size_t> template_request;
+    GoalsState goals;                // the Goals panel (ui/goals_panel.hpp)
+    std::optional<Vec2> add_here_mm;  // Shift+A: the Add menu opens at the cursor, adding there
     // A recovery file found at start: offered once (restore or discard).
     std::optional<std::string> recovery_offer;
     // The window asked to close with unsaved changes: ask; quit once answered.
@@ -68,6 +71,10 @@ void reset_panels(ViewerState& state);
 // the file does not read (every diagnostic); nothing changes then.
 bool open_layout(ViewerState& state, std::unique_ptr<edit::Document>& doc, const std::string& file,
                  const std::filesystem::path* recent_file = nullptr);
+
+// File ▸ New: the template's layout becomes the document (no file yet: Save asks for one), every
+// panel reset; refused like open_layout when there are unsaved changes.
+bool new_from_template(ViewerState& state, std::unique_ptr<edit::Document>& doc, size_t template_index);
 
 // The window's title: "Rendezvous — NAME", with the document's unsaved mark.
 std::string window_title(const edit::Document& doc);

@@ -5,6 +5,7 @@
 #include <filesystem>
 
 #include "edit/recent_files.hpp"
+#include "edit/templates.hpp"
 #include "io/layout_reader.hpp"
 #include "ui/frame.hpp"
 
@@ -27,7 +28,11 @@ void reset_panels(ViewerState& st) {
     }
     st.view.reset();
     st.finding_rects.clear();
-    st.open_save_as = st.export_dialog = st.sheet_dialog = st.open_dialog = false;
+    st.export_dialog = st.sheet_dialog = false;
+    st.file_dialog = {};
+    st.template_request.reset();
+    st.goals = {};
+    st.add_here_mm.reset();
     st.export_request.reset();
     st.open_request.reset();
     st.recovery_offer.reset();
@@ -41,6 +46,7 @@ bool open_layout(ViewerState& st, std::unique_ptr<edit::Document>& doc, const st
                  const std::filesystem::path* recent_file) {
     if (doc && doc->dirty()) {
         st.editor.status = "not opened " + file + ": unsaved changes; save or undo them first";
+        if (st.file_dialog.pending_open == file) reopen_with_error(st.file_dialog, st.editor.status);
         return false;
     }
     const LayoutReadResult r = read_layout_file(file);
@@ -48,6 +54,8 @@ bool open_layout(ViewerState& st, std::unique_ptr<edit::Document>& doc, const st
         std::string why;
         for (const Diagnostic& d : r.diagnostics) why += (why.empty() ? "" : "\n") + format_diagnostic(d, file);
         st.editor.status = why.empty() ? "cannot read " + file : why;
+        // Opened from the dialog: it comes back with the whole message and the path typed.
+        if (st.file_dialog.pending_open == file) reopen_with_error(st.file_dialog, st.editor.status);
         return false;
     }
     doc = std::make_unique<edit::Document>(*r.layout, std::filesystem::path(file));
@@ -57,6 +65,20 @@ bool open_layout(ViewerState& st, std::unique_ptr<edit::Document>& doc, const st
     if (recent_file) edit::save_recent(*recent_file, st.recent);
     if (std::filesystem::exists(doc->recovery_path())) st.recovery_offer = doc->recovery_path().string();
     st.editor.status = "opened " + file;
+    return true;
+}
+
+bool new_from_template(ViewerState& st, std::unique_ptr<edit::Document>& doc, size_t template_index) {
+    const std::vector<edit::LayoutTemplate>& list = edit::layout_templates();
+    if (template_index >= list.size()) return false;
+    if (doc && doc->dirty()) {
+        st.editor.status = "no new layout: unsaved changes; save or undo them first";
+        return false;
+    }
+    doc = std::make_unique<edit::Document>(edit::layout_of(list[template_index]));
+    st.doc = doc.get();
+    reset_panels(st);
+    st.editor.status = "new layout: " + list[template_index].name + " (File > Save As to keep it)";
     return true;
 }
 

@@ -27,6 +27,9 @@ constexpr std::array kShortcuts{
     Shortcut{keys::kF, false, false, Action::FitView, "fit the whole table in the view", false},
     Shortcut{keys::kTab, false, false, Action::SelectNext, "select the next optic (in the file's order)", false},
     Shortcut{keys::kTab, false, true, Action::SelectPrevious, "select the previous optic", false},
+    Shortcut{keys::kO, true, false, Action::Open, "open a layout file (the file dialog)", true},
+    Shortcut{keys::kS, true, true, Action::SaveAs, "save to another file (the file dialog)", true},
+    Shortcut{keys::kA, false, true, Action::AddHere, "add an optic or a beam at the cursor (a menu there)", true},
     Shortcut{keys::kF1, false, false, Action::Help, "show or hide this list of shortcuts", false},
 };
 

@@ -26,6 +26,9 @@ enum class Action {
     FitView,
     SelectNext,
     SelectPrevious,
+    Open,
+    SaveAs,
+    AddHere,
     Help,
 };
 inline constexpr int kActionCount = static_cast<int>(Action::Help) + 1;

@@ -174,6 +174,12 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
             ui::open_layout(state, doc, file, &recent_file);
             platform.frames_due = kSettleFrames;
         }
+        if (state.template_request) {  // File ▸ New from a template
+            const size_t k = *state.template_request;
+            state.template_request.reset();
+            ui::new_from_template(state, doc, k);
+            platform.frames_due = kSettleFrames;
+        }
         if (!continuous && platform.frames_due == 0 && platform.queue.empty()) continue;
         if (!platform.queue.empty()) platform.frames_due = kSettleFrames;  // an event still to apply
         platform.queue.apply_frame(io);
