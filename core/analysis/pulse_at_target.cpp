@@ -4,14 +4,6 @@
 
 namespace rv {
 
-namespace {
-// The source's pulse length when it gives one (an absent length, or the older 0 for none).
-std::optional<double> given_fs(std::optional<double> fwhm_fs) { return fwhm_fs; }
-[[maybe_unused]] std::optional<double> given_fs(double fwhm_fs) {
-    return fwhm_fs > 0 ? std::optional<double>(fwhm_fs) : std::nullopt;
-}
-}  // namespace
-
 PathDispersion path_dispersion(const Path& path, size_t hit_index) {
     PathDispersion d;
     for (size_t i = 0; i <= hit_index && i < path.segments.size(); ++i) {
@@ -38,7 +30,7 @@ PulseAtTarget pulse_at_hit(const BeamSource& source, const Path& path, size_t hi
     PulseAtTarget p;
     p.gdd_fs2 = source.input_gdd_fs2.value_or(0.0) + d.gdd_fs2;
     p.tod_fs3 = d.tod_fs3;
-    if (const std::optional<double> tau0_fs = given_fs(source.pulse_fwhm_fs))
+    if (const std::optional<double> tau0_fs = source.pulse_fwhm_fs)
         p.fwhm_fs = chirped_gaussian_fwhm_fs(*tau0_fs, p.gdd_fs2);
     return p;
 }

@@ -632,8 +632,7 @@ void Reader::check_references(const json& doc, Layout& layout) {
         if (!index_of.count(layout.target)) {
             error("/target", no_element(layout.target));
         } else if (const Element* t = layout.find(layout.target);
-                   t && !std::holds_alternative<Crystal>(t->kind) &&
-                   !std::holds_alternative<Target>(t->kind)) {
+                   t && !can_be_target(t->kind)) {
             error("/target", "expected the id of a crystal or a target, found the " +
                                  std::string(type_name(t->kind)) + " \"" + layout.target + "\"");
         }
@@ -712,9 +711,7 @@ void Reader::check_adjusters(const Layout& layout, const std::function<std::stri
             if (!once(a.walk[i][k], ptr)) continue;
             if (const std::string m = kind_error(
                     a.walk[i][k],
-                    [](const Element& e) {
-                        return std::holds_alternative<Mirror>(e.kind) || std::holds_alternative<Dichroic>(e.kind);
-                    },
+                    [](const Element& e) { return walks_reflected_beam(e.kind); },
                     "a mirror or a dichroic (turned to walk the beam)");
                 !m.empty())
                 error(ptr, m);

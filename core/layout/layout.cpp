@@ -1,5 +1,7 @@
 #include "layout/layout.hpp"
 
+#include "layout/visit.hpp"
+
 namespace rv {
 
 const char* type_name(const ElementKind& kind) {
@@ -30,6 +32,24 @@ const DamageThreshold* damage_threshold_of(const ElementKind& kind) {
         const DamageThreshold* operator()(const Dump&) const { return nullptr; }
     };
     return std::visit(Damage{}, kind);
+}
+
+bool walks_reflected_beam(const ElementKind& kind) {
+    return std::visit(overloaded{[](const Lens&) { return false; }, [](const Mirror&) { return true; },
+                                 [](const Dichroic&) { return true; }, [](const Plate&) { return false; },
+                                 [](const Retroreflector&) { return false; },  // returns it parallel
+                                 [](const Stage&) { return false; }, [](const Crystal&) { return false; },
+                                 [](const Target&) { return false; }, [](const Dump&) { return false; }},
+                      kind);
+}
+
+bool can_be_target(const ElementKind& kind) {
+    return std::visit(overloaded{[](const Lens&) { return false; }, [](const Mirror&) { return false; },
+                                 [](const Dichroic&) { return false; }, [](const Plate&) { return false; },
+                                 [](const Retroreflector&) { return false; }, [](const Stage&) { return false; },
+                                 [](const Crystal&) { return true; }, [](const Target&) { return true; },
+                                 [](const Dump&) { return false; }},
+                      kind);
 }
 
 const Element* Layout::find(const std::string& id) const {

@@ -254,6 +254,11 @@ const char* type_name(const ElementKind& kind);
 
 // The damage threshold a kind carries (crystals and targets), else nullptr.
 const DamageThreshold* damage_threshold_of(const ElementKind& kind);
+// Whether turning the optic walks the beam it reflects (mirrors and dichroics: a tolerance
+// run's "walk" adjuster).
+bool walks_reflected_beam(const ElementKind& kind);
+// Whether the kind can be the layout's target, where the beams are judged (crystals, targets).
+bool can_be_target(const ElementKind& kind);
 
 struct UserMaterial {  // SCHOTT-form Sellmeier: n² − 1 = Σ B λ²/(λ² − C), λ in µm, C in µm²
     std::string id;

@@ -261,7 +261,7 @@ std::vector<std::pair<ToleranceChange, Adjusters>> adjuster_candidates(const Lay
                 }
             }
             if (h.interaction == Interaction::Reflect && !used(h.element) &&
-                (std::holds_alternative<Mirror>(kind) || std::holds_alternative<Dichroic>(kind)) &&
+                walks_reflected_beam(kind) &&
                 std::find(mirrors.begin(), mirrors.end(), h.element) == mirrors.end())
                 mirrors.push_back(h.element);
         }
