@@ -9,6 +9,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "cli/number_option.hpp"
 #include "window/window.hpp"
 
 // The help of every command that writes a file: what the one writer does (io/atomic_file.hpp).
@@ -23,16 +24,9 @@ constexpr const char* kWriting =
     "back as a layout before it replaces anything. \"-\" writes a layout to stdout.\n"
     "Exit status: 0 success, 2 bad input.";
 
-// Every numeric option: "nan", "inf" and overflowing numbers such as 1e999 parse as doubles
-// (and slip through range checks, which NaN never fails), but they are no reading or setting.
-const CLI::Validator kFinite(
-    [](std::string& text) -> std::string {
-        char* end = nullptr;
-        const double value = std::strtod(text.c_str(), &end);
-        if (end != text.c_str() && !std::isfinite(value)) return "expected a finite number, got \"" + text + "\"";
-        return {};
-    },
-    "FINITE", "finite");
+// Every numeric option: finite and within its range (cli/number_option.hpp, the bounds of
+// layout/input_limits.hpp); counts keep CLI::Range for their own range.
+const CLI::Validator kFinite = rv::cli::finite_number();
 
 int main(int argc, char** argv) {
     CLI::App app{"Rendezvous: plan two-colour beam combining (focus, size, timing, phase matching).",
@@ -92,7 +86,7 @@ int main(int argc, char** argv) {
                      "whose model agrees with it, so later changes predict the new zero.\n"
                      "Example: rendezvous calibrate sfg.json --zero 29.84 --write sfg-calibrated.json");
     calibrate_cmd->add_option("layout", calibrate.layout, "layout file (JSON)")->required();
-    calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->check(kFinite)->required();
+    calibrate_cmd->add_option("--zero", calibrate.zero_mm, "measured zero-delay stage reading, mm")->check(rv::cli::length_option_mm())->required();
     calibrate_cmd
         ->add_option("--write", calibrate.output,
                      "the new layout file (- is stdout, the summary then on stderr)")
@@ -128,7 +122,7 @@ int main(int argc, char** argv) {
     polarize_cmd->add_option("layout", polarize.layout, "layout file (JSON)")->required();
     polarize_cmd->add_option("--plate", polarize.plate, "id of the half- or quarter-wave plate to turn")->required();
     polarize_cmd->add_option("--beam", polarize.beam, "the beam, when both pass the plate");
-    polarize_cmd->add_option("--power-mw", polarize.power_mw, "wanted power at the target (mW)")->check(kFinite)->check(CLI::NonNegativeNumber);
+    polarize_cmd->add_option("--power-mw", polarize.power_mw, "wanted power at the target (mW)")->check(rv::cli::power_option_mw());
     polarize_cmd->add_flag("--json", polarize.json, "one JSON object (docs/schemas/polarize.schema.json) instead of the text");
     polarize_cmd->add_option("--write", polarize.output,
                              "write the layout with the plate turned here (- is stdout)");
@@ -161,8 +155,8 @@ int main(int argc, char** argv) {
                  "Example: rendezvous sweep layouts/sfg-bbo.json --vary S1.position_mm --from 28 --to 32 --steps 9 --csv");
     sweep_cmd->add_option("layout", sweep.layout, "layout file (JSON)")->required();
     sweep_cmd->add_option("--vary", sweep.vary, "ID.FIELD, e.g. L_F.at_mm[0] or pump.waist_um")->required();
-    sweep_cmd->add_option("--from", sweep.from, "first value")->check(kFinite)->required();
-    sweep_cmd->add_option("--to", sweep.to, "last value")->check(kFinite)->required();
+    sweep_cmd->add_option("--from", sweep.from, "first value")->check(rv::cli::sweep_end_option())->required();
+    sweep_cmd->add_option("--to", sweep.to, "last value")->check(rv::cli::sweep_end_option())->required();
     sweep_cmd->add_option("--steps", sweep.steps, "number of values (≥ 2)")->check(kFinite)->check(CLI::Range(2, 100000));
     sweep_cmd->add_flag("--json", sweep.json, "one JSON object (docs/schemas/sweep.schema.json) instead of the table");
     sweep_cmd->add_flag("--csv", sweep.csv, "comma-separated output");

@@ -128,8 +128,16 @@ SweepResult sweep_field(const Layout& layout, const std::string& id, const std::
         // A residue of the arithmetic where the range crosses zero (0.1 + (-0.2 - 0.1)/3 =
         // -1.4e-17) is taken as the zero it stands for (units/number_text.hpp), so that the
         // point is not outside a travel that ends at 0.
-        const double value =
-            negligible_as_zero(from + (to - from) * i / (steps - 1), std::max(std::abs(from), std::abs(to)));
+        // std::lerp, not from + (to - from) t: over ±1e308 the difference overflows to infinity
+        // and the first point became NaN (issue 19 §1); lerp stays between finite ends.
+        const double t = static_cast<double>(i) / (steps - 1);
+        const double value = negligible_as_zero(std::lerp(from, to, t), std::max(std::abs(from), std::abs(to)));
+        if (!std::isfinite(value)) {  // never written into the layout as null
+            result.diagnostics.push_back(error("", "the sweep's value at step " + std::to_string(i + 1) + " of " + field +
+                                                       " is not a finite number (from " + format_number("%g", from) + " to " +
+                                                       format_number("%g", to) + ")"));
+            return result;
+        }
         json doc = base;
         Located at = *locate(doc, id, field, result.diagnostics);
         *at.value = at.value->is_array() ? json::array({value, value}) : json(value);
@@ -137,7 +145,7 @@ SweepResult sweep_field(const Layout& layout, const std::string& id, const std::
         LayoutReadResult r = read_layout(doc.dump());
         if (!r.layout) {
             for (Diagnostic& d : r.diagnostics) {
-                d.message += " (at " + field + " = " + std::to_string(value) + ")";
+                d.message += " (at " + field + " = " + format_number("%g", value) + ")";
                 result.diagnostics.push_back(d);
             }
             return result;

@@ -40,6 +40,7 @@ const char* finding_code(Finding::Kind k) {
         case K::CoincidentOptics: return "coincident-optics";
         case K::BIntegral: return "b-integral";
         case K::BIntegralBreakUp: return "b-integral-break-up";
+        case K::NotFinite: return "not-finite";
     }
     return "finding";
 }
@@ -60,7 +61,7 @@ const char* severity_name(Finding::Severity s) { return s == Finding::Severity::
 
 std::vector<Finding::Kind> all_finding_kinds() {
     std::vector<Finding::Kind> kinds;
-    for (int k = 0; k <= static_cast<int>(Finding::Kind::BIntegralBreakUp); ++k) kinds.push_back(static_cast<Finding::Kind>(k));
+    for (int k = 0; k <= static_cast<int>(Finding::Kind::NotFinite); ++k) kinds.push_back(static_cast<Finding::Kind>(k));
     return kinds;
 }
 
@@ -111,6 +112,10 @@ std::string finding_text(const Finding& f) {
         case K::BIntegralBreakUp:
             return "B-integral " + printf_text("%.2g", f.amount) + " rad in " + e + " (" + f.material +
                    ") exceeds π: self-focusing can break up the beam and damage " + e + "; lower the intensity";
+        case K::NotFinite:
+            return "the Gaussian beam is no longer a finite number at " + e +
+                   " (its size or curvature overflows there): no figure of the beam is given from there on; check " + e +
+                   "'s numbers";
     }
     return finding_code(f.kind);
 }

@@ -38,6 +38,8 @@ struct Finding {
         BIntegral,               // the report: amount = B (rad) of the beam in `element` (material),
                                  // limit = 1 rad (self-phase modulation, spectral broadening)
         BIntegralBreakUp,        // the report: amount = B (rad), limit = π (beam break-up, damage risk)
+        NotFinite,               // set by propagation: the Gaussian beam stopped being a finite number
+                                 // at `element` (where_mm = the hit); no figure of it is given after
     };
     enum class Severity {
         Problem,  // the layout does not work as drawn (light lost, missing, or a risk to the optics)

@@ -47,19 +47,48 @@ NumberRule positive() {
                : v < kSmallestPositive ? "must be at least " + number_text(kSmallestPositive) : std::string();
     };
 }
-NumberRule non_zero() {
-    return [](double v) { return v != 0 ? std::string() : "must be non-zero"; };
-}
 NumberRule at_least(double minimum) {
     return [minimum](double v) {
         return v >= minimum ? std::string() : "must be at least " + number_text(minimum);
     };
 }
-NumberRule between(double minimum, double maximum) {
-    return [minimum, maximum](double v) {
-        return v >= minimum && v <= maximum
+NumberRule between(double minimum, double maximum, const char* unit) {
+    const std::string range = "must be between " + number_text(minimum) + " and " + number_text(maximum) +
+                              (*unit ? std::string(" ") + unit : std::string());
+    return [minimum, maximum, range](double v) { return v >= minimum && v <= maximum ? std::string() : range; };
+}
+NumberRule positive_within(double minimum, double maximum, const char* unit) {
+    const std::string range = "must be between " + number_text(minimum) + " and " + number_text(maximum) +
+                              (*unit ? std::string(" ") + unit : std::string());
+    return [minimum, maximum, range](double v) {
+        return v <= 0 ? std::string("must be positive") : v >= minimum && v <= maximum ? std::string() : range;
+    };
+}
+NumberRule length_mm() {
+    return [](double v) {
+        return std::abs(v) <= limits::kMaxLength_mm
                    ? std::string()
-                   : "must be between " + number_text(minimum) + " and " + number_text(maximum);
+                   : "must lie within ±" + number_text(limits::kMaxLength_mm) + " mm (100 m)";
+    };
+}
+NumberRule non_zero_length_mm() {
+    return [](double v) {
+        if (v == 0) return std::string("must be non-zero");
+        const double size = std::abs(v);
+        return size >= limits::kMinNonZeroLength_mm && size <= limits::kMaxLength_mm
+                   ? std::string()
+                   : "must be non-zero, between " + number_text(limits::kMinNonZeroLength_mm) + " and " +
+                         number_text(limits::kMaxLength_mm) + " mm either way";
+    };
+}
+NumberRule positive_length_mm() {
+    return positive_within(limits::kMinNonZeroLength_mm, limits::kMaxLength_mm, "mm");
+}
+NumberRule angle_deg() {
+    return [](double v) {
+        return std::abs(v) <= limits::kMaxAngle_deg
+                   ? std::string()
+                   : "must be an angle within ±" + number_text(limits::kMaxAngle_deg) + " degrees";
     };
 }
 
@@ -341,7 +370,7 @@ std::optional<Vec2> FieldReader::point(const std::string& key, Need need) {
         error(key, "expected [x, y] in mm, found " + found_text(object_.at(key)));
         return std::nullopt;
     }
-    const std::optional<std::vector<double>> xy = numbers(key, need);
+    const std::optional<std::vector<double>> xy = numbers(key, need, length_mm());
     if (!xy) return std::nullopt;
     return Vec2((*xy)[0], (*xy)[1]);
 }
@@ -366,12 +395,13 @@ std::optional<PlanePair> FieldReader::plane_pair(const std::string& key, Need ne
     return PlanePair{*x, *x};
 }
 
-std::optional<std::pair<double, double>> FieldReader::interval(const std::string& key, Need need) {
+std::optional<std::pair<double, double>> FieldReader::interval(const std::string& key, Need need,
+                                                               const NumberRule& rule) {
     if (has(key) && (!object_.at(key).is_array() || object_.at(key).size() != 2)) {
         error(key, "expected [min, max], found " + found_text(object_.at(key)));
         return std::nullopt;
     }
-    const std::optional<std::vector<double>> v = numbers(key, need);
+    const std::optional<std::vector<double>> v = numbers(key, need, rule);
     if (!v) return std::nullopt;
     if (!((*v)[0] < (*v)[1])) {
         error(key, "expected [min, max] with min < max, found [" + number_text((*v)[0]) + ", " +

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "io/diagnostic.hpp"
+#include "layout/input_limits.hpp"
 #include "layout/layout.hpp"
 
 namespace rv {
@@ -18,15 +19,22 @@ namespace rv {
 enum class Need { Required, Optional };
 
 // A rule a number must obey: returns "" when it does, else what it must be ("must be positive").
+// The bounds come from layout/input_limits.hpp, the one place for them.
 using NumberRule = std::function<std::string(double)>;
-inline constexpr double kSmallestPositive = 1e-9;  // in the unit of the field
-// The wavelengths a layout may use: vacuum ultraviolet to the mid infrared, wider than any
-// bundled material's data (common practice: tabletop sources and their harmonics).
-inline constexpr double kMinWavelength_nm = 150, kMaxWavelength_nm = 20000;
+using limits::kSmallestPositive;
+using limits::kMinWavelength_nm;
+using limits::kMaxWavelength_nm;
 NumberRule positive();  // > 0 and at least kSmallestPositive
-NumberRule non_zero();
 NumberRule at_least(double minimum);
-NumberRule between(double minimum, double maximum);
+NumberRule between(double minimum, double maximum, const char* unit = "");
+// Lengths in mm (limits::kMaxLength_mm either way; non-zero ones at least kMinNonZeroLength_mm
+// in size, so that a denormal such as 1e-320 is not "non-zero").
+NumberRule length_mm();           // any sign, zero allowed
+NumberRule non_zero_length_mm();  // any sign
+NumberRule positive_length_mm();
+NumberRule angle_deg();  // within ±limits::kMaxAngle_deg
+// A positive figure within [minimum, maximum], "must be positive" for ≤ 0.
+NumberRule positive_within(double minimum, double maximum, const char* unit);
 
 // JSON pointer of a child ("/elements/3" + "focal_length_mm"), with ~ and / escaped.
 std::string child_pointer(const std::string& parent, const std::string& key);
@@ -61,12 +69,14 @@ public:
     std::optional<std::string> id(const std::string& key, Need need);
     std::optional<std::string> choice(const std::string& key, Need need,
                                       const std::vector<std::string>& options);
+    // [x, y] in mm, each within ±limits::kMaxLength_mm.
     std::optional<Vec2> point(const std::string& key, Need need);
     // A number or a [tangential, sagittal] pair.
     std::optional<PlanePair> plane_pair(const std::string& key, Need need,
                                         const NumberRule& rule = {});
     // [min, max] with min < max.
-    std::optional<std::pair<double, double>> interval(const std::string& key, Need need);
+    std::optional<std::pair<double, double>> interval(const std::string& key, Need need,
+                                                      const NumberRule& rule = {});
     std::optional<std::vector<double>> numbers(const std::string& key, Need need,
                                                const NumberRule& rule = {});
     std::optional<std::vector<std::string>> strings(const std::string& key, Need need);

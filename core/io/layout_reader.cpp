@@ -7,6 +7,8 @@
 #include <limits>
 #include <map>
 #include <sstream>
+#include <string_view>
+#include <unordered_map>
 
 #include "io/bounded_read.hpp"
 #include "io/closest_name.hpp"
@@ -28,8 +30,10 @@ const Keys kCommonKeys = {"id", "type", "at_mm", "normal_deg", "aperture_mm", "t
 
 DamageThreshold read_damage(FieldReader& f) {
     DamageThreshold d;
-    d.fluence_j_cm2 = f.number("damage_fluence_j_cm2", Need::Optional, positive());
-    d.intensity_gw_cm2 = f.number("damage_intensity_gw_cm2", Need::Optional, positive());
+    d.fluence_j_cm2 = f.number("damage_fluence_j_cm2", Need::Optional,
+                               positive_within(limits::kSmallestPositive, limits::kMaxFluence_j_cm2, "J/cm²"));
+    d.intensity_gw_cm2 = f.number("damage_intensity_gw_cm2", Need::Optional,
+                                  positive_within(limits::kSmallestPositive, limits::kMaxIntensity_gw_cm2, "GW/cm²"));
     return d;
 }
 
@@ -64,8 +68,10 @@ private:
     bool read_fields(Dump& kind, FieldReader& f, const std::string& ptr);
     std::optional<Lens> read_lens(FieldReader& f);
     std::optional<std::string> material_name(FieldReader& f, const std::string& key);
+    bool real_index_for_beams(FieldReader& f, const std::string& key, const Material& material);
     ToleranceAdjusters read_adjusters(const json& v);
-    void check_adjusters(const Layout& layout, const std::function<std::string(const std::string&)>& no_element);
+    void check_adjusters(const Layout& layout, const std::function<std::string(const std::string&)>& no_element,
+                         const std::function<const Element*(const std::string&)>& find);
     void check_references(const json& doc, Layout& layout);
 
     void error(const std::string& pointer, const std::string& message) {
@@ -75,6 +81,7 @@ private:
     Diagnostics& out_;
     MaterialLibrary library_ = MaterialLibrary::builtin();
     std::map<std::string, std::string> element_pointers_;  // id → pointer of its "id"
+    std::vector<std::pair<std::string, double>> beam_wavelengths_nm_;  // each beam read: id, λ
 };
 
 std::optional<Layout> Reader::read(const json& doc) {
@@ -110,7 +117,8 @@ std::optional<Layout> Reader::read(const json& doc) {
         if (const json* w = g.object("waist_um", Need::Optional)) {
             for (const auto& item : w->items()) {
                 FieldReader wr(*w, "/goals/waist_um", "the waist goals", out_);
-                if (const auto v = wr.number(item.key(), Need::Required, positive()))
+                if (const auto v = wr.number(item.key(), Need::Required,
+                                             positive_within(limits::kMinWaist_um, limits::kMaxWaist_um, "µm")))
                     layout.goals.waist_um.emplace_back(item.key(), *v);
             }
         }
@@ -134,22 +142,23 @@ std::optional<Layout> Reader::read(const json& doc) {
             if (const json* mv = sr.object("move", Need::Optional)) {
                 FieldReader mr(*mv, "/goals/solve/move", "the moves", out_);
                 for (const auto& item : mv->items())
-                    if (const auto range = mr.interval(item.key(), Need::Required)) sg.move.emplace_back(item.key(), *range);
+                    // A range of ±1e308 mm once wrote "at_mm": [null, null] (issue 19).
+                    if (const auto range = mr.interval(item.key(), Need::Required, length_mm())) sg.move.emplace_back(item.key(), *range);
             }
             sg.swap = sr.strings("swap", Need::Optional).value_or(std::vector<std::string>{});
-            sg.min_spacing_mm = sr.number("min_spacing_mm", Need::Optional, at_least(0)).value_or(sg.min_spacing_mm);
-            sg.table_margin_mm = sr.number("table_margin_mm", Need::Optional, at_least(0)).value_or(sg.table_margin_mm);
-            sg.max_path_mm = sr.number("max_path_mm", Need::Optional, positive());
+            sg.min_spacing_mm = sr.number("min_spacing_mm", Need::Optional, between(0, limits::kMaxLength_mm)).value_or(sg.min_spacing_mm);
+            sg.table_margin_mm = sr.number("table_margin_mm", Need::Optional, between(0, limits::kMaxLength_mm)).value_or(sg.table_margin_mm);
+            sg.max_path_mm = sr.number("max_path_mm", Need::Optional, positive_length_mm());
             sr.finish({"aim", "move", "swap", "min_spacing_mm", "table_margin_mm", "max_path_mm"});
             layout.goals.solve = sg;
         }
         if (const json* tv = g.object("tolerance", Need::Optional)) {
             FieldReader tr(*tv, "/goals/tolerance", "the tolerances", out_);
             Tolerances& t = layout.goals.tolerance;
-            t.position_mm = tr.number("position_mm", Need::Optional, at_least(0)).value_or(t.position_mm);
-            t.angle_mrad = tr.number("angle_mrad", Need::Optional, at_least(0)).value_or(t.angle_mrad);
+            t.position_mm = tr.number("position_mm", Need::Optional, between(0, limits::kMaxLength_mm)).value_or(t.position_mm);
+            t.angle_mrad = tr.number("angle_mrad", Need::Optional, between(0, 1e3 * deg_to_rad(limits::kMaxAngle_deg))).value_or(t.angle_mrad);
             t.focal_length_fraction = tr.number("focal_length_fraction", Need::Optional, between(0, 0.5)).value_or(t.focal_length_fraction);
-            t.stage_mm = tr.number("stage_mm", Need::Optional, at_least(0)).value_or(t.stage_mm);
+            t.stage_mm = tr.number("stage_mm", Need::Optional, between(0, limits::kMaxLength_mm)).value_or(t.stage_mm);
             if (const json* av = tr.object("adjust", Need::Optional)) t.adjust = read_adjusters(*av);
             tr.finish({"position_mm", "angle_mrad", "focal_length_fraction", "stage_mm", "adjust"});
         }
@@ -193,7 +202,9 @@ ToleranceAdjusters Reader::read_adjusters(const json& v) {
 void Reader::read_table(const json& v, Layout& layout) {
     FieldReader f(v, "/table", "the table", out_);
     if (f.has("size_mm")) {
-        if (const auto size = f.numbers("size_mm", Need::Required, positive())) {
+        // A table of 1e-9 mm or 1e6 mm once crashed the drawing (issue 19): [1 cm, 100 m].
+        if (const auto size = f.numbers("size_mm", Need::Required,
+                                        positive_within(limits::kMinTable_mm, limits::kMaxTable_mm, "mm"))) {
             if (size->size() != 2) f.error("size_mm", "expected [width, height] in mm");
             else layout.table.width_mm = (*size)[0], layout.table.height_mm = (*size)[1];
         }
@@ -224,8 +235,8 @@ void Reader::read_materials(const json& v, Layout& layout) {
         std::optional<std::vector<double>> b, c;
         if (const json* s = f.object("sellmeier", Need::Required)) {
             FieldReader sf(*s, ptr + "/sellmeier", "Sellmeier coefficients", out_);
-            b = sf.numbers("b", Need::Required);
-            c = sf.numbers("c_um2", Need::Required);
+            b = sf.numbers("b", Need::Required, between(-limits::kMaxSellmeierB, limits::kMaxSellmeierB));
+            c = sf.numbers("c_um2", Need::Required, between(-limits::kMaxSellmeierC_um2, limits::kMaxSellmeierC_um2));
             if (b && c && (b->size() != c->size() || b->empty())) {
                 sf.error("c_um2", "expected as many C as B coefficients (" +
                                       std::to_string(b->size()) + "), found " +
@@ -266,22 +277,27 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
     b.id = f.id("id", Need::Required).value_or("");
     b.wavelength_nm = f.wavelength_nm("wavelength_nm", Need::Required).value_or(0);
     b.start_mm = f.point("start_mm", Need::Required).value_or(Vec2(0, 0));
-    b.direction_deg = f.number("direction_deg", Need::Required).value_or(0);
-    b.waist_um = f.plane_pair("waist_um", Need::Required, positive()).value_or(PlanePair{});
-    b.waist_at_mm = f.plane_pair("waist_at_mm", Need::Optional).value_or(PlanePair{});
-    b.m2 = f.plane_pair("m2", Need::Optional, at_least(1.0)).value_or(PlanePair{1, 1});
-    b.pulse_fwhm_fs = f.number("pulse_fwhm_fs", Need::Optional, positive());
+    b.direction_deg = f.number("direction_deg", Need::Required, angle_deg()).value_or(0);
+    // A waist of 1e-320 µm or 1e300 µm once made the caustic sampler run away (issue 19).
+    b.waist_um = f.plane_pair("waist_um", Need::Required,
+                              positive_within(limits::kMinWaist_um, limits::kMaxWaist_um, "µm"))
+                     .value_or(PlanePair{});
+    b.waist_at_mm = f.plane_pair("waist_at_mm", Need::Optional, length_mm()).value_or(PlanePair{});
+    b.m2 = f.plane_pair("m2", Need::Optional, between(1.0, limits::kMaxM2)).value_or(PlanePair{1, 1});
+    b.pulse_fwhm_fs = f.number("pulse_fwhm_fs", Need::Optional,
+                               positive_within(limits::kMinPulse_fs, limits::kMaxPulse_fs, "fs"));
     // The source's chirp, either sign; bounded so that the stretched length stays finite.
-    b.input_gdd_fs2 = f.number("input_gdd_fs2", Need::Optional, between(-1e9, 1e9));
-    b.emit_time_fs = f.number("emit_time_fs", Need::Optional).value_or(0);
-    b.power_mw = f.number("power_mw", Need::Optional, positive());
-    b.repetition_rate_khz = f.number("repetition_rate_khz", Need::Optional, positive());
+    b.input_gdd_fs2 = f.number("input_gdd_fs2", Need::Optional, between(-1e9, 1e9, "fs²"));
+    b.emit_time_fs = f.number("emit_time_fs", Need::Optional, between(-limits::kMaxTime_fs, limits::kMaxTime_fs, "fs")).value_or(0);
+    b.power_mw = f.number("power_mw", Need::Optional, positive_within(limits::kMinPower_mw, limits::kMaxPower_mw, "mW"));
+    b.repetition_rate_khz = f.number("repetition_rate_khz", Need::Optional,
+                                     positive_within(limits::kMinRepetitionRate_khz, limits::kMaxRepetitionRate_khz, "kHz"));
     b.polarized_fraction = f.number("polarized_fraction", Need::Optional, between(0, 1)).value_or(1.0);
     using K = Polarization::Kind;
     if (const auto pol = f.choice("polarization", Need::Optional, texts_of(kPolarizationNames)))
         b.polarization.kind = value_named(kPolarizationNames, *pol).value_or(K::Horizontal);
     if (b.polarization.kind == K::Linear)
-        b.polarization.angle_deg = f.number("polarization_angle_deg", Need::Required).value_or(0);
+        b.polarization.angle_deg = f.number("polarization_angle_deg", Need::Required, angle_deg()).value_or(0);
     else if (f.has("polarization_angle_deg"))
         f.error("polarization_angle_deg", "only allowed with \"polarization\": \"linear\"");
     f.finish({"id", "wavelength_nm", "start_mm", "direction_deg", "waist_um", "waist_at_mm", "m2",
@@ -294,13 +310,14 @@ void Reader::read_beam(const json& v, const std::string& ptr, Layout& layout) {
         else
             element_pointers_[b.id] = ptr + "/id";
     }
+    if (b.wavelength_nm > 0) beam_wavelengths_nm_.emplace_back(b.id, b.wavelength_nm);
     layout.beams.push_back(std::move(b));
 }
 
 std::optional<std::string> Reader::material_name(FieldReader& f, const std::string& key) {
     const auto name = f.string(key, Need::Required);
     if (!name) return std::nullopt;
-    if (library_.find(*name)) return name;
+    if (const Material* m = library_.find(*name)) return real_index_for_beams(f, key, *m) ? name : std::nullopt;
     std::string message = "unknown material \"" + *name + "\"";
     if (const auto near = closest_catalogue_name(*name, library_.names()))
         message += "; did you mean \"" + *near + "\"?";
@@ -308,11 +325,35 @@ std::optional<std::string> Reader::material_name(FieldReader& f, const std::stri
     return std::nullopt;
 }
 
+// A dispersion formula has poles (Sellmeier: n² = 1 + Σ B λ²/(λ² − C) is infinite at λ² = C
+// and negative just below): a beam's wavelength on or next to one gives no real index, and the
+// propagation NaN or a Rayleigh range of 1e-13 mm (issue 19). Each principal axis is asked at
+// the wavelength of each beam (either may meet the element; which one does is the trace's), and
+// an index that is not finite or below 1, or a group index that is not finite, is refused.
+bool Reader::real_index_for_beams(FieldReader& f, const std::string& key, const Material& material) {
+    const int axes = material.symmetry == Symmetry::Isotropic ? 1 : material.symmetry == Symmetry::Uniaxial ? 2 : 3;
+    for (const auto& [beam, wavelength_nm] : beam_wavelengths_nm_)
+        for (int a = 0; a < axes; ++a) {
+            const IndexSample s = sample_index(material, wavelength_nm, static_cast<Axis>(a));
+            if (std::isfinite(s.index) && s.index >= 1 && std::isfinite(s.group_index)) continue;
+            std::ostringstream m;
+            m.precision(6);
+            m << material.name << " has no real index at " << wavelength_nm << " nm (beam \"" << beam
+              << "\"): its dispersion formula gives ";
+            if (std::isfinite(s.index)) m << "n = " << s.index;
+            else m << "no finite n";
+            m << ", near a pole; expected an index of at least 1";
+            f.error(key, m.str());
+            return false;
+        }
+    return true;
+}
+
 std::optional<Lens> Reader::read_lens(FieldReader& f) {
     const bool thick = f.has("center_thickness_mm") || f.has("front_radius_mm") ||
                        f.has("back_radius_mm") || f.has("shape");
     if (!thick) {
-        const auto focal = f.number("focal_length_mm", Need::Required, non_zero());
+        const auto focal = f.number("focal_length_mm", Need::Required, non_zero_length_mm());
         if (!f.has("glass")) {
             if (f.has("design_wavelength_nm"))
                 f.error("design_wavelength_nm", "needs \"glass\" (an ideal lens has no dispersion)");
@@ -325,14 +366,14 @@ std::optional<Lens> Reader::read_lens(FieldReader& f) {
     }
     ThickLens t;
     const auto glass = material_name(f, "glass");
-    const auto thickness = f.number("center_thickness_mm", Need::Required, positive());
+    const auto thickness = f.number("center_thickness_mm", Need::Required, positive_length_mm());
     t.design_wavelength_nm = f.wavelength_nm("design_wavelength_nm", Need::Optional).value_or(587.6);
     constexpr double flat = std::numeric_limits<double>::infinity();
     if (f.has("shape")) {
         f.forbid_together("front_radius_mm", "shape");
         f.forbid_together("back_radius_mm", "shape");
         const auto shape = f.choice("shape", Need::Required, lens_shape_names());
-        const auto focal = f.number("focal_length_mm", Need::Required, non_zero());
+        const auto focal = f.number("focal_length_mm", Need::Required, non_zero_length_mm());
         if (!glass || !thickness || !shape || !focal) return std::nullopt;
         const double n = sample_index(*library_.find(*glass), t.design_wavelength_nm).index;
         std::string why;
@@ -350,8 +391,8 @@ std::optional<Lens> Reader::read_lens(FieldReader& f) {
             f.error("focal_length_mm", "not allowed with radii (the radii set the focal length)");
         if (f.has("design_wavelength_nm"))
             f.error("design_wavelength_nm", "only used with \"shape\"");
-        const auto r1 = f.number("front_radius_mm", Need::Optional, non_zero());
-        const auto r2 = f.number("back_radius_mm", Need::Optional, non_zero());
+        const auto r1 = f.number("front_radius_mm", Need::Optional, non_zero_length_mm());
+        const auto r2 = f.number("back_radius_mm", Need::Optional, non_zero_length_mm());
         if (!f.has("front_radius_mm") && !f.has("back_radius_mm"))
             f.error("", "a thick lens needs \"front_radius_mm\", \"back_radius_mm\" or \"shape\"");
         if (!glass || !thickness || (f.has("front_radius_mm") && !r1) ||
@@ -379,9 +420,9 @@ bool Reader::read_fields(Lens& lens, FieldReader& f, const std::string&) {
 }
 
 bool Reader::read_fields(Mirror& m, FieldReader& f, const std::string&) {
-    m.radius_of_curvature_mm = f.number("radius_of_curvature_mm", Need::Optional, non_zero());
+    m.radius_of_curvature_mm = f.number("radius_of_curvature_mm", Need::Optional, non_zero_length_mm());
     m.aim_at = f.string("aim_at", Need::Optional);
-    m.retardance_deg = f.number("retardance_deg", Need::Optional).value_or(0);
+    m.retardance_deg = f.number("retardance_deg", Need::Optional, angle_deg()).value_or(0);
     f.forbid_together("normal_deg", "aim_at");
     f.finish(with_common({"radius_of_curvature_mm", "aim_at", "retardance_deg"}));
     return true;
@@ -394,10 +435,10 @@ bool Reader::read_fields(Dichroic& d, FieldReader& f, const std::string& ptr) {
     if (const json* s = f.object("substrate", Need::Required)) {
         FieldReader sf(*s, ptr + "/substrate", "a dichroic substrate", out_);
         d.substrate.material = material_name(sf, "glass").value_or("");
-        d.substrate.thickness_mm = sf.number("thickness_mm", Need::Required, positive()).value_or(0);
+        d.substrate.thickness_mm = sf.number("thickness_mm", Need::Required, positive_length_mm()).value_or(0);
         sf.finish({"glass", "thickness_mm"});
     }
-    d.retardance_deg = f.number("retardance_deg", Need::Optional).value_or(0);
+    d.retardance_deg = f.number("retardance_deg", Need::Optional, angle_deg()).value_or(0);
     f.finish(with_common({"edge_nm", "reflects", "substrate", "retardance_deg"}));
     return true;
 }
@@ -407,7 +448,7 @@ bool Reader::read_fields(Plate& p, FieldReader& f, const std::string&) {
     if (const auto role = f.choice("role", Need::Optional, texts_of(kPlateRoleNames)))
         p.role = value_named(kPlateRoleNames, *role).value_or(R::Window);
     p.slab.material = material_name(f, "material").value_or("");
-    p.slab.thickness_mm = f.number("thickness_mm", Need::Required, positive()).value_or(0);
+    p.slab.thickness_mm = f.number("thickness_mm", Need::Required, positive_length_mm()).value_or(0);
     const bool wave = p.role == R::HalfWave || p.role == R::QuarterWave;
     const bool polarizing = p.role == R::PolarizingCube || p.role == R::Polarizer;
     auto only = [&](const char* key, bool allowed, const char* what) {
@@ -420,9 +461,10 @@ bool Reader::read_fields(Plate& p, FieldReader& f, const std::string&) {
     only("retarder_thickness_um", wave, "wave plates");
     only("extinction_ratio", polarizing, "polarizing cubes and polarizers");
     only("reflects", p.role == R::PolarizingCube, "polarizing cubes");
-    p.fast_axis_deg = f.number("fast_axis_deg", Need::Optional).value_or(0);
+    p.fast_axis_deg = f.number("fast_axis_deg", Need::Optional, angle_deg()).value_or(0);
     if (wave) {
-        p.retarder_thickness_um = f.number("retarder_thickness_um", Need::Optional, positive());
+        p.retarder_thickness_um = f.number("retarder_thickness_um", Need::Optional,
+                                           positive_within(1e3 * limits::kMinNonZeroLength_mm, 1e3 * limits::kMaxLength_mm, "µm"));
         p.design_nm = f.wavelength_nm("design_nm", p.retarder_thickness_um ? Need::Optional : Need::Required);
         if (f.has("retarder_material")) {
             p.retarder_material = material_name(f, "retarder_material");
@@ -452,9 +494,10 @@ bool Reader::read_fields(Stage& s, FieldReader& f, const std::string&) {
     s.carries = f.strings("carries", Need::Required).value_or(std::vector<std::string>{});
     if (f.has("carries") && f.object_at("carries").is_array() && f.object_at("carries").empty())
         f.error("carries", "expected at least one element id");
-    s.axis_deg = f.number("axis_deg", Need::Required).value_or(0);
-    s.position_mm = f.number("position_mm", Need::Optional).value_or(0);
-    if (const auto travel = f.interval("travel_mm", Need::Required)) {
+    s.axis_deg = f.number("axis_deg", Need::Required, angle_deg()).value_or(0);
+    // A stage at 1e300 mm once crashed the drawing (issue 19): every reading within ±100 m.
+    s.position_mm = f.number("position_mm", Need::Optional, length_mm()).value_or(0);
+    if (const auto travel = f.interval("travel_mm", Need::Required, length_mm())) {
         s.travel_min_mm = travel->first;
         s.travel_max_mm = travel->second;
         if (s.position_mm < s.travel_min_mm || s.position_mm > s.travel_max_mm) {
@@ -464,7 +507,7 @@ bool Reader::read_fields(Stage& s, FieldReader& f, const std::string&) {
             f.error("position_mm", m.str());
         }
     }
-    s.measured_zero_mm = f.number("measured_zero_mm", Need::Optional);
+    s.measured_zero_mm = f.number("measured_zero_mm", Need::Optional, length_mm());
     for (const char* key : {"at_mm", "normal_deg", "aperture_mm", "transmission"})
         if (f.has(key)) f.error(key, "a stage has no position of its own; it moves what it carries");
     f.finish({"id", "type", "carries", "axis_deg", "position_mm", "travel_mm",
@@ -474,7 +517,7 @@ bool Reader::read_fields(Stage& s, FieldReader& f, const std::string&) {
 
 bool Reader::read_fields(Crystal& c, FieldReader& f, const std::string&) {
     c.material = material_name(f, "material").value_or("");
-    c.length_mm = f.number("length_mm", Need::Required, positive()).value_or(0);
+    c.length_mm = f.number("length_mm", Need::Required, positive_length_mm()).value_or(0);
     c.cut_deg = f.number("cut_deg", Need::Required, between(0, 90)).value_or(0);
     if (const auto type = f.choice("phase_matching", Need::Required, texts_of(kPhaseMatchingNames)))
         c.phase_matching = value_named(kPhaseMatchingNames, *type).value_or(Crystal::PhaseMatching::TypeI);
@@ -547,8 +590,8 @@ void Reader::read_element(const json& v, const std::string& ptr, Layout& layout)
     e.id = typed.id("id", Need::Required).value_or("");
     if (*type != "stage") {
         e.at_mm = typed.point("at_mm", Need::Required).value_or(Vec2(0, 0));
-        e.normal_deg = typed.number("normal_deg", Need::Optional).value_or(0);
-        e.aperture_mm = typed.number("aperture_mm", Need::Optional, positive()).value_or(kDefaultAperture_mm);
+        e.normal_deg = typed.number("normal_deg", Need::Optional, angle_deg()).value_or(0);
+        e.aperture_mm = typed.number("aperture_mm", Need::Optional, positive_length_mm()).value_or(kDefaultAperture_mm);
         e.transmission = typed.number("transmission", Need::Optional, between(0, 1)).value_or(1.0);
     }
     std::optional<ElementKind> kind = read_kind(*type, typed, ptr);
@@ -577,7 +620,15 @@ void Reader::check_references(const json& doc, Layout& layout) {
     auto pointer_of = [&](const std::string& id, const std::string& key) {
         return child_pointer(child_pointer("/elements", index_of[id]), key);
     };
-    auto is_element = [&](const std::string& id) { return layout.find(id) != nullptr; };
+    // The elements read, by id, once (issue 19 §3: layout.find per reference was quadratic).
+    std::unordered_map<std::string_view, const Element*> element_of;
+    element_of.reserve(layout.elements.size());
+    for (const Element& e : layout.elements) element_of.try_emplace(e.id, &e);
+    auto find = [&](const std::string& id) -> const Element* {
+        const auto it = element_of.find(id);
+        return it == element_of.end() ? nullptr : it->second;
+    };
+    auto is_element = [&](const std::string& id) { return find(id) != nullptr; };
     // "no element has id …", with the closest id when it looks like a typo.
     std::vector<std::string> ids;
     for (const auto& [id, i] : index_of) ids.push_back(id);
@@ -588,14 +639,14 @@ void Reader::check_references(const json& doc, Layout& layout) {
             if (const auto near = closest_name(id, ids)) m += "; did you mean \"" + *near + "\"?";
         return m;
     };
-    std::map<std::string, std::string> carried_by;
+    std::unordered_map<std::string, std::string> carried_by;
     for (const Element& e : layout.elements) {
         if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->aim_at) {
             if (!index_of.count(*m->aim_at))
                 error(pointer_of(e.id, "aim_at"), no_element(*m->aim_at));
             else if (*m->aim_at == e.id)
                 error(pointer_of(e.id, "aim_at"), "a mirror cannot aim at itself");
-            else if (is_element(*m->aim_at) && std::holds_alternative<Stage>(layout.find(*m->aim_at)->kind))
+            else if (is_element(*m->aim_at) && std::holds_alternative<Stage>(find(*m->aim_at)->kind))
                 error(pointer_of(e.id, "aim_at"), "\"" + *m->aim_at + "\" is a stage, which has no position to aim at");
         }
         if (const auto* c = std::get_if<Crystal>(&e.kind); c && c->process == Crystal::Process::SecondHarmonic) {
@@ -618,7 +669,7 @@ void Reader::check_references(const json& doc, Layout& layout) {
                     error(ptr, "a stage cannot carry itself");
                 } else if (!index_of.count(c)) {
                     error(ptr, no_element(c));
-                } else if (is_element(c) && std::holds_alternative<Stage>(layout.find(c)->kind)) {
+                } else if (is_element(c) && std::holds_alternative<Stage>(find(c)->kind)) {
                     error(ptr, "a stage cannot carry another stage (\"" + c + "\")");
                 } else if (carried_by.count(c)) {
                     error(ptr, "\"" + c + "\" is already carried by stage \"" + carried_by[c] + "\"");
@@ -642,7 +693,7 @@ void Reader::check_references(const json& doc, Layout& layout) {
             (void)range;
             const std::string ptr = child_pointer("/goals/solve/move", id);
             if (!index_of.count(id)) error(ptr, no_element(id));
-            else if (is_element(id) && std::holds_alternative<Stage>(layout.find(id)->kind))
+            else if (is_element(id) && std::holds_alternative<Stage>(find(id)->kind))
                 error(ptr, "\"" + id + "\" is a stage; move it with its position_mm");
         }
         std::map<std::string, size_t> first_swap;  // a lens swapped twice gives two answers
@@ -653,11 +704,11 @@ void Reader::check_references(const json& doc, Layout& layout) {
                 error(ptr, "\"" + id + "\" is listed twice (first at " +
                                child_pointer("/goals/solve/swap", first->second) + ")");
             else if (!index_of.count(id)) error(ptr, no_element(id));
-            else if (is_element(id) && !std::holds_alternative<Lens>(layout.find(id)->kind))
+            else if (is_element(id) && !std::holds_alternative<Lens>(find(id)->kind))
                 error(ptr, "\"" + id + "\" is not a lens; only lenses can be swapped");
         }
     }
-    check_adjusters(layout, no_element);
+    check_adjusters(layout, no_element, find);
     for (const auto& [beam, waist] : layout.goals.waist_um) {
         (void)waist;
         bool found = false;
@@ -667,13 +718,14 @@ void Reader::check_references(const json& doc, Layout& layout) {
 }
 
 // Each adjuster names an element of the right kind, and no element adjusts twice.
-void Reader::check_adjusters(const Layout& layout, const std::function<std::string(const std::string&)>& no_element) {
+void Reader::check_adjusters(const Layout& layout, const std::function<std::string(const std::string&)>& no_element,
+                             const std::function<const Element*(const std::string&)>& find) {
     if (!layout.goals.tolerance.adjust) return;
     const ToleranceAdjusters& a = *layout.goals.tolerance.adjust;
     const std::string base = "/goals/tolerance/adjust";
     // The element's kind in words when it is not the one wanted ("" when it is, or unknown).
     auto kind_error = [&](const std::string& id, auto is_wanted, const std::string& wanted) -> std::string {
-        const Element* e = layout.find(id);
+        const Element* e = find(id);
         if (!e) return no_element(id);
         if (is_wanted(*e)) return "";
         return "\"" + id + "\" is a " + type_name(e->kind) + "; expected " + wanted;

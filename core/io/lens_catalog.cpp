@@ -48,15 +48,15 @@ CatalogReadResult parse_lens_catalog(std::string_view text, const MaterialLibrar
         FieldReader f(item, child_pointer("/lenses", i), "a catalog lens", out.diagnostics);
         const auto id = f.id("id", Need::Required);
         const auto kind = f.choice("kind", Need::Required, {"singlet", "achromat", "concave-mirror"});
-        const auto focal = f.number("focal_length_mm", Need::Required, non_zero());
-        const auto diameter = f.number("diameter_mm", Need::Required, positive());
+        const auto focal = f.number("focal_length_mm", Need::Required, non_zero_length_mm());
+        const auto diameter = f.number("diameter_mm", Need::Required, positive_length_mm());
         if (!id || !kind || !focal || !diameter || *kind == "concave-mirror") continue;
         CatalogLens c{*id, *focal, *diameter, Lens{IdealLens{*focal}}};
         if (*kind == "singlet") {
             const auto glass = f.string("glass", Need::Required);
             const auto shape = f.choice("shape", Need::Required, lens_shape_names());
-            const auto t = f.number("center_thickness_mm", Need::Required, positive());
-            const double design = f.number("design_wavelength_nm", Need::Optional, positive()).value_or(587.6);
+            const auto t = f.number("center_thickness_mm", Need::Required, positive_length_mm());
+            const double design = f.wavelength_nm("design_wavelength_nm", Need::Optional).value_or(587.6);
             const Material* g = glass ? library.find(*glass) : nullptr;
             if (!g || !shape || !t) {
                 if (glass && !g) f.error("glass", "unknown material \"" + *glass + "\"");

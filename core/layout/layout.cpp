@@ -1,5 +1,8 @@
 #include "layout/layout.hpp"
 
+#include <string_view>
+#include <unordered_map>
+
 #include "layout/visit.hpp"
 
 namespace rv {
@@ -63,11 +66,17 @@ Vec2 stage_shift_mm(const Stage& stage) { return stage.position_mm * direction_d
 std::vector<Vec2> placed_positions_mm(const Layout& layout) {
     std::vector<Vec2> at(layout.elements.size());
     for (size_t i = 0; i < layout.elements.size(); ++i) at[i] = layout.elements[i].at_mm;
+    // Ids to indices once (issue 19 §3: a search per carried id was quadratic). Every element
+    // of an id moves with the stage, as the search did (the reader refuses a repeated id).
+    std::unordered_multimap<std::string_view, size_t> index;
+    index.reserve(layout.elements.size());
+    for (size_t i = 0; i < layout.elements.size(); ++i) index.emplace(layout.elements[i].id, i);
     for (const Element& e : layout.elements)
         if (const auto* s = std::get_if<Stage>(&e.kind))
-            for (const std::string& id : s->carries)
-                for (size_t i = 0; i < layout.elements.size(); ++i)
-                    if (layout.elements[i].id == id) at[i] += stage_shift_mm(*s);
+            for (const std::string& id : s->carries) {
+                const auto [first, last] = index.equal_range(id);
+                for (auto it = first; it != last; ++it) at[it->second] += stage_shift_mm(*s);
+            }
     return at;
 }
 

@@ -35,8 +35,10 @@ struct Problem {
 };
 
 double move_of(const Problem& p, size_t k, double u) {
-    const double mid = (p.move_range[k].first + p.move_range[k].second) / 2;
-    const double half = (p.move_range[k].second - p.move_range[k].first) / 2;
+    // Halved before they are combined: (hi - lo) / 2 overflows to infinity over ±1e308 and the
+    // moves became NaN (issue 19 §1); hi/2 - lo/2 is finite for any finite range.
+    const double mid = p.move_range[k].first / 2 + p.move_range[k].second / 2;
+    const double half = p.move_range[k].second / 2 - p.move_range[k].first / 2;
     return mid + half * std::sin(u);
 }
 
@@ -178,7 +180,8 @@ TelescopeSolution solve_one(const Problem& p, const std::vector<const CatalogLen
     Eigen::VectorXd u = Eigen::VectorXd::Zero(n);
     for (Eigen::Index k = 0; k < n; ++k) {  // start from no move when the range allows it
         const auto [lo, hi] = p.move_range[static_cast<size_t>(k)];
-        u[k] = lo <= 0 && 0 <= hi ? std::asin(std::clamp((0 - (lo + hi) / 2) / ((hi - lo) / 2), -1.0, 1.0)) : 0;
+        const double half = hi / 2 - lo / 2;
+        u[k] = lo <= 0 && 0 <= hi && half > 0 ? std::asin(std::clamp(-(lo / 2 + hi / 2) / half, -1.0, 1.0)) : 0;
     }
     Layout work = apply(p, choice, u);
     TraceCache cache;

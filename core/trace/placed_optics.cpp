@@ -76,11 +76,21 @@ std::optional<size_t> index_of(const Layout& layout, const std::string& id) {
 }
 }  // namespace
 
+std::optional<size_t> IdLookup::find(const std::string& id) {
+    if (!built_) {
+        index_.reserve(layout_.elements.size());
+        for (size_t i = 0; i < layout_.elements.size(); ++i) index_.try_emplace(layout_.elements[i].id, i);
+        built_ = true;
+    }
+    const auto it = index_.find(id);
+    return it == index_.end() ? std::nullopt : std::optional<size_t>(it->second);
+}
+
 std::optional<size_t> resolve_id(const Layout& layout, const std::string& id,
-                                 std::optional<std::pair<std::string, size_t>>& slot) {
+                                 std::optional<std::pair<std::string, size_t>>& slot, IdLookup* lookup) {
     if (!slot || slot->first != id || slot->second >= layout.elements.size() ||
         layout.elements[slot->second].id != id) {
-        const std::optional<size_t> i = index_of(layout, id);
+        const std::optional<size_t> i = lookup ? lookup->find(id) : index_of(layout, id);
         if (!i) {
             slot.reset();
             return std::nullopt;
@@ -95,7 +105,7 @@ namespace {
 // One element where its stage (if any) has moved it by offset: normal, surfaces, bounding
 // circle, material (the normal and the bounding radius recomputed only when their inputs changed).
 void place_one(const Layout& layout, const MaterialLibrary& library, PlacementMemo& memo, PlacedOptic& pl,
-               size_t i, const Vec2& offset) {
+               size_t i, const Vec2& offset, IdLookup& lookup) {
     const Element& e = layout.elements[i];
     const ElementKind& kind = e.kind;
     PlacementMemo::Resolved& r = memo.resolved[i];
@@ -111,7 +121,7 @@ void place_one(const Layout& layout, const MaterialLibrary& library, PlacementMe
     pl.aim_target.reset();
     pl.material = nullptr;
     if (const auto* m = std::get_if<Mirror>(&kind); m && m->aim_at) {
-        pl.aim_target = resolve_id(layout, *m->aim_at, r.aim_target);
+        pl.aim_target = resolve_id(layout, *m->aim_at, r.aim_target, &lookup);
         pl.aim_pending = pl.aim_target.has_value();
     }
     pl.surface_count = surfaces_of(kind, pl.at, pl.normal, pl.surfaces);
@@ -141,8 +151,9 @@ void place_elements(const Layout& layout, const MaterialLibrary& library, Placem
     memo.resolved.resize(n);
     std::vector<Vec2>& offset = memo.stage_offset_mm;  // where each element's stage moves it
     std::vector<Vec2>& before = memo.stage_offset_before_mm;
+    IdLookup lookup(layout);  // built only if a cached slot misses
     if (changed && links_same && changed_list) {
-        for (size_t i : *changed_list) place_one(layout, library, memo, placed[i], i, offset[i]);
+        for (size_t i : *changed_list) place_one(layout, library, memo, placed[i], i, offset[i], lookup);
         for (size_t i : memo.aim_mirrors) {
             if ((*changed)[i]) continue;
             PlacedOptic& pl = placed[i];
@@ -160,7 +171,7 @@ void place_elements(const Layout& layout, const MaterialLibrary& library, Placem
             for (size_t c = 0; c < s->carries.size(); ++c) {
                 std::optional<std::pair<std::string, size_t>> slot;
                 if (!carried[c].first.empty()) slot = carried[c];
-                if (auto i = resolve_id(layout, s->carries[c], slot)) {
+                if (auto i = resolve_id(layout, s->carries[c], slot, &lookup)) {
                     offset[*i] += stage_shift_mm(*s);
                     carried[c] = *slot;
                 }
@@ -173,7 +184,7 @@ void place_elements(const Layout& layout, const MaterialLibrary& library, Placem
             const auto* m = std::get_if<Mirror>(&layout.elements[i].kind);
             if (!(*changed)[i] && !(m && m->aim_at)) continue;
         }
-        place_one(layout, library, memo, placed[i], i, offset[i]);
+        place_one(layout, library, memo, placed[i], i, offset[i], lookup);
     }
     memo.aim_mirrors.clear();
     for (size_t i = 0; i < n; ++i)

@@ -5,6 +5,8 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
+#include <unordered_map>
 #include <vector>
 
 #include "layout/layout.hpp"
@@ -69,10 +71,27 @@ struct PlacementMemo {
     std::vector<size_t> aim_mirrors;  // the mirrors with a resolved aim_at
 };
 
+// Ids to element indices, built on the first lookup (once per placement), so that resolving
+// every stage's and aim_at mirror's ids is linear in the layout, not a search each (issue 19
+// §3: a 100 000-element aim_at chain took minutes). The first element of an id wins, as the
+// search did.
+class IdLookup {
+public:
+    explicit IdLookup(const Layout& layout) : layout_(layout) {}
+    std::optional<size_t> find(const std::string& id);
+
+private:
+    const Layout& layout_;
+    std::unordered_map<std::string_view, size_t> index_;
+    bool built_ = false;
+};
+
 // An element id looked up through a cached slot: the cached index while the element there
-// still has that id, else a search (the slot then holds what it found).
+// still has that id, else a search (through `lookup` when given; the slot then holds what it
+// found).
 std::optional<size_t> resolve_id(const Layout& layout, const std::string& id,
-                                 std::optional<std::pair<std::string, size_t>>& slot);
+                                 std::optional<std::pair<std::string, size_t>>& slot,
+                                 IdLookup* lookup = nullptr);
 
 // Every element where stages have moved it, into `placed` (once per trace of the layout).
 // With `changed` (a retrace): only the elements flagged there, those a stage now moves by

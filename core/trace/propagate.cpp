@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <tuple>
 
 #include "layout/visit.hpp"
@@ -175,13 +176,32 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
     double s0 = 0;
     const double target_s = path.target_hit ? path.hits[*path.target_hit].s_mm : -1;
 
+    // A beam whose q (or radius) stops being a finite number — an overflow or a 0/0 from the
+    // numbers of one optic, say a focal length of 1e-320 mm — is given no further figure: one
+    // finding NotFinite names the element where it happened, and every later radius stays NaN,
+    // which every writer prints as "n/a" and never as a number (issue 19 §1).
+    bool lost = false;
+    auto check_finite = [&](const GaussianBeam& bt, const GaussianBeam& bs, const TraceHit& hit) {
+        if (lost) return;
+        const bool finite = std::isfinite(bt.q_mm.real()) && std::isfinite(bt.q_mm.imag()) &&
+                            std::isfinite(bs.q_mm.real()) && std::isfinite(bs.q_mm.imag()) &&
+                            std::isfinite(radius_um(bt)) && std::isfinite(radius_um(bs));
+        if (finite) return;
+        lost = true;
+        Finding& f = out.findings.emplace_back();
+        f.kind = Finding::Kind::NotFinite;
+        f.element = layout.elements[hit.element].id;
+        f.where_mm = hit.point_mm;
+    };
+
     // Samples along one segment starting at s0 with the beams (bt, bs) at its start.
     auto sample_segment = [&](const GaussianBeam& bt, const GaussianBeam& bs, double length) {
-        if (!options.sample_envelope || !(length >= 0) || !std::isfinite(length)) return;
+        if (lost || !options.sample_envelope || !(length >= 0) || !std::isfinite(length)) return;
         const int n = clamped_int(length / options.envelope_step_mm, 1, 400);
         for (int i = 0; i <= n; ++i) {
             const double z = length * i / n;
-            out.envelope.push_back({s0 + z, radius_um(translate(bt, z)), radius_um(translate(bs, z))});
+            const EnvelopeSample e{s0 + z, radius_um(translate(bt, z)), radius_um(translate(bs, z))};
+            if (std::isfinite(e.radius_tangential_um) && std::isfinite(e.radius_sagittal_um)) out.envelope.push_back(e);
         }
     };
 
@@ -196,14 +216,16 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         t.index = seg.index;
         s.index = seg.index;
         sample_segment(t, s, seg.length_mm);
-        if (options.sample_envelope) segment_starts.push_back({s0, seg.length_mm, t, s});
+        if (options.sample_envelope && !lost) segment_starts.push_back({s0, seg.length_mm, t, s});
         t = translate(t, seg.length_mm);
         s = translate(s, seg.length_mm);
         s0 += seg.length_mm;
         if (i >= path.hits.size()) break;  // the trailing segment to the table edge
         const TraceHit& hit = path.hits[i];
-        BeamAtHit at{hit.s_mm, radius_um(t), radius_um(s), 0};
-        at.clipped_fraction = clipped_fraction(hit, at.radius_tangential_um, at.radius_sagittal_um);
+        check_finite(t, s, hit);  // arriving: a translation that overflowed
+        const double nan = std::numeric_limits<double>::quiet_NaN();
+        BeamAtHit at{hit.s_mm, lost ? nan : radius_um(t), lost ? nan : radius_um(s), 0};
+        if (!lost) at.clipped_fraction = clipped_fraction(hit, at.radius_tangential_um, at.radius_sagittal_um);
         if (at.clipped_fraction > options.clipping_warning_fraction) {
             // One finding per optic (a slab's two faces clip alike): the larger loss.
             const std::string& id = layout.elements[hit.element].id;
@@ -222,12 +244,13 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
         }
         out.at_hits.push_back(at);
         arriving.emplace_back(t, s);
-        if (path.target_hit && *path.target_hit == i) {
+        if (path.target_hit && *path.target_hit == i && !lost) {
             out.reaches_target = true;
             out.target_tangential = t;
             out.target_sagittal = s;
         }
         cross_hit(layout, hit, t, s);
+        check_finite(t, s, hit);  // leaving: the optic's own numbers
     }
 
     if (out.reaches_target) {
@@ -257,7 +280,9 @@ Caustic propagate_path(const Layout& layout, const Path& path, const Propagation
                 const int last = clamped_int(std::floor((b - lo) / step), -1, n - 1);
                 for (int k = first; k <= last; ++k) {
                     const double x = lo + k * step, z = x - seg.s_mm;
-                    out.envelope.push_back({x, radius_um(translate(seg.t, z)), radius_um(translate(seg.s, z))});
+                    const EnvelopeSample e{x, radius_um(translate(seg.t, z)), radius_um(translate(seg.s, z))};
+                    if (std::isfinite(e.radius_tangential_um) && std::isfinite(e.radius_sagittal_um))
+                        out.envelope.push_back(e);
                 }
             }
         std::stable_sort(out.envelope.begin(), out.envelope.end(),

@@ -166,11 +166,13 @@ try:
     check("delay now" in r.stderr, "balance --write - says its summary on stderr")
     check(not os.path.exists(os.path.join(scratch, "-")), "no file named '-'")
 
-    # 7. Infinity: --zero 1e308 overflows the layout's emission time; refused, nothing written.
-    # (--zero nan no longer reaches the writer: the command line refuses it, checked here too.)
+    # 7. Infinity: --zero 1e308 once overflowed the layout's emission time; it is now refused at
+    # the door (a stage reading within ±100 m, issue 19 §1), nothing written or printed. The
+    # writer's own refusal of NaN and infinity is safe_write_test's.
     out = os.path.join(scratch, "nan.json")
     r = run("calibrate", src, "--zero", "1e308", "--write", out)
-    refused(r, out, "not a finite number (NaN or infinity) at /", "calibrate --zero 1e308")
+    check(r.returncode == 2 and 'expected a number between -100000 and 100000 mm, got "1e308"' in r.stderr,
+          f"calibrate --zero 1e308 refused at the door: {r.stderr!r}")
     check(not os.path.exists(out), "no infinite layout written")
     r = run("calibrate", src, "--zero", "1e308", "--write", "-")
     check(r.returncode == 2 and r.stdout == "", "no infinite layout printed")

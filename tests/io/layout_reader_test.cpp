@@ -32,7 +32,7 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"unknown-type.json", {"unknown-type.json: error: /elements/0/type (L): unknown element type \"lense\"; did you mean \"lens\"?"}},
         {"zero-focal-length.json", {"zero-focal-length.json: error: /elements/0/focal_length_mm (L): must be non-zero (got 0)"}},
         {"negative-aperture.json", {"negative-aperture.json: error: /elements/1/aperture_mm (T): must be positive (got -5)"}},
-        {"m2-below-one.json", {"m2-below-one.json: error: /beams/0/m2/1 (b): must be at least 1 (got 0.9)"}},
+        {"m2-below-one.json", {"m2-below-one.json: error: /beams/0/m2/1 (b): must be between 1 and 1000 (got 0.9)"}},
         {"duplicate-id.json", {"duplicate-id.json: error: /elements/1/id (L): duplicate id \"L\" (first used at /elements/0/id)",
                                "duplicate-id.json: error: /target: no element has id \"T\""}},
         {"aim-at-missing.json", {"aim-at-missing.json: error: /elements/1/aim_at (M): no element has id \"M9\"; did you mean \"M\"?"}},
@@ -63,11 +63,44 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         // the offending byte as it is (0x89, not UTF-8).
         // A byte that is not UTF-8 is shown as \xNN, not written raw to the terminal.
         {"binary-garbage.json", {"binary-garbage.json:1:1: error: syntax error: invalid literal; last read: '\\x89'"}},
-        // Positive sizes below 1e-9 of their unit (denormals pass "> 0").
-        {"denormal-waist.json", {"denormal-waist.json: error: /beams/0/waist_um (pump): must be at least 1e-09 (got 9.99988867182683e-321)"}},
-        {"denormal-lengths.json", {"denormal-lengths.json: error: /beams/0/waist_um (pump): must be at least 1e-09 (got 9.99988867182683e-321)",
-                                   "denormal-lengths.json: error: /elements/0/thickness_mm (P): must be at least 1e-09 (got 4.94065645841247e-324)",
-                                   "denormal-lengths.json: error: /elements/1/aperture_mm (T): must be at least 1e-09 (got 9.99999999999997e-311)"}},
+        // Positive sizes below the smallest real one (denormals pass "> 0"): a waist of at least
+        // 0.1 µm, a length of at least 1e-6 mm (layout/input_limits.hpp).
+        {"denormal-waist.json", {"denormal-waist.json: error: /beams/0/waist_um (pump): must be between 0.1 and 1000000 µm (got 9.99988867182683e-321)"}},
+        {"denormal-lengths.json", {"denormal-lengths.json: error: /beams/0/waist_um (pump): must be between 0.1 and 1000000 µm (got 9.99988867182683e-321)",
+                                   "denormal-lengths.json: error: /elements/0/thickness_mm (P): must be between 1e-06 and 100000 mm (got 4.94065645841247e-324)",
+                                   "denormal-lengths.json: error: /elements/1/aperture_mm (T): must be between 1e-06 and 100000 mm (got 9.99999999999997e-311)"}},
+        // Bounded numbers at the door (issue 19 §1): values no real table has, with the range.
+        {"lengths-out-of-range.json",
+         {"lengths-out-of-range.json: error: /elements/0/at_mm/0 (L1): must lie within ±100000 mm (100 m) (got 1e+300)",
+          "lengths-out-of-range.json: error: /elements/0/focal_length_mm (L1): must be non-zero, between 1e-06 and 100000 mm either way (got 1e-07)",
+          "lengths-out-of-range.json: error: /elements/1/radius_of_curvature_mm (M1): must be non-zero, between 1e-06 and 100000 mm either way (got 200000)",
+          "lengths-out-of-range.json: error: /elements/2/position_mm (S): must lie within ±100000 mm (100 m) (got 1e+300)",
+          "lengths-out-of-range.json: error: /elements/2/travel_mm/0 (S): must lie within ±100000 mm (100 m) (got -1e+300)",
+          "lengths-out-of-range.json: error: /elements/2/travel_mm/1 (S): must lie within ±100000 mm (100 m) (got 1e+300)",
+          "lengths-out-of-range.json: error: /elements/3/thickness_mm (P): must be between 1e-06 and 100000 mm (got 1e-07)",
+          "lengths-out-of-range.json: error: /elements/4/aperture_mm (T): must be between 1e-06 and 100000 mm (got 1000000)"}},
+        {"table-out-of-range.json", {"table-out-of-range.json: error: /table/size_mm/0: must be between 10 and 100000 mm (got 1e-09)",
+                                     "table-out-of-range.json: error: /table/size_mm/1: must be between 10 and 100000 mm (got 1000000)"}},
+        {"source-out-of-range.json",
+         {"source-out-of-range.json: error: /beams/0/direction_deg (pump): must be an angle within ±360 degrees (got 1e+300)",
+          "source-out-of-range.json: error: /beams/0/waist_um/0 (pump): must be between 0.1 and 1000000 µm (got 0.05)",
+          "source-out-of-range.json: error: /beams/0/waist_um/1 (pump): must be between 0.1 and 1000000 µm (got 2000000)",
+          "source-out-of-range.json: error: /beams/0/m2 (pump): must be between 1 and 1000 (got 2000)",
+          "source-out-of-range.json: error: /beams/0/pulse_fwhm_fs (pump): must be between 0.1 and 1000000000 fs (got 1000000000000)",
+          "source-out-of-range.json: error: /beams/0/emit_time_fs (pump): must be between -1000000000 and 1000000000 fs (got -1e+300)",
+          "source-out-of-range.json: error: /beams/0/power_mw (pump): must be between 1e-09 and 100000000 mW (got 1000000000000)",
+          "source-out-of-range.json: error: /beams/0/repetition_rate_khz (pump): must be between 1e-06 and 100000000 kHz (got 9.99988867182683e-321)",
+          "source-out-of-range.json: error: /beams/1/waist_um (probe): must be between 0.1 and 1000000 µm (got 9.99988867182683e-321)",
+          "source-out-of-range.json: error: /elements/0/damage_fluence_j_cm2 (T): must be between 1e-09 and 1000000 J/cm² (got 1e+300)"}},
+        // A beam on a pole of a dispersion formula: the user's n² = 1 + 0.64/(0.64 - 0.65) is
+        // negative at 800 nm (hand computation); N-BK7's third Schott-form pole lies at
+        // sqrt(103.56 µm²) = 10.18 µm (Schott N-BK7 datasheet C3 = 103.560653 µm²), so just
+        // below it at 10 µm its n² is negative too.
+        {"sellmeier-pole.json",
+         {"sellmeier-pole.json: error: /elements/0/material (W): my-glass has no real index at 800 nm (beam \"pump\"): its dispersion formula gives no finite n, near a pole; expected an index of at least 1",
+          "sellmeier-pole.json: error: /elements/1/glass (L): N-BK7 has no real index at 10000 nm (beam \"mid\"): its dispersion formula gives no finite n, near a pole; expected an index of at least 1"}},
+        {"move-range-huge.json", {"move-range-huge.json: error: /goals/solve/move/L1/0: must lie within ±100000 mm (100 m) (got -1e+308)",
+                                  "move-range-huge.json: error: /goals/solve/move/L1/1: must lie within ±100000 mm (100 m) (got 1e+308)"}},
         // Messages that say how to fix it (issue 14): the closest id, the material as the
         // catalogue spells it, the unit a wavelength was written in.
         {"id-typo.json", {"id-typo.json: error: /elements/0/aim_at (FOLD_1): no element has id \"FOLD_22\"; did you mean \"FOLD_2\"?",
@@ -105,6 +138,8 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"duplicate-key.json", {"duplicate-key.json:7:23: error: /beams/0/wavelength_nm (pump): duplicate key \"wavelength_nm\" (the first stands at line 6, column 20)",
                                 "duplicate-key.json:13:3: error: /target: duplicate key \"target\" (the first stands at line 12, column 3)"}},
         {"swap-twice.json", {"swap-twice.json: error: /goals/solve/swap/2: \"L1\" is listed twice (first at /goals/solve/swap/0)"}},
+        // A lens moved twice is a repeated key of the move object: refused at the second.
+        {"move-twice.json", {"move-twice.json:13:49: error: /goals/solve/move/L1: duplicate key \"L1\" (the first stands at line 13, column 32)"}},
         // goals.tolerance.adjust: each entry checked for its shape, its element's kind and repeats.
         {"adjust-errors.json",
          {"adjust-errors.json: error: /goals/tolerance/adjust/walk/1: expected one or two mirror ids of one beam's path, as [\"M1\", \"M2\"], found an array of 3 entries",

@@ -144,6 +144,7 @@ TEST_CASE("the Add menu offers every kind and refuses a stage with nothing to ca
 
 TEST_CASE("save is atomic and the recovery file restores unsaved edits", "[viewer][edit]") {
     const std::filesystem::path dir = std::filesystem::temp_directory_path() / "rv-editor-test";
+    std::filesystem::remove_all(dir);  // no recovery file of an earlier run
     std::filesystem::create_directories(dir);
     const std::filesystem::path file = dir / "bench.json";
     std::filesystem::copy_file(RV_SOURCE_DIR "/layouts/sfg-bbo.json", file,
@@ -162,7 +163,10 @@ TEST_CASE("save is atomic and the recovery file restores unsaved edits", "[viewe
     }
     rv::edit::Document again(*rv::read_layout_file(file).layout, file);
     CHECK(again.layout() != edited);
-    REQUIRE(again.restore_from(again.recovery_path()));
+    // The ended session's recovery file is an orphan now (its window's lock went with it).
+    const std::vector<std::filesystem::path> orphans = again.orphaned_recoveries();
+    REQUIRE(orphans.size() == 1);
+    REQUIRE(again.restore_from(orphans.front()));
     CHECK(again.layout() == edited);
     CHECK(again.dirty());
     std::string error;

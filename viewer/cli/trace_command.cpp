@@ -1,4 +1,5 @@
 // rendezvous trace: every hit of every beam, with the beam radius there.
+#include <cmath>
 #include <cstdio>
 #include <nlohmann/json.hpp>
 #include <ostream>
@@ -9,6 +10,7 @@
 #include "io/layout_reader.hpp"
 #include "trace/propagate.hpp"
 #include "trace/trace.hpp"
+#include "units/number_text.hpp"
 
 namespace rv::cli {
 
@@ -45,16 +47,22 @@ int run_trace(const TraceOptions& options, std::ostream& out, std::ostream& err)
                                 {"s_mm", h.s_mm},
                                 {"at_mm", {h.point_mm.x(), h.point_mm.y()}},
                                 {"aoi_deg", h.aoi_rad() * 180 / 3.14159265358979323846},
-                                {"radius_um", {{"tangential", c.at_hits[i].radius_tangential_um},
-                                               {"sagittal", c.at_hits[i].radius_sagittal_um}}}});
+                                // null after a not-finite finding: never a NaN written as null inside
+                                {"radius_um", std::isfinite(c.at_hits[i].radius_tangential_um) &&
+                                                      std::isfinite(c.at_hits[i].radius_sagittal_um)
+                                                  ? nlohmann::json{{"tangential", c.at_hits[i].radius_tangential_um},
+                                                                   {"sagittal", c.at_hits[i].radius_sagittal_um}}
+                                                  : nlohmann::json(nullptr)}});
                 continue;
             }
             char line[256];
             std::snprintf(line, sizeof line,
-                          "  %8.2f mm  %-8s %-13s at (%8.3f, %8.3f)  aoi %5.1f°  w %8.1f / %-8.1f µm\n",
+                          "  %8.2f mm  %-8s %-13s at (%8.3f, %8.3f)  aoi %5.1f°  w %8s / %-8s µm\n",
                           h.s_mm, layout->elements[h.element].id.c_str(), what, h.point_mm.x(),
                           h.point_mm.y(), h.aoi_rad() * 180 / 3.14159265358979323846,
-                          c.at_hits[i].radius_tangential_um, c.at_hits[i].radius_sagittal_um);
+                          // n/a after a not-finite finding (trace/propagate.cpp), never "nan"
+                          format_number("%.1f", c.at_hits[i].radius_tangential_um).c_str(),
+                          format_number("%.1f", c.at_hits[i].radius_sagittal_um).c_str());
             out << line;
         }
         nlohmann::json findings = nlohmann::json::array();

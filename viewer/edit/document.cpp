@@ -8,7 +8,7 @@
 namespace rv::edit {
 
 Document::Document(Layout layout, std::optional<std::filesystem::path> path)
-    : layout_(std::move(layout)), path_(std::move(path)) {
+    : layout_(std::move(layout)), path_(std::move(path)), claim_(std::make_unique<RecoveryClaim>(path_)) {
     refresh();
 }
 
@@ -119,16 +119,11 @@ bool Document::save_as(const std::filesystem::path& path, std::string& error) {
         return false;
     }
     std::error_code ignored;
-    std::filesystem::remove(recovery_path(), ignored);  // the old name's recovery file
+    std::filesystem::remove(recovery_path(), ignored);  // this window's, never another's
+    if (path_ != path) claim_ = std::make_unique<RecoveryClaim>(path);  // the new name's
     path_ = path;
-    std::filesystem::remove(recovery_path(), ignored);
     dirty_ = false;
     return true;
-}
-
-std::filesystem::path Document::recovery_path_for(const std::optional<std::filesystem::path>& path) {
-    if (!path) return ".demo.recovery.json";
-    return path->parent_path() / ("." + path->filename().string() + ".recovery.json");
 }
 
 bool Document::autosave(std::string& error) {
@@ -146,10 +141,18 @@ bool Document::autosave(std::string& error) {
 bool Document::restore_from(const std::filesystem::path& recovery) {
     const LayoutReadResult r = read_layout_file(recovery);
     if (!r.layout) return false;
-    if (*r.layout == layout_) return true;  // nothing to restore
+    if (*r.layout == layout_) {  // nothing to restore: an orphan that says nothing new goes
+        if (recovery != recovery_path()) claim_->remove_orphan(recovery);
+        return true;
+    }
     const unsigned before = revision_;
     edit(*r.layout);
-    return revision_ != before;
+    if (revision_ == before) return false;
+    // Another window's orphan: its edits are this window's now, kept in its own recovery file
+    // before the orphan goes (a crash in between leaves both, never neither).
+    std::string ignored;
+    if (recovery != recovery_path() && autosave(ignored)) claim_->remove_orphan(recovery);
+    return true;
 }
 
 }  // namespace rv::edit

@@ -6,11 +6,13 @@
 // No ImGui here: the interface tests drive it directly and through the window's frame code.
 
 #include <filesystem>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
 
 #include "analysis/report.hpp"
+#include "edit/recovery_claim.hpp"
 #include "layout/layout.hpp"
 #include "materials/material_library.hpp"
 #include "scene/scene.hpp"
@@ -61,14 +63,22 @@ public:
     bool save(std::string& error);
     bool save_as(const std::filesystem::path& path, std::string& error);
 
-    // The recovery file of a layout file: ".NAME.recovery.json" beside it (the demo's lives in
-    // the working folder). Written by autosave while there are unsaved changes, removed on save.
-    static std::filesystem::path recovery_path_for(const std::optional<std::filesystem::path>& path);
-    std::filesystem::path recovery_path() const { return recovery_path_for(path_); }
+    // This window's recovery file, its own (edit/recovery_claim.hpp): ".NAME.recovery-TOKEN.json"
+    // beside the layout (the demo's in the working folder), claimed with a lock for as long as
+    // the document lives. Written by autosave while there are unsaved changes, removed on save.
+    std::filesystem::path recovery_path() const { return claim_->recovery_path(); }
     bool autosave(std::string& error);
+    // Recovery files of this layout left by windows that are gone (offered at start, oldest
+    // first), and how many other windows have the layout open now.
+    std::vector<std::filesystem::path> orphaned_recoveries() const { return claim_->orphans(); }
+    int other_windows() const { return claim_->other_windows(); }
     // Replace the layout by the recovery file's (one undo step, marked unsaved); false when it
-    // is missing or does not read as a layout.
+    // is missing or does not read as a layout. An orphan's edits then go to this window's own
+    // recovery file at once and the orphan is removed.
     bool restore_from(const std::filesystem::path& recovery);
+    // Removes an orphaned recovery file ("Discard them"); false when it is not one (another
+    // window that is still open holds it: never removed).
+    bool discard_recovery(const std::filesystem::path& recovery) { return claim_->remove_orphan(recovery); }
 
 private:
     // Finishes the gesture in progress, if any (an edit, undo, redo or save ends it as one step).
@@ -86,6 +96,7 @@ private:
     std::string last_refusal_;
     RendezvousReport report_;
     scene::Scene scene_;
+    std::unique_ptr<RecoveryClaim> claim_;  // for path_: a new one when Save As renames
 };
 
 }  // namespace rv::edit

@@ -134,17 +134,27 @@ void draw_menu_bar(ViewerState& st) {
     if (st.recovery_offer) ImGui::OpenPopup("Recover unsaved edits");
     if (ImGui::BeginPopupModal("Recover unsaved edits", nullptr, ImGuiWindowFlags_AlwaysAutoResize)) {
         ImGui::Text("Edits of a session that ended without saving are in\n%s", st.recovery_offer->c_str());
-        if (ImGui::Button("Restore them")) {
-            ed.status = doc.restore_from(*st.recovery_offer) ? "restored the unsaved edits (not saved yet)"
-                                                              : "the recovery file does not read as a layout";
+        // After one is handled the next orphan (another dead window's) is offered, never the same again.
+        auto next_offer = [&](const std::string& handled) {
             st.recovery_offer.reset();
+            for (const std::filesystem::path& o : doc.orphaned_recoveries())
+                if (o.string() != handled) {
+                    st.recovery_offer = o.string();
+                    break;
+                }
+        };
+        if (ImGui::Button("Restore them")) {
+            const std::string handled = *st.recovery_offer;
+            ed.status = doc.restore_from(handled) ? "restored the unsaved edits (not saved yet)"
+                                                  : "the recovery file does not read as a layout";
+            next_offer(handled);
             ImGui::CloseCurrentPopup();
         }
         ImGui::SameLine();
         if (ImGui::Button("Discard them")) {
-            std::error_code ignored;
-            std::filesystem::remove(*st.recovery_offer, ignored);
-            st.recovery_offer.reset();
+            const std::string handled = *st.recovery_offer;
+            if (!doc.discard_recovery(handled)) ed.status = "not discarded: another open window holds " + handled;
+            next_offer(handled);
             ImGui::CloseCurrentPopup();
         }
         ImGui::EndPopup();

@@ -63,8 +63,11 @@ bool open_layout(ViewerState& st, std::unique_ptr<edit::Document>& doc, const st
     reset_panels(st);
     st.recent = edit::with_recent(st.recent, file);
     if (recent_file) edit::save_recent(*recent_file, st.recent);
-    if (std::filesystem::exists(doc->recovery_path())) st.recovery_offer = doc->recovery_path().string();
+    if (const auto orphans = doc->orphaned_recoveries(); !orphans.empty()) st.recovery_offer = orphans.front().string();
     st.editor.status = "opened " + file;
+    if (const int others = doc->other_windows(); others > 0)
+        st.editor.status += " (also open in " + std::to_string(others) + " other window" + (others > 1 ? "s" : "") +
+                            "; each keeps its own recovery file)";
     return true;
 }
 

@@ -110,7 +110,11 @@ int run_window(const Layout& layout, const std::optional<std::filesystem::path>&
         state.recent = edit::with_recent(state.recent, path->string());
         edit::save_recent(recent_file, state.recent);
     }
-    if (std::filesystem::exists(doc->recovery_path())) state.recovery_offer = doc->recovery_path().string();
+    if (const auto orphans = doc->orphaned_recoveries(); !orphans.empty())
+        state.recovery_offer = orphans.front().string();
+    if (const int others = doc->other_windows(); others > 0)
+        state.editor.status = "this layout is also open in " + std::to_string(others) + " other window" +
+                              (others > 1 ? "s" : "") + "; each keeps its own recovery file";
     double last_autosave_s = glfwGetTime();
 
     IMGUI_CHECKVERSION();
