@@ -52,16 +52,22 @@ NumberRule at_least(double minimum) {
         return v >= minimum ? std::string() : "must be at least " + number_text(minimum);
     };
 }
+// The words of a range, made only when a value falls outside it (a rule is built per field
+// read, and formatting its numbers every time was a fifth of reading a large layout).
+std::string range_text(double minimum, double maximum, const char* unit) {
+    return "must be between " + number_text(minimum) + " and " + number_text(maximum) +
+           (*unit ? std::string(" ") + unit : std::string());
+}
 NumberRule between(double minimum, double maximum, const char* unit) {
-    const std::string range = "must be between " + number_text(minimum) + " and " + number_text(maximum) +
-                              (*unit ? std::string(" ") + unit : std::string());
-    return [minimum, maximum, range](double v) { return v >= minimum && v <= maximum ? std::string() : range; };
+    return [minimum, maximum, unit](double v) {
+        return v >= minimum && v <= maximum ? std::string() : range_text(minimum, maximum, unit);
+    };
 }
 NumberRule positive_within(double minimum, double maximum, const char* unit) {
-    const std::string range = "must be between " + number_text(minimum) + " and " + number_text(maximum) +
-                              (*unit ? std::string(" ") + unit : std::string());
-    return [minimum, maximum, range](double v) {
-        return v <= 0 ? std::string("must be positive") : v >= minimum && v <= maximum ? std::string() : range;
+    return [minimum, maximum, unit](double v) {
+        return v <= 0                           ? std::string("must be positive")
+               : v >= minimum && v <= maximum ? std::string()
+                                              : range_text(minimum, maximum, unit);
     };
 }
 NumberRule length_mm() {

@@ -26,6 +26,7 @@ using limits::kMinWavelength_nm;
 using limits::kMaxWavelength_nm;
 NumberRule positive();  // > 0 and at least kSmallestPositive
 NumberRule at_least(double minimum);
+// unit: a string literal (the rule keeps the pointer, to word its range on a failure only).
 NumberRule between(double minimum, double maximum, const char* unit = "");
 // Lengths in mm (limits::kMaxLength_mm either way; non-zero ones at least kMinNonZeroLength_mm
 // in size, so that a denormal such as 1e-320 is not "non-zero").
