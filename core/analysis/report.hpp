@@ -91,6 +91,11 @@ struct StageReport {
 
 struct GroupVelocityMismatch {
     std::string between;     // "SFG–pump" …
+    // The pair as data: waves 1 and 2 are the inputs (first_beam, second_beam of the process),
+    // 3 the generated wave; fs_per_mm = 1/v_g(first_wave) − 1/v_g(second_wave), each wave at its
+    // own polarity (type II: the o and e parts of one beam are two waves).
+    int first_wave = 3, second_wave = 1;
+    Polarity first_polarity = Polarity::B, second_polarity = Polarity::A;
     double fs_per_mm = 0;
     std::optional<double> walk_apart_mm;  // pulse length / |GVM|, when the pulse length is known
 };
@@ -131,6 +136,11 @@ struct PhaseMatchingReport {
     double angular_acceptance_internal_mrad = 0;  // FWHM, internal
     double angular_acceptance_external_mrad = 0;  // ≈ n × internal
     double spectral_acceptance_nm = 0;            // FWHM of wave 1
+    // Which input the spectral acceptance tunes (the id of the first beam) and, for SFG, the
+    // input held at its wavelength (the second beam's id); SHG holds none (the harmonic
+    // follows the fundamental).
+    std::string spectral_tuned_beam;
+    std::optional<std::string> spectral_held_beam;
     std::vector<GroupVelocityMismatch> gvm;
     bool polarizations_suit = false;
     std::string polarization_note;

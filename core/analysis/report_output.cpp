@@ -19,9 +19,8 @@ namespace rv::report_sections {
 
 namespace {
 
-// A layout number that is "not given": std::optional, or 0 in the older form of layout.hpp.
+// A layout number that is "not given" (std::optional in layout.hpp).
 std::optional<double> given(const std::optional<double>& v) { return v; }
-std::optional<double> given(double v) { return v > 0 ? std::optional<double>(v) : std::nullopt; }
 
 // Above this conversion the undepleted-pump figure overestimates noticeably (common practice).
 constexpr double kUndepletedLimit = 0.1;
@@ -96,7 +95,10 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     const BeamSource& s1 = layout.beams[pm.first_beam];
     const BeamSource& s2 = layout.beams[pm.second_beam];
     if (!b1.at_target.reached || !b2.at_target.reached) return std::nullopt;
-    const std::optional<double> tau1 = given(s1.pulse_fwhm_fs), tau2 = given(s2.pulse_fwhm_fs);
+    // The pulses as they reach the crystal's centre: each source's length lengthened by its
+    // arm's GDD (BeamAtTarget::pulse, analysis/pulse_at_target.hpp), the same lengths the
+    // temporal overlap and the peak intensity use.
+    const std::optional<double> tau1 = b1.at_target.pulse.fwhm_fs, tau2 = b2.at_target.pulse.fwhm_fs;
     const std::optional<double> rate1 = given(s1.repetition_rate_khz), rate2 = given(s2.repetition_rate_khz);
     if (!tau1 || !tau2 || !rate1 || !rate2) return std::nullopt;
     const WavePolarities w = polarities(pm.mixing);
@@ -114,6 +116,7 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     g.pulse1_fwhm_fs = *tau1;
     g.pulse2_fwhm_fs = *tau2;
     g.repetition_rate_khz = std::min(*rate1, *rate2);
+    g.source_pulse_lengths = false;
     // The SHG of one field (type I, or any SHG whose two inputs are the same wave).
     const bool one_field = !pm.sum_frequency && w.wave1 == w.wave2;
     g.one_field = one_field;
@@ -137,7 +140,9 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     g.xi = xc.length_mm / b_mm;
     const double k_per_mm = kPi * (b1.at_target.index / nm_to_mm(b1.wavelength_nm) +
                                    b2.at_target.index / nm_to_mm(b2.wavelength_nm));  // mean of 2πn/λ
-    g.walkoff_parameter = walkoff_parameter(mrad_to_rad(pm.walkoff_mrad), xc.length_mm, k_per_mm);
+    // B with the same ρ as the focusing report (report_focusing.cpp): the e input's for type II
+    // and eeo, the generated e wave's walk-off from the o inputs for type I ooe.
+    g.walkoff_parameter = walkoff_parameter(mrad_to_rad(pm.focusing_walkoff_mrad), xc.length_mm, k_per_mm);
     // σ = b ΔK/2 with Boyd & Kleinman's ΔK = k1 + k2 − k3, the opposite sign of the report's Δk.
     const double sigma_now = -b_mm * (pm.delta_k_l / xc.length_mm) / 2;
     g.h_now = boyd_kleinman_h(sigma_now, g.walkoff_parameter, g.xi);

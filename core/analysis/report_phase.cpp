@@ -156,21 +156,47 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.angular_acceptance_internal_mrad = acc.angular_internal_fwhm_mrad;
     r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_1;
     r.spectral_acceptance_nm = acc.spectral_fwhm_nm;
+    // acceptance() tunes wave 1 (the first input) and holds wave 2 for SFG; for SHG both inputs
+    // are the fundamental, so the harmonic follows.
+    r.spectral_tuned_beam = b1.id;
+    r.spectral_held_beam = shg ? std::nullopt : std::optional<std::string>(b2.id);
+    // Group-velocity mismatch of every pair of the three waves: the generated wave against each
+    // input, and the inputs against each other. For SHG of type I the two inputs are one wave
+    // (one pair); for type II they are the o and e parts of the beam (three pairs).
     const std::string out = shg ? "SHG" : "SFG";
     auto walk = [](std::optional<double> tau_fs, double gvm) -> std::optional<double> {
         if (!tau_fs || gvm == 0) return std::nullopt;
         return *tau_fs / std::abs(gvm);
     };
-    const double g31 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 1, plane);
-    r.gvm.push_back({out + "–" + b1.id, g31, walk(b1.pulse_fwhm_fs, g31)});
-    if (!shg) {
-        const double g32 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 2, plane);
-        const double g12 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 1, 2, plane);
-        r.gvm.push_back({out + "–" + b2.id, g32, walk(b2.pulse_fwhm_fs, g32)});
-        const std::optional<double> shorter =
-            b1.pulse_fwhm_fs && b2.pulse_fwhm_fs ? std::optional(std::min(*b1.pulse_fwhm_fs, *b2.pulse_fwhm_fs))
-                                                 : std::nullopt;
-        r.gvm.push_back({b1.id + "–" + b2.id, g12, walk(shorter, g12)});
+    const bool two_inputs = !shg || w.wave1 != w.wave2;
+    auto pol_name = [](Polarity p) { return std::string(p == Polarity::A ? " (o)" : " (e)"); };
+    auto wave_name = [&](int k) {
+        if (k == 3) return out;
+        const std::string& id = k == 1 ? b1.id : b2.id;
+        return shg && two_inputs ? id + pol_name(k == 1 ? w.wave1 : w.wave2) : id;
+    };
+    const Polarity pols[3] = {w.wave1, w.wave2, w.wave3};
+    // The pulses as they enter the crystal (analysis/pulse_at_target.hpp).
+    const std::optional<double> taus[3] = {beams[i].at_target.pulse.fwhm_fs, beams[j].at_target.pulse.fwhm_fs,
+                                           std::nullopt};
+    auto add_pair = [&](int a, int b) {
+        GroupVelocityMismatch g;
+        g.first_wave = a;
+        g.second_wave = b;
+        g.first_polarity = pols[a - 1];
+        g.second_polarity = pols[b - 1];
+        g.between = wave_name(a) + "–" + wave_name(b);
+        g.fs_per_mm = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, a, b, plane);
+        // The generated pulse walks through the input's; two inputs: the shorter one.
+        std::optional<double> tau = taus[b - 1];
+        if (a != 3 && taus[a - 1] && tau) tau = std::min(*taus[a - 1], *tau);
+        g.walk_apart_mm = walk(tau, g.fs_per_mm);
+        r.gvm.push_back(g);
+    };
+    add_pair(3, 1);
+    if (two_inputs) {
+        add_pair(3, 2);
+        add_pair(1, 2);
     }
     return r;
 }

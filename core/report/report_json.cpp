@@ -145,7 +145,10 @@ json verdict_met_json(const Verdict& v) {
 }
 
 void to_json(json& j, const GroupVelocityMismatch& g) {
+    auto pol = [](Polarity p) { return p == Polarity::A ? "o" : "e"; };
     j = {{"between", g.between},
+         {"waves", {g.first_wave, g.second_wave}},
+         {"polarities", {pol(g.first_polarity), pol(g.second_polarity)}},
          {"fs_per_mm", g.fs_per_mm},
          {"walk_apart_mm", optional_number(g.walk_apart_mm)}};
 }
@@ -179,6 +182,8 @@ void to_json(json& j, const PhaseMatchingReport& p) {
            {"external_fwhm", if_matchable(p.angular_acceptance_external_mrad)}}},
          {"spectral_acceptance_fwhm_nm", if_matchable(p.spectral_acceptance_nm)},
          {"gvm", p.gvm},
+         {"spectral_acceptance_tunes", p.spectral_tuned_beam},
+         {"spectral_acceptance_holds", p.spectral_held_beam ? json(*p.spectral_held_beam) : json(nullptr)},
          {"polarizations_suit", p.polarizations_suit},
          {"polarization_note", p.polarization_note}};
 }

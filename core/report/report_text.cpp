@@ -164,7 +164,9 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             << "  walk-off " << fmt("%.1f", p.walkoff_mrad) << " mrad; acceptance (FWHM) "
             << fmt("%.2f", p.angular_acceptance_internal_mrad) << " mrad internal, "
             << fmt("%.2f", p.angular_acceptance_external_mrad) << " mrad external, "
-            << fmt("%.2f", p.spectral_acceptance_nm) << " nm\n";
+            << fmt("%.2f", p.spectral_acceptance_nm) << " nm tuning " << p.spectral_tuned_beam
+            << (p.spectral_held_beam ? " with " + *p.spectral_held_beam + " held" : std::string(" (the harmonic follows)"))
+            << "\n";
         for (const GroupVelocityMismatch& g : p.gvm)
             out << "  GVM " << g.between << " " << fmt("%+.1f", g.fs_per_mm) << " fs/mm"
                 << (g.walk_apart_mm
