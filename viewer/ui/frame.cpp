@@ -284,6 +284,7 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     if (doc) {
         draw_inspector(*doc, state->editor, state->inspector);
         draw_tools_panel(*doc, state->tools);
+        draw_scan_panel(*doc, state->scan);
     }
     draw_report_panel(report, layout, doc ? &state->editor.selected : nullptr, state ? &state->finding_rects : nullptr);
     if (doc) draw_goals_panel(*doc, state->goals);  // below the report, whose findings stay in view
