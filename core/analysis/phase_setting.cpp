@@ -50,9 +50,9 @@ PhaseSetting set_crystal_for_process(const Layout& layout, const MaterialLibrary
         if (r.phase_matching.empty()) throw std::invalid_argument("the crystal's material is isotropic or the beams miss it");
         const PhaseMatchingReport& p = r.phase_matching.front();
         if (!p.outside_index_data.empty()) throw std::invalid_argument(p.outside_index_data);
-        if (!p.phase_matchable) throw std::invalid_argument("no " + p.type + " phase matching for " + p.process + " in this crystal");
+        if (!p.phase_matchable) throw std::invalid_argument(std::string("no ") + mixing_type_label(p.mixing) + " phase matching in this crystal");
         if (first) {
-            s.process = p.process;
+            s.process = p.beams;
             s.rotation = p.rotation;
             s.sinc2_before = p.sinc2_now;
             s.theta_pm_deg = p.theta_pm_deg;

@@ -15,7 +15,7 @@ namespace rv {
 struct PhaseSetting {
     Layout layout;                 // the crystal's process set, turned or tilted, angles at 0.001°
     std::string crystal;           // the crystal's id
-    std::string process;           // "SFG of pump + signal", …
+    ProcessBeams process;          // its beams (words: report/verdict_words.hpp, process_beams_text)
     CrystalRotation rotation = CrystalRotation::Turn;
     double change_deg = 0;         // external; sign as PhaseMatchingReport::rotate_by_deg
     double normal_before_deg = 0, normal_after_deg = 0;

@@ -101,11 +101,10 @@ struct GroupVelocityMismatch {
 };
 
 struct PhaseMatchingReport {
-    std::string process;      // "SFG of pump + signal", "SHG of pump"
+    ProcessBeams beams;       // the beams by id (words: report/verdict_words.hpp, process_beams_text)
     bool sum_frequency = false;   // SFG of the two beams, else the SHG of first_beam
     size_t first_beam = 0, second_beam = 0;  // indices into the report's beams (equal for SHG)
     MixingType mixing = MixingType::TypeI;
-    std::string type;         // "type-I (ooe)" …
     double output_nm = 0;
     bool phase_matchable = false;
     double theta_pm_deg = 0;        // internal phase-matching angle
@@ -122,8 +121,7 @@ struct PhaseMatchingReport {
     // Tilt, + = the face normal rises (tilt_deg grows by it). Only when rotation_found: a
     // setting within the searched range reaches θ_pm.
     double rotate_by_deg = 0;
-    bool rotation_found = false;
-    std::string rotation_axis;
+    bool rotation_found = false;  // the axis in words: report/verdict_words.hpp, crystal_rotation_axis_text
     double delta_k_l = 0;           // Δk·L now (rad)
     double sinc2_now = 0;           // sinc²(ΔkL/2) now
     // Non-empty when a wave's wavelength lies where the crystal's index formula has no real
@@ -228,7 +226,5 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
 
 // The file's and the command line's name of a process: "sfg" or "shg:BEAM".
 std::string process_key(const Layout& layout, const PhaseMatchingReport& p);
-// A process's beams by id (its words: report/verdict_words.hpp, process_beams_text).
-ProcessBeams process_beams(const RendezvousReport& r, const PhaseMatchingReport& p);
 
 }  // namespace rv

@@ -60,7 +60,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const BeamSource& b2 = layout.beams[j];
     const double l1 = b1.wavelength_nm, l2 = b2.wavelength_nm;
     PhaseMatchingReport r;
-    r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
+    r.beams = {!shg, b1.id, shg ? std::string() : b2.id};
     r.sum_frequency = !shg;
     r.first_beam = i;
     r.second_beam = j;
@@ -70,7 +70,6 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const PrincipalPlane plane = xc.principal_plane;
     const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
     r.mixing = type;
-    r.type = mixing_type_label(type);
     const WavePolarities w = polarities(type);
     r.first_needs_a = w.wave1 == Polarity::A;
     r.second_needs_a = w.wave2 == Polarity::A;
@@ -130,10 +129,6 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.theta_pm_deg = rad_to_deg(*pm);
     // The first input's index at θ_pm: exact where ψ = θ_pm, which is what is solved for.
     const double n_1 = wave_index(m, l1, w.wave1, *pm, plane).index;
-    // The optic axis in the table plane is reached by a turn about the vertical axis; in the
-    // vertical plane by a tilt about the horizontal axis across the beam.
-    r.rotation_axis = turn ? "vertical axis (+ = clockwise seen from above)"
-                           : "horizontal axis across the beam (+ = the face normal rises)";
     const std::optional<double> change = rotation_to_angle_deg(
         pose, r.rotation, outside, n_1, *pm, turn ? kMaxCrystalTurn_deg : 2 * kMaxCrystalTilt_deg,
         kMaxCrystalTilt_deg);

@@ -146,7 +146,7 @@ void phase_line(const Layout& layout, const TargetElement& target, const Rendezv
         acts.push_back(verdict_action::BringBeamsToCrystal{});
     } else if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
-        const ProcessBeams process = process_beams(r, p);
+        const ProcessBeams& process = p.beams;
         v.phase.met = phase_met(p.phase_matchable, p.sinc2_now, p.polarizations_suit, t);
         if (p.outside_index_data.empty())
             add_figure(

@@ -162,8 +162,8 @@ void to_json(json& j, const PhaseMatchingReport& p) {
     auto found = [&](double v) {
         return p.phase_matchable && p.rotation_found ? json(v) : json(nullptr);
     };
-    j = {{"process", p.process},
-         {"type", p.type},
+    j = {{"process", process_beams_text(p.beams)},
+         {"type", mixing_type_label(p.mixing)},
          {"output_nm", p.output_nm},
          {"phase_matchable", p.phase_matchable},
          {"theta_pm_deg", if_matchable(p.theta_pm_deg)},
@@ -172,7 +172,7 @@ void to_json(json& j, const PhaseMatchingReport& p) {
          {"rotation", p.rotation == CrystalRotation::Turn ? "turn" : "tilt"},
          {"incidence_needed_deg", found(p.incidence_needed_deg)},
          {"rotate_by_deg", found(p.rotate_by_deg)},
-         {"rotation_axis", optional_text(p.rotation_axis)},
+         {"rotation_axis", p.phase_matchable ? json(crystal_rotation_axis_text(p.rotation)) : json(nullptr)},
          {"delta_k_l", if_indexed(p.delta_k_l)},
          {"sinc2_now", if_indexed(p.sinc2_now)},
          {"outside_index_data", optional_text(p.outside_index_data)},

@@ -69,7 +69,7 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                "rotate by (°, external) | sinc² now | walk-off (mrad) |\n"
             << "|---|---|---|---|---|---|---|---|\n";
         for (const PhaseMatchingReport& p : r.phase_matching)
-            out << "| " << p.process << " | " << fmt("%.2f", p.output_nm) << " | " << p.type
+            out << "| " << process_beams_text(p.beams) << " | " << fmt("%.2f", p.output_nm) << " | " << mixing_type_label(p.mixing)
                 << " | " << (p.phase_matchable ? fmt("%.3f", p.theta_pm_deg) : std::string("none"))
                 << " | " << fmt("%.3f", p.theta_now_deg) << " | "
                 << (p.phase_matchable && p.rotation_found
@@ -81,7 +81,7 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
         // The process the crystal is set for: its acceptances and every pair's GVM.
         const PhaseMatchingReport& p = r.phase_matching.front();
         if (p.phase_matchable) {
-            out << "\nAcceptance of " << p.process << " (FWHM): "
+            out << "\nAcceptance of " << process_beams_text(p.beams) << " (FWHM): "
                 << fmt("%.2f", p.angular_acceptance_internal_mrad) << " mrad internal, "
                 << fmt("%.2f", p.spectral_acceptance_nm) << " nm tuning " << p.spectral_tuned_beam
                 << (p.spectral_held_beam ? " with " + *p.spectral_held_beam + " held" : std::string(" (the harmonic follows)"))

@@ -140,8 +140,8 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
                 << " of delay there (an emission offset it does not know)\n";
     }
     for (const PhaseMatchingReport& p : r.phase_matching) {
-        out << "\nPhase matching: " << p.process << " → " << fmt("%.2f", p.output_nm) << " nm, "
-            << p.type << "\n";
+        out << "\nPhase matching: " << process_beams_text(p.beams) << " → " << fmt("%.2f", p.output_nm) << " nm, "
+            << mixing_type_label(p.mixing) << "\n";
         if (!p.outside_index_data.empty()) {
             out << "  " << p.outside_index_data << "\n";
             continue;
@@ -158,7 +158,7 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             << (p.rotation_found
                     ? "needed " + fmt("%+.3f", p.incidence_needed_deg) +
                           "°: " + (p.rotation == CrystalRotation::Turn ? "turn" : "tilt") + " by " +
-                          fmt("%+.3f", p.rotate_by_deg) + "° about the " + p.rotation_axis
+                          fmt("%+.3f", p.rotate_by_deg) + "° about the " + crystal_rotation_axis_text(p.rotation)
                     : std::string("no setting within the mount's range reaches θ_pm"))
             << "\n"
             << "  walk-off " << fmt("%.1f", p.walkoff_mrad) << " mrad; acceptance (FWHM) "

@@ -240,7 +240,7 @@ TEST_CASE("a process outside the crystal's index formula gives no NaN", "[harden
     const rv::RendezvousReport report = report_of(*r.layout);
     REQUIRE_FALSE(report.phase_matching.empty());
     for (const rv::PhaseMatchingReport& p : report.phase_matching) {
-        CAPTURE(p.process);
+        CAPTURE(p.beams.first_beam, p.beams.second_beam);
         CHECK(std::isfinite(p.delta_k_l));
         CHECK(std::isfinite(p.sinc2_now));
         CHECK(p.outside_index_data.find("has no real index at 213.5 nm") != std::string::npos);

@@ -105,7 +105,7 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add_opt("stage.emission_offset_fs", s.emission_offset_fs);
     }
     for (const PhaseMatchingReport& p : r.phase_matching) {
-        const std::string n = "phase_matching[" + p.process + "]";
+        const std::string n = "phase_matching[" + p.beams.first_beam + (p.beams.sum_frequency ? "+" + p.beams.second_beam : std::string()) + "]";
         add(n + ".output_nm", p.output_nm);
         add(n + ".theta_pm_deg", p.theta_pm_deg);
         add(n + ".theta_now_deg", p.theta_now_deg);

@@ -105,8 +105,11 @@ void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout
 }
 
 void check_process(const json& j, const rv::PhaseMatchingReport& p) {
-    CHECK(j.at("process").get<std::string>() == p.process);
-    CHECK(j.at("type").get<std::string>() == p.type);
+    // The words from the data: the beams by id, the mixing type's label.
+    CHECK(j.at("process").get<std::string>() ==
+          (p.beams.sum_frequency ? "SFG of " + p.beams.first_beam + " + " + p.beams.second_beam
+                                 : "SHG of " + p.beams.first_beam));
+    CHECK(j.at("type").get<std::string>() == rv::mixing_type_label(p.mixing));
     CHECK(j.at("output_nm").get<double>() == p.output_nm);
     CHECK(j.at("phase_matchable").get<bool>() == p.phase_matchable);
     CHECK(j.at("theta_now_deg").get<double>() == p.theta_now_deg);

@@ -5,6 +5,7 @@
 #include <stdexcept>
 
 #include "analysis/phase_setting.hpp"
+#include "report/verdict_words.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "io/layout_reader.hpp"
@@ -33,7 +34,7 @@ int run_phase(const PhaseOptions& options, std::ostream& out, std::ostream& err)
             return 2;
         const json j = {{"layout", options.layout},
                         {"crystal", s.crystal},
-                        {"process", s.process},
+                        {"process", process_beams_text(s.process)},
                         {"rotation", turn ? "turn" : "tilt"},
                         {"change_deg", s.change_deg},
                         {"normal_deg", {{"before", s.normal_before_deg}, {"after", s.normal_after_deg}}},
@@ -47,7 +48,7 @@ int run_phase(const PhaseOptions& options, std::ostream& out, std::ostream& err)
     }
     // With --write -, standard output holds the layout alone: the summary goes to stderr.
     std::ostream& say = options.output == "-" ? err : out;
-    say << "crystal " << s.crystal << " set for " << s.process << ": θ_pm " << format_number("%.3f", s.theta_pm_deg)
+    say << "crystal " << s.crystal << " set for " << process_beams_text(s.process) << ": θ_pm " << format_number("%.3f", s.theta_pm_deg)
         << "° (internal)\n";
     if (turn) {
         say << "turn it by " << format_number("%+.3f", s.change_deg)

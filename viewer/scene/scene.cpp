@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "report/verdict_words.hpp"
 #include "analysis/breadboard_holes.hpp"
 #include "polarization/polarization_model.hpp"
 #include "layout/visit.hpp"
@@ -256,7 +257,7 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
     if (!report.beams.empty()) s.legend.push_back({"polarization: bar = in the table plane, dot = vertical, ring = circular", {60, 60, 70, 255}, false});
     for (const PhaseMatchingReport& p : report.phase_matching)
         if (p.sum_frequency || report.beams.size() == 1)
-            s.legend.push_back({nm_text(p.output_nm) + " generated (" + p.process + ")", beam_style(p.output_nm).colour,
+            s.legend.push_back({nm_text(p.output_nm) + " generated (" + process_beams_text(p.beams) + ")", beam_style(p.output_nm).colour,
                                 !beam_style(p.output_nm).visible});
     return s;
 }

@@ -7,6 +7,7 @@
 #include <stdexcept>
 #include <vector>
 
+#include "report/verdict_words.hpp"
 #include "analysis/phase_setting.hpp"
 #include "io/layout_reader.hpp"
 #include "layout/enum_names.hpp"
@@ -153,7 +154,7 @@ void process_buttons(edit::Document& doc, InspectorState& st) {
     const PhaseMatchingReport& p = r.phase_matching.front();
     if (!p.outside_index_data.empty() || !p.phase_matchable) return;
     const bool turn = p.rotation == CrystalRotation::Turn;
-    ImGui::Text("%s: sinc² %.3f", p.process.c_str(), p.sinc2_now);
+    ImGui::Text("%s: sinc² %.3f", process_beams_text(p.beams).c_str(), p.sinc2_now);
     if (p.rotation_found && std::abs(p.rotate_by_deg) >= 0.0005)
         ImGui::Text("%s by %+.3f° (external) to phase-match", turn ? "turn" : "tilt", p.rotate_by_deg);
 }
