@@ -43,6 +43,17 @@ bool inside(const scene::Box& box, const Vec2& p) {
 
 }  // namespace
 
+std::vector<scene::PlacedLabel> place_view_labels(const scene::Scene& s, const View& v) {
+    const double mm_per_px = 1 / v.px_per_mm;
+    return scene::place_labels(
+        s,
+        [mm_per_px](const scene::Label& l) {
+            const ImVec2 e = ImGui::CalcTextSize(l.text.c_str());
+            return scene::LabelSizeMm{e.x * mm_per_px, e.y * mm_per_px};
+        },
+        kLabelGapPx * mm_per_px);
+}
+
 View fit_view(const ImVec2& origin, const ImVec2& size, double w_mm, double h_mm) {
     View v;
     v.origin_px = origin;
@@ -104,8 +115,16 @@ void draw_table(ImDrawList* draw, const scene::Scene& s, const View& v) {
                               p.closed ? ImDrawFlags_Closed : ImDrawFlags_None, width);
         }
     }
-    for (const scene::Label& l : s.labels)
-        if (inside(near, l.at_mm)) draw->AddText(v.to_screen(l.at_mm), col(l.colour), l.text.c_str());
+    // Labels where the placement pass puts them for this font and zoom, leader lines first.
+    const std::vector<scene::PlacedLabel> placed = place_view_labels(s, v);
+    for (size_t i = 0; i < placed.size(); ++i) {
+        const scene::Box& b = placed[i].box_mm;
+        if (!inside(near, b.min) || !inside(near, b.max)) continue;
+        if (placed[i].leader)
+            draw->AddLine(v.to_screen(placed[i].leader->first), v.to_screen(placed[i].leader->second),
+                          IM_COL32(120, 124, 132, 255), 1.0f);
+        draw->AddText(v.to_screen(Vec2(b.min.x(), b.max.y())), col(s.labels[i].colour), s.labels[i].text.c_str());
+    }
     // Legend and scale bar in the canvas's lower left corner.
     float y = v.origin_px.y + v.size_px.y - 18.0f * (s.legend.size() + 2);
     const float x = v.origin_px.x + 12;
