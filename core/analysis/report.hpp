@@ -16,6 +16,7 @@
 #include "materials/material_library.hpp"
 #include "analysis/crystal_angle.hpp"
 #include "nonlinear/phase_matching.hpp"
+#include "nonlinear/temperature_tuning.hpp"
 #include "trace/path.hpp"
 #include "trace/propagate.hpp"
 
@@ -107,7 +108,9 @@ struct PhaseMatchingReport {
     MixingType mixing = MixingType::TypeI;
     double output_nm = 0;
     bool phase_matchable = false;
-    double theta_pm_deg = 0;        // internal phase-matching angle
+    // Internal phase-matching angle; for a crystal with no such angle at its temperature that a
+    // temperature in the span phase-matches (non-critical, above T_pm), the angle now.
+    double theta_pm_deg = 0;
     double theta_now_deg = 0;       // internal angle the beams have now
     // How the crystal is rotated to phase-match (analysis/crystal_angle.hpp): a Turn about the
     // vertical axis (optic axis in the table plane) or a Tilt about the horizontal axis across
@@ -140,6 +143,9 @@ struct PhaseMatchingReport {
     std::string spectral_tuned_beam;
     std::optional<std::string> spectral_held_beam;
     std::vector<GroupVelocityMismatch> gvm;
+    // A set with thermo-optic data: the crystal's temperature, the one that phase-matches at
+    // the beams' angle now, and the temperature acceptance (nonlinear/temperature_tuning.hpp).
+    std::optional<TemperatureTuning> temperature;
     bool polarizations_suit = false;
     std::string polarization_note;
 };

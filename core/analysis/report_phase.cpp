@@ -85,7 +85,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
             " (an o wave is polarized " +
             (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
     }
-    const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
+    std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
     // Geometry (trace/crystal_axes.hpp): the first beam's wave-vector direction inside at the
     // crystal's centre plane and the index it was refracted with give the 3-D wave vector and ψ.
     const CrystalPose pose = crystal_pose(direction_deg(xe.normal_deg), xc);
@@ -112,6 +112,12 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     }
     r.delta_k_l = dk * length;
     r.sinc2_now = phase_factor(r.delta_k_l);
+    // By temperature, at the angle the beams have now (also where no angle phase-matches: a
+    // crystal cut for non-critical matching above its matching temperature).
+    r.temperature = temperature_tuning(m, l1, l2, type, now.theta_now_rad, length, plane);
+    // Above its matching temperature a crystal cut for non-critical matching has no angle that
+    // phase-matches, yet a temperature does: the angle is then the one the beams have.
+    if (!pm && r.temperature && r.temperature->phase_matching_c) pm = now.theta_now_rad;
     // The outside direction in the table plane (Snell at the untilted face).
     const Vec2 t = perpendicular(pose.face_normal);
     const double sin_out = std::clamp(index_here * d.dot(t), -1.0, 1.0);

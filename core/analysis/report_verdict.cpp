@@ -148,6 +148,12 @@ void phase_line(const Layout& layout, const TargetElement& target, const Rendezv
         const PhaseMatchingReport& p = r.phase_matching.front();
         const ProcessBeams& process = p.beams;
         v.phase.met = phase_met(p.phase_matchable, p.sinc2_now, p.polarizations_suit, t);
+        // A crystal in an oven is tuned by its temperature, not turned: the advice sets the
+        // oven when a temperature in the span phase-matches at the angle now.
+        std::optional<verdict_action::SetCrystalTemperature> oven_setting;
+        if (crystal && crystal->temperature_c && p.temperature && p.temperature->phase_matching_c && target.element)
+            oven_setting = verdict_action::SetCrystalTemperature{target.element->id, *p.temperature->phase_matching_c,
+                                                                 process_key(layout, p)};
         if (p.outside_index_data.empty())
             add_figure(
                 v, "phase factor sinc²", p.sinc2_now, t.min_phase_factor, true,
@@ -157,11 +163,14 @@ void phase_line(const Layout& layout, const TargetElement& target, const Rendezv
             acts.push_back(verdict_action::ChooseTransparentCrystal{});
         } else if (!p.phase_matchable) {
             v.phase.reading = verdict_reading::NotPhaseMatchable{process, p.mixing};
-            acts.push_back(verdict_action::ChooseAnotherCrystalOrType{});
+            if (oven_setting) acts.push_back(*oven_setting);
+            else acts.push_back(verdict_action::ChooseAnotherCrystalOrType{});
         } else {
             v.phase.reading = verdict_reading::PhaseAngles{process, p.mixing, p.theta_pm_deg,
                                                            p.theta_now_deg, p.sinc2_now};
-            if (p.sinc2_now < t.min_phase_factor && p.rotation_found)
+            if (p.sinc2_now < t.min_phase_factor && oven_setting)
+                acts.push_back(*oven_setting);
+            else if (p.sinc2_now < t.min_phase_factor && p.rotation_found)
                 acts.push_back(verdict_action::RotateCrystal{p.rotation, p.rotate_by_deg,
                                                              process_key(layout, p)});
             else if (p.sinc2_now < t.min_phase_factor)

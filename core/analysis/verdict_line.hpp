@@ -85,6 +85,13 @@ struct RotateCrystal {
     double by_deg = 0;            // external; sign convention: PhaseMatchingReport::rotate_by_deg
     std::string process_key;      // for `rendezvous phase --process`
 };
+// A crystal in an oven (temperature_c given) whose set has thermo-optic data: the temperature
+// at which the process phase-matches at the beams' angle now (PhaseMatchingReport::temperature).
+struct SetCrystalTemperature {
+    std::string crystal;
+    double to_c = 0;
+    std::string process_key;  // for `rendezvous phase --process`
+};
 struct CutNearer { CrystalRotation rotation = CrystalRotation::Turn; double theta_pm_deg = 0; };
 // The inputs' polarizations the process needs (PhaseMatchingReport::polarizations_suit false).
 struct SetPolarizations {
@@ -103,7 +110,8 @@ using VerdictAction =
                  verdict_action::AddAirPath, verdict_action::BringBeamsToCrystal,
                  verdict_action::ChooseTransparentCrystal,
                  verdict_action::ChooseAnotherCrystalOrType, verdict_action::RotateCrystal,
-                 verdict_action::CutNearer, verdict_action::SetPolarizations>;
+                 verdict_action::SetCrystalTemperature, verdict_action::CutNearer,
+                 verdict_action::SetPolarizations>;
 
 struct VerdictLine {
     bool applies = true;  // false when the question does not arise (phase without a crystal)

@@ -184,6 +184,10 @@ void to_json(json& j, const PhaseMatchingReport& p) {
          {"gvm", p.gvm},
          {"spectral_acceptance_tunes", p.spectral_tuned_beam},
          {"spectral_acceptance_holds", p.spectral_held_beam ? json(*p.spectral_held_beam) : json(nullptr)},
+         {"temperature", p.temperature ? json{{"now_c", p.temperature->now_c},
+                                              {"phase_matching_c", optional_number(p.temperature->phase_matching_c)},
+                                              {"acceptance_fwhm_c", optional_number(p.temperature->acceptance_fwhm_c)}}
+                                        : json(nullptr)},
          {"polarizations_suit", p.polarizations_suit},
          {"polarization_note", p.polarization_note}};
 }

@@ -80,6 +80,9 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                 << " |\n";
         // The process the crystal is set for: its acceptances and every pair's GVM.
         const PhaseMatchingReport& p = r.phase_matching.front();
+        if (p.temperature)
+            out << "\nTemperature of " << process_beams_text(p.beams) << ": " << temperature_tuning_text(*p.temperature)
+                << ".\n";
         if (p.phase_matchable) {
             out << "\nAcceptance of " << process_beams_text(p.beams) << " (FWHM): "
                 << fmt("%.2f", p.angular_acceptance_internal_mrad) << " mrad internal, "

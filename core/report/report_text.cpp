@@ -146,6 +146,7 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             out << "  " << p.outside_index_data << "\n";
             continue;
         }
+        if (p.temperature) out << "  temperature " << temperature_tuning_text(*p.temperature) << "\n";
         if (!p.phase_matchable) {
             out << "  no phase matching; Δk·L now " << fmt("%.1f", p.delta_k_l) << " rad\n";
             continue;

@@ -132,6 +132,10 @@ std::string verdict_action_text(const VerdictAction& action) {
                        crystal_rotation_axis_text(a.rotation) + " (rendezvous phase --process " +
                        a.process_key + " --write NEW.json)";
             },
+            [](const va::SetCrystalTemperature& a) {
+                return "set the oven of " + a.crystal + " to " + fmt("%.2f", a.to_c) +
+                       " °C (temperature_c; rendezvous phase --process " + a.process_key + " --write NEW.json)";
+            },
             [](const va::CutNearer& a) {
                 return std::string("no ") + rotation_verb(a.rotation) +
                        " within the mount's range reaches θ_pm: use a crystal cut nearer " +

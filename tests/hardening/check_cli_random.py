@@ -37,7 +37,7 @@ MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offse
                "power_fraction", "fwhm_fs",
                "generated", "depleted_average_mw", "material", "fluence_j_cm2", "intensity_gw_cm2", "regime",
                "reference_pulse_fs", "reference_wavelength_nm", "scaled", "source",
-               "spectral_acceptance_holds"}
+               "spectral_acceptance_holds", "temperature", "phase_matching_c", "acceptance_fwhm_c"}
 
 
 def reject_constant(name):

@@ -36,7 +36,7 @@ const std::vector<Colour>& candidates() {
     static const std::vector<Colour> set = [] {
         std::vector<Colour> out;
         const Colour table{236, 238, 240, 255};  // scene.hpp's table colour: a beam must show on it
-        for (const auto [s, v] : {std::pair{0.9, 0.85}, std::pair{0.9, 0.5}, std::pair{0.45, 0.95}})
+        for (const auto& [s, v] : {std::pair{0.9, 0.85}, std::pair{0.9, 0.5}, std::pair{0.45, 0.95}})
             for (int k = 0; k < 24; ++k)
                 if (const Colour c = from_hsv(15.0 * k, s, v); delta_e76(c, table) >= kMinBeamDeltaE76) out.push_back(c);
         return out;

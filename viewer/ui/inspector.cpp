@@ -251,6 +251,15 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 if (table_field("phase matching", &crystal.phase_matching, kPhaseMatchingNames)) doc.edit(st.scratch);
                 if (table_field("optic axis plane", &crystal.optic_axis_horizontal, kOpticAxisNames)) doc.edit(st.scratch);
                 field("tilt", "tilt (deg, + = face normal up)", &crystal.tilt_deg, "%.3f", doc, st);
+                // An oven: only for a set with thermo-optic data (the reader refuses others
+                // with its message); 0 °C is a temperature, so presence is its own switch.
+                bool oven = crystal.temperature_c.has_value();
+                if (ImGui::Checkbox("in an oven", &oven)) {
+                    crystal.temperature_c = oven ? std::optional<double>(20.0) : std::nullopt;
+                    doc.edit(st.scratch);
+                }
+                if (crystal.temperature_c)
+                    field("temperature", "temperature (°C)", &*crystal.temperature_c, "%.2f", doc, st);
                 process_buttons(doc, st);
                 optional_field("damage_i", "damage (GW/cm², 0 none)", &crystal.damage.intensity_gw_cm2, "%.1f", doc, st);
             },
