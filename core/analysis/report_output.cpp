@@ -116,7 +116,6 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     g.pulse1_fwhm_fs = *tau1;
     g.pulse2_fwhm_fs = *tau2;
     g.repetition_rate_khz = std::min(*rate1, *rate2);
-    g.source_pulse_lengths = false;
     // The SHG of one field (type I, or any SHG whose two inputs are the same wave).
     const bool one_field = !pm.sum_frequency && w.wave1 == w.wave2;
     g.one_field = one_field;

@@ -40,8 +40,6 @@ std::vector<std::pair<std::string, std::string>> generated_light_assumptions(con
         {"pulses-at-target", "each pulse at its length at the crystal (the source's, lengthened by its arm's GDD), mixed as intensity envelopes (the chirp's phase ignored)"},
         {"focus-at-centre", "focus at the crystal's centre, equal confocal parameters (their mean)"},
     };
-    if (g.source_pulse_lengths)
-        a.emplace_back("source-pulse-lengths", "the sources' pulse lengths (the glass on the way does not lengthen them here)");
     if (g.beyond_undepleted)
         a.emplace_back("beyond-undepleted", "above 10 % conversion the undepleted-pump figure overestimates");
     return a;
