@@ -4,6 +4,7 @@
 #include <stdexcept>
 
 #include "layout/process_text.hpp"
+#include "report/verdict_words.hpp"
 #include "units/number_text.hpp"
 
 namespace rv {
@@ -66,7 +67,7 @@ PhaseSetting set_crystal_for_process(const Layout& layout, const MaterialLibrary
         if (r.chosen_process_missing) throw std::invalid_argument("the process's beams do not reach the crystal");
         if (r.phase_matching.empty()) throw std::invalid_argument("the crystal's material is isotropic or the beams miss it");
         const PhaseMatchingReport& p = r.phase_matching.front();
-        if (!p.outside_index_data.empty()) throw std::invalid_argument(p.outside_index_data);
+        if (p.outside_index_data) throw std::invalid_argument(index_gap_text(*p.outside_index_data));
         if (first && crystal->temperature_c && p.temperature && p.temperature->phase_matching_c) {
             set_oven(s, *crystal, library, p);
             break;

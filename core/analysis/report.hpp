@@ -91,8 +91,7 @@ struct StageReport {
 };
 
 struct GroupVelocityMismatch {
-    std::string between;     // "SFG–pump" …
-    // The pair as data: waves 1 and 2 are the inputs (first_beam, second_beam of the process),
+    // The pair as data (words: report/report_words.hpp, gvm_pair_text, "SFG–pump" …): waves 1 and 2 are the inputs (first_beam, second_beam of the process),
     // 3 the generated wave; fs_per_mm = 1/v_g(first_wave) − 1/v_g(second_wave), each wave at its
     // own polarity (type II: the o and e parts of one beam are two waves).
     int first_wave = 3, second_wave = 1;
@@ -127,10 +126,10 @@ struct PhaseMatchingReport {
     bool rotation_found = false;  // the axis in words: report/verdict_words.hpp, crystal_rotation_axis_text
     double delta_k_l = 0;           // Δk·L now (rad)
     double sinc2_now = 0;           // sinc²(ΔkL/2) now
-    // Non-empty when a wave's wavelength lies where the crystal's index formula has no real
-    // value (far outside its range): then nothing above is computed (Δk·L and sinc² stay 0 and
-    // are printed as unknown).
-    std::string outside_index_data;
+    // Set when a wave's wavelength lies where the crystal's index formula has no real value
+    // (far outside its range): then nothing above is computed (Δk·L and sinc² stay 0 and are
+    // printed as unknown).
+    std::optional<IndexGap> outside_index_data;
     bool first_needs_a = true, second_needs_a = true;  // the inputs' polarities for the type
     double walkoff_mrad = 0;        // of the generated (B) wave at θ_pm
     double focusing_walkoff_mrad = 0;  // the ρ of Boyd–Kleinman's B (report_focusing.cpp)
@@ -147,7 +146,10 @@ struct PhaseMatchingReport {
     // the beams' angle now, and the temperature acceptance (nonlinear/temperature_tuning.hpp).
     std::optional<TemperatureTuning> temperature;
     bool polarizations_suit = false;
-    std::string polarization_note;
+    // What the inputs' polarizations must be for the type, as the action that sets them (its
+    // words: report/verdict_words.hpp, verdict_action_text; the verdict advises it when the
+    // polarizations do not suit).
+    verdict_action::SetPolarizations polarization_need;
 };
 
 struct FocusingReport {

@@ -84,7 +84,7 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     if (!target.crystal || r.phase_matching.empty() || r.chosen_process_missing) return std::nullopt;
     const PhaseMatchingReport& pm = r.phase_matching.front();
     const Material* m = nonlinear_material(library, target);
-    if (!m || !pm.phase_matchable || !pm.outside_index_data.empty()) return std::nullopt;
+    if (!m || !pm.phase_matchable || pm.outside_index_data) return std::nullopt;
     const Crystal& xc = *target.crystal;
     const PrincipalPlane plane = xc.principal_plane;
     const double theta_rad = deg_to_rad(pm.theta_pm_deg);

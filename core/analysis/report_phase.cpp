@@ -14,7 +14,6 @@
 #include "nonlinear/phase_matching.hpp"
 #include "trace/crystal_axes.hpp"
 #include "units/constants.hpp"
-#include "units/number_text.hpp"
 
 namespace rv::report_sections {
 
@@ -74,17 +73,11 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.first_needs_a = w.wave1 == Polarity::A;
     r.second_needs_a = w.wave2 == Polarity::A;
     auto suits = [](Polarity need, double a) { return need == Polarity::A ? a >= 0.9 : a <= 0.1; };
-    if (shg && type != MixingType::TypeI && type != MixingType::TypeI_BBA) {
-        r.polarizations_suit = a1 >= 0.4 && a1 <= 0.6;
-        r.polarization_note = b1.id + " needs equal o and e components (linear at 45° to the axes)";
-    } else {
-        r.polarizations_suit = suits(w.wave1, a1) && suits(w.wave2, a2);
-        auto name = [](Polarity p) { return p == Polarity::A ? "o" : "e"; };
-        r.polarization_note =
-            b1.id + " must be " + name(w.wave1) + (shg ? "" : ", " + b2.id + " " + name(w.wave2)) +
-            " (an o wave is polarized " +
-            (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
-    }
+    // Type-II SHG takes both waves from one beam: it needs equal o and e parts.
+    const bool equal_parts = shg && type != MixingType::TypeI && type != MixingType::TypeI_BBA;
+    r.polarizations_suit = equal_parts ? a1 >= 0.4 && a1 <= 0.6 : suits(w.wave1, a1) && suits(w.wave2, a2);
+    r.polarization_need = {b1.id, shg ? std::string() : b2.id, equal_parts, w.wave1 == Polarity::A,
+                           w.wave2 == Polarity::A, xc.optic_axis_horizontal};
     std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
     // Geometry (trace/crystal_axes.hpp): the first beam's wave-vector direction inside at the
     // crystal's centre plane and the index it was refracted with give the 3-D wave vector and ψ.
@@ -99,15 +92,12 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const double length = xc.length_mm;
     const double dk = now.delta_k_per_mm;
     if (!std::isfinite(dk)) {
-        std::string where;
+        IndexGap gap{m.name, std::nullopt, m.min_wavelength_nm, m.max_wavelength_nm};
         for (double l : {l1, l2, r.output_nm})
             if (!std::isfinite(wave_index(m, l, Polarity::A, 0, plane).index +
                                wave_index(m, l, Polarity::B, kPi / 4, plane).index))
-                where = format_number("%.1f", l) + " nm";
-        r.outside_index_data =
-            m.name + " has no real index at " + (where.empty() ? "a wave of this process" : where) +
-            " (its formula covers " + format_number("%.0f", m.min_wavelength_nm) + "–" +
-            format_number("%.0f", m.max_wavelength_nm) + " nm): no phase-matching figures";
+                gap.wavelength_nm = l;
+        r.outside_index_data = gap;
         return r;
     }
     r.delta_k_l = dk * length;
@@ -164,18 +154,11 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     // Group-velocity mismatch of every pair of the three waves: the generated wave against each
     // input, and the inputs against each other. For SHG of type I the two inputs are one wave
     // (one pair); for type II they are the o and e parts of the beam (three pairs).
-    const std::string out = shg ? "SHG" : "SFG";
     auto walk = [](std::optional<double> tau_fs, double gvm) -> std::optional<double> {
         if (!tau_fs || gvm == 0) return std::nullopt;
         return *tau_fs / std::abs(gvm);
     };
     const bool two_inputs = !shg || w.wave1 != w.wave2;
-    auto pol_name = [](Polarity p) { return std::string(p == Polarity::A ? " (o)" : " (e)"); };
-    auto wave_name = [&](int k) {
-        if (k == 3) return out;
-        const std::string& id = k == 1 ? b1.id : b2.id;
-        return shg && two_inputs ? id + pol_name(k == 1 ? w.wave1 : w.wave2) : id;
-    };
     const Polarity pols[3] = {w.wave1, w.wave2, w.wave3};
     // The pulses as they enter the crystal (analysis/pulse_at_target.hpp).
     const std::optional<double> taus[3] = {beams[i].at_target.pulse.fwhm_fs, beams[j].at_target.pulse.fwhm_fs,
@@ -186,7 +169,6 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
         g.second_wave = b;
         g.first_polarity = pols[a - 1];
         g.second_polarity = pols[b - 1];
-        g.between = wave_name(a) + "–" + wave_name(b);
         g.fs_per_mm = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, a, b, plane);
         // The generated pulse walks through the input's; two inputs: the shorter one.
         std::optional<double> tau = taus[b - 1];

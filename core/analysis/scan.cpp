@@ -65,7 +65,7 @@ ScanResult plan_scan(const Layout& layout, const MaterialLibrary& library, const
     if (report.phase_matching.empty() || report.chosen_process_missing)
         return refuse(ScanRefusal::Kind::NoProcess, crystal_pointer, target.element->id);
     const PhaseMatchingReport& pm = report.phase_matching.front();
-    if (!pm.phase_matchable || !pm.outside_index_data.empty())
+    if (!pm.phase_matchable || pm.outside_index_data)
         return refuse(ScanRefusal::Kind::NoProcess, crystal_pointer, target.element->id);
     if (!report.generated) return refuse(ScanRefusal::Kind::NoGeneratedLight, "/beams", "");
     if (!pm.rotation_found) return refuse(ScanRefusal::Kind::NoRotation, crystal_pointer, target.element->id);

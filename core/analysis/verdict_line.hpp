@@ -14,6 +14,15 @@
 
 namespace rv {
 
+// Where a crystal's index formula has no real value (a wavelength far outside its range): the
+// set, the wave's wavelength when one is found, and the range the formula covers.
+// (Words: report/verdict_words.hpp, index_gap_text.)
+struct IndexGap {
+    std::string material;
+    std::optional<double> wavelength_nm;
+    double covers_min_nm = 0, covers_max_nm = 0;
+};
+
 // The process a phase line is about: the SFG of two beams or the SHG of one.
 struct ProcessBeams {
     bool sum_frequency = false;
@@ -42,7 +51,7 @@ struct OneBeamNoDelay {};    // time does not apply
 struct ProcessBeamsMissing { ProcessBeams process; };  // the crystal's set process
 struct OutsideIndexData {    // the crystal's index formula has no value at a wave
     ProcessBeams process;
-    std::string detail;      // the phase-matching section's statement of where
+    IndexGap gap;
 };
 struct NotPhaseMatchable { ProcessBeams process; MixingType mixing = MixingType::TypeI; };
 struct PhaseAngles {

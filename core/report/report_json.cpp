@@ -146,17 +146,27 @@ json verdict_met_json(const Verdict& v) {
 
 void to_json(json& j, const GroupVelocityMismatch& g) {
     auto pol = [](Polarity p) { return p == Polarity::A ? "o" : "e"; };
-    j = {{"between", g.between},
-         {"waves", {g.first_wave, g.second_wave}},
+    j = {         {"waves", {g.first_wave, g.second_wave}},
          {"polarities", {pol(g.first_polarity), pol(g.second_polarity)}},
          {"fs_per_mm", g.fs_per_mm},
          {"walk_apart_mm", optional_number(g.walk_apart_mm)}};
 }
 
+// Each pair as data with its words ("between").
+json gvm_json(const PhaseMatchingReport& p) {
+    json out = json::array();
+    for (const GroupVelocityMismatch& g : p.gvm) {
+        json e = g;
+        e["between"] = gvm_pair_text(p, g);
+        out.push_back(std::move(e));
+    }
+    return out;
+}
+
 void to_json(json& j, const PhaseMatchingReport& p) {
     // Outside the index data nothing but the geometry is computed; without phase matching, no
     // figure of the phase-matching angle (PhaseMatchingReport): those are null, not 0.
-    const bool indexed = p.outside_index_data.empty();
+    const bool indexed = !p.outside_index_data;
     auto if_indexed = [&](double v) { return indexed ? json(v) : json(nullptr); };
     auto if_matchable = [&](double v) { return p.phase_matchable ? json(v) : json(nullptr); };
     auto found = [&](double v) {
@@ -175,13 +185,13 @@ void to_json(json& j, const PhaseMatchingReport& p) {
          {"rotation_axis", p.phase_matchable ? json(crystal_rotation_axis_text(p.rotation)) : json(nullptr)},
          {"delta_k_l", if_indexed(p.delta_k_l)},
          {"sinc2_now", if_indexed(p.sinc2_now)},
-         {"outside_index_data", optional_text(p.outside_index_data)},
+         {"outside_index_data", p.outside_index_data ? json(index_gap_text(*p.outside_index_data)) : json(nullptr)},
          {"walkoff_mrad", if_matchable(p.walkoff_mrad)},
          {"angular_acceptance_mrad",
           {{"internal_fwhm", if_matchable(p.angular_acceptance_internal_mrad)},
            {"external_fwhm", if_matchable(p.angular_acceptance_external_mrad)}}},
          {"spectral_acceptance_fwhm_nm", if_matchable(p.spectral_acceptance_nm)},
-         {"gvm", p.gvm},
+         {"gvm", gvm_json(p)},
          {"spectral_acceptance_tunes", p.spectral_tuned_beam},
          {"spectral_acceptance_holds", p.spectral_held_beam ? json(*p.spectral_held_beam) : json(nullptr)},
          {"temperature", p.temperature ? json{{"now_c", p.temperature->now_c},
@@ -189,7 +199,7 @@ void to_json(json& j, const PhaseMatchingReport& p) {
                                               {"acceptance_fwhm_c", optional_number(p.temperature->acceptance_fwhm_c)}}
                                         : json(nullptr)},
          {"polarizations_suit", p.polarizations_suit},
-         {"polarization_note", p.polarization_note}};
+         {"polarization_note", verdict_action_text(p.polarization_need)}};
 }
 
 void to_json(json& j, const StageReport& s) {

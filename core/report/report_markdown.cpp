@@ -90,7 +90,7 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                 << (p.spectral_held_beam ? " with " + *p.spectral_held_beam + " held" : std::string(" (the harmonic follows)"))
                 << ".\n\n| GVM between | fs/mm | walk-apart (mm) |\n|---|---|---|\n";
             for (const GroupVelocityMismatch& g : p.gvm)
-                out << "| " << g.between << " | " << fmt("%+.1f", g.fs_per_mm) << " | "
+                out << "| " << gvm_pair_text(p, g) << " | " << fmt("%+.1f", g.fs_per_mm) << " | "
                     << (g.walk_apart_mm ? fmt("%.2f", *g.walk_apart_mm) : std::string("—")) << " |\n";
         }
     }

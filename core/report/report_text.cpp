@@ -142,8 +142,8 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
     for (const PhaseMatchingReport& p : r.phase_matching) {
         out << "\nPhase matching: " << process_beams_text(p.beams) << " → " << fmt("%.2f", p.output_nm) << " nm, "
             << mixing_type_label(p.mixing) << "\n";
-        if (!p.outside_index_data.empty()) {
-            out << "  " << p.outside_index_data << "\n";
+        if (p.outside_index_data) {
+            out << "  " << index_gap_text(*p.outside_index_data) << "\n";
             continue;
         }
         if (p.temperature) out << "  temperature " << temperature_tuning_text(*p.temperature) << "\n";
@@ -169,13 +169,13 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             << (p.spectral_held_beam ? " with " + *p.spectral_held_beam + " held" : std::string(" (the harmonic follows)"))
             << "\n";
         for (const GroupVelocityMismatch& g : p.gvm)
-            out << "  GVM " << g.between << " " << fmt("%+.1f", g.fs_per_mm) << " fs/mm"
+            out << "  GVM " << gvm_pair_text(p, g) << " " << fmt("%+.1f", g.fs_per_mm) << " fs/mm"
                 << (g.walk_apart_mm
                         ? ", pulses walk apart in " + fmt("%.2f", *g.walk_apart_mm) + " mm"
                         : std::string())
                 << "\n";
         out << "  polarization: " << (p.polarizations_suit ? "suits" : "DOES NOT SUIT") << " — "
-            << p.polarization_note << "\n";
+            << verdict_action_text(p.polarization_need) << "\n";
     }
     if (!r.focusing.empty()) {
         out << "\nFocusing (Boyd–Kleinman, focus at the centre)\n";

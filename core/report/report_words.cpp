@@ -73,4 +73,15 @@ std::string temperature_tuning_text(const TemperatureTuning& t) {
     return s;
 }
 
+std::string gvm_pair_text(const PhaseMatchingReport& p, const GroupVelocityMismatch& g) {
+    const WavePolarities w = polarities(p.mixing);
+    const bool parts_of_one_beam = !p.sum_frequency && w.wave1 != w.wave2;
+    auto wave = [&](int k, Polarity polarity) {
+        if (k == 3) return std::string(p.sum_frequency ? "SFG" : "SHG");
+        const std::string& id = k == 1 || !p.sum_frequency ? p.beams.first_beam : p.beams.second_beam;
+        return parts_of_one_beam ? id + (polarity == Polarity::A ? " (o)" : " (e)") : id;
+    };
+    return wave(g.first_wave, g.first_polarity) + "–" + wave(g.second_wave, g.second_polarity);
+}
+
 }  // namespace rv

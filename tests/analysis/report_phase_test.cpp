@@ -8,6 +8,7 @@
 
 #include "analysis/report.hpp"
 #include "report/report_json.hpp"
+#include "report/report_words.hpp"
 #include "support/layouts.hpp"
 #include "support/tolerance.hpp"
 #include "units/constants.hpp"
@@ -76,7 +77,7 @@ TEST_CASE("type-II SHG lists the GVM of all three waves against group indices", 
     REQUIRE(p.gvm.size() == 3);
     int pairs_seen = 0;
     for (const rv::GroupVelocityMismatch& g : p.gvm) {
-        CAPTURE(g.between, g.first_wave, g.second_wave);
+        CAPTURE(rv::gvm_pair_text(p, g), g.first_wave, g.second_wave);
         REQUIRE(g.first_wave >= 1);
         REQUIRE(g.first_wave <= 3);
         REQUIRE(g.second_wave >= 1);

@@ -10,6 +10,7 @@
 #include <nlohmann/json.hpp>
 
 #include "analysis/report.hpp"
+#include "report/report_words.hpp"
 #include "report/verdict_json.hpp"
 
 namespace rv::hardening {
@@ -119,8 +120,8 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add(n + ".angular_acceptance_mrad.external_fwhm", p.angular_acceptance_external_mrad);
         add(n + ".spectral_acceptance_fwhm_nm", p.spectral_acceptance_nm);
         for (const GroupVelocityMismatch& g : p.gvm) {
-            add(n + ".gvm[" + g.between + "].fs_per_mm", g.fs_per_mm);
-            add_opt(n + ".gvm[" + g.between + "].walk_apart_mm", g.walk_apart_mm);
+            add(n + ".gvm[" + gvm_pair_text(p, g) + "].fs_per_mm", g.fs_per_mm);
+            add_opt(n + ".gvm[" + gvm_pair_text(p, g) + "].walk_apart_mm", g.walk_apart_mm);
         }
     }
     for (const FocusingReport& f : r.focusing) {

@@ -152,7 +152,7 @@ void process_buttons(edit::Document& doc, InspectorState& st) {
     if (!st.process_error.empty()) ImGui::TextWrapped("%s", st.process_error.c_str());
     if (r.phase_matching.empty()) return;
     const PhaseMatchingReport& p = r.phase_matching.front();
-    if (!p.outside_index_data.empty() || !p.phase_matchable) return;
+    if (p.outside_index_data || !p.phase_matchable) return;
     const bool turn = p.rotation == CrystalRotation::Turn;
     ImGui::Text("%s: sinc² %.3f", process_beams_text(p.beams).c_str(), p.sinc2_now);
     if (p.rotation_found && std::abs(p.rotate_by_deg) >= 0.0005)
