@@ -9,6 +9,7 @@
 #include <cmath>
 
 #include "analysis/report_sections.hpp"
+#include "layout/visit.hpp"
 #include "nonlinear/b_integral.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
 #include "nonlinear/generated_power.hpp"
@@ -43,6 +44,31 @@ double peak_power_w(double average_mw, double rate_khz, double fwhm_fs) {
 
 double mean_confocal_mm(const ReportBeam& b) { return (b.confocal_tangential_mm + b.confocal_sagittal_mm) / 2; }
 
+// The maker's damage threshold a kind carries in the file: a crystal's or a target's.
+const DamageThreshold* file_damage(const ElementKind& kind) {
+    using D = const DamageThreshold*;
+    return std::visit(overloaded{[](const Crystal& c) -> D { return &c.damage; },
+                                 [](const Target& t) -> D { return &t.damage; },
+                                 [](const Lens&) -> D { return nullptr; }, [](const Mirror&) -> D { return nullptr; },
+                                 [](const Dichroic&) -> D { return nullptr; }, [](const Plate&) -> D { return nullptr; },
+                                 [](const Retroreflector&) -> D { return nullptr; },
+                                 [](const Stage&) -> D { return nullptr; }, [](const Dump&) -> D { return nullptr; }},
+                      kind);
+}
+
+// The material of a slab a beam travels inside (a plate, a dichroic's substrate, a crystal);
+// empty for a kind a beam is not traced through.
+std::string slab_material(const ElementKind& kind) {
+    using S = std::string;
+    return std::visit(overloaded{[](const Plate& p) -> S { return p.slab.material; },
+                                 [](const Dichroic& d) -> S { return d.substrate.material; },
+                                 [](const Crystal& c) -> S { return c.material; },
+                                 [](const Lens&) -> S { return {}; }, [](const Mirror&) -> S { return {}; },
+                                 [](const Retroreflector&) -> S { return {}; }, [](const Stage&) -> S { return {}; },
+                                 [](const Target&) -> S { return {}; }, [](const Dump&) -> S { return {}; }},
+                      kind);
+}
+
 }  // namespace
 
 std::optional<DamageThresholdReport> damage_threshold_for(const Layout& layout, const ReportBeam& b,
@@ -52,9 +78,7 @@ std::optional<DamageThresholdReport> damage_threshold_for(const Layout& layout, 
     d.beam = b.id;
     d.element = target.element->id;
     if (target.crystal) d.material = target.crystal->material;
-    const DamageThreshold* file = nullptr;
-    if (const auto* c = std::get_if<Crystal>(&target.element->kind)) file = &c->damage;
-    if (const auto* t = std::get_if<Target>(&target.element->kind)) file = &t->damage;
+    const DamageThreshold* file = file_damage(target.element->kind);
     if (file && (given(file->fluence_j_cm2) || given(file->intensity_gw_cm2))) {
         d.fluence_j_cm2 = given(file->fluence_j_cm2);
         d.intensity_gw_cm2 = given(file->intensity_gw_cm2);
@@ -215,11 +239,7 @@ std::vector<BIntegralReport> b_integrals(const Layout& layout, const MaterialLib
             const TraceSegment& seg = b.path.segments[k];  // ends at hits[k], starts at hits[k − 1]
             if (!seg.inside || (target.element && &layout.elements[*seg.inside] == target.element)) continue;
             const Element& slab = layout.elements[*seg.inside];
-            std::string material;
-            if (const auto* p = std::get_if<Plate>(&slab.kind)) material = p->slab.material;
-            if (const auto* d = std::get_if<Dichroic>(&slab.kind)) material = d->substrate.material;
-            if (const auto* c = std::get_if<Crystal>(&slab.kind)) material = c->material;
-            consider({seg.length_mm, k - 1, k, material});
+            consider({seg.length_mm, k - 1, k, slab_material(slab.kind)});
         }
         if (thickest) {
             const BeamAtHit& in = b.caustic.at_hits[thickest->entrance];

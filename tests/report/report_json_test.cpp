@@ -139,6 +139,13 @@ void check_process(const json& j, const rv::PhaseMatchingReport& p) {
         check_optional(j.at("gvm")[k].at("walk_apart_mm"), p.gvm[k].walk_apart_mm);
     }
     CHECK(j.at("polarizations_suit").get<bool>() == p.polarizations_suit);
+    if (p.temperature) {
+        CHECK(j.at("temperature").at("now_c").get<double>() == p.temperature->now_c);
+        check_optional(j.at("temperature").at("phase_matching_c"), p.temperature->phase_matching_c);
+        check_optional(j.at("temperature").at("acceptance_fwhm_c"), p.temperature->acceptance_fwhm_c);
+    } else {
+        CHECK(j.at("temperature").is_null());
+    }
 }
 
 // The report of one layout through JSON text and back: every key equals the model's value.
@@ -217,7 +224,7 @@ void check_report_json(const rv::Layout& layout) {
 // range, a wave plate before the crystal), so the nulls are checked too.
 const char* const kFixtures[] = {"findings/clipped-unterminated.json", "findings/missed-aim.json",
                                  "findings/stray-cube.json", "warn/zhang-at-532.json",
-                                 "solve/plate-before-crystal.json"};
+                                 "solve/plate-before-crystal.json", "temperature/lbo-oven-1064.json"};
 
 }  // namespace
 
