@@ -109,9 +109,23 @@ TEST_CASE("no label overlaps a mark or another label on any bundled layout in th
         const rv::scene::Scene s = rv::scene::build_scene(*r.layout, report);
         CHECK(!s.labels.empty());
         for (const double zoom : {1.0, 2.0}) {
-            rv::ui::View v = rv::ui::fit_view(ImVec2(0, 0), ImVec2(1200, 640), s.width_mm, s.height_mm);
-            v.px_per_mm *= zoom;
-            check_boxes(file + " at zoom " + std::to_string(zoom), s, rv::ui::place_view_labels(s, v));
+            // The frame's canvas (1200 × 640) and the small screenshot's (about 580 × 400).
+            for (const ImVec2 canvas : {ImVec2(1200, 640), ImVec2(580, 400)}) {
+                rv::ui::View v = rv::ui::fit_view(ImVec2(0, 0), canvas, s.width_mm, s.height_mm);
+                v.px_per_mm *= zoom;
+                const std::string where = file + " at zoom " + std::to_string(zoom) + " in " +
+                                          std::to_string(static_cast<int>(canvas.x)) + " px";
+                const std::vector<rv::scene::PlacedLabel> placed = rv::ui::place_view_labels(s, v);
+                check_boxes(where, s, placed);
+                // Nor does any label go under the legend drawn in the canvas's corner.
+                const rv::ui::ScreenRect legend = rv::ui::legend_rect(s, v);
+                const Vec2 a = v.to_table(legend.min), b = v.to_table(legend.max);
+                const Box legend_mm{a.cwiseMin(b), a.cwiseMax(b)};
+                for (size_t i = 0; i < placed.size(); ++i) {
+                    INFO(where << ": label " << s.labels[i].text << " and the legend");
+                    CHECK_FALSE(overlap(placed[i].box_mm, legend_mm));
+                }
+            }
         }
     }
     ImGui::EndFrame();

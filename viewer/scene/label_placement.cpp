@@ -82,11 +82,11 @@ bool box_meets_mark(const Box& box, const Polyline& mark) {
 }
 
 std::vector<PlacedLabel> place_labels(const Scene& s, const std::function<LabelSizeMm(const Label&)>& size_of,
-                                      double gap_mm) {
+                                      double gap_mm, const std::vector<Box>& keep_out_mm) {
     const std::vector<Piece> pieces = pieces_of(s);
     const Box table{{0, 0}, {s.width_mm, s.height_mm}};
     std::vector<PlacedLabel> out;
-    std::vector<Box> taken;  // placed boxes, grown by the gap
+    std::vector<Box> taken = keep_out_mm;  // placed boxes, grown by the gap, and the keep-outs
     out.reserve(s.labels.size());
     for (const Label& l : s.labels) {
         const LabelSizeMm size = size_of(l);

@@ -37,8 +37,10 @@ struct LabelSizeMm {
 };
 
 // One PlacedLabel per scene.labels entry, in order. gap_mm: the clearance kept around each box.
+// keep_out_mm: areas drawn over the table that no label may meet (the window's legend in the
+// canvas's corner), treated as placed boxes.
 std::vector<PlacedLabel> place_labels(const Scene& scene, const std::function<LabelSizeMm(const Label&)>& size_of,
-                                      double gap_mm);
+                                      double gap_mm, const std::vector<Box>& keep_out_mm = {});
 
 // Whether a box meets a mark of the scene (its outline, or the box's centre inside a closed
 // one); envelopes are ignored. The placement's own test, exposed for the tests' independent

@@ -146,15 +146,20 @@ void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout
     const int first = arrivals[0] <= arrivals[1] ? 0 : 1, second = 1 - first;
     const double half_fs = 2.0 * std::max(tau1, tau2);
     const float gap = 44, panel = std::floor((size.x - gap) / 2);
-    std::snprintf(title, sizeof title, "Pulses at the target: %s first", r.beams[first].id.c_str());
-    const PlotAxes left = draw_axes(draw, origin, ImVec2(panel, size.y), arrivals[first] - half_fs,
-                                    arrivals[first] + half_fs, 0, 1.1, "fs", "intensity", title);
-    std::snprintf(title, sizeof title, "%s later by %s", r.beams[second].id.c_str(),
-                  format_duration_fs(std::abs(d)).c_str());
+    // Each panel's time from its own pulse's arrival (labels of ±2τ, not of the whole delay).
+    std::snprintf(title, sizeof title, "%s first", r.beams[first].id.c_str());
+    const PlotAxes left = draw_axes(draw, origin, ImVec2(panel, size.y), -half_fs, half_fs, 0, 1.1,
+                                    "fs, own peak", "intensity", title);
+    // A narrow panel: the delay to 0.1 ps (the report and the time line give it in full).
+    const std::string later = std::abs(d) > 1e4 ? format_number("+%.1f ps", std::abs(d) * 1e-3)
+                                                : format_duration_fs(std::abs(d), true);
+    std::snprintf(title, sizeof title, "%s %s", r.beams[second].id.c_str(), later.c_str());
     const PlotAxes right = draw_axes(draw, ImVec2(origin.x + panel + gap, origin.y), ImVec2(size.x - panel - gap, size.y),
-                                     arrivals[second] - half_fs, arrivals[second] + half_fs, 0, 1.1, "fs", "", title);
-    draw_pulses(draw, left, r, arrivals, taus);
-    draw_pulses(draw, right, r, arrivals, taus);
+                                     -half_fs, half_fs, 0, 1.1, "fs, own peak", "", title);
+    const double from_first[2] = {arrivals[0] - arrivals[first], arrivals[1] - arrivals[first]};
+    const double from_second[2] = {arrivals[0] - arrivals[second], arrivals[1] - arrivals[second]};
+    draw_pulses(draw, left, r, from_first, taus);
+    draw_pulses(draw, right, r, from_second, taus);
     // The break: two slanted strokes on the axis line, and the arrow between the panels.
     const ImU32 ink = IM_COL32(40, 40, 50, 255);
     const float y = left.max_px.y, x0 = left.max_px.x + 6, x1 = right.min_px.x - 6;
