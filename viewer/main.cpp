@@ -7,6 +7,7 @@
 #include <cstdlib>
 #include <iostream>
 
+#include "analysis/scan.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "cli/number_option.hpp"
@@ -161,6 +162,18 @@ int main(int argc, char** argv) {
     sweep_cmd->add_flag("--json", sweep.json, "one JSON object (docs/schemas/sweep.schema.json) instead of the table");
     sweep_cmd->add_flag("--csv", sweep.csv, "comma-separated output");
 
+    rv::cli::ScanOptions scan;
+    std::string scan_size = "1000x700", scan_points;
+    CLI::App* scan_cmd = app.add_subcommand(
+        "scan", "A plan to find the signal: the predicted generated power against the delay stage's\n"
+                "position and the crystal's turn or tilt, the steps and ranges to scan, as text, CSV and PNG.\n"
+                "Example: rendezvous scan layouts/sfg-bbo.json --png scan.png --csv scan.csv");
+    scan_cmd->add_option("layout", scan.layout, "layout file (JSON)")->required();
+    scan_cmd->add_option("--csv", scan.csv, "write the map here as CSV (- is stdout, the plan then on stderr)");
+    scan_cmd->add_option("--png", scan.png, "write the map here as PNG (- is stdout, the plan then on stderr)");
+    scan_cmd->add_option("--size", scan_size, "PNG size WxH in pixels (default 1000x700)");
+    scan_cmd->add_option("--points", scan_points, "grid NxM: stage positions x crystal settings (each 1 to 1000)");
+    scan_cmd->footer(kWriting);
     rv::cli::RenderOptions render;
     std::string render_size = "1600x1000";
     CLI::App* render_cmd = app.add_subcommand(
@@ -222,6 +235,23 @@ int main(int argc, char** argv) {
             render.width = w;
             render.height = h;
         }
+        if (*scan_cmd) {
+            int w = 0, h = 0;
+            char x = 0, extra = 0;
+            if (std::sscanf(scan_size.c_str(), "%d%c%d%c", &w, &x, &h, &extra) != 3 || x != 'x' || w < 200 || h < 150 ||
+                w > 8192 || h > 8192)
+                throw CLI::ValidationError("--size", "expected WxH between 200x150 and 8192x8192, got \"" + scan_size + "\"");
+            scan.width = w;
+            scan.height = h;
+            if (!scan_points.empty()) {
+                int n = 0, m = 0;
+                if (std::sscanf(scan_points.c_str(), "%d%c%d%c", &n, &x, &m, &extra) != 3 || x != 'x' || n < 1 || m < 1 ||
+                    n > rv::kMaxScanPoints || m > rv::kMaxScanPoints)
+                    throw CLI::ValidationError("--points", "expected NxM, each from 1 to 1000, got \"" + scan_points + "\"");
+                scan.stage_points = n;
+                scan.rotation_points = m;
+            }
+        }
         if (*report_cmd && report.json && report.markdown)
             throw CLI::ValidationError("report", "--json and --markdown exclude each other");
         if (*report_cmd && report.demo == !report.layout.empty())
@@ -259,6 +289,7 @@ int main(int argc, char** argv) {
     if (*phase_cmd) return rv::cli::run_phase(phase, std::cout, std::cerr);
     if (*polarize_cmd) return rv::cli::run_polarize(polarize, std::cout, std::cerr);
     if (*sweep_cmd) return rv::cli::run_sweep(sweep, std::cout, std::cerr);
+    if (*scan_cmd) return rv::cli::run_scan(scan, std::cout, std::cerr);
     if (*calibrate_cmd) return rv::cli::run_calibrate(calibrate, std::cout, std::cerr);
     if (*caustic_cmd) return rv::cli::run_caustic(caustic_layout, std::cout, std::cerr);
     if (*sheet_cmd) return rv::cli::run_sheet(sheet, std::cout, std::cerr);

@@ -4,6 +4,7 @@
 #include <stdexcept>
 
 #include "layout/process_text.hpp"
+#include "report/verdict_words.hpp"
 #include "units/number_text.hpp"
 
 namespace rv {
@@ -11,6 +12,23 @@ namespace rv {
 namespace {
 
 double round_to_thousandth(double x) { return std::round(x * 1e3) / 1e3; }
+double round_to_hundredth(double x) { return std::round(x * 1e2) / 1e2; }
+
+// The oven's way: the crystal's temperature set where the process phase-matches at the angle
+// now, the crystal's set taken there in the library, judged by the report again.
+void set_oven(PhaseSetting& s, Crystal& crystal, const MaterialLibrary& library, const PhaseMatchingReport& p) {
+    s.by_temperature = true;
+    s.temperature_before_c = crystal.temperature_c;
+    s.process = p.beams;
+    s.rotation = p.rotation;
+    s.sinc2_before = p.sinc2_now;
+    s.theta_pm_deg = p.theta_pm_deg;
+    crystal.temperature_c = round_to_hundredth(*p.temperature->phase_matching_c);
+    s.temperature_after_c = crystal.temperature_c;
+    const RendezvousReport after = build_report(s.layout, library.with_temperature(crystal.material, *crystal.temperature_c));
+    s.sinc2_after = after.phase_matching.empty() ? 0 : after.phase_matching.front().sinc2_now;
+    s.theta_after_deg = after.phase_matching.empty() ? 0 : after.phase_matching.front().theta_now_deg;
+}
 
 }  // namespace
 
@@ -49,10 +67,14 @@ PhaseSetting set_crystal_for_process(const Layout& layout, const MaterialLibrary
         if (r.chosen_process_missing) throw std::invalid_argument("the process's beams do not reach the crystal");
         if (r.phase_matching.empty()) throw std::invalid_argument("the crystal's material is isotropic or the beams miss it");
         const PhaseMatchingReport& p = r.phase_matching.front();
-        if (!p.outside_index_data.empty()) throw std::invalid_argument(p.outside_index_data);
-        if (!p.phase_matchable) throw std::invalid_argument("no " + p.type + " phase matching for " + p.process + " in this crystal");
+        if (p.outside_index_data) throw std::invalid_argument(index_gap_text(*p.outside_index_data));
+        if (first && crystal->temperature_c && p.temperature && p.temperature->phase_matching_c) {
+            set_oven(s, *crystal, library, p);
+            break;
+        }
+        if (!p.phase_matchable) throw std::invalid_argument(std::string("no ") + mixing_type_label(p.mixing) + " phase matching in this crystal");
         if (first) {
-            s.process = p.process;
+            s.process = p.beams;
             s.rotation = p.rotation;
             s.sinc2_before = p.sinc2_now;
             s.theta_pm_deg = p.theta_pm_deg;

@@ -46,11 +46,6 @@ std::string process_key(const Layout& layout, const PhaseMatchingReport& p) {
         layout.beams[p.first_beam].id);
 }
 
-ProcessBeams process_beams(const RendezvousReport& r, const PhaseMatchingReport& p) {
-    return {p.sum_frequency, r.beams[p.first_beam].id,
-            p.sum_frequency ? r.beams[p.second_beam].id : std::string()};
-}
-
 bool verdict_passes(const VerdictLine& l) {
     return !l.applies || l.met;
 }

@@ -16,6 +16,7 @@
 #include "materials/material_library.hpp"
 #include "analysis/crystal_angle.hpp"
 #include "nonlinear/phase_matching.hpp"
+#include "nonlinear/temperature_tuning.hpp"
 #include "trace/path.hpp"
 #include "trace/propagate.hpp"
 
@@ -90,20 +91,25 @@ struct StageReport {
 };
 
 struct GroupVelocityMismatch {
-    std::string between;     // "SFG–pump" …
+    // The pair as data (words: report/report_words.hpp, gvm_pair_text, "SFG–pump" …): waves 1 and 2 are the inputs (first_beam, second_beam of the process),
+    // 3 the generated wave; fs_per_mm = 1/v_g(first_wave) − 1/v_g(second_wave), each wave at its
+    // own polarity (type II: the o and e parts of one beam are two waves).
+    int first_wave = 3, second_wave = 1;
+    Polarity first_polarity = Polarity::B, second_polarity = Polarity::A;
     double fs_per_mm = 0;
     std::optional<double> walk_apart_mm;  // pulse length / |GVM|, when the pulse length is known
 };
 
 struct PhaseMatchingReport {
-    std::string process;      // "SFG of pump + signal", "SHG of pump"
+    ProcessBeams beams;       // the beams by id (words: report/verdict_words.hpp, process_beams_text)
     bool sum_frequency = false;   // SFG of the two beams, else the SHG of first_beam
     size_t first_beam = 0, second_beam = 0;  // indices into the report's beams (equal for SHG)
     MixingType mixing = MixingType::TypeI;
-    std::string type;         // "type-I (ooe)" …
     double output_nm = 0;
     bool phase_matchable = false;
-    double theta_pm_deg = 0;        // internal phase-matching angle
+    // Internal phase-matching angle; for a crystal with no such angle at its temperature that a
+    // temperature in the span phase-matches (non-critical, above T_pm), the angle now.
+    double theta_pm_deg = 0;
     double theta_now_deg = 0;       // internal angle the beams have now
     // How the crystal is rotated to phase-match (analysis/crystal_angle.hpp): a Turn about the
     // vertical axis (optic axis in the table plane) or a Tilt about the horizontal axis across
@@ -117,23 +123,33 @@ struct PhaseMatchingReport {
     // Tilt, + = the face normal rises (tilt_deg grows by it). Only when rotation_found: a
     // setting within the searched range reaches θ_pm.
     double rotate_by_deg = 0;
-    bool rotation_found = false;
-    std::string rotation_axis;
+    bool rotation_found = false;  // the axis in words: report/verdict_words.hpp, crystal_rotation_axis_text
     double delta_k_l = 0;           // Δk·L now (rad)
     double sinc2_now = 0;           // sinc²(ΔkL/2) now
-    // Non-empty when a wave's wavelength lies where the crystal's index formula has no real
-    // value (far outside its range): then nothing above is computed (Δk·L and sinc² stay 0 and
-    // are printed as unknown).
-    std::string outside_index_data;
+    // Set when a wave's wavelength lies where the crystal's index formula has no real value
+    // (far outside its range): then nothing above is computed (Δk·L and sinc² stay 0 and are
+    // printed as unknown).
+    std::optional<IndexGap> outside_index_data;
     bool first_needs_a = true, second_needs_a = true;  // the inputs' polarities for the type
     double walkoff_mrad = 0;        // of the generated (B) wave at θ_pm
     double focusing_walkoff_mrad = 0;  // the ρ of Boyd–Kleinman's B (report_focusing.cpp)
     double angular_acceptance_internal_mrad = 0;  // FWHM, internal
     double angular_acceptance_external_mrad = 0;  // ≈ n × internal
     double spectral_acceptance_nm = 0;            // FWHM of wave 1
+    // Which input the spectral acceptance tunes (the id of the first beam) and, for SFG, the
+    // input held at its wavelength (the second beam's id); SHG holds none (the harmonic
+    // follows the fundamental).
+    std::string spectral_tuned_beam;
+    std::optional<std::string> spectral_held_beam;
     std::vector<GroupVelocityMismatch> gvm;
+    // A set with thermo-optic data: the crystal's temperature, the one that phase-matches at
+    // the beams' angle now, and the temperature acceptance (nonlinear/temperature_tuning.hpp).
+    std::optional<TemperatureTuning> temperature;
     bool polarizations_suit = false;
-    std::string polarization_note;
+    // What the inputs' polarizations must be for the type, as the action that sets them (its
+    // words: report/verdict_words.hpp, verdict_action_text; the verdict advises it when the
+    // polarizations do not suit).
+    verdict_action::SetPolarizations polarization_need;
 };
 
 struct FocusingReport {
@@ -218,7 +234,5 @@ RendezvousReport build_report(const Layout& layout, const MaterialLibrary& libra
 
 // The file's and the command line's name of a process: "sfg" or "shg:BEAM".
 std::string process_key(const Layout& layout, const PhaseMatchingReport& p);
-// A process's beams by id (its words: report/verdict_words.hpp, process_beams_text).
-ProcessBeams process_beams(const RendezvousReport& r, const PhaseMatchingReport& p);
 
 }  // namespace rv

@@ -9,6 +9,7 @@
 #include <cmath>
 
 #include "analysis/report_sections.hpp"
+#include "layout/visit.hpp"
 #include "nonlinear/b_integral.hpp"
 #include "nonlinear/boyd_kleinman.hpp"
 #include "nonlinear/generated_power.hpp"
@@ -19,9 +20,8 @@ namespace rv::report_sections {
 
 namespace {
 
-// A layout number that is "not given": std::optional, or 0 in the older form of layout.hpp.
+// A layout number that is "not given" (std::optional in layout.hpp).
 std::optional<double> given(const std::optional<double>& v) { return v; }
-std::optional<double> given(double v) { return v > 0 ? std::optional<double>(v) : std::nullopt; }
 
 // Above this conversion the undepleted-pump figure overestimates noticeably (common practice).
 constexpr double kUndepletedLimit = 0.1;
@@ -44,6 +44,31 @@ double peak_power_w(double average_mw, double rate_khz, double fwhm_fs) {
 
 double mean_confocal_mm(const ReportBeam& b) { return (b.confocal_tangential_mm + b.confocal_sagittal_mm) / 2; }
 
+// The maker's damage threshold a kind carries in the file: a crystal's or a target's.
+const DamageThreshold* file_damage(const ElementKind& kind) {
+    using D = const DamageThreshold*;
+    return std::visit(overloaded{[](const Crystal& c) -> D { return &c.damage; },
+                                 [](const Target& t) -> D { return &t.damage; },
+                                 [](const Lens&) -> D { return nullptr; }, [](const Mirror&) -> D { return nullptr; },
+                                 [](const Dichroic&) -> D { return nullptr; }, [](const Plate&) -> D { return nullptr; },
+                                 [](const Retroreflector&) -> D { return nullptr; },
+                                 [](const Stage&) -> D { return nullptr; }, [](const Dump&) -> D { return nullptr; }},
+                      kind);
+}
+
+// The material of a slab a beam travels inside (a plate, a dichroic's substrate, a crystal);
+// empty for a kind a beam is not traced through.
+std::string slab_material(const ElementKind& kind) {
+    using S = std::string;
+    return std::visit(overloaded{[](const Plate& p) -> S { return p.slab.material; },
+                                 [](const Dichroic& d) -> S { return d.substrate.material; },
+                                 [](const Crystal& c) -> S { return c.material; },
+                                 [](const Lens&) -> S { return {}; }, [](const Mirror&) -> S { return {}; },
+                                 [](const Retroreflector&) -> S { return {}; }, [](const Stage&) -> S { return {}; },
+                                 [](const Target&) -> S { return {}; }, [](const Dump&) -> S { return {}; }},
+                      kind);
+}
+
 }  // namespace
 
 std::optional<DamageThresholdReport> damage_threshold_for(const Layout& layout, const ReportBeam& b,
@@ -53,9 +78,7 @@ std::optional<DamageThresholdReport> damage_threshold_for(const Layout& layout, 
     d.beam = b.id;
     d.element = target.element->id;
     if (target.crystal) d.material = target.crystal->material;
-    const DamageThreshold* file = nullptr;
-    if (const auto* c = std::get_if<Crystal>(&target.element->kind)) file = &c->damage;
-    if (const auto* t = std::get_if<Target>(&target.element->kind)) file = &t->damage;
+    const DamageThreshold* file = file_damage(target.element->kind);
     if (file && (given(file->fluence_j_cm2) || given(file->intensity_gw_cm2))) {
         d.fluence_j_cm2 = given(file->fluence_j_cm2);
         d.intensity_gw_cm2 = given(file->intensity_gw_cm2);
@@ -85,7 +108,7 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     if (!target.crystal || r.phase_matching.empty() || r.chosen_process_missing) return std::nullopt;
     const PhaseMatchingReport& pm = r.phase_matching.front();
     const Material* m = nonlinear_material(library, target);
-    if (!m || !pm.phase_matchable || !pm.outside_index_data.empty()) return std::nullopt;
+    if (!m || !pm.phase_matchable || pm.outside_index_data) return std::nullopt;
     const Crystal& xc = *target.crystal;
     const PrincipalPlane plane = xc.principal_plane;
     const double theta_rad = deg_to_rad(pm.theta_pm_deg);
@@ -96,7 +119,10 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     const BeamSource& s1 = layout.beams[pm.first_beam];
     const BeamSource& s2 = layout.beams[pm.second_beam];
     if (!b1.at_target.reached || !b2.at_target.reached) return std::nullopt;
-    const std::optional<double> tau1 = given(s1.pulse_fwhm_fs), tau2 = given(s2.pulse_fwhm_fs);
+    // The pulses as they reach the crystal's centre: each source's length lengthened by its
+    // arm's GDD (BeamAtTarget::pulse, analysis/pulse_at_target.hpp), the same lengths the
+    // temporal overlap and the peak intensity use.
+    const std::optional<double> tau1 = b1.at_target.pulse.fwhm_fs, tau2 = b2.at_target.pulse.fwhm_fs;
     const std::optional<double> rate1 = given(s1.repetition_rate_khz), rate2 = given(s2.repetition_rate_khz);
     if (!tau1 || !tau2 || !rate1 || !rate2) return std::nullopt;
     const WavePolarities w = polarities(pm.mixing);
@@ -137,7 +163,9 @@ std::optional<GeneratedLightReport> generated_light(const Layout& layout, const 
     g.xi = xc.length_mm / b_mm;
     const double k_per_mm = kPi * (b1.at_target.index / nm_to_mm(b1.wavelength_nm) +
                                    b2.at_target.index / nm_to_mm(b2.wavelength_nm));  // mean of 2πn/λ
-    g.walkoff_parameter = walkoff_parameter(mrad_to_rad(pm.walkoff_mrad), xc.length_mm, k_per_mm);
+    // B with the same ρ as the focusing report (report_focusing.cpp): the e input's for type II
+    // and eeo, the generated e wave's walk-off from the o inputs for type I ooe.
+    g.walkoff_parameter = walkoff_parameter(mrad_to_rad(pm.focusing_walkoff_mrad), xc.length_mm, k_per_mm);
     // σ = b ΔK/2 with Boyd & Kleinman's ΔK = k1 + k2 − k3, the opposite sign of the report's Δk.
     const double sigma_now = -b_mm * (pm.delta_k_l / xc.length_mm) / 2;
     g.h_now = boyd_kleinman_h(sigma_now, g.walkoff_parameter, g.xi);
@@ -211,11 +239,7 @@ std::vector<BIntegralReport> b_integrals(const Layout& layout, const MaterialLib
             const TraceSegment& seg = b.path.segments[k];  // ends at hits[k], starts at hits[k − 1]
             if (!seg.inside || (target.element && &layout.elements[*seg.inside] == target.element)) continue;
             const Element& slab = layout.elements[*seg.inside];
-            std::string material;
-            if (const auto* p = std::get_if<Plate>(&slab.kind)) material = p->slab.material;
-            if (const auto* d = std::get_if<Dichroic>(&slab.kind)) material = d->substrate.material;
-            if (const auto* c = std::get_if<Crystal>(&slab.kind)) material = c->material;
-            consider({seg.length_mm, k - 1, k, material});
+            consider({seg.length_mm, k - 1, k, slab_material(slab.kind)});
         }
         if (thickest) {
             const BeamAtHit& in = b.caustic.at_hits[thickest->entrance];

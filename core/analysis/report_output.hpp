@@ -43,9 +43,6 @@ struct GeneratedLightReport {
     // η = tanh²(√η0) (Boyd, Nonlinear Optics, 3rd ed., §2.7; Armstrong et al., Phys. Rev. 127,
     // 1918 (1962)), η0 the undepleted efficiency; a rough guide only for focused pulses.
     std::optional<double> average_mw_depleted;
-    // The pulse lengths are the sources' (transform-limited, not lengthened by the glass on the
-    // way): true until the pulse length at the target is known.
-    bool source_pulse_lengths = true;
 };
 
 // The B-integral of one beam through one medium: the target crystal, or the thickest glass on

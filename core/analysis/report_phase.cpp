@@ -14,7 +14,6 @@
 #include "nonlinear/phase_matching.hpp"
 #include "trace/crystal_axes.hpp"
 #include "units/constants.hpp"
-#include "units/number_text.hpp"
 
 namespace rv::report_sections {
 
@@ -60,7 +59,7 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const BeamSource& b2 = layout.beams[j];
     const double l1 = b1.wavelength_nm, l2 = b2.wavelength_nm;
     PhaseMatchingReport r;
-    r.process = shg ? "SHG of " + b1.id : "SFG of " + b1.id + " + " + b2.id;
+    r.beams = {!shg, b1.id, shg ? std::string() : b2.id};
     r.sum_frequency = !shg;
     r.first_beam = i;
     r.second_beam = j;
@@ -70,23 +69,16 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const PrincipalPlane plane = xc.principal_plane;
     const MixingType type = mixing_type(m, xc, l1, l2, a1, a2);
     r.mixing = type;
-    r.type = mixing_type_label(type);
     const WavePolarities w = polarities(type);
     r.first_needs_a = w.wave1 == Polarity::A;
     r.second_needs_a = w.wave2 == Polarity::A;
     auto suits = [](Polarity need, double a) { return need == Polarity::A ? a >= 0.9 : a <= 0.1; };
-    if (shg && type != MixingType::TypeI && type != MixingType::TypeI_BBA) {
-        r.polarizations_suit = a1 >= 0.4 && a1 <= 0.6;
-        r.polarization_note = b1.id + " needs equal o and e components (linear at 45° to the axes)";
-    } else {
-        r.polarizations_suit = suits(w.wave1, a1) && suits(w.wave2, a2);
-        auto name = [](Polarity p) { return p == Polarity::A ? "o" : "e"; };
-        r.polarization_note =
-            b1.id + " must be " + name(w.wave1) + (shg ? "" : ", " + b2.id + " " + name(w.wave2)) +
-            " (an o wave is polarized " +
-            (xc.optic_axis_horizontal ? "vertically" : "horizontally") + " as the crystal is set)";
-    }
-    const std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
+    // Type-II SHG takes both waves from one beam: it needs equal o and e parts.
+    const bool equal_parts = shg && type != MixingType::TypeI && type != MixingType::TypeI_BBA;
+    r.polarizations_suit = equal_parts ? a1 >= 0.4 && a1 <= 0.6 : suits(w.wave1, a1) && suits(w.wave2, a2);
+    r.polarization_need = {b1.id, shg ? std::string() : b2.id, equal_parts, w.wave1 == Polarity::A,
+                           w.wave2 == Polarity::A, xc.optic_axis_horizontal};
+    std::optional<double> pm = phase_matching_angle_rad(m, l1, l2, type, plane);
     // Geometry (trace/crystal_axes.hpp): the first beam's wave-vector direction inside at the
     // crystal's centre plane and the index it was refracted with give the 3-D wave vector and ψ.
     const CrystalPose pose = crystal_pose(direction_deg(xe.normal_deg), xc);
@@ -100,19 +92,22 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     const double length = xc.length_mm;
     const double dk = now.delta_k_per_mm;
     if (!std::isfinite(dk)) {
-        std::string where;
+        IndexGap gap{m.name, std::nullopt, m.min_wavelength_nm, m.max_wavelength_nm};
         for (double l : {l1, l2, r.output_nm})
             if (!std::isfinite(wave_index(m, l, Polarity::A, 0, plane).index +
                                wave_index(m, l, Polarity::B, kPi / 4, plane).index))
-                where = format_number("%.1f", l) + " nm";
-        r.outside_index_data =
-            m.name + " has no real index at " + (where.empty() ? "a wave of this process" : where) +
-            " (its formula covers " + format_number("%.0f", m.min_wavelength_nm) + "–" +
-            format_number("%.0f", m.max_wavelength_nm) + " nm): no phase-matching figures";
+                gap.wavelength_nm = l;
+        r.outside_index_data = gap;
         return r;
     }
     r.delta_k_l = dk * length;
     r.sinc2_now = phase_factor(r.delta_k_l);
+    // By temperature, at the angle the beams have now (also where no angle phase-matches: a
+    // crystal cut for non-critical matching above its matching temperature).
+    r.temperature = temperature_tuning(m, l1, l2, type, now.theta_now_rad, length, plane);
+    // Above its matching temperature a crystal cut for non-critical matching has no angle that
+    // phase-matches, yet a temperature does: the angle is then the one the beams have.
+    if (!pm && r.temperature && r.temperature->phase_matching_c) pm = now.theta_now_rad;
     // The outside direction in the table plane (Snell at the untilted face).
     const Vec2 t = perpendicular(pose.face_normal);
     const double sin_out = std::clamp(index_here * d.dot(t), -1.0, 1.0);
@@ -130,10 +125,6 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.theta_pm_deg = rad_to_deg(*pm);
     // The first input's index at θ_pm: exact where ψ = θ_pm, which is what is solved for.
     const double n_1 = wave_index(m, l1, w.wave1, *pm, plane).index;
-    // The optic axis in the table plane is reached by a turn about the vertical axis; in the
-    // vertical plane by a tilt about the horizontal axis across the beam.
-    r.rotation_axis = turn ? "vertical axis (+ = clockwise seen from above)"
-                           : "horizontal axis across the beam (+ = the face normal rises)";
     const std::optional<double> change = rotation_to_angle_deg(
         pose, r.rotation, outside, n_1, *pm, turn ? kMaxCrystalTurn_deg : 2 * kMaxCrystalTilt_deg,
         kMaxCrystalTilt_deg);
@@ -156,21 +147,39 @@ PhaseMatchingReport phase_matching_of(const Layout& layout, const Element& xe, c
     r.angular_acceptance_internal_mrad = acc.angular_internal_fwhm_mrad;
     r.angular_acceptance_external_mrad = acc.angular_internal_fwhm_mrad * n_1;
     r.spectral_acceptance_nm = acc.spectral_fwhm_nm;
-    const std::string out = shg ? "SHG" : "SFG";
+    // acceptance() tunes wave 1 (the first input) and holds wave 2 for SFG; for SHG both inputs
+    // are the fundamental, so the harmonic follows.
+    r.spectral_tuned_beam = b1.id;
+    r.spectral_held_beam = shg ? std::nullopt : std::optional<std::string>(b2.id);
+    // Group-velocity mismatch of every pair of the three waves: the generated wave against each
+    // input, and the inputs against each other. For SHG of type I the two inputs are one wave
+    // (one pair); for type II they are the o and e parts of the beam (three pairs).
     auto walk = [](std::optional<double> tau_fs, double gvm) -> std::optional<double> {
         if (!tau_fs || gvm == 0) return std::nullopt;
         return *tau_fs / std::abs(gvm);
     };
-    const double g31 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 1, plane);
-    r.gvm.push_back({out + "–" + b1.id, g31, walk(b1.pulse_fwhm_fs, g31)});
-    if (!shg) {
-        const double g32 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 3, 2, plane);
-        const double g12 = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, 1, 2, plane);
-        r.gvm.push_back({out + "–" + b2.id, g32, walk(b2.pulse_fwhm_fs, g32)});
-        const std::optional<double> shorter =
-            b1.pulse_fwhm_fs && b2.pulse_fwhm_fs ? std::optional(std::min(*b1.pulse_fwhm_fs, *b2.pulse_fwhm_fs))
-                                                 : std::nullopt;
-        r.gvm.push_back({b1.id + "–" + b2.id, g12, walk(shorter, g12)});
+    const bool two_inputs = !shg || w.wave1 != w.wave2;
+    const Polarity pols[3] = {w.wave1, w.wave2, w.wave3};
+    // The pulses as they enter the crystal (analysis/pulse_at_target.hpp).
+    const std::optional<double> taus[3] = {beams[i].at_target.pulse.fwhm_fs, beams[j].at_target.pulse.fwhm_fs,
+                                           std::nullopt};
+    auto add_pair = [&](int a, int b) {
+        GroupVelocityMismatch g;
+        g.first_wave = a;
+        g.second_wave = b;
+        g.first_polarity = pols[a - 1];
+        g.second_polarity = pols[b - 1];
+        g.fs_per_mm = group_velocity_mismatch_fs_per_mm(m, l1, l2, type, *pm, a, b, plane);
+        // The generated pulse walks through the input's; two inputs: the shorter one.
+        std::optional<double> tau = taus[b - 1];
+        if (a != 3 && taus[a - 1] && tau) tau = std::min(*taus[a - 1], *tau);
+        g.walk_apart_mm = walk(tau, g.fs_per_mm);
+        r.gvm.push_back(g);
+    };
+    add_pair(3, 1);
+    if (two_inputs) {
+        add_pair(3, 2);
+        add_pair(1, 2);
     }
     return r;
 }

@@ -92,7 +92,7 @@ std::vector<PolarizationAdvice> polarization_advice(const Layout& layout,
                                                     const Crystal& crystal,
                                                     const RendezvousReport& r) {
     std::vector<PolarizationAdvice> out;
-    if (r.phase_matching.empty() || !r.phase_matching.front().outside_index_data.empty())
+    if (r.phase_matching.empty() || r.phase_matching.front().outside_index_data)
         return out;
     const PhaseMatchingReport& first = r.phase_matching.front();
     const bool sfg = first.sum_frequency;

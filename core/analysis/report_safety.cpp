@@ -65,7 +65,7 @@ std::vector<InvisibleLight> invisible_outputs(const RendezvousReport& r) {
     std::vector<InvisibleLight> out;
     for (const PhaseMatchingReport& p : r.phase_matching)
         if (const auto band = invisible_band(p.output_nm))
-            out.push_back({*band, p.output_nm, std::string(), process_beams(r, p)});
+            out.push_back({*band, p.output_nm, std::string(), p.beams});
     return out;
 }
 

@@ -146,34 +146,36 @@ void phase_line(const Layout& layout, const TargetElement& target, const Rendezv
         acts.push_back(verdict_action::BringBeamsToCrystal{});
     } else if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
-        const ProcessBeams process = process_beams(r, p);
+        const ProcessBeams& process = p.beams;
         v.phase.met = phase_met(p.phase_matchable, p.sinc2_now, p.polarizations_suit, t);
-        if (p.outside_index_data.empty())
+        // A crystal in an oven is tuned by its temperature, not turned: the advice sets the
+        // oven when a temperature in the span phase-matches at the angle now.
+        std::optional<verdict_action::SetCrystalTemperature> oven_setting;
+        if (crystal && crystal->temperature_c && p.temperature && p.temperature->phase_matching_c && target.element)
+            oven_setting = verdict_action::SetCrystalTemperature{target.element->id, *p.temperature->phase_matching_c,
+                                                                 process_key(layout, p)};
+        if (!p.outside_index_data)
             add_figure(
                 v, "phase factor sinc²", p.sinc2_now, t.min_phase_factor, true,
                 "sinc²(Δk·L/2) of the first process with the crystal as it is (1 = phase-matched)");
-        if (!p.outside_index_data.empty()) {
-            v.phase.reading = verdict_reading::OutsideIndexData{process, p.outside_index_data};
+        if (p.outside_index_data) {
+            v.phase.reading = verdict_reading::OutsideIndexData{process, *p.outside_index_data};
             acts.push_back(verdict_action::ChooseTransparentCrystal{});
         } else if (!p.phase_matchable) {
             v.phase.reading = verdict_reading::NotPhaseMatchable{process, p.mixing};
-            acts.push_back(verdict_action::ChooseAnotherCrystalOrType{});
+            if (oven_setting) acts.push_back(*oven_setting);
+            else acts.push_back(verdict_action::ChooseAnotherCrystalOrType{});
         } else {
             v.phase.reading = verdict_reading::PhaseAngles{process, p.mixing, p.theta_pm_deg,
                                                            p.theta_now_deg, p.sinc2_now};
-            if (p.sinc2_now < t.min_phase_factor && p.rotation_found)
+            if (p.sinc2_now < t.min_phase_factor && oven_setting)
+                acts.push_back(*oven_setting);
+            else if (p.sinc2_now < t.min_phase_factor && p.rotation_found)
                 acts.push_back(verdict_action::RotateCrystal{p.rotation, p.rotate_by_deg,
                                                              process_key(layout, p)});
             else if (p.sinc2_now < t.min_phase_factor)
                 acts.push_back(verdict_action::CutNearer{p.rotation, p.theta_pm_deg});
-            if (!p.polarizations_suit) {
-                // Type-II SHG takes both waves from one beam: it needs equal o and e parts.
-                const bool equal = !p.sum_frequency && p.mixing != MixingType::TypeI &&
-                                   p.mixing != MixingType::TypeI_BBA;
-                acts.push_back(verdict_action::SetPolarizations{
-                    process.first_beam, process.second_beam, equal, p.first_needs_a,
-                    p.second_needs_a, crystal && crystal->optic_axis_horizontal});
-            }
+            if (!p.polarizations_suit) acts.push_back(p.polarization_need);
         }
     } else if (r.target_is_crystal) {
         v.phase.reading = verdict_reading::IsotropicOrMissed{};

@@ -149,11 +149,7 @@ OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y, s
 }
 
 OverlapFigures overlap_at_target(const BeamAtTarget& x, const BeamAtTarget& y) {
-    OverlapFigures o = overlap_at_target(x, y, {}, {});  // the spatial figures alone
-    if (x.pulse.fwhm_fs && y.pulse.fwhm_fs)
-        o.temporal = temporal_overlap(*x.pulse.fwhm_fs, *y.pulse.fwhm_fs, x.arrival_fs - y.arrival_fs);
-    o.combined = o.spatial_along_crystal * o.temporal.value_or(1.0);
-    return o;
+    return overlap_at_target(x, y, x.pulse.fwhm_fs, y.pulse.fwhm_fs);  // the pulses at the target
 }
 
 }  // namespace rv

@@ -14,4 +14,10 @@ namespace rv {
 // sums the group delays as it goes (TraceHit::group_delay_fs).
 double arrival_time_fs(const Layout& layout, const Path& path, size_t hit_index);
 
+// Arrival time at a point `into_mm` from the start of segment `segment` (clamped to the
+// segment), fs: the delay where the segment ends less the rest of it at its group index; a
+// segment with no hit at its end (the last, to the table's edge) counts from its start, the
+// previous hit's delay plus that hit's lumped glass (against this segment's medium, air).
+double arrival_time_along_fs(const Layout& layout, const Path& path, size_t segment, double into_mm);
+
 }  // namespace rv

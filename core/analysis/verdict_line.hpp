@@ -14,6 +14,15 @@
 
 namespace rv {
 
+// Where a crystal's index formula has no real value (a wavelength far outside its range): the
+// set, the wave's wavelength when one is found, and the range the formula covers.
+// (Words: report/verdict_words.hpp, index_gap_text.)
+struct IndexGap {
+    std::string material;
+    std::optional<double> wavelength_nm;
+    double covers_min_nm = 0, covers_max_nm = 0;
+};
+
 // The process a phase line is about: the SFG of two beams or the SHG of one.
 struct ProcessBeams {
     bool sum_frequency = false;
@@ -42,7 +51,7 @@ struct OneBeamNoDelay {};    // time does not apply
 struct ProcessBeamsMissing { ProcessBeams process; };  // the crystal's set process
 struct OutsideIndexData {    // the crystal's index formula has no value at a wave
     ProcessBeams process;
-    std::string detail;      // the phase-matching section's statement of where
+    IndexGap gap;
 };
 struct NotPhaseMatchable { ProcessBeams process; MixingType mixing = MixingType::TypeI; };
 struct PhaseAngles {
@@ -85,6 +94,13 @@ struct RotateCrystal {
     double by_deg = 0;            // external; sign convention: PhaseMatchingReport::rotate_by_deg
     std::string process_key;      // for `rendezvous phase --process`
 };
+// A crystal in an oven (temperature_c given) whose set has thermo-optic data: the temperature
+// at which the process phase-matches at the beams' angle now (PhaseMatchingReport::temperature).
+struct SetCrystalTemperature {
+    std::string crystal;
+    double to_c = 0;
+    std::string process_key;  // for `rendezvous phase --process`
+};
 struct CutNearer { CrystalRotation rotation = CrystalRotation::Turn; double theta_pm_deg = 0; };
 // The inputs' polarizations the process needs (PhaseMatchingReport::polarizations_suit false).
 struct SetPolarizations {
@@ -103,7 +119,8 @@ using VerdictAction =
                  verdict_action::AddAirPath, verdict_action::BringBeamsToCrystal,
                  verdict_action::ChooseTransparentCrystal,
                  verdict_action::ChooseAnotherCrystalOrType, verdict_action::RotateCrystal,
-                 verdict_action::CutNearer, verdict_action::SetPolarizations>;
+                 verdict_action::SetCrystalTemperature, verdict_action::CutNearer,
+                 verdict_action::SetPolarizations>;
 
 struct VerdictLine {
     bool applies = true;  // false when the question does not arise (phase without a crystal)

@@ -170,9 +170,90 @@ struct OpenValue {
     std::unordered_map<std::string, size_t> first_key_at;
 };
 
+// The fast first pass: nlohmann's SAX interface over the contiguous text, building the value
+// here. nlohmann's own DOM parser with a callback (below) costs a std::function call per event
+// and, for the key positions, a counting iterator: 60 % of reading a 100 000-element layout. A
+// repeated key is only noted; the slow pass then locates each one.
+class DomBuilder {
+public:
+    using json = nlohmann::json;
+    DomBuilder(json& root, int max_depth) : root_(root), max_depth_(max_depth) {}
+    bool repeated_key() const { return repeated_key_; }
+
+    bool null() { return put(nullptr) != nullptr; }
+    bool boolean(bool v) { return put(v) != nullptr; }
+    bool number_integer(json::number_integer_t v) { return put(v) != nullptr; }
+    bool number_unsigned(json::number_unsigned_t v) { return put(v) != nullptr; }
+    bool number_float(json::number_float_t v, const json::string_t&) { return put(v) != nullptr; }
+    bool string(json::string_t& v) { return put(std::move(v)) != nullptr; }
+    bool binary(json::binary_t& v) { return put(json::binary(std::move(v))) != nullptr; }
+    bool start_object(std::size_t) { return open(json::object()); }
+    bool start_array(std::size_t) { return open(json::array()); }
+    bool end_object() { return close(); }
+    bool end_array() { return close(); }
+    bool key(json::string_t& k) {
+        deeper_than_allowed(stack_.size());
+        json& object = *stack_.back();
+        repeated_key_ = repeated_key_ || object.contains(k);
+        slot_ = &object[k];
+        return true;
+    }
+    // As nlohmann's DOM parser does: the error as its own type, with its byte position.
+    bool parse_error(std::size_t, const std::string&, const nlohmann::detail::exception& e) {
+        switch ((e.id / 100) % 100) {
+            case 1: throw *static_cast<const json::parse_error*>(&e);
+            case 4: throw *static_cast<const json::out_of_range*>(&e);
+            case 2: throw *static_cast<const json::invalid_iterator*>(&e);
+            case 3: throw *static_cast<const json::type_error*>(&e);
+            default: throw *static_cast<const json::other_error*>(&e);
+        }
+    }
+
+private:
+    // The callback parser's depth: the number of open containers around an event.
+    void deeper_than_allowed(size_t depth) const {
+        if (static_cast<long long>(depth) > max_depth_) throw JsonTooDeep{};
+    }
+    json* put(json&& v) {
+        deeper_than_allowed(stack_.size());
+        if (stack_.empty()) {
+            root_ = std::move(v);
+            return &root_;
+        }
+        json& parent = *stack_.back();
+        if (parent.is_array()) {
+            parent.push_back(std::move(v));
+            return &parent.back();
+        }
+        *slot_ = std::move(v);
+        return slot_;
+    }
+    bool open(json&& container) {
+        json* at = put(std::move(container));
+        stack_.push_back(at);
+        return true;
+    }
+    bool close() {
+        stack_.pop_back();
+        return true;
+    }
+
+    json& root_;
+    long long max_depth_;
+    std::vector<json*> stack_;
+    json* slot_ = nullptr;  // the current key's value in the innermost object
+    bool repeated_key_ = false;
+};
+
 }  // namespace
 
 nlohmann::json parse_json_limited(std::string_view text, int max_depth, Diagnostics& duplicates) {
+    {
+        nlohmann::json fast;
+        DomBuilder builder(fast, max_depth);
+        nlohmann::json::sax_parse(text.data(), text.data() + text.size(), &builder);
+        if (!builder.repeated_key()) return fast;
+    }
     using Event = nlohmann::json::parse_event_t;
     size_t read = 0;
     std::vector<OpenValue> open;

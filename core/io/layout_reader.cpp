@@ -18,6 +18,8 @@
 #include "layout/lens_shape.hpp"
 #include "layout/process_text.hpp"
 #include "materials/dispersion.hpp"
+#include "materials/thermo_optic.hpp"
+#include "units/number_text.hpp"
 
 namespace rv {
 
@@ -532,6 +534,19 @@ bool Reader::read_fields(Crystal& c, FieldReader& f, const std::string&) {
     // A tilt beyond ±45° would put the face nearly along the beam (common practice: a few
     // degrees of tilt on a mount).
     c.tilt_deg = f.number("tilt_deg", Need::Optional, between(-45, 45)).value_or(0);
+    // Crystal ovens run from room temperature to about 200 °C (common practice); the range
+    // leaves room on both sides.
+    c.temperature_c = f.number("temperature_c", Need::Optional, between(kMinCrystalTemperature_c, kMaxCrystalTemperature_c));
+    if (c.temperature_c) {
+        const Material* m = library_.find(c.material);
+        if (m && !m->thermo_optic) {
+            std::string with;
+            for (const Material& s : library_.materials())
+                if (s.thermo_optic) with += (with.empty() ? "" : ", ") + s.name;
+            f.error("temperature_c", m->name + " has no temperature dependence" +
+                                         (with.empty() ? std::string() : "; sets with one: " + with));
+        }
+    }
     if (const auto process = f.string("process", Need::Optional)) {
         // "sfg", or "shg:BEAM" (the beam's id is checked with the other references).
         if (const auto choice = parse_process_text(*process)) {
@@ -543,7 +558,7 @@ bool Reader::read_fields(Crystal& c, FieldReader& f, const std::string&) {
     }
     c.damage = read_damage(f);
     f.finish(with_common({"material", "length_mm", "cut_deg", "phase_matching", "optic_axis",
-                          "principal_plane", "tilt_deg", "process", "damage_fluence_j_cm2",
+                          "principal_plane", "tilt_deg", "temperature_c", "process", "damage_fluence_j_cm2",
                           "damage_intensity_gw_cm2"}));
     return true;
 }
@@ -640,6 +655,7 @@ void Reader::check_references(const json& doc, Layout& layout) {
         return m;
     };
     std::unordered_map<std::string, std::string> carried_by;
+    std::map<std::string, std::pair<std::string, double>> temperature_of_set;  // set → crystal, °C
     for (const Element& e : layout.elements) {
         if (const auto* m = std::get_if<Mirror>(&e.kind); m && m->aim_at) {
             if (!index_of.count(*m->aim_at))
@@ -648,6 +664,19 @@ void Reader::check_references(const json& doc, Layout& layout) {
                 error(pointer_of(e.id, "aim_at"), "a mirror cannot aim at itself");
             else if (is_element(*m->aim_at) && std::holds_alternative<Stage>(find(*m->aim_at)->kind))
                 error(pointer_of(e.id, "aim_at"), "\"" + *m->aim_at + "\" is a stage, which has no position to aim at");
+        }
+        if (const auto* c = std::get_if<Crystal>(&e.kind); c && c->temperature_c) {
+            // One library entry per set (material_library_for): two temperatures of one set
+            // cannot both hold.
+            const Material* m = library_.find(c->material);
+            if (m && m->thermo_optic) {
+                const auto [at, fresh] = temperature_of_set.emplace(m->name, std::make_pair(e.id, *c->temperature_c));
+                if (!fresh && at->second.second != *c->temperature_c)
+                    error(pointer_of(e.id, "temperature_c"),
+                          "crystal \"" + at->second.first + "\" of the same set " + m->name + " is at " +
+                              format_number("%g", at->second.second) +
+                              " °C; one set has one temperature in a layout");
+            }
         }
         if (const auto* c = std::get_if<Crystal>(&e.kind); c && c->process == Crystal::Process::SecondHarmonic) {
             bool found = false;
@@ -894,6 +923,11 @@ MaterialLibrary material_library_for(const Layout& layout) {
     for (const UserMaterial& m : layout.materials)
         lib = lib.with(user_sellmeier_material(m.id, m.b, m.c_um2, m.min_wavelength_nm,
                                                m.max_wavelength_nm, m.source));
+    // A crystal in an oven: its set taken to that temperature, for every figure (the reader
+    // allows one temperature per set and only sets with thermo-optic data).
+    for (const Element& e : layout.elements)
+        if (const auto* c = std::get_if<Crystal>(&e.kind); c && c->temperature_c)
+            lib = lib.with_temperature(c->material, *c->temperature_c);
     return lib;
 }
 

@@ -118,6 +118,7 @@ struct KindWriter {
         if (c.optic_axis_horizontal) j["optic_axis"] = text_of(kOpticAxisNames, true);
         if (c.principal_plane != PrincipalPlane::XY) j["principal_plane"] = text_of(kPrincipalPlaneNames, c.principal_plane);
         if (c.tilt_deg != 0) j["tilt_deg"] = num(c.tilt_deg);
+        if (c.temperature_c) j["temperature_c"] = num(*c.temperature_c);
         if (const auto process = format_process_text(c.process, c.process_beam.value_or(""))) j["process"] = *process;
         damage(c.damage);
     }

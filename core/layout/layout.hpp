@@ -204,6 +204,9 @@ struct Crystal {
     // the crystal. normal_deg is the other angle, the turn in the table plane. The trace stays in
     // the table plane; the tilt enters through the 3-D wave vector inside (trace/crystal_axes.hpp).
     double tilt_deg = 0.0;
+    // The crystal's temperature (an oven), for a set with thermo-optic data
+    // (materials/thermo_optic.hpp); absent: the set's reference temperature.
+    std::optional<double> temperature_c;
     // The process the crystal is set for (the verdict's phase line judges it): the SFG of the two
     // beams, or the SHG of one beam (process_beam). Auto: SFG when both beams reach the crystal,
     // else the SHG of the first that does.

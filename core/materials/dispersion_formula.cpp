@@ -44,13 +44,15 @@ Jet3 evaluate_f(const DispersionFormula& f, double l) {
 
 IndexDerivatives evaluate(const DispersionFormula& formula, double wavelength_um) {
     const Jet3 f = evaluate_f(formula, wavelength_um);
-    if (formula.shape == FormulaShape::IndexMinusOne) return {1.0 + f.v, f.d1, f.d2, f.d3};
+    const double shift = formula.shift_constant + formula.shift_per_um * wavelength_um;
+    if (formula.shape == FormulaShape::IndexMinusOne)
+        return {1.0 + f.v + shift, f.d1 + formula.shift_per_um, f.d2, f.d3};
     // n = √F: from F = n², F' = 2nn', F'' = 2n'² + 2nn'', F''' = 6n'n'' + 2nn'''.
     const double n = std::sqrt(f.v);
     const double n1 = f.d1 / (2.0 * n);
     const double n2 = (f.d2 - 2.0 * n1 * n1) / (2.0 * n);
     const double n3 = (f.d3 - 6.0 * n1 * n2) / (2.0 * n);
-    return {n, n1, n2, n3};
+    return {n + shift, n1 + formula.shift_per_um, n2, n3};
 }
 
 DispersionFormula sellmeier_squared_poles(const std::vector<double>& b,

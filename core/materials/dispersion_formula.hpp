@@ -32,6 +32,11 @@ struct DispersionFormula {
     double constant = 0.0;
     std::vector<PoleTerm> poles;
     std::vector<PowerTerm> powers;
+    // An offset added to n after the shape: n += shift_constant + shift_per_um·λ. Zero for a
+    // set at its reference temperature; the thermo-optic shift of a set taken to another
+    // temperature (materials/thermo_optic.hpp), which the published forms give in n, not n².
+    double shift_constant = 0.0;
+    double shift_per_um = 0.0;
 };
 
 // n and its first three derivatives with respect to λ (µm⁻¹, µm⁻², µm⁻³).

@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cassert>
 
+#include "materials/thermo_optic.hpp"
+
 namespace rv {
 
 namespace {
@@ -10,14 +12,14 @@ namespace {
 Material isotropic(std::string name, std::string family, std::string source,
                    DispersionFormula f, double min_nm, double max_nm, bool relative_to_air) {
     return {std::move(name), std::move(family), std::move(source), Symmetry::Isotropic,
-            {std::move(f)}, min_nm, max_nm, relative_to_air};
+            {std::move(f)}, min_nm, max_nm, relative_to_air, std::nullopt, std::nullopt};
 }
 
 Material uniaxial(std::string name, std::string source, DispersionFormula o, DispersionFormula e,
                   double min_nm, double max_nm) {
     std::string family = name.substr(0, name.find(':'));
     return {std::move(name), std::move(family), std::move(source), Symmetry::Uniaxial,
-            {std::move(o), std::move(e)}, min_nm, max_nm, false};
+            {std::move(o), std::move(e)}, min_nm, max_nm, false, std::nullopt, std::nullopt};
 }
 
 std::vector<Material> published_sets() {
@@ -110,14 +112,37 @@ std::vector<Material> published_sets() {
                  {crystal_form(2.45768, 0.0098877, 0.026095, {{-0.013847, 2}}),
                   crystal_form(2.52500, 0.017123, -0.0060517, {{-0.0087838, 2}}),
                   crystal_form(2.58488, 0.012737, 0.021414, {{-0.016293, 2}})},
-                 289.4, 1064, false});
+                 289.4, 1064, false, std::nullopt, std::nullopt});
+    // LiB3O5 with its temperature dependence, for non-critical phase matching by temperature.
+    // Indices at 20 °C: K. Kato, IEEE J. Quantum Electron. 30, 2950 (1994),
+    //   n² = A + B/(λ² − C) − Dλ² + Eλ⁴ − Fλ⁶;
+    // thermo-optic slopes: K. Kato, S. G. Grechin and N. Umemura, Laser Phys. 28, 095403 (2018),
+    //   dn/dT = a + bλ (per K, λ in µm), linear in T about 20 °C.
+    // The coefficients are as transcribed in the open ndispers library (docs/physics.md §4.5);
+    // we have not checked them against the papers. Our transcription gives no
+    // wavelength range, so the set claims only 532–1064 nm, the span our test checks against a
+    // published result (the non-critical SHG of 1064 nm); outside it every figure warns.
+    {
+        Material lbo{"LBO:Kato2018", "LBO",
+                     "Kato, IEEE JQE 30, 2950 (1994); Kato, Grechin & Umemura, Laser Phys. 28, 095403 (2018)",
+                     Symmetry::Biaxial,
+                     {crystal_form(2.4542, 0.01125, 0.01135, {{-0.01388, 2}}),
+                      crystal_form(2.5390, 0.01277, 0.01189, {{-0.01849, 2}, {4.3025e-5, 4}, {-2.9131e-5, 6}}),
+                      crystal_form(2.5865, 0.01310, 0.01223, {{-0.01862, 2}, {4.5778e-5, 4}, {-3.2526e-5, 6}})},
+                     532, 1064, false, std::nullopt, std::nullopt};
+        lbo.thermo_optic = ThermoOptic{20.0,
+                                       {{0.2300e-5, -0.3760e-5}, {-1.9318e-5, 0.5779e-5}, {-1.1569e-5, 0.4073e-5}},
+                                       "Kato, Grechin & Umemura, Laser Phys. 28, 095403 (2018)"};
+        lbo.temperature_c = 20.0;
+        m.push_back(std::move(lbo));
+    }
     // KTiOPO4, biaxial. K. Kato and E. Takaoka, Appl. Opt. 41, 5040 (2002); 20 °C, 0.43–3.54 µm.
     m.push_back({"KTP:Kato2002", "KTP", "Kato & Takaoka, Appl. Opt. 41, 5040 (2002)",
                  Symmetry::Biaxial,
                  {two_pole_form(3.29100, {0.04140, 9.35522}, {0.03978, 31.45571}),
                   two_pole_form(3.45018, {0.04341, 16.98825}, {0.04597, 39.43799}),
                   two_pole_form(4.59423, {0.06206, 110.80672}, {0.04763, 86.12171})},
-                 430, 3540, false});
+                 430, 3540, false, std::nullopt, std::nullopt});
     return m;
 }
 
@@ -150,6 +175,17 @@ MaterialLibrary MaterialLibrary::with(Material material) const {
     assert(find(material.name) == nullptr);
     Data data = *data_;
     data.materials.push_back(std::move(material));
+    MaterialLibrary copy;
+    copy.data_ = std::make_shared<const Data>(std::move(data));
+    return copy;
+}
+
+MaterialLibrary MaterialLibrary::with_temperature(std::string_view name, double temperature_c) const {
+    const Material* m = find(name);
+    if (!m || !m->thermo_optic) return *this;
+    Data data = *data_;
+    for (Material& s : data.materials)
+        if (s.name == m->name) s = at_temperature(s, temperature_c);
     MaterialLibrary copy;
     copy.data_ = std::make_shared<const Data>(std::move(data));
     return copy;

@@ -26,6 +26,11 @@ public:
     // A copy of this library with one more material (its name must not be taken yet).
     MaterialLibrary with(Material material) const;
 
+    // A copy of this library with the set `name` refers to taken to temperature_c
+    // (materials/thermo_optic.hpp); unchanged when there is no such set or it has no
+    // thermo-optic data.
+    MaterialLibrary with_temperature(std::string_view name, double temperature_c) const;
+
     // Every name find() accepts (sets and family aliases), sorted, for messages.
     std::vector<std::string> names() const;
 

@@ -145,22 +145,35 @@ json verdict_met_json(const Verdict& v) {
 }
 
 void to_json(json& j, const GroupVelocityMismatch& g) {
-    j = {{"between", g.between},
+    auto pol = [](Polarity p) { return p == Polarity::A ? "o" : "e"; };
+    j = {         {"waves", {g.first_wave, g.second_wave}},
+         {"polarities", {pol(g.first_polarity), pol(g.second_polarity)}},
          {"fs_per_mm", g.fs_per_mm},
          {"walk_apart_mm", optional_number(g.walk_apart_mm)}};
+}
+
+// Each pair as data with its words ("between").
+json gvm_json(const PhaseMatchingReport& p) {
+    json out = json::array();
+    for (const GroupVelocityMismatch& g : p.gvm) {
+        json e = g;
+        e["between"] = gvm_pair_text(p, g);
+        out.push_back(std::move(e));
+    }
+    return out;
 }
 
 void to_json(json& j, const PhaseMatchingReport& p) {
     // Outside the index data nothing but the geometry is computed; without phase matching, no
     // figure of the phase-matching angle (PhaseMatchingReport): those are null, not 0.
-    const bool indexed = p.outside_index_data.empty();
+    const bool indexed = !p.outside_index_data;
     auto if_indexed = [&](double v) { return indexed ? json(v) : json(nullptr); };
     auto if_matchable = [&](double v) { return p.phase_matchable ? json(v) : json(nullptr); };
     auto found = [&](double v) {
         return p.phase_matchable && p.rotation_found ? json(v) : json(nullptr);
     };
-    j = {{"process", p.process},
-         {"type", p.type},
+    j = {{"process", process_beams_text(p.beams)},
+         {"type", mixing_type_label(p.mixing)},
          {"output_nm", p.output_nm},
          {"phase_matchable", p.phase_matchable},
          {"theta_pm_deg", if_matchable(p.theta_pm_deg)},
@@ -169,18 +182,24 @@ void to_json(json& j, const PhaseMatchingReport& p) {
          {"rotation", p.rotation == CrystalRotation::Turn ? "turn" : "tilt"},
          {"incidence_needed_deg", found(p.incidence_needed_deg)},
          {"rotate_by_deg", found(p.rotate_by_deg)},
-         {"rotation_axis", optional_text(p.rotation_axis)},
+         {"rotation_axis", p.phase_matchable ? json(crystal_rotation_axis_text(p.rotation)) : json(nullptr)},
          {"delta_k_l", if_indexed(p.delta_k_l)},
          {"sinc2_now", if_indexed(p.sinc2_now)},
-         {"outside_index_data", optional_text(p.outside_index_data)},
+         {"outside_index_data", p.outside_index_data ? json(index_gap_text(*p.outside_index_data)) : json(nullptr)},
          {"walkoff_mrad", if_matchable(p.walkoff_mrad)},
          {"angular_acceptance_mrad",
           {{"internal_fwhm", if_matchable(p.angular_acceptance_internal_mrad)},
            {"external_fwhm", if_matchable(p.angular_acceptance_external_mrad)}}},
          {"spectral_acceptance_fwhm_nm", if_matchable(p.spectral_acceptance_nm)},
-         {"gvm", p.gvm},
+         {"gvm", gvm_json(p)},
+         {"spectral_acceptance_tunes", p.spectral_tuned_beam},
+         {"spectral_acceptance_holds", p.spectral_held_beam ? json(*p.spectral_held_beam) : json(nullptr)},
+         {"temperature", p.temperature ? json{{"now_c", p.temperature->now_c},
+                                              {"phase_matching_c", optional_number(p.temperature->phase_matching_c)},
+                                              {"acceptance_fwhm_c", optional_number(p.temperature->acceptance_fwhm_c)}}
+                                        : json(nullptr)},
          {"polarizations_suit", p.polarizations_suit},
-         {"polarization_note", p.polarization_note}};
+         {"polarization_note", verdict_action_text(p.polarization_need)}};
 }
 
 void to_json(json& j, const StageReport& s) {

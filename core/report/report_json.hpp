@@ -10,7 +10,8 @@
 
 namespace rv {
 
-// {applies, met (null when it does not apply), summary, action (null when none)}.
+// {applies, met (null when it does not apply), summary, action (null when none), reading,
+// actions (the same as data, report/verdict_json.hpp)}.
 void to_json(nlohmann::json& j, const VerdictLine& l);
 // {space, time, phase}, each a VerdictLine.
 void to_json(nlohmann::json& j, const Verdict& v);

@@ -69,7 +69,7 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                "rotate by (°, external) | sinc² now | walk-off (mrad) |\n"
             << "|---|---|---|---|---|---|---|---|\n";
         for (const PhaseMatchingReport& p : r.phase_matching)
-            out << "| " << p.process << " | " << fmt("%.2f", p.output_nm) << " | " << p.type
+            out << "| " << process_beams_text(p.beams) << " | " << fmt("%.2f", p.output_nm) << " | " << mixing_type_label(p.mixing)
                 << " | " << (p.phase_matchable ? fmt("%.3f", p.theta_pm_deg) : std::string("none"))
                 << " | " << fmt("%.3f", p.theta_now_deg) << " | "
                 << (p.phase_matchable && p.rotation_found
@@ -78,6 +78,21 @@ void write_report_markdown(const RendezvousReport& r, std::ostream& out) {
                         : std::string("—"))
                 << " | " << fmt("%.3f", p.sinc2_now) << " | " << fmt("%.1f", p.walkoff_mrad)
                 << " |\n";
+        // The process the crystal is set for: its acceptances and every pair's GVM.
+        const PhaseMatchingReport& p = r.phase_matching.front();
+        if (p.temperature)
+            out << "\nTemperature of " << process_beams_text(p.beams) << ": " << temperature_tuning_text(*p.temperature)
+                << ".\n";
+        if (p.phase_matchable) {
+            out << "\nAcceptance of " << process_beams_text(p.beams) << " (FWHM): "
+                << fmt("%.2f", p.angular_acceptance_internal_mrad) << " mrad internal, "
+                << fmt("%.2f", p.spectral_acceptance_nm) << " nm tuning " << p.spectral_tuned_beam
+                << (p.spectral_held_beam ? " with " + *p.spectral_held_beam + " held" : std::string(" (the harmonic follows)"))
+                << ".\n\n| GVM between | fs/mm | walk-apart (mm) |\n|---|---|---|\n";
+            for (const GroupVelocityMismatch& g : p.gvm)
+                out << "| " << gvm_pair_text(p, g) << " | " << fmt("%+.1f", g.fs_per_mm) << " | "
+                    << (g.walk_apart_mm ? fmt("%.2f", *g.walk_apart_mm) : std::string("—")) << " |\n";
+        }
     }
     if (!r.focusing.empty()) {
         out << "\n## Focusing (Boyd–Kleinman)\n\n| beam | ξ = L/b | B | h_m with walk-off | "

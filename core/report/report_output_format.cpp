@@ -37,11 +37,9 @@ std::vector<std::pair<std::string, std::string>> generated_light_assumptions(con
         {"undepleted-pump", "the inputs are not depleted by the conversion"},
         {"no-absorption", "no absorption in the crystal"},
         {"gaussian-space-time", "Gaussian beams (TEM00 formula with the traced radii) and Gaussian pulses"},
-        {"transform-limited", "transform-limited pulses (no chirp)"},
+        {"pulses-at-target", "each pulse at its length at the crystal (the source's, lengthened by its arm's GDD), mixed as intensity envelopes (the chirp's phase ignored)"},
         {"focus-at-centre", "focus at the crystal's centre, equal confocal parameters (their mean)"},
     };
-    if (g.source_pulse_lengths)
-        a.emplace_back("source-pulse-lengths", "the sources' pulse lengths (the glass on the way does not lengthen them here)");
     if (g.beyond_undepleted)
         a.emplace_back("beyond-undepleted", "above 10 % conversion the undepleted-pump figure overestimates");
     return a;

@@ -140,12 +140,13 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
                 << " of delay there (an emission offset it does not know)\n";
     }
     for (const PhaseMatchingReport& p : r.phase_matching) {
-        out << "\nPhase matching: " << p.process << " → " << fmt("%.2f", p.output_nm) << " nm, "
-            << p.type << "\n";
-        if (!p.outside_index_data.empty()) {
-            out << "  " << p.outside_index_data << "\n";
+        out << "\nPhase matching: " << process_beams_text(p.beams) << " → " << fmt("%.2f", p.output_nm) << " nm, "
+            << mixing_type_label(p.mixing) << "\n";
+        if (p.outside_index_data) {
+            out << "  " << index_gap_text(*p.outside_index_data) << "\n";
             continue;
         }
+        if (p.temperature) out << "  temperature " << temperature_tuning_text(*p.temperature) << "\n";
         if (!p.phase_matchable) {
             out << "  no phase matching; Δk·L now " << fmt("%.1f", p.delta_k_l) << " rad\n";
             continue;
@@ -158,21 +159,23 @@ void write_report_text(const RendezvousReport& r, std::ostream& out) {
             << (p.rotation_found
                     ? "needed " + fmt("%+.3f", p.incidence_needed_deg) +
                           "°: " + (p.rotation == CrystalRotation::Turn ? "turn" : "tilt") + " by " +
-                          fmt("%+.3f", p.rotate_by_deg) + "° about the " + p.rotation_axis
+                          fmt("%+.3f", p.rotate_by_deg) + "° about the " + crystal_rotation_axis_text(p.rotation)
                     : std::string("no setting within the mount's range reaches θ_pm"))
             << "\n"
             << "  walk-off " << fmt("%.1f", p.walkoff_mrad) << " mrad; acceptance (FWHM) "
             << fmt("%.2f", p.angular_acceptance_internal_mrad) << " mrad internal, "
             << fmt("%.2f", p.angular_acceptance_external_mrad) << " mrad external, "
-            << fmt("%.2f", p.spectral_acceptance_nm) << " nm\n";
+            << fmt("%.2f", p.spectral_acceptance_nm) << " nm tuning " << p.spectral_tuned_beam
+            << (p.spectral_held_beam ? " with " + *p.spectral_held_beam + " held" : std::string(" (the harmonic follows)"))
+            << "\n";
         for (const GroupVelocityMismatch& g : p.gvm)
-            out << "  GVM " << g.between << " " << fmt("%+.1f", g.fs_per_mm) << " fs/mm"
+            out << "  GVM " << gvm_pair_text(p, g) << " " << fmt("%+.1f", g.fs_per_mm) << " fs/mm"
                 << (g.walk_apart_mm
                         ? ", pulses walk apart in " + fmt("%.2f", *g.walk_apart_mm) + " mm"
                         : std::string())
                 << "\n";
         out << "  polarization: " << (p.polarizations_suit ? "suits" : "DOES NOT SUIT") << " — "
-            << p.polarization_note << "\n";
+            << verdict_action_text(p.polarization_need) << "\n";
     }
     if (!r.focusing.empty()) {
         out << "\nFocusing (Boyd–Kleinman, focus at the centre)\n";

@@ -1,6 +1,7 @@
 #include "report/report_words.hpp"
 
 #include "findings/finding.hpp"
+#include "materials/thermo_optic.hpp"
 #include "report/verdict_words.hpp"
 #include "units/number_text.hpp"
 
@@ -61,6 +62,26 @@ const char* verdict_state_text(const VerdictLine& l) {
 
 std::string verdict_line_text(const VerdictLine& l) {
     return std::string(verdict_state_text(l)) + (l.applies ? "  " : " — ") + verdict_reading_text(l.reading);
+}
+
+std::string temperature_tuning_text(const TemperatureTuning& t) {
+    std::string s = "at " + format_number("%.1f", t.now_c) + " °C; ";
+    s += t.phase_matching_c ? "Δk = 0 at " + format_number("%.1f", *t.phase_matching_c) + " °C at this angle"
+                            : "no temperature from " + format_number("%.0f", kMinCrystalTemperature_c) + " to " +
+                                  format_number("%.0f", kMaxCrystalTemperature_c) + " °C phase-matches at this angle";
+    if (t.acceptance_fwhm_c) s += "; acceptance " + format_number("%.2f", *t.acceptance_fwhm_c) + " °C (FWHM)";
+    return s;
+}
+
+std::string gvm_pair_text(const PhaseMatchingReport& p, const GroupVelocityMismatch& g) {
+    const WavePolarities w = polarities(p.mixing);
+    const bool parts_of_one_beam = !p.sum_frequency && w.wave1 != w.wave2;
+    auto wave = [&](int k, Polarity polarity) {
+        if (k == 3) return std::string(p.sum_frequency ? "SFG" : "SHG");
+        const std::string& id = k == 1 || !p.sum_frequency ? p.beams.first_beam : p.beams.second_beam;
+        return parts_of_one_beam ? id + (polarity == Polarity::A ? " (o)" : " (e)") : id;
+    };
+    return wave(g.first_wave, g.first_polarity) + "–" + wave(g.second_wave, g.second_polarity);
 }
 
 }  // namespace rv

@@ -119,6 +119,12 @@ json verdict_action_json(const VerdictAction& action) {
                         {"by_deg", a.by_deg},
                         {"process", a.process_key}};
             },
+            [](const va::SetCrystalTemperature& a) -> json {
+                return {{"code", "set_crystal_temperature"},
+                        {"crystal", a.crystal},
+                        {"to_c", a.to_c},
+                        {"process", a.process_key}};
+            },
             [](const va::CutNearer& a) -> json {
                 return {{"code", "cut_nearer"},
                         {"rotation", rotation_code(a.rotation)},

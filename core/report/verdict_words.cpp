@@ -63,7 +63,7 @@ std::string verdict_reading_text(const VerdictReading& reading) {
                        " not reach the crystal";
             },
             [](const vr::OutsideIndexData& s) {
-                return process_beams_text(s.process) + ": " + s.detail;
+                return process_beams_text(s.process) + ": " + index_gap_text(s.gap);
             },
             [](const vr::NotPhaseMatchable& s) {
                 return process_beams_text(s.process) + ": no " + mixing_type_label(s.mixing) +
@@ -132,6 +132,10 @@ std::string verdict_action_text(const VerdictAction& action) {
                        crystal_rotation_axis_text(a.rotation) + " (rendezvous phase --process " +
                        a.process_key + " --write NEW.json)";
             },
+            [](const va::SetCrystalTemperature& a) {
+                return "set the oven of " + a.crystal + " to " + fmt("%.2f", a.to_c) +
+                       " °C (temperature_c; rendezvous phase --process " + a.process_key + " --write NEW.json)";
+            },
             [](const va::CutNearer& a) {
                 return std::string("no ") + rotation_verb(a.rotation) +
                        " within the mount's range reaches θ_pm: use a crystal cut nearer " +
@@ -154,6 +158,13 @@ std::string verdict_actions_text(const VerdictLine& line) {
     std::string text;
     for (const VerdictAction& a : line.actions) text += (text.empty() ? "" : "; ") + verdict_action_text(a);
     return text;
+}
+
+std::string index_gap_text(const IndexGap& gap) {
+    return gap.material + " has no real index at " +
+           (gap.wavelength_nm ? fmt("%.1f", *gap.wavelength_nm) + " nm" : std::string("a wave of this process")) +
+           " (its formula covers " + fmt("%.0f", gap.covers_min_nm) + "–" + fmt("%.0f", gap.covers_max_nm) +
+           " nm): no phase-matching figures";
 }
 
 }  // namespace rv

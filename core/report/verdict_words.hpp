@@ -11,6 +11,10 @@ namespace rv {
 std::string verdict_reading_text(const VerdictReading& reading);
 // "move stage S1 by +0.250 mm (to 12.250 mm)" …
 std::string verdict_action_text(const VerdictAction& action);
+
+// "BBO:Eimerl1987 has no real index at 213.5 nm (its formula covers 220–1060 nm): no
+// phase-matching figures".
+std::string index_gap_text(const IndexGap& gap);
 // A line's actions joined by "; " ("" when it has none).
 std::string verdict_actions_text(const VerdictLine& line);
 

@@ -156,7 +156,7 @@ JudgeContext judge_context(const Layout& layout, const MaterialLibrary& library,
         const PhaseMatchingReport& p = nominal.phase_matching.front();
         const auto* crystal = std::get_if<Crystal>(&layout.elements[c.target].kind);
         c.material = crystal ? library.find(crystal->material) : nullptr;
-        c.process = c.material != nullptr && p.outside_index_data.empty();
+        c.process = c.material != nullptr && !p.outside_index_data;
         c.first_nm = layout.beams[p.first_beam].wavelength_nm;
         c.second_nm = layout.beams[p.second_beam].wavelength_nm;
         c.mixing = p.mixing;

@@ -2,6 +2,7 @@
 #include "analysis/report.hpp"
 
 #include "analysis/calibrate.hpp"
+#include "analysis/phase_setting.hpp"
 #include "materials/dispersion.hpp"
 #include "nonlinear/phase_matching.hpp"
 #include "report/report_words.hpp"
@@ -277,4 +278,51 @@ TEST_CASE("applying the verdict's actions, read as data, meets the time and phas
     CHECK(angles->sinc2 == after.phase_matching.front().sinc2_now);
     CHECK(angles->process.first_beam == "pump");
     CHECK(angles->process.second_beam == "signal");
+}
+
+TEST_CASE("setting the oven as the verdict says, read as data, meets the phase line",
+          "[report][verdict][temperature]") {
+    // A crystal cut for non-critical matching (LBO along X, in an oven at 120 °C, below its
+    // matching temperature): the advice is a temperature, not a turn; applying it meets the line.
+    const rv::LayoutReadResult read =
+        rv::read_layout_file(std::string(RV_SOURCE_DIR) + "/tests/layouts/temperature/lbo-oven-1064.json");
+    REQUIRE(read.layout);
+    rv::Layout l = *read.layout;
+    const rv::RendezvousReport r = report(l);
+    REQUIRE_FALSE(r.verdict.phase.met);
+    REQUIRE(r.phase_matching.front().temperature);
+    const rv::verdict_action::SetCrystalTemperature* oven = nullptr;
+    for (const rv::VerdictAction& a : r.verdict.phase.actions) {
+        CHECK_FALSE(std::holds_alternative<rv::verdict_action::RotateCrystal>(a));
+        if (const auto* o = std::get_if<rv::verdict_action::SetCrystalTemperature>(&a)) oven = o;
+    }
+    REQUIRE(oven);
+    CHECK(oven->crystal == "OVEN");
+    CHECK(oven->process_key == "shg:nd");
+    CHECK(oven->to_c == *r.phase_matching.front().temperature->phase_matching_c);
+    std::get<rv::Crystal>(element(l, oven->crystal).kind).temperature_c = oven->to_c;
+    const rv::RendezvousReport after = report(l);
+    CHECK(after.verdict.phase.met);
+    CHECK(after.verdict.phase.actions.empty());
+    CHECK(after.phase_matching.front().sinc2_now > 0.999);
+    CHECK_THAT(after.phase_matching.front().temperature->now_c, near(oven->to_c, 1e-12));
+}
+
+TEST_CASE("`phase` on a crystal in an oven sets its temperature and keeps its angle",
+          "[report][phase][temperature]") {
+    const rv::LayoutReadResult read =
+        rv::read_layout_file(std::string(RV_SOURCE_DIR) + "/tests/layouts/temperature/lbo-oven-1064.json");
+    REQUIRE(read.layout);
+    const rv::PhaseSetting s = rv::set_crystal_for_process(*read.layout, rv::material_library_for(*read.layout), "shg:nd");
+    CHECK(s.by_temperature);
+    REQUIRE(s.temperature_before_c);
+    REQUIRE(s.temperature_after_c);
+    CHECK(*s.temperature_before_c == 120);
+    CHECK_THAT(*s.temperature_after_c, near(149, 2));
+    CHECK(s.change_deg == 0);
+    CHECK(s.tilt_after_deg == s.tilt_before_deg);
+    CHECK(s.sinc2_before < 0.01);
+    CHECK(s.sinc2_after > 0.999);
+    // The layout it returns, read as a user's file would be, gives the same verdict.
+    CHECK(report(s.layout).verdict.phase.met);
 }

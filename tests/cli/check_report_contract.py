@@ -57,6 +57,43 @@ target = next(e for e in layout["elements"] if e["id"] == layout["target"])
 if target["type"] == "crystal":
     for key in ["process", "output_nm", "theta_pm_deg", "theta_now_deg", "rotate_by_deg", "walkoff_mrad"]:
         need(report, "phase_matching." + key)
+    # Every pair's GVM with its waves as data, and the wave the spectral acceptance tunes.
+    pm = report.get("phase_matching") or {}
+    if pm.get("phase_matchable"):
+        for g in need(report, "phase_matching.gvm") or []:
+            for key in ["between", "waves", "polarities", "fs_per_mm", "walk_apart_mm"]:
+                need(g, key)
+        need(report, "phase_matching.spectral_acceptance_tunes")
+        need(report, "phase_matching.spectral_acceptance_holds")
+# Generated light, B-integral and damage thresholds: always present (null or empty when they do
+# not apply); when given, every figure a finite number (JSON has no NaN; Python's parser would
+# take one).
+generated = need(report, "generated")
+if generated is not None:
+    for key in ["output_nm", "d_eff_pm_v", "input_mw", "pulse_fwhm_fs", "xi", "walkoff_parameter", "h_now",
+                "h_best", "pulse_factor_now", "pulse_factor_best", "now.average_mw", "now.energy_nj",
+                "now.efficiency", "best.average_mw", "best.energy_nj", "best.efficiency", "assumptions"]:
+        need(generated, key)
+for entry in need(report, "b_integral") or []:
+    for key in ["beam", "element", "material", "in_crystal", "length_mm", "peak_intensity_w_cm2", "b_rad"]:
+        need(entry, key)
+for entry in need(report, "damage_thresholds") or []:
+    for key in ["beam", "element", "typical"]:
+        need(entry, key)
+
+
+def non_finite(node, where):
+    if isinstance(node, float) and (node != node or node in (float("inf"), float("-inf"))):
+        missing.append(where + " (finite)")
+    elif isinstance(node, dict):
+        for k, v in node.items():
+            non_finite(v, where + "." + k)
+    elif isinstance(node, list):
+        for k, v in enumerate(node):
+            non_finite(v, f"{where}[{k}]")
+
+
+non_finite(report, "report")
 warnings = need(report, "warnings")
 for w in warnings or []:
     for key in ["code", "severity", "beam", "element", "message"]:

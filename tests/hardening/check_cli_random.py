@@ -25,6 +25,7 @@ import tempfile
 # target that is not a crystal; azimuth_deg of circular or unpolarized light; a loss's goes_to
 # when it goes nowhere traced; the polarization and power fraction when the power trace did not
 # reach the target.
+# Issue 16 §7: the SFG spectral acceptance's held beam, null for SHG (one input, nothing held).
 MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offset_fs",
                "walk_apart_mm", "delta_k_l", "sinc2_now", "source_mw", "power_mw", "useful_mw",
                "peak_intensity_w_cm2", "peak_fluence_j_cm2", "peak_intensity_at_waist_w_cm2",
@@ -35,7 +36,8 @@ MAY_BE_NULL = {"confocal_ratio", "temporal", "measured_zero_mm", "emission_offse
                "outside_index_data", "spatial_along_crystal", "azimuth_deg", "goes_to", "polarization",
                "power_fraction", "fwhm_fs",
                "generated", "depleted_average_mw", "material", "fluence_j_cm2", "intensity_gw_cm2", "regime",
-               "reference_pulse_fs", "reference_wavelength_nm", "scaled", "source"}
+               "reference_pulse_fs", "reference_wavelength_nm", "scaled", "source",
+               "spectral_acceptance_holds", "temperature", "phase_matching_c", "acceptance_fwhm_c"}
 
 
 def reject_constant(name):

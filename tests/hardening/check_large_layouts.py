@@ -6,7 +6,7 @@ The layouts are made here, in a temporary folder (no 100 000-element file is com
 - scattered: 100 000 dumps off the beam's line, one beam to a target;
 - aim-chain: 100 000 mirrors off the line, each aiming at the next (the last at the target);
 - one-stage: one stage carrying 99 999 dumps;
-- many-stages: 50 000 stages, each carrying one of 50 000 dumps.
+- many-stages: 49 999 stages, each carrying one of 50 000 dumps (with the target, 100 000).
 
 Each of `check`, `trace` and `report --json` must exit 0 within the bounds (CPU time and peak
 memory as the kernel counts them for the child, from wait4, so that a busy machine does not
@@ -76,9 +76,9 @@ def one_stage():
 
 
 def many_stages():
-    doc = base("50 000 stages")
+    doc = base("49 999 stages")
     n = ELEMENTS // 2 - 1
-    doc["elements"] = [{"id": "D%d" % i, "type": "dump", "at_mm": off_line(i)} for i in range(n)]
+    doc["elements"] = [{"id": "D%d" % i, "type": "dump", "at_mm": off_line(i)} for i in range(n + 1)]
     doc["elements"] += [{"id": "S%d" % i, "type": "stage", "carries": ["D%d" % i], "axis_deg": 90,
                          "position_mm": 5, "travel_mm": [0, 25]} for i in range(n)]
     doc["elements"].append(target())

@@ -224,6 +224,13 @@ inline nlohmann::json random_layout(std::uint64_t seed, const RandomLayoutOption
         if (t["material"] != "BBO" && t["material"] != "BBO:Eimerl1987" && rng.chance(0.5))
             t["principal_plane"] = rng.pick<std::string>({"XY", "YZ", "XZ"});
         if (rng.chance(0.3)) t["aperture_mm"] = rng.uniform(3, 20);
+        // Half the LBO crystals (by their length) take the set with temperature, in an oven
+        // between −40 and 250 °C (by their cut): from values already drawn, so the random
+        // sequence, and every other layout of a seed, stays as it was.
+        if (t["material"] == "LBO" && t["length_mm"].get<double>() > 4.1) {
+            t["material"] = "LBO:Kato2018";
+            t["temperature_c"] = -40 + 290 * t["cut_deg"].get<double>() / 90;
+        }
     } else {
         t = {{"id", "X"},
              {"type", "target"},

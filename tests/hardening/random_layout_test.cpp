@@ -80,7 +80,7 @@ std::vector<std::string> report_texts(const rv::RendezvousReport& r) {
     }
     for (const rv::Finding& f : r.findings) t.push_back(rv::finding_line(f));
     for (const rv::ReportBeam& b : r.beams) t.push_back(rv::after_target_text(b));
-    for (const rv::PhaseMatchingReport& p : r.phase_matching) t.push_back(p.polarization_note);
+    for (const rv::PhaseMatchingReport& p : r.phase_matching) t.push_back(rv::verdict_action_text(p.polarization_need));
     for (const rv::InvisibleLight& s : r.invisible) t.push_back(rv::invisible_light_text(s));
     return t;
 }
@@ -240,10 +240,13 @@ TEST_CASE("a process outside the crystal's index formula gives no NaN", "[harden
     const rv::RendezvousReport report = report_of(*r.layout);
     REQUIRE_FALSE(report.phase_matching.empty());
     for (const rv::PhaseMatchingReport& p : report.phase_matching) {
-        CAPTURE(p.process);
+        CAPTURE(p.beams.first_beam, p.beams.second_beam);
         CHECK(std::isfinite(p.delta_k_l));
         CHECK(std::isfinite(p.sinc2_now));
-        CHECK(p.outside_index_data.find("has no real index at 213.5 nm") != std::string::npos);
+        REQUIRE(p.outside_index_data);
+        REQUIRE(p.outside_index_data->wavelength_nm);
+        CHECK_THAT(*p.outside_index_data->wavelength_nm, Catch::Matchers::WithinAbs(213.5, 0.05));
+        CHECK(rv::index_gap_text(*p.outside_index_data).find("has no real index at 213.5 nm") != std::string::npos);
         CHECK_FALSE(p.phase_matchable);
     }
     CHECK_FALSE(report.verdict.phase.met);

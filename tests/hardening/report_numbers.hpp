@@ -10,6 +10,7 @@
 #include <nlohmann/json.hpp>
 
 #include "analysis/report.hpp"
+#include "report/report_words.hpp"
 #include "report/verdict_json.hpp"
 
 namespace rv::hardening {
@@ -105,7 +106,7 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add_opt("stage.emission_offset_fs", s.emission_offset_fs);
     }
     for (const PhaseMatchingReport& p : r.phase_matching) {
-        const std::string n = "phase_matching[" + p.process + "]";
+        const std::string n = "phase_matching[" + p.beams.first_beam + (p.beams.sum_frequency ? "+" + p.beams.second_beam : std::string()) + "]";
         add(n + ".output_nm", p.output_nm);
         add(n + ".theta_pm_deg", p.theta_pm_deg);
         add(n + ".theta_now_deg", p.theta_now_deg);
@@ -119,8 +120,8 @@ inline NamedNumbers report_numbers(const RendezvousReport& r) {
         add(n + ".angular_acceptance_mrad.external_fwhm", p.angular_acceptance_external_mrad);
         add(n + ".spectral_acceptance_fwhm_nm", p.spectral_acceptance_nm);
         for (const GroupVelocityMismatch& g : p.gvm) {
-            add(n + ".gvm[" + g.between + "].fs_per_mm", g.fs_per_mm);
-            add_opt(n + ".gvm[" + g.between + "].walk_apart_mm", g.walk_apart_mm);
+            add(n + ".gvm[" + gvm_pair_text(p, g) + "].fs_per_mm", g.fs_per_mm);
+            add_opt(n + ".gvm[" + gvm_pair_text(p, g) + "].walk_apart_mm", g.walk_apart_mm);
         }
     }
     for (const FocusingReport& f : r.focusing) {

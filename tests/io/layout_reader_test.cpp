@@ -52,6 +52,8 @@ TEST_CASE("each bad fixture gets its exact message", "[reader]") {
         {"no-beams.json", {"no-beams.json: error: /beams: expected one or two beams, found 0"}},
         {"point-not-pair.json", {"point-not-pair.json: error: /elements/1/at_mm (T): expected [x, y] in mm, found an array ([200])"}},
         {"convex-negative-f.json", {"convex-negative-f.json: error: /elements/0/focal_length_mm (L): no plano-convex lens has this focal length: a convex shape needs a positive focal length"}},
+        {"temperature-without-thermo-optic.json", {"temperature-without-thermo-optic.json: error: /elements/1/temperature_c (OVEN): LBO:Chen1989 has no temperature dependence; sets with one: LBO:Kato2018"}},
+        {"temperature-two-ovens.json", {"temperature-two-ovens.json: error: /elements/2/temperature_c (OVEN2): crystal \"OVEN\" of the same set LBO:Kato2018 is at 120 °C; one set has one temperature in a layout"}},
         {"plane-on-uniaxial.json", {"plane-on-uniaxial.json: error: /elements/1/principal_plane (T): only for biaxial crystals; BBO:Tamosauskas2018 is not biaxial"}},
         // Found by fuzzing (fuzz_pipeline, seed 5): nlohmann reports an overflowing number as
         // out_of_range, which once escaped as an uncaught exception.

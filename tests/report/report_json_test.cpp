@@ -105,14 +105,17 @@ void check_beam(const json& j, const rv::ReportBeam& b, const rv::Layout& layout
 }
 
 void check_process(const json& j, const rv::PhaseMatchingReport& p) {
-    CHECK(j.at("process").get<std::string>() == p.process);
-    CHECK(j.at("type").get<std::string>() == p.type);
+    // The words from the data: the beams by id, the mixing type's label.
+    CHECK(j.at("process").get<std::string>() ==
+          (p.beams.sum_frequency ? "SFG of " + p.beams.first_beam + " + " + p.beams.second_beam
+                                 : "SHG of " + p.beams.first_beam));
+    CHECK(j.at("type").get<std::string>() == rv::mixing_type_label(p.mixing));
     CHECK(j.at("output_nm").get<double>() == p.output_nm);
     CHECK(j.at("phase_matchable").get<bool>() == p.phase_matchable);
     CHECK(j.at("theta_now_deg").get<double>() == p.theta_now_deg);
     CHECK(j.at("rotation").get<std::string>() ==
           (p.rotation == rv::CrystalRotation::Turn ? "turn" : "tilt"));
-    if (p.outside_index_data.empty()) {
+    if (!p.outside_index_data) {
         CHECK(j.at("delta_k_l").get<double>() == p.delta_k_l);
         CHECK(j.at("sinc2_now").get<double>() == p.sinc2_now);
     }
@@ -131,11 +134,18 @@ void check_process(const json& j, const rv::PhaseMatchingReport& p) {
         CHECK(j.at("rotate_by_deg").is_null());
     REQUIRE(j.at("gvm").size() == p.gvm.size());
     for (size_t k = 0; k < p.gvm.size(); ++k) {
-        CHECK(j.at("gvm")[k].at("between").get<std::string>() == p.gvm[k].between);
+        CHECK(j.at("gvm")[k].at("between").get<std::string>() == rv::gvm_pair_text(p, p.gvm[k]));
         CHECK(j.at("gvm")[k].at("fs_per_mm").get<double>() == p.gvm[k].fs_per_mm);
         check_optional(j.at("gvm")[k].at("walk_apart_mm"), p.gvm[k].walk_apart_mm);
     }
     CHECK(j.at("polarizations_suit").get<bool>() == p.polarizations_suit);
+    if (p.temperature) {
+        CHECK(j.at("temperature").at("now_c").get<double>() == p.temperature->now_c);
+        check_optional(j.at("temperature").at("phase_matching_c"), p.temperature->phase_matching_c);
+        check_optional(j.at("temperature").at("acceptance_fwhm_c"), p.temperature->acceptance_fwhm_c);
+    } else {
+        CHECK(j.at("temperature").is_null());
+    }
 }
 
 // The report of one layout through JSON text and back: every key equals the model's value.
@@ -214,7 +224,7 @@ void check_report_json(const rv::Layout& layout) {
 // range, a wave plate before the crystal), so the nulls are checked too.
 const char* const kFixtures[] = {"findings/clipped-unterminated.json", "findings/missed-aim.json",
                                  "findings/stray-cube.json", "warn/zhang-at-532.json",
-                                 "solve/plate-before-crystal.json"};
+                                 "solve/plate-before-crystal.json", "temperature/lbo-oven-1064.json"};
 
 }  // namespace
 

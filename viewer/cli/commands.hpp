@@ -97,6 +97,15 @@ struct SweepOptions {
 // A value the sweep cannot compute is printed as nan (a beam that misses the target).
 int run_sweep(const SweepOptions& options, std::ostream& out, std::ostream& err);
 
+struct ScanOptions {
+    std::string layout;
+    std::string csv, png;            // "" = none, "-" = standard output (then the plan on stderr)
+    int width = 1000, height = 700;  // the PNG's size
+    int stage_points = 0, rotation_points = 0;  // the grid (0: the plan's, analysis/scan.hpp)
+};
+// The plan to find the signal: text, the map as CSV and as PNG (exit 2 when it cannot be made).
+int run_scan(const ScanOptions& options, std::ostream& out, std::ostream& err);
+
 struct RenderOptions {
     std::string layout;
     bool demo = false;

@@ -5,12 +5,19 @@
 #include <stdexcept>
 
 #include "analysis/phase_setting.hpp"
+#include "report/verdict_words.hpp"
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "io/layout_reader.hpp"
 #include "units/number_text.hpp"
 
 namespace rv::cli {
+
+namespace {
+
+nlohmann::json optional_number(const std::optional<double>& v) { return v ? nlohmann::json(*v) : nlohmann::json(nullptr); }
+
+}  // namespace
 
 int run_phase(const PhaseOptions& options, std::ostream& out, std::ostream& err) {
     if (options.json && options.output == "-") {
@@ -33,11 +40,14 @@ int run_phase(const PhaseOptions& options, std::ostream& out, std::ostream& err)
             return 2;
         const json j = {{"layout", options.layout},
                         {"crystal", s.crystal},
-                        {"process", s.process},
+                        {"process", process_beams_text(s.process)},
                         {"rotation", turn ? "turn" : "tilt"},
                         {"change_deg", s.change_deg},
                         {"normal_deg", {{"before", s.normal_before_deg}, {"after", s.normal_after_deg}}},
                         {"tilt_deg", {{"before", s.tilt_before_deg}, {"after", s.tilt_after_deg}}},
+                        {"by_temperature", s.by_temperature},
+                        {"temperature_c", {{"before", optional_number(s.temperature_before_c)},
+                                           {"after", optional_number(s.temperature_after_c)}}},
                         {"theta_pm_deg", s.theta_pm_deg},
                         {"theta_after_deg", s.theta_after_deg},
                         {"sinc2", {{"before", s.sinc2_before}, {"after", s.sinc2_after}}},
@@ -47,9 +57,14 @@ int run_phase(const PhaseOptions& options, std::ostream& out, std::ostream& err)
     }
     // With --write -, standard output holds the layout alone: the summary goes to stderr.
     std::ostream& say = options.output == "-" ? err : out;
-    say << "crystal " << s.crystal << " set for " << s.process << ": θ_pm " << format_number("%.3f", s.theta_pm_deg)
-        << "° (internal)\n";
-    if (turn) {
+    say << "crystal " << s.crystal << " set for " << process_beams_text(s.process);
+    if (s.by_temperature) say << " by its temperature\n";
+    else say << ": θ_pm " << format_number("%.3f", s.theta_pm_deg) << "° (internal)\n";
+    if (s.by_temperature) {
+        say << "set its oven to " << format_number("%.2f", s.temperature_after_c.value_or(0))
+            << " °C (the angle stays): temperature_c " << format_number("%.2f", s.temperature_before_c.value_or(0))
+            << " → " << format_number("%.2f", s.temperature_after_c.value_or(0)) << "\n";
+    } else if (turn) {
         say << "turn it by " << format_number("%+.3f", s.change_deg)
             << "° (external, + = clockwise seen from above): normal_deg " << format_number("%.3f", s.normal_before_deg)
             << " → " << format_number("%.3f", s.normal_after_deg) << "\n";

@@ -39,16 +39,23 @@ void configure_context(Texture& font) {
     io.Fonts->SetTexID(&font);
 }
 
-Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
-                         int width, int height, int threads) {
-    ImGuiContext* previous = ImGui::GetCurrentContext();
-    ImGuiContext* context = ImGui::CreateContext();
-    ImGui::SetCurrentContext(context);
-    Texture font;
-    configure_context(font);
+HeadlessContext::HeadlessContext(int width, int height)
+    : previous_(ImGui::GetCurrentContext()), context_(ImGui::CreateContext()) {
+    ImGui::SetCurrentContext(context_);
+    configure_context(font_);
     ImGuiIO& io = ImGui::GetIO();
     io.DisplaySize = ImVec2(static_cast<float>(width), static_cast<float>(height));
     io.DeltaTime = 1.0f / 60.0f;
+}
+
+HeadlessContext::~HeadlessContext() {
+    ImGui::DestroyContext(context_);
+    ImGui::SetCurrentContext(previous_);
+}
+
+Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
+                         int width, int height, int threads) {
+    const HeadlessContext context(width, height);
     for (int frame = 0; frame < 2; ++frame) {
         ImGui::NewFrame();
         ui::draw_frame(layout, report, scene);
@@ -57,8 +64,6 @@ Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, c
     Framebuffer fb(width, height);
     fb.clear(255, 255, 255);
     rasterize(*ImGui::GetDrawData(), fb, {threads});
-    ImGui::DestroyContext(context);
-    ImGui::SetCurrentContext(previous);
     return fb;
 }
 

@@ -7,6 +7,7 @@
 #include "scene/scene.hpp"
 
 struct ImGuiIO;
+struct ImGuiContext;
 
 namespace rv::render {
 
@@ -19,6 +20,22 @@ void load_fonts(ImGuiIO& io);
 // large meshes, the light style, lines as polygons, the font atlas baked into `font` and
 // handed to ImGui as its texture (`font` must outlive the context).
 void configure_context(Texture& font);
+
+// An ImGui context of its own for one drawing of width x height pixels with no display: made
+// current and configured (configure_context, the display size, a 60 Hz frame step) on
+// construction; destroyed, with the context that was current before restored, on destruction.
+class HeadlessContext {
+public:
+    HeadlessContext(int width, int height);
+    ~HeadlessContext();
+    HeadlessContext(const HeadlessContext&) = delete;
+    HeadlessContext& operator=(const HeadlessContext&) = delete;
+
+private:
+    ImGuiContext* previous_;
+    ImGuiContext* context_;
+    Texture font_;  // the font atlas the context draws with; outlives it (destroyed after)
+};
 
 Framebuffer render_frame(const Layout& layout, const RendezvousReport& report, const scene::Scene& scene,
                          int width, int height, int threads = 1);

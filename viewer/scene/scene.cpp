@@ -1,9 +1,12 @@
 #include "scene/scene.hpp"
 
+#include "scene/beam_palette.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
 
+#include "report/verdict_words.hpp"
 #include "analysis/breadboard_holes.hpp"
 #include "polarization/polarization_model.hpp"
 #include "layout/visit.hpp"
@@ -90,8 +93,13 @@ void add_element(Scene& s, const Element& e, const ElementPose& pose) {
             s.shapes.push_back(box(at - 5 * n, n, 10, a, {45, 45, 50, 255}));
         }
     };
+    const size_t first_shape = s.shapes.size();
     std::visit(Symbol{s, e, at, n, t, a}, e.kind);
-    if (!std::holds_alternative<Stage>(e.kind)) s.labels.push_back({at + (a + 5) * t, e.id, kText, 5});
+    // The label keeps clear of the whole symbol: its farthest point from the centre.
+    double reach_mm = 0;
+    for (size_t k = first_shape; k < s.shapes.size(); ++k)
+        for (const Vec2& p : s.shapes[k].points_mm) reach_mm = std::max(reach_mm, (p - at).norm());
+    if (!std::holds_alternative<Stage>(e.kind)) s.labels.push_back({at + (a + 5) * t, e.id, kText, 5, at, reach_mm});
 }
 
 // The envelope of one beam: a strip ±w(s)·exaggeration about each straight segment.
@@ -217,7 +225,8 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
                         const Vec2 at = poses[j].at_mm + Vec2(-axis.y(), axis.x()) * (layout.elements[j].aperture_mm / 2 + 8);
                         s.shapes.push_back(line({at + (st->travel_min_mm - st->position_mm) * axis,
                                                  at + (st->travel_max_mm - st->position_mm) * axis}, kStage, 0.6, true));
-                        s.labels.push_back({at + 3 * Vec2(-axis.y(), axis.x()), e.id, kStage, 4});
+                        const Vec2 middle = at + ((st->travel_min_mm + st->travel_max_mm) / 2 - st->position_mm) * axis;
+                        s.labels.push_back({middle + 3 * Vec2(-axis.y(), axis.x()), e.id, kStage, 4, middle, 1});
                     }
             continue;
         }
@@ -227,9 +236,13 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
         for (size_t i = 0; i < layout.elements.size(); ++i)
             if (&layout.elements[i] == t) s.shapes.push_back(circle(poses[i].at_mm, t->aperture_mm / 2 + 4, kTarget, 0.6));
 
-    for (const ReportBeam& b : report.beams) add_envelope(s, b, beam_style(b.wavelength_nm).colour, s.envelope_exaggeration);
-    for (const ReportBeam& b : report.beams) {
-        const BeamStyle style = beam_style(b.wavelength_nm);
+    // Colours at least kMinBeamDeltaE76 apart (beam_palette.hpp), the plots' too.
+    const std::vector<BeamStyle> styles = report_beam_styles(report);
+    for (size_t k = 0; k < report.beams.size(); ++k)
+        add_envelope(s, report.beams[k], styles[k].colour, s.envelope_exaggeration);
+    for (size_t k = 0; k < report.beams.size(); ++k) {
+        const ReportBeam& b = report.beams[k];
+        const BeamStyle style = styles[k];
         Polyline ray{{}, style.colour, 0.7, !style.visible, false, false, false};
         for (const TraceSegment& seg : b.path.segments) {
             if (ray.points_mm.empty() || (ray.points_mm.back() - seg.from_mm).norm() > 1e-9) {
@@ -250,14 +263,16 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
             if (f.kind == Finding::Kind::LeftTable || f.kind == Finding::Kind::MissedOptic ||
                 f.kind == Finding::Kind::HitBackOfOptic || f.kind == Finding::Kind::TotalInternalReflection) {
                 s.shapes.push_back(circle(f.where_mm, 6, kMarker, 0.8));
-                s.labels.push_back({f.where_mm + Vec2(7, 7), "!", kMarker, 6});
+                s.labels.push_back({f.where_mm + Vec2(7, 7), "!", kMarker, 6, f.where_mm, 6.5});
             }
     }
     if (!report.beams.empty()) s.legend.push_back({"polarization: bar = in the table plane, dot = vertical, ring = circular", {60, 60, 70, 255}, false});
+    size_t generated = report.beams.size();
     for (const PhaseMatchingReport& p : report.phase_matching)
-        if (p.sum_frequency || report.beams.size() == 1)
-            s.legend.push_back({nm_text(p.output_nm) + " generated (" + p.process + ")", beam_style(p.output_nm).colour,
-                                !beam_style(p.output_nm).visible});
+        if (legend_lists_generated(report, p)) {
+            const BeamStyle& style = styles[generated++];
+            s.legend.push_back({nm_text(p.output_nm) + " generated (" + process_beams_text(p.beams) + ")", style.colour, !style.visible});
+        }
     return s;
 }
 

@@ -26,11 +26,16 @@ struct Polyline {
     bool band = false;
 };
 
+// A label names a mark; where its box goes is decided at drawing time by the placement pass
+// (scene/label_placement.hpp) for the drawing's text size: anchor_mm is the mark's centre,
+// clear_mm how far its symbol reaches from there, at_mm a point on the preferred side.
 struct Label {
     Vec2 at_mm;
     std::string text;
     Colour colour;
-    double height_mm = 6;
+    double height_mm = 6;  // the SVG's font size
+    Vec2 anchor_mm{0, 0};
+    double clear_mm = 0;
 };
 
 struct LegendEntry {

@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "scene/clip_segment.hpp"
+#include "scene/label_placement.hpp"
 
 namespace rv::scene {
 
@@ -49,6 +50,11 @@ std::vector<std::vector<Vec2>> drawn_parts(const Polyline& p, const Box& box) {
         if (const auto part = clip_segment(p.points_mm[i], p.points_mm[(i + 1) % n], box))
             parts.push_back({part->first, part->second});
     return parts;
+}
+
+// Characters, not bytes (an id may hold µ or Greek letters).
+double utf8_length(const std::string& text) {
+    return static_cast<double>(std::count_if(text.begin(), text.end(), [](char c) { return (c & 0xC0) != 0x80; }));
 }
 
 void check_size(std::ostringstream& o) {
@@ -98,11 +104,21 @@ std::string write_svg(const Scene& s) {
             check_size(o);
         }
     }
-    for (const Label& l : s.labels)
-        if (inside(frame, l.at_mm))
-            o << "<text x=\"" << X(l.at_mm.x()) << "\" y=\"" << Y(l.at_mm.y()) << "\" font-size=\""
-              << svg_number(l.height_mm) << "\" fill=\"" << svg_rgb(l.colour) << "\">" << svg_escape(l.text)
-              << "</text>\n";
+    // Labels placed for their font size (an average advance of 0.6 em, common practice for
+    // sans-serif text), the baseline a fifth of the size above the box's bottom.
+    const std::vector<PlacedLabel> placed = place_labels(
+        s, [](const Label& l) { return LabelSizeMm{0.6 * l.height_mm * utf8_length(l.text), l.height_mm}; }, 0.8);
+    for (size_t i = 0; i < placed.size(); ++i) {
+        const Label& l = s.labels[i];
+        const Box& b = placed[i].box_mm;
+        if (!inside(frame, b.min) || !inside(frame, b.max)) continue;
+        if (placed[i].leader)
+            o << "<line x1=\"" << X(placed[i].leader->first.x()) << "\" y1=\"" << Y(placed[i].leader->first.y())
+              << "\" x2=\"" << X(placed[i].leader->second.x()) << "\" y2=\"" << Y(placed[i].leader->second.y())
+              << "\" stroke=\"#787c84\" stroke-width=\"0.25\"/>\n";
+        o << "<text x=\"" << X(b.min.x()) << "\" y=\"" << Y(b.min.y() + 0.2 * l.height_mm) << "\" font-size=\""
+          << svg_number(l.height_mm) << "\" fill=\"" << svg_rgb(l.colour) << "\">" << svg_escape(l.text) << "</text>\n";
+    }
     // Title block: name, legend, scale bar (100 mm), exaggeration of the envelopes.
     const double top = margin * 2 + s.height_mm;
     o << "<text x=\"" << svg_number(margin) << "\" y=\"" << svg_number(top + 6) << "\" font-size=\"7\" fill=\"#1e1e28\">"

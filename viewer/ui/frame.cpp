@@ -14,6 +14,7 @@
 #include "edit/templates.hpp"
 #include "ui/actions.hpp"
 #include "ui/add_menu.hpp"
+#include "ui/canvas_readouts.hpp"
 #include "ui/help_window.hpp"
 #include "ui/status_bar.hpp"
 #include "ui/plots.hpp"
@@ -61,19 +62,6 @@ void draw_selection(ImDrawList* draw, const edit::Document& doc, size_t element,
     const ElementPose pose = element_poses(doc.layout(), paths)[element];
     const float r = std::max(10.0f, static_cast<float>(doc.layout().elements[element].aperture_mm / 2 * view.px_per_mm) + 4);
     draw->AddCircle(view.to_screen(pose.at_mm), r, IM_COL32(255, 140, 0, 255), 32, 2.0f);
-}
-
-void draw_ruler(ImDrawList* draw, const EditorState::Ruler& r, const View& view) {
-    const ImVec2 a = view.to_screen(r.from_mm), b = view.to_screen(r.to_mm);
-    const ImU32 c = IM_COL32(20, 90, 200, 255);
-    draw->AddLine(a, b, c, 2.0f);
-    draw->AddCircleFilled(a, 3, c);
-    draw->AddCircleFilled(b, 3, c);
-    const std::string text = ruler_text(r);
-    const ImVec2 at((a.x + b.x) / 2 + 6, (a.y + b.y) / 2 - 18);
-    const ImVec2 extent = ImGui::CalcTextSize(text.c_str());
-    draw->AddRectFilled(at, ImVec2(at.x + extent.x + 6, at.y + extent.y + 4), IM_COL32(255, 255, 255, 220));
-    draw->AddText(ImVec2(at.x + 3, at.y + 2), c, text.c_str());
 }
 
 void draw_menu_bar(ViewerState& st) {
@@ -274,7 +262,8 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     draw_table(ImGui::GetWindowDrawList(), scene, view);
     if (doc && state->editor.selected && *state->editor.selected < layout.elements.size())
         draw_selection(ImGui::GetWindowDrawList(), *doc, *state->editor.selected, view);
-    if (doc && state->editor.ruler) draw_ruler(ImGui::GetWindowDrawList(), *state->editor.ruler, view);
+    if (doc && state->editor.ruler) draw_ruler_along_beams(ImGui::GetWindowDrawList(), *doc, *state->editor.ruler, view);
+    if (doc) draw_hover_readout(ImGui::GetWindowDrawList(), *doc, state->editor, view, state->cursor_mm);
     ImGui::EndChild();
     ImGui::BeginChild("plots", ImVec2(avail.x - panel, -status_bar), true);
     const ImVec2 p0 = ImGui::GetCursorScreenPos();
@@ -294,6 +283,7 @@ void draw_frame(const Layout& layout, const RendezvousReport& report, const scen
     if (doc) {
         draw_inspector(*doc, state->editor, state->inspector);
         draw_tools_panel(*doc, state->tools);
+        draw_scan_panel(*doc, state->scan);
     }
     draw_report_panel(report, layout, doc ? &state->editor.selected : nullptr, state ? &state->finding_rects : nullptr);
     if (doc) draw_goals_panel(*doc, state->goals);  // below the report, whose findings stay in view

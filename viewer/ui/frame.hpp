@@ -14,6 +14,7 @@
 #include "ui/goals_panel.hpp"
 #include "ui/inspector.hpp"
 #include "ui/shortcuts.hpp"
+#include "ui/scan_panel.hpp"
 #include "ui/tools_panel.hpp"
 #include "ui/view.hpp"
 
@@ -28,6 +29,7 @@ struct ViewerState {
     EditorState editor;
     InspectorState inspector;
     ToolsState tools;
+    ScanState scan;                  // the Scan plan panel (ui/scan_panel.hpp)
     std::vector<std::pair<ImVec2, ImVec2>> finding_rects;  // last frame's finding rows
     std::vector<std::string> recent;  // recent files, newest first
     std::optional<std::string> open_request;  // File ▸ Open or a recent file: the window opens it

@@ -7,6 +7,7 @@
 #include <stdexcept>
 #include <vector>
 
+#include "report/verdict_words.hpp"
 #include "analysis/phase_setting.hpp"
 #include "io/layout_reader.hpp"
 #include "layout/enum_names.hpp"
@@ -151,9 +152,9 @@ void process_buttons(edit::Document& doc, InspectorState& st) {
     if (!st.process_error.empty()) ImGui::TextWrapped("%s", st.process_error.c_str());
     if (r.phase_matching.empty()) return;
     const PhaseMatchingReport& p = r.phase_matching.front();
-    if (!p.outside_index_data.empty() || !p.phase_matchable) return;
+    if (p.outside_index_data || !p.phase_matchable) return;
     const bool turn = p.rotation == CrystalRotation::Turn;
-    ImGui::Text("%s: sinc² %.3f", p.process.c_str(), p.sinc2_now);
+    ImGui::Text("%s: sinc² %.3f", process_beams_text(p.beams).c_str(), p.sinc2_now);
     if (p.rotation_found && std::abs(p.rotate_by_deg) >= 0.0005)
         ImGui::Text("%s by %+.3f° (external) to phase-match", turn ? "turn" : "tilt", p.rotate_by_deg);
 }
@@ -250,6 +251,15 @@ void element_fields(edit::Document& doc, const EditorState& editor, InspectorSta
                 if (table_field("phase matching", &crystal.phase_matching, kPhaseMatchingNames)) doc.edit(st.scratch);
                 if (table_field("optic axis plane", &crystal.optic_axis_horizontal, kOpticAxisNames)) doc.edit(st.scratch);
                 field("tilt", "tilt (deg, + = face normal up)", &crystal.tilt_deg, "%.3f", doc, st);
+                // An oven: only for a set with thermo-optic data (the reader refuses others
+                // with its message); 0 °C is a temperature, so presence is its own switch.
+                bool oven = crystal.temperature_c.has_value();
+                if (ImGui::Checkbox("in an oven", &oven)) {
+                    crystal.temperature_c = oven ? std::optional<double>(20.0) : std::nullopt;
+                    doc.edit(st.scratch);
+                }
+                if (crystal.temperature_c)
+                    field("temperature", "temperature (°C)", &*crystal.temperature_c, "%.2f", doc, st);
                 process_buttons(doc, st);
                 optional_field("damage_i", "damage (GW/cm², 0 none)", &crystal.damage.intensity_gw_cm2, "%.1f", doc, st);
             },

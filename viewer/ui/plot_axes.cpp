@@ -1,5 +1,6 @@
 #include "ui/plot_axes.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -32,7 +33,16 @@ PlotAxes draw_axes(ImDrawList* draw, ImVec2 origin, ImVec2 size, double x0, doub
     draw->AddRectFilled(origin, ImVec2(origin.x + size.x, origin.y + size.y), IM_COL32(255, 255, 255, 255));
     draw->AddText(ImVec2(origin.x + 8, origin.y + 3), ink, title.c_str());
     char buf[32];
-    const double sx = nice_step(x1 - x0, 6), sy = nice_step(y1 - y0, 4);
+    // As many x ticks as their labels fit side by side (at most 6): the widest label is about
+    // that of an end of the range at the step for 6 ticks.
+    auto label_width = [&](double v, double step) {
+        std::snprintf(buf, sizeof buf, "%g", std::round(v / step) * step);
+        return ImGui::CalcTextSize(buf).x;
+    };
+    const double s6 = nice_step(x1 - x0, 6);
+    const float widest = std::max(label_width(x0, s6), label_width(x1, s6)) + 12;
+    const int fit = std::clamp(static_cast<int>((a.max_px.x - a.min_px.x) / widest), 1, 6);
+    const double sx = nice_step(x1 - x0, fit), sy = nice_step(y1 - y0, 4);
     // Ticks counted first, then placed at k·step: stepping x += sx never ended when the span
     // was below the spacing of doubles at x0 (a Rayleigh range of 1e-13 mm at s = 900 mm).
     for (const long long k : tick_indices(x0, x1, sx)) {
@@ -40,7 +50,7 @@ PlotAxes draw_axes(ImDrawList* draw, ImVec2 origin, ImVec2 size, double x0, doub
         const ImVec2 p = a.to_screen(x, y0);
         draw->AddLine(ImVec2(p.x, a.min_px.y), ImVec2(p.x, a.max_px.y), grid);
         std::snprintf(buf, sizeof buf, "%g", std::abs(x) < 1e-12 * sx ? 0.0 : x);
-        draw->AddText(ImVec2(p.x - 10, a.max_px.y + 3), ink, buf);
+        draw->AddText(ImVec2(p.x - ImGui::CalcTextSize(buf).x / 2, a.max_px.y + 3), ink, buf);
     }
     for (const long long k : tick_indices(y0, y1, sy)) {
         const double y = k * sy;
@@ -50,7 +60,10 @@ PlotAxes draw_axes(ImDrawList* draw, ImVec2 origin, ImVec2 size, double x0, doub
         draw->AddText(ImVec2(origin.x + 4, p.y - 7), ink, buf);
     }
     draw->AddRect(a.min_px, a.max_px, ink);
-    draw->AddText(ImVec2(a.max_px.x - 8.0f * x_label.size(), a.max_px.y + 16), ink, x_label.c_str());
+    // Right-aligned under the axis, never left of the frame (a narrow panel's label would spill
+    // onto its neighbour).
+    const float label_x = std::max(origin.x + 4, a.max_px.x - ImGui::CalcTextSize(x_label.c_str()).x);
+    draw->AddText(ImVec2(label_x, a.max_px.y + 16), ink, x_label.c_str());
     draw->AddText(ImVec2(a.min_px.x + 4, a.min_px.y + 2), ink, y_label.c_str());
     return a;
 }

@@ -6,15 +6,19 @@
 #include <optional>
 #include <string>
 
-#include "scene/wavelength_colour.hpp"
+#include "scene/beam_palette.hpp"
 #include "ui/plot_axes.hpp"
 #include "units/number_text.hpp"
 
 namespace rv::ui {
 
 namespace {
-ImU32 beam_colour(double nm, int alpha = 255) {
-    const scene::Colour c = scene::beam_style(nm).colour;
+// Pulses farther apart than this many times the sum of their lengths get a broken time axis.
+constexpr double kBrokenAxisPulses = 4;
+// Beam k's colour as the table view draws it (scene/beam_palette.hpp).
+ImU32 beam_colour(const RendezvousReport& r, size_t k, int alpha = 255) {
+    const std::vector<scene::BeamStyle> styles = scene::report_beam_styles(r);
+    const scene::Colour c = k < styles.size() ? styles[k].colour : scene::Colour{};
     return IM_COL32(c.r, c.g, c.b, alpha);
 }
 
@@ -64,18 +68,18 @@ void draw_caustic_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Rende
                 if (std::abs(z) <= range) pts.push_back(a.to_screen(z, plane ? e.radius_sagittal_um : e.radius_tangential_um));
             }
             if (plane == 0) {
-                draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), beam_colour(b.wavelength_nm), ImDrawFlags_None, 2.0f);
+                draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), beam_colour(r, static_cast<size_t>(&b - r.beams.data())), ImDrawFlags_None, 2.0f);
             } else {
-                for (size_t i = 0; i + 1 < pts.size(); i += 2) draw->AddLine(pts[i], pts[i + 1], beam_colour(b.wavelength_nm), 1.5f);
+                for (size_t i = 0; i + 1 < pts.size(); i += 2) draw->AddLine(pts[i], pts[i + 1], beam_colour(r, static_cast<size_t>(&b - r.beams.data())), 1.5f);
             }
         }
         // Waist markers and the Rayleigh range around each (tangential plane).
         const PlaneAtTarget& t = b.at_target.tangential;
         const ImVec2 w = a.to_screen(t.waist_offset_mm, t.waist_um);
-        draw->AddCircleFilled(w, 4, beam_colour(b.wavelength_nm));
+        draw->AddCircleFilled(w, 4, beam_colour(r, static_cast<size_t>(&b - r.beams.data())));
         const ImVec2 l = a.to_screen(t.waist_offset_mm - t.rayleigh_mm, t.waist_um * std::sqrt(2.0));
         const ImVec2 rr = a.to_screen(t.waist_offset_mm + t.rayleigh_mm, t.waist_um * std::sqrt(2.0));
-        draw->AddLine(l, rr, beam_colour(b.wavelength_nm, 140), 1.0f);
+        draw->AddLine(l, rr, beam_colour(r, static_cast<size_t>(&b - r.beams.data()), 140), 1.0f);
     }
     draw->PopClipRect();
     // Hover readout: both beams' radii at the cursor's position along the beam.
@@ -98,6 +102,26 @@ void draw_caustic_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Rende
     draw->AddText(ImVec2(box.x + 4, box.y + 3), IM_COL32(30, 30, 30, 255), text.c_str());
 }
 
+namespace {
+
+// Both pulses (Gaussian intensity of their FWHM) over the axes' time range, each beam's colour.
+void draw_pulses(ImDrawList* draw, const PlotAxes& a, const RendezvousReport& r, const double arrivals_fs[2],
+                 const double taus_fs[2]) {
+    draw->PushClipRect(a.min_px, a.max_px, true);
+    for (int k = 0; k < 2; ++k) {
+        std::vector<ImVec2> pts;
+        for (int i = 0; i <= 400; ++i) {
+            const double t = a.x0 + (a.x1 - a.x0) * i / 400;
+            const double x = (t - arrivals_fs[k]) / taus_fs[k];
+            pts.push_back(a.to_screen(t, std::exp(-4 * std::log(2.0) * x * x)));
+        }
+        draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), beam_colour(r, static_cast<size_t>(k)), ImDrawFlags_None, 2.0f);
+    }
+    draw->PopClipRect();
+}
+
+}  // namespace
+
 void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout& layout, const RendezvousReport& r) {
     if (r.beams.size() < 2 || !r.mismatch || !layout.beams[0].pulse_fwhm_fs || !layout.beams[1].pulse_fwhm_fs) {
         draw_axes(draw, origin, size, -1, 1, 0, 1, "fs", "", "Timing: two pulsed beams at the target needed");
@@ -105,25 +129,46 @@ void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout
     }
     const double d = r.mismatch->delay_fs;  // beam 1 − beam 2: beam 2 arrives at t0 − d
     const double tau1 = *layout.beams[0].pulse_fwhm_fs, tau2 = *layout.beams[1].pulse_fwhm_fs;
-    const double span = std::max(2 * std::hypot(tau1, tau2), std::abs(d) + 1.5 * std::max(tau1, tau2));
-    const double centre = -d / 2;
-    char title[128];
-    std::snprintf(title, sizeof title, "Pulses at the target: delay %s", format_duration_fs(d, true).c_str());
-    const PlotAxes a = draw_axes(draw, origin, size, centre - span, centre + span, 0, 1.1,
-                                 "fs from the first beam's arrival", "intensity", title);
-    draw->PushClipRect(a.min_px, a.max_px, true);
     const double arrivals[2] = {0, -d};
     const double taus[2] = {tau1, tau2};
-    for (int k = 0; k < 2; ++k) {
-        std::vector<ImVec2> pts;
-        for (int i = 0; i <= 400; ++i) {
-            const double t = centre - span + 2 * span * i / 400;
-            const double x = (t - arrivals[k]) / taus[k];
-            pts.push_back(a.to_screen(t, std::exp(-4 * std::log(2.0) * x * x)));
-        }
-        draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), beam_colour(r.beams[k].wavelength_nm), ImDrawFlags_None, 2.0f);
+    char title[160];
+    if (std::abs(d) <= kBrokenAxisPulses * (tau1 + tau2)) {  // both on one axis
+        const double span = std::max(2 * std::hypot(tau1, tau2), std::abs(d) + 1.5 * std::max(tau1, tau2));
+        const double centre = -d / 2;
+        std::snprintf(title, sizeof title, "Pulses at the target: delay %s", format_duration_fs(d, true).c_str());
+        const PlotAxes a = draw_axes(draw, origin, size, centre - span, centre + span, 0, 1.1,
+                                     "fs from the first beam's arrival", "intensity", title);
+        draw_pulses(draw, a, r, arrivals, taus);
+        return;
     }
-    draw->PopClipRect();
+    // Far apart: a broken time axis, each pulse on its own panel around its own arrival (the
+    // earlier one on the left), and an arrow across the break with the delay between them.
+    const int first = arrivals[0] <= arrivals[1] ? 0 : 1, second = 1 - first;
+    const double half_fs = 2.0 * std::max(tau1, tau2);
+    const float gap = 44, panel = std::floor((size.x - gap) / 2);
+    // Each panel's time from its own pulse's arrival (labels of ±2τ, not of the whole delay).
+    std::snprintf(title, sizeof title, "%s first", r.beams[first].id.c_str());
+    const PlotAxes left = draw_axes(draw, origin, ImVec2(panel, size.y), -half_fs, half_fs, 0, 1.1,
+                                    "fs, own peak", "intensity", title);
+    // A narrow panel: the delay to 0.1 ps (the report and the time line give it in full).
+    const std::string later = std::abs(d) > 1e4 ? format_number("+%.1f ps", std::abs(d) * 1e-3)
+                                                : format_duration_fs(std::abs(d), true);
+    std::snprintf(title, sizeof title, "%s %s", r.beams[second].id.c_str(), later.c_str());
+    const PlotAxes right = draw_axes(draw, ImVec2(origin.x + panel + gap, origin.y), ImVec2(size.x - panel - gap, size.y),
+                                     -half_fs, half_fs, 0, 1.1, "fs, own peak", "", title);
+    const double from_first[2] = {arrivals[0] - arrivals[first], arrivals[1] - arrivals[first]};
+    const double from_second[2] = {arrivals[0] - arrivals[second], arrivals[1] - arrivals[second]};
+    draw_pulses(draw, left, r, from_first, taus);
+    draw_pulses(draw, right, r, from_second, taus);
+    // The break: two slanted strokes on the axis line, and the arrow between the panels.
+    const ImU32 ink = IM_COL32(40, 40, 50, 255);
+    const float y = left.max_px.y, x0 = left.max_px.x + 6, x1 = right.min_px.x - 6;
+    for (const float x : {x0 + 4.0f, x1 - 4.0f}) draw->AddLine(ImVec2(x - 4, y + 6), ImVec2(x + 4, y - 6), ink, 1.5f);
+    const float ay = (left.min_px.y + left.max_px.y) / 2;
+    draw->AddLine(ImVec2(x0, ay), ImVec2(x1, ay), ink, 1.5f);
+    draw->AddTriangleFilled(ImVec2(x1, ay), ImVec2(x1 - 7, ay - 4), ImVec2(x1 - 7, ay + 4), ink);
+    draw->AddText(ImVec2(x0, ay + 4), ink, "axis");
+    draw->AddText(ImVec2(x0, ay + 18), ink, "broken");
 }
 
 }  // namespace rv::ui

@@ -95,9 +95,9 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
     if (r.overlap) ImGui::Text("overlap %.3f (spatial %.3f)", r.overlap->combined, r.overlap->spatial_along_crystal);
     if (!r.phase_matching.empty()) {
         const PhaseMatchingReport& p = r.phase_matching.front();
-        ImGui::Text("%s: %.2f nm", p.process.c_str(), p.output_nm);
-        if (p.outside_index_data.empty()) ImGui::Text("θ_pm %.3f°, now %.3f°", p.theta_pm_deg, p.theta_now_deg);
-        else ImGui::TextWrapped("%s", p.outside_index_data.c_str());
+        ImGui::Text("%s: %.2f nm", process_beams_text(p.beams).c_str(), p.output_nm);
+        if (!p.outside_index_data) ImGui::Text("θ_pm %.3f°, now %.3f°", p.theta_pm_deg, p.theta_now_deg);
+        else ImGui::TextWrapped("%s", index_gap_text(*p.outside_index_data).c_str());
     }
     ImGui::Spacing();
     ImGui::TextUnformatted("Power and polarization");

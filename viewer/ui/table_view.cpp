@@ -43,6 +43,47 @@ bool inside(const scene::Box& box, const Vec2& p) {
 
 }  // namespace
 
+ScreenRect legend_rect(const scene::Scene& s, const View& v) {
+    float width = 0;
+    for (const scene::LegendEntry& e : s.legend) width = std::max(width, ImGui::CalcTextSize(e.text.c_str()).x);
+    const float scale_text = ImGui::CalcTextSize("100 mm   (envelopes x 10)").x + 100;  // the bar and its words
+    const float w = std::max(width + 44, scale_text) + 8, h = kLegendRowPx * static_cast<float>(s.legend.size() + 2);
+    // The canvas corner where the legend covers the least of the table: the fewest outline
+    // segments (beams, symbols, envelopes) crossing it; the lower left when it ties.
+    ScreenRect best{};
+    int best_count = -1;
+    for (int corner = 0; corner < 4 && best_count != 0; ++corner) {
+        const bool right = corner % 2 == 1, top = corner >= 2;
+        const float x0 = right ? v.origin_px.x + v.size_px.x - 6 - w : v.origin_px.x + 6;
+        const float y0 = top ? v.origin_px.y + 4 : v.origin_px.y + v.size_px.y - 4 - h;
+        const ScreenRect r{ImVec2(x0, y0), ImVec2(x0 + w, y0 + h)};
+        const Vec2 a = v.to_table(r.min), b = v.to_table(r.max);
+        const scene::Box box{a.cwiseMin(b), a.cwiseMax(b)};
+        int count = 0;
+        for (const scene::Polyline& p : s.shapes) {
+            const size_t n = p.points_mm.size();
+            for (size_t i = 0; i + 1 < n + (p.closed ? 1 : 0); ++i)
+                count += scene::clip_segment(p.points_mm[i], p.points_mm[(i + 1) % n], box).has_value();
+        }
+        if (best_count < 0 || count < best_count) best = r, best_count = count;
+    }
+    return best;
+}
+
+std::vector<scene::PlacedLabel> place_view_labels(const scene::Scene& s, const View& v) {
+    const double mm_per_px = 1 / v.px_per_mm;
+    // The legend drawn in the canvas's corner is a keep-out for the labels.
+    const ScreenRect legend = legend_rect(s, v);
+    const Vec2 a = v.to_table(legend.min), b = v.to_table(legend.max);
+    return scene::place_labels(
+        s,
+        [mm_per_px](const scene::Label& l) {
+            const ImVec2 e = ImGui::CalcTextSize(l.text.c_str());
+            return scene::LabelSizeMm{e.x * mm_per_px, e.y * mm_per_px};
+        },
+        kLabelGapPx * mm_per_px, {scene::Box{a.cwiseMin(b), a.cwiseMax(b)}});
+}
+
 View fit_view(const ImVec2& origin, const ImVec2& size, double w_mm, double h_mm) {
     View v;
     v.origin_px = origin;
@@ -104,16 +145,27 @@ void draw_table(ImDrawList* draw, const scene::Scene& s, const View& v) {
                               p.closed ? ImDrawFlags_Closed : ImDrawFlags_None, width);
         }
     }
-    for (const scene::Label& l : s.labels)
-        if (inside(near, l.at_mm)) draw->AddText(v.to_screen(l.at_mm), col(l.colour), l.text.c_str());
-    // Legend and scale bar in the canvas's lower left corner.
-    float y = v.origin_px.y + v.size_px.y - 18.0f * (s.legend.size() + 2);
-    const float x = v.origin_px.x + 12;
+    // Labels where the placement pass puts them for this font and zoom, leader lines first.
+    const std::vector<scene::PlacedLabel> placed = place_view_labels(s, v);
+    for (size_t i = 0; i < placed.size(); ++i) {
+        const scene::Box& b = placed[i].box_mm;
+        if (!inside(near, b.min) || !inside(near, b.max)) continue;
+        if (placed[i].leader)
+            draw->AddLine(v.to_screen(placed[i].leader->first), v.to_screen(placed[i].leader->second),
+                          IM_COL32(120, 124, 132, 255), 1.0f);
+        draw->AddText(v.to_screen(Vec2(b.min.x(), b.max.y())), col(s.labels[i].colour), s.labels[i].text.c_str());
+    }
+    // Legend and scale bar in the canvas corner that hides least (legend_rect), on a light
+    // backing so that the table under it does not cross its words (labels keep out of it).
+    const ScreenRect backing = legend_rect(s, v);
+    draw->AddRectFilled(backing.min, backing.max, IM_COL32(255, 255, 255, 160), 3.0f);
+    float y = backing.min.y + 4;
+    const float x = backing.min.x + 6;
     for (const scene::LegendEntry& e : s.legend) {
         if (e.dashed) dashed_line(draw, ImVec2(x, y + 7), ImVec2(x + 30, y + 7), col(e.colour), 2.5f);
         else draw->AddLine(ImVec2(x, y + 7), ImVec2(x + 30, y + 7), col(e.colour), 2.5f);
         draw->AddText(ImVec2(x + 38, y), IM_COL32(30, 30, 40, 255), e.text.c_str());
-        y += 18;
+        y += kLegendRowPx;
     }
     // At most a few canvases long (a table of 1e-9 mm gives 1e14 px per 100 mm).
     const float bar = static_cast<float>(std::min(100 * v.px_per_mm, 4.0 * v.size_px.x));
