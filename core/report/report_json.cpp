@@ -1,5 +1,7 @@
 #include "report/report_json.hpp"
 
+#include <cmath>
+
 #include "findings/finding_json.hpp"
 #include "polarization/polarization_model.hpp"
 #include "report/report_output_format.hpp"
@@ -252,10 +254,15 @@ void to_json(json& j, const FocusingReport& f) {
 }
 
 void to_json(json& j, const ReportBeam& b) {
+    // The hits the beam's figures reach: a beam whose Gaussian parameter stopped being finite
+    // (the not-finite finding names where) is listed up to the hit before, never with a NaN.
     json elements = json::array();
-    for (size_t i = 0; i < b.path.hits.size(); ++i) {
+    for (size_t i = 0; i < b.path.hits.size() && i < b.caustic.at_hits.size(); ++i) {
         const TraceHit& h = b.path.hits[i];
         const BeamAtHit& w = b.caustic.at_hits[i];
+        if (!std::isfinite(w.radius_tangential_um) || !std::isfinite(w.radius_sagittal_um) ||
+            !std::isfinite(w.clipped_fraction) || !std::isfinite(h.s_mm))
+            break;
         elements.push_back({{"id", b.element_ids[i]},
                             {"s_mm", h.s_mm},
                             {"radius_um", planes(w.radius_tangential_um, w.radius_sagittal_um)},

@@ -10,6 +10,7 @@ of CPU and 500 MB, and writes nothing.
 
 usage: check_door_limits.py RENDEZVOUS SOURCE_DIR
 """
+import measured_run
 import os
 import signal
 import subprocess
@@ -25,22 +26,7 @@ failures = []
 
 
 def run_measured(args):
-    with tempfile.TemporaryFile() as out, tempfile.TemporaryFile() as err:
-        p = subprocess.Popen(args, stdout=out, stderr=err)
-        start = time.monotonic()
-        while True:
-            pid, status, usage = os.wait4(p.pid, os.WNOHANG)
-            if pid == p.pid:
-                break
-            if time.monotonic() - start > WALL_TIMEOUT_S:
-                p.send_signal(signal.SIGKILL)
-                os.wait4(p.pid, 0)
-                return None
-            time.sleep(0.01)
-        out.seek(0)
-        err.seek(0)
-        return (os.waitstatus_to_exitcode(status), out.read().decode("utf-8", "replace"),
-                err.read().decode("utf-8", "replace"), usage.ru_utime + usage.ru_stime, usage.ru_maxrss)
+    return measured_run.run_measured(args, WALL_TIMEOUT_S)
 
 
 def refused(label, args, expected_stderr, written=None):

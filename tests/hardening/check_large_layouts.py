@@ -15,6 +15,8 @@ fail it). With --figures it prints each run's CPU time and peak memory (docs/per
 usage: check_large_layouts.py RENDEZVOUS [--figures]
 """
 import json
+
+import measured_run
 import os
 import signal
 import subprocess
@@ -90,23 +92,12 @@ SHAPES = [("scattered", scattered), ("aim-chain", aim_chain), ("one-stage", one_
 
 
 def run_measured(args):
-    """Exit status, CPU seconds and peak memory (kB) of the child, from wait4."""
-    with tempfile.TemporaryFile() as out, tempfile.TemporaryFile() as err:
-        p = subprocess.Popen(args, stdout=out, stderr=err)
-        start = time.monotonic()
-        while True:
-            pid, status, usage = os.wait4(p.pid, os.WNOHANG)
-            if pid == p.pid:
-                break
-            if time.monotonic() - start > WALL_TIMEOUT_S:
-                p.send_signal(signal.SIGKILL)
-                os.wait4(p.pid, 0)
-                return None
-            time.sleep(0.01)
-        err.seek(0)
-        return (os.waitstatus_to_exitcode(status), usage.ru_utime + usage.ru_stime, usage.ru_maxrss,
-                err.read().decode("utf-8", "replace"))
-
+    """Exit status, CPU seconds and peak memory (kB) of the child, and its stderr."""
+    got = measured_run.run_measured(args, WALL_TIMEOUT_S)
+    if got is None:
+        return None
+    status, _, err, cpu_s, rss_kb = got
+    return status, cpu_s, rss_kb, err
 
 def main():
     rv = sys.argv[1]

@@ -15,6 +15,8 @@ Each run must
 usage: check_runaway_inputs.py RENDEZVOUS FOLDER
 """
 import json
+
+import measured_run
 import os
 import re
 import signal
@@ -56,25 +58,7 @@ failures = []
 
 
 def run_measured(args):
-    """Like run, with the child's CPU time and peak memory from wait4 (no shell, no /usr/bin/time)."""
-    out_f = tempfile.TemporaryFile()
-    err_f = tempfile.TemporaryFile()
-    p = subprocess.Popen(args, stdout=out_f, stderr=err_f)
-    start = time.monotonic()
-    while True:
-        pid, status, usage = os.wait4(p.pid, os.WNOHANG)
-        if pid == p.pid:
-            break
-        if time.monotonic() - start > WALL_TIMEOUT_S:
-            p.send_signal(signal.SIGKILL)
-            os.wait4(p.pid, 0)
-            return None
-        time.sleep(0.01)
-    code = os.waitstatus_to_exitcode(status)
-    out_f.seek(0)
-    err_f.seek(0)
-    return (code, out_f.read().decode("utf-8", "replace"), err_f.read().decode("utf-8", "replace"),
-            usage.ru_utime + usage.ru_stime, usage.ru_maxrss)
+    return measured_run.run_measured(args, WALL_TIMEOUT_S)
 
 
 def check_run(label, args, want_status=0):
