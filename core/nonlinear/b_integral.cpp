@@ -5,6 +5,7 @@
 #include <cmath>
 #include <utility>
 
+#include "units/clamped_int.hpp"
 #include "units/constants.hpp"
 
 namespace rv {
@@ -56,7 +57,9 @@ double b_integral_rad(double wavelength_nm, double n2, double i0_w_cm2, const Sl
     // near a waist inside the slab is resolved.
     const double zr = std::min(t.rayleigh_mm > 0 ? t.rayleigh_mm : length_mm,
                                s.rayleigh_mm > 0 ? s.rayleigh_mm : length_mm);
-    const int panels = std::clamp(static_cast<int>(std::ceil(length_mm / zr)), 1, 256);
+    // Clamped before the cast (units/clamped_int.hpp): L/z_R may be far beyond any int (a thick
+    // lens of ±1 µm radii; found by the pipeline fuzzer under UBSan).
+    const int panels = clamped_int(std::ceil(length_mm / zr), 1, 256);
     const double panel = length_mm / panels;
     double mean = 0;  // mean of 1/(rt rs) over the slab
     for (int p = 0; p < panels; ++p) {

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <vector>
 
+#include "units/clamped_int.hpp"
 #include "units/constants.hpp"
 
 namespace rv {
@@ -57,7 +58,7 @@ double gvm_overlap_factor(double tau1_fs, double tau2_fs, double delay_fs, doubl
     }
     // Panels over which the pulses walk a third of 1/√A (the product pulse's time scale), 8 nodes
     // each; at most 48 panels (384 nodes).
-    const int panels = std::clamp(static_cast<int>(std::ceil(3 * walk_fs * std::sqrt(A))), 1, 48);
+    const int panels = clamped_int(std::ceil(3 * walk_fs * std::sqrt(A)), 1, 48);  // no UB cast of a huge walk
     std::vector<double> z, weight, c, m;
     const double panel = length_mm / panels;
     for (int p = 0; p < panels; ++p) {

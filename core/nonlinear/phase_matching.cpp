@@ -9,7 +9,6 @@ namespace rv {
 
 namespace {
 
-constexpr double kSincHalfWidth = 5.566229;  // ΔkL at which sinc²(ΔkL/2) = 1/2, full width
 
 // n_B(ψ) and dn_B/dλ at fixed ψ: from 1/n² = c²/p² + s²/q²,
 // dn/dλ = n³ (c² p'/p³ + s² q'/q³).

@@ -30,6 +30,10 @@
 
 namespace rv {
 
+// The full width of sinc²(ΔkL/2) at half its height, in ΔkL (rad): every acceptance is this
+// over L |∂Δk/∂x| (docs/physics.md §0.1).
+inline constexpr double kSincHalfWidth = 5.566229;
+
 enum class Polarity { A, B };  // angle-independent or angle-dependent wave (see above)
 
 enum class MixingType { TypeI, TypeI_BBA, TypeII_ABB, TypeII_BAB, TypeII_ABA, TypeII_BAA };

@@ -8,7 +8,6 @@ namespace rv {
 
 namespace {
 
-constexpr double kSincHalfWidth = 5.566229;  // ΔkL at which sinc²(ΔkL/2) = 1/2, full width
 constexpr double kScanStep_c = 5.0;  // sign-change scan (Δk(T) is smooth); a root is then bisected
 
 }  // namespace

@@ -11,6 +11,7 @@
 #include <thread>
 
 #include "analysis/crystal_waves.hpp"
+#include "units/number_text.hpp"
 #include "analysis/target_summary.hpp"
 #include "solve/diameter_choice.hpp"
 #include "trace/trace.hpp"
@@ -89,7 +90,7 @@ double violation_mm(const Problem& p, const Layout& l, const std::vector<Vec2>& 
         if (d < g.min_spacing_mm) {
             v += g.min_spacing_mm - d;
             if (why && g.min_spacing_mm - d > kReportedViolation_mm)
-                why->push_back(l.elements[i].id + " is " + std::to_string(static_cast<int>(std::round(d))) +
+                why->push_back(l.elements[i].id + " is " + format_number("%.0f", d) +
                                     " mm from " + l.elements[j].id + " (less than min_spacing_mm)");
         }
     }
