@@ -138,22 +138,72 @@ TEST_CASE("the SVG opens in a real renderer and shows the beams", "[render][svg]
 TEST_CASE("the scene marks the polarization and draws the beams a cube reflects", "[scene][polarization]") {
     // The demo's cubes reflect part of each beam into a dump (drawn thinner), and each beam gets
     // a polarization mark after its half-wave plate and its cube; after a cube the light is
-    // horizontal: a bar across the beam and no dot.
+    // horizontal: a zigzag across the beam and no dot.
     const Demo d = demo();
-    size_t branches = 0, bars = 0;
+    size_t branches = 0, zigzags = 0;
+    auto same = [](const rv::scene::Colour& a, const rv::scene::Colour& b) { return a.r == b.r && a.g == b.g && a.b == b.b; };
     auto beam_coloured = [&](const rv::scene::Colour& c) {
-        for (const rv::ReportBeam& b : d.report.beams) {
-            const rv::scene::Colour bc = rv::scene::beam_style(b.wavelength_nm).colour;
-            if (bc.r == c.r && bc.g == c.g && bc.b == c.b) return true;
-        }
+        for (const rv::ReportBeam& b : d.report.beams)
+            if (same(rv::scene::beam_style(b.wavelength_nm).colour, c)) return true;
         return false;
     };
     for (const rv::scene::Polyline& p : d.scene.shapes) {
         branches += p.dashed && p.width_mm == 0.4 && beam_coloured(p.colour);
-        bars += !p.dashed && p.width_mm == 1.0 && p.points_mm.size() == 2 && p.colour.r == 60;
+        if (!same(p.colour, rv::scene::kPolarizationInk)) continue;
+        // A mark is never a straight stroke (which a lens or a mirror is): a zigzag of seven
+        // corners, a ring or a dot.
+        CHECK(p.points_mm.size() > 2);
+        zigzags += !p.closed && p.points_mm.size() == 7;
     }
     CHECK(branches == 2);
-    CHECK(bars >= 4);  // after each source, plate and cube, and before the target, for two beams
+    CHECK(zigzags >= 4);  // after each source, plate and cube, and before the target, for two beams
+}
+
+TEST_CASE("polarization marks cannot be mistaken for optics: no symbol uses their ink", "[scene][polarization]") {
+    for (const char* name : {"sfg-bbo.json", "shg-single.json", "two-beam-microscope.json", "pump-probe.json"}) {
+        CAPTURE(name);
+        const Demo d = demo(name);
+        rv::RendezvousReport no_beams = d.report;
+        no_beams.beams.clear();  // the optics' symbols alone
+        for (const rv::scene::Polyline& p : rv::scene::build_scene(d.layout, no_beams).shapes)
+            CHECK_FALSE((p.colour.r == rv::scene::kPolarizationInk.r && p.colour.g == rv::scene::kPolarizationInk.g &&
+                         p.colour.b == rv::scene::kPolarizationInk.b));
+    }
+}
+
+TEST_CASE("a stage's travel shows its present and zero-delay positions", "[scene][stage]") {
+    // The demo's stage S1 carries RR along axis_deg; the report's zero-delay position is where
+    // the ring labelled "0 fs" sits, at (zero − position) along the axis from the bar across
+    // the travel that marks the present position.
+    auto marks = [](const Demo& d) {
+        REQUIRE(d.report.stage);
+        const rv::scene::Label* zero = nullptr;
+        for (const rv::scene::Label& l : d.scene.labels)
+            if (l.text == "0 fs") zero = &l;
+        REQUIRE(zero != nullptr);
+        const rv::scene::Polyline* bar = nullptr;  // the present position: a solid 2-point stroke in the stage's grey
+        for (const rv::scene::Polyline& p : d.scene.shapes)
+            if (!p.dashed && p.points_mm.size() == 2 && p.width_mm == 0.8 && p.colour.r == 120 && p.colour.b == 130) bar = &p;
+        REQUIRE(bar != nullptr);
+        return std::make_pair(*zero, 0.5 * (bar->points_mm[0] + bar->points_mm[1]));
+    };
+    Demo d = demo();
+    const auto [zero, present] = marks(d);
+    const rv::Stage& s = std::get<rv::Stage>(d.layout.find("S1")->kind);
+    const rv::Vec2 axis(std::cos(s.axis_deg * M_PI / 180), std::sin(s.axis_deg * M_PI / 180));
+    const rv::Vec2 expected = present + (d.report.stage->zero_delay_mm - s.position_mm) * axis;
+    CHECK_THAT(zero.anchor_mm.x(), WithinAbs(expected.x(), 1e-9));
+    CHECK_THAT(zero.anchor_mm.y(), WithinAbs(expected.y(), 1e-9));
+    CHECK(d.report.stage->zero_in_travel == (zero.colour.r == 120));
+    // Moved to its zero-delay position, the ring sits on the bar.
+    const double zero_mm = d.report.stage->zero_delay_mm;
+    Demo moved = d;
+    for (rv::Element& e : moved.layout.elements)
+        if (e.id == "S1") std::get<rv::Stage>(e.kind).position_mm = zero_mm;
+    moved.report = rv::build_report(moved.layout, rv::material_library_for(moved.layout));
+    moved.scene = rv::scene::build_scene(moved.layout, moved.report);
+    const auto [zero_moved, present_moved] = marks(moved);
+    CHECK((zero_moved.anchor_mm - present_moved).norm() < 1e-6);
 }
 
 TEST_CASE("the rendered demo matches its golden image", "[render][golden]") {

@@ -132,12 +132,14 @@ void add_envelope(Scene& s, const ReportBeam& b, Colour colour, double exaggerat
     }
 }
 
-// A small mark of the polarization at a point of a beam seen from above: a bar across the beam
-// for the part in the table plane, a dot for the vertical part, a ring for circular light.
+// A small mark of the polarization at a point of a beam seen from above, in its own ink
+// (kPolarizationInk, used by no optic) and never a straight stroke, so it cannot be taken for a
+// lens or a mirror: a zigzag across the beam for the part in the table plane (the field swinging
+// side to side), a dot for the vertical part, a ring for circular light.
 void add_glyph(Scene& s, const Vec2& at, const Vec2& direction, const Stokes& stokes) {
     const PolarizationState p = describe(stokes);
     if (!(p.power > 1e-6)) return;
-    const Colour c{60, 60, 70, 255};
+    const Colour c = kPolarizationInk;
     if (!p.azimuth_deg || std::abs(p.ellipticity_deg) > 20) {  // unpolarized, circular or nearly
         s.shapes.push_back(circle(at, 4.0, c, 0.6));
         return;
@@ -145,8 +147,12 @@ void add_glyph(Scene& s, const Vec2& at, const Vec2& direction, const Stokes& st
     const double psi = deg_to_rad(*p.azimuth_deg);
     const Vec2 across = perpendicular(direction);
     if (std::abs(std::cos(psi)) > 0.15) {
-        const double h = 8.0 * std::abs(std::cos(psi));
-        s.shapes.push_back(line({at - h * across, at + h * across}, c, 1.0));
+        const double h = 7.0 * std::abs(std::cos(psi));
+        constexpr int kTeeth = 6;  // zigzag corners alternate ±1.2 mm along the beam
+        Polyline zigzag = line({}, c, 0.6);
+        for (int k = 0; k <= kTeeth; ++k)
+            zigzag.points_mm.push_back(at + (-h + 2 * h * k / kTeeth) * across + (k % 2 ? 1.2 : -1.2) * direction);
+        s.shapes.push_back(std::move(zigzag));
     }
     if (std::abs(std::sin(psi)) > 0.15) {
         Polyline dot = circle(at, 2.5 * std::abs(std::sin(psi)), c, 0.4);
@@ -173,6 +179,25 @@ void add_polarization_glyphs(Scene& s, const Layout& layout, const ReportBeam& b
         const TraceHit& t = path.hits[*path.target_hit];
         add_glyph(s, t.point_mm - 14.0 * t.direction_in, t.direction_in, b.power.at_target);
     }
+}
+
+// A stage's travel beside an optic it carries: a dashed line over the whole travel, a bar
+// across it at the present position and, for the delay stage, a ring at the zero-delay position
+// (in the marker's red when that lies outside the travel), labelled "0 fs".
+void add_stage_travel(Scene& s, const Stage& st, const std::string& id, const Element& carried, const ElementPose& pose,
+                      const StageReport* delay) {
+    const Vec2 axis = direction_deg(st.axis_deg), side = perpendicular(axis);
+    const Vec2 at = pose.at_mm + side * (carried.aperture_mm / 2 + 8);  // the present position
+    auto along = [&](double position_mm) { return at + (position_mm - st.position_mm) * axis; };
+    s.shapes.push_back(line({along(st.travel_min_mm), along(st.travel_max_mm)}, kStage, 0.6, true));
+    s.shapes.push_back(line({at - 2.5 * side, at + 2.5 * side}, kStage, 0.8));
+    const Vec2 middle = along((st.travel_min_mm + st.travel_max_mm) / 2);
+    s.labels.push_back({middle + 3 * side, id, kStage, 4, middle, 1});
+    if (!delay || !std::isfinite(delay->zero_delay_mm)) return;
+    const Vec2 zero = along(delay->zero_delay_mm);
+    const Colour ink = delay->zero_in_travel ? kStage : kMarker;
+    s.shapes.push_back(circle(zero, 1.8, ink, 0.5));
+    s.labels.push_back({zero - 4 * side, "0 fs", ink, 4, zero, 2.3});
 }
 
 std::string nm_text(double nm) {
@@ -218,16 +243,10 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
     for (size_t i = 0; i < layout.elements.size(); ++i) {
         const Element& e = layout.elements[i];
         if (const auto* st = std::get_if<Stage>(&e.kind)) {
-            const Vec2 axis = direction_deg(st->axis_deg);
+            const StageReport* delay = report.stage && report.stage->id == e.id ? &*report.stage : nullptr;
             for (const std::string& id : st->carries)
-                for (size_t j = 0; j < layout.elements.size(); ++j)
-                    if (layout.elements[j].id == id) {
-                        const Vec2 at = poses[j].at_mm + Vec2(-axis.y(), axis.x()) * (layout.elements[j].aperture_mm / 2 + 8);
-                        s.shapes.push_back(line({at + (st->travel_min_mm - st->position_mm) * axis,
-                                                 at + (st->travel_max_mm - st->position_mm) * axis}, kStage, 0.6, true));
-                        const Vec2 middle = at + ((st->travel_min_mm + st->travel_max_mm) / 2 - st->position_mm) * axis;
-                        s.labels.push_back({middle + 3 * Vec2(-axis.y(), axis.x()), e.id, kStage, 4, middle, 1});
-                    }
+                if (const Element* carried = layout.find(id))
+                    add_stage_travel(s, *st, e.id, *carried, poses[static_cast<size_t>(carried - layout.elements.data())], delay);
             continue;
         }
         add_element(s, e, poses[i]);
@@ -266,7 +285,8 @@ Scene build_scene(const Layout& layout, const RendezvousReport& report, const Sc
                 s.labels.push_back({f.where_mm + Vec2(7, 7), "!", kMarker, 6, f.where_mm, 6.5});
             }
     }
-    if (!report.beams.empty()) s.legend.push_back({"polarization: bar = in the table plane, dot = vertical, ring = circular", {60, 60, 70, 255}, false});
+    if (!report.beams.empty())
+        s.legend.push_back({"polarization: zigzag = in the table plane, dot = vertical, ring = circular", kPolarizationInk, false});
     size_t generated = report.beams.size();
     for (const PhaseMatchingReport& p : report.phase_matching)
         if (legend_lists_generated(report, p)) {

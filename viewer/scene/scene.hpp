@@ -58,6 +58,9 @@ struct Scene {
     double envelope_exaggeration = 20;  // the drawn half-width is w(s) × this factor
 };
 
+// The ink of the polarization marks, which no optic's symbol uses.
+inline constexpr Colour kPolarizationInk{150, 50, 170, 255};
+
 // The most holes a scene lists (a 12.5 m square table on a 25 mm grid): beyond it the grid
 // is not drawn, so that neither the scene nor its SVG grows with the table's area unbounded.
 inline constexpr long long kMaxDrawnHoles = 250'000;

@@ -171,4 +171,37 @@ void draw_timing_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const Layout
     draw->AddText(ImVec2(x0, ay + 18), ink, "broken");
 }
 
+std::string unit_of_key(const std::string& key) {
+    const std::string name = key.substr(0, key.find('['));
+    static const std::pair<const char*, const char*> kUnits[] = {
+        {"_mm", "mm"}, {"_um", "µm"}, {"_nm", "nm"}, {"_fs", "fs"}, {"_deg", "°"}, {"_c", "°C"},
+        {"_mw", "mW"}, {"_uj", "µJ"}, {"_khz", "kHz"}, {"_gw_cm2", "GW/cm²"}, {"_j_cm2", "J/cm²"}};
+    for (const auto& [suffix, unit] : kUnits) {
+        const std::string s = suffix;
+        if (name.size() > s.size() && name.compare(name.size() - s.size(), s.size(), s) == 0) return unit;
+    }
+    return "";
+}
+
+void draw_sweep_plot(ImDrawList* draw, ImVec2 origin, ImVec2 size, const SweepCurves& c) {
+    const std::string key = c.field.substr(c.field.find('.') + 1), unit = unit_of_key(key);
+    const std::string x_label = c.field + (unit.empty() ? "" : " / " + unit);
+    if (c.values.size() < 2 || !(c.values.back() != c.values.front())) {
+        draw_axes(draw, origin, size, 0, 1, 0, 1, x_label, "", "Sweep: no values");
+        return;
+    }
+    const double lo = std::min(c.values.front(), c.values.back()), hi = std::max(c.values.front(), c.values.back());
+    const PlotAxes a = draw_axes(draw, origin, size, lo, hi, 0, 1.05, x_label, "0 to 1",
+                                 "Sweep: overlap (blue), sinc² (orange)");
+    const ImU32 ink[2] = {IM_COL32(40, 90, 200, 255), IM_COL32(230, 120, 0, 255)};
+    const std::vector<double>* curves[2] = {&c.overlap, &c.sinc2};
+    draw->PushClipRect(a.min_px, a.max_px, true);
+    for (int k = 0; k < 2; ++k) {
+        std::vector<ImVec2> pts;
+        for (size_t i = 0; i < c.values.size() && i < curves[k]->size(); ++i) pts.push_back(a.to_screen(c.values[i], (*curves[k])[i]));
+        draw->AddPolyline(pts.data(), static_cast<int>(pts.size()), ink[k], ImDrawFlags_None, 2.0f);
+    }
+    draw->PopClipRect();
+}
+
 }  // namespace rv::ui

@@ -2,6 +2,9 @@
 
 #include <imgui.h>
 
+#include <optional>
+#include <string>
+
 #include "polarization/polarization_model.hpp"
 #include "report/report_words.hpp"
 #include "report/safety_cautions.hpp"
@@ -29,23 +32,34 @@ void verdict_line(const char* name, const VerdictLine& l) {
     ImGui::Spacing();
 }
 
+// Text in a table cell wraps at the cell's edge instead of running under the next column.
+void cell_text(const std::string& text, std::optional<ImVec4> colour = std::nullopt) {
+    if (colour) ImGui::PushStyleColor(ImGuiCol_Text, *colour);
+    ImGui::TextWrapped("%s", text.c_str());
+    if (colour) ImGui::PopStyleColor();
+}
+
+// Stretched columns sized by their headers' weights: the long first column (figure or beam
+// names) wraps within its share of the panel.
+constexpr ImGuiTableFlags kTableFlags = ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg | ImGuiTableFlags_SizingStretchProp;
+
 void figures_table(const Verdict& v) {
-    if (v.figures.empty() || !ImGui::BeginTable("figures", 3, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) return;
-    ImGui::TableSetupColumn("figure");
-    ImGui::TableSetupColumn("value");
-    ImGui::TableSetupColumn("limit");
+    if (v.figures.empty() || !ImGui::BeginTable("figures", 3, kTableFlags)) return;
+    ImGui::TableSetupColumn("figure", ImGuiTableColumnFlags_WidthStretch, 2.0f);
+    ImGui::TableSetupColumn("value", ImGuiTableColumnFlags_WidthStretch, 1.0f);
+    ImGui::TableSetupColumn("limit", ImGuiTableColumnFlags_WidthStretch, 1.0f);
     ImGui::TableHeadersRow();
     for (const VerdictFigure& f : v.figures) {
         ImGui::TableNextRow();
         ImGui::TableNextColumn();
         using S = VerdictFigure::State;
         const ImVec4 c = f.state == S::Met ? kMet : f.state == S::Near ? kNear : kNotMet;
-        ImGui::TextColored(c, "%s %s", f.state == S::Met ? "met" : f.state == S::Near ? "near" : "NOT", f.name.c_str());
+        cell_text(std::string(f.state == S::Met ? "met " : f.state == S::Near ? "near " : "NOT ") + f.name, c);
         if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", f.definition.c_str());
         ImGui::TableNextColumn();
-        ImGui::Text("%.3g", f.value);
+        cell_text(format_number("%.3g", f.value));
         ImGui::TableNextColumn();
-        ImGui::Text("%s %.3g", f.is_minimum ? ">=" : "<=", f.limit);
+        cell_text(format_number(f.is_minimum ? ">= %.3g" : "<= %.3g", f.limit));
     }
     ImGui::EndTable();
 }
@@ -64,8 +78,8 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
     ImGui::Spacing();
     ImGui::TextUnformatted("At the target");
     ImGui::Separator();
-    if (ImGui::BeginTable("beams", 4, ImGuiTableFlags_Borders | ImGuiTableFlags_RowBg)) {
-        ImGui::TableSetupColumn("beam");
+    if (ImGui::BeginTable("beams", 4, kTableFlags)) {
+        ImGui::TableSetupColumn("beam", ImGuiTableColumnFlags_WidthStretch, 2.0f);
         ImGui::TableSetupColumn("waist µm");
         ImGui::TableSetupColumn("offset mm");
         ImGui::TableSetupColumn("z_R mm");
@@ -73,7 +87,7 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
         for (const ReportBeam& b : r.beams) {
             ImGui::TableNextRow();
             ImGui::TableNextColumn();
-            ImGui::Text("%s (%.0f nm)", b.id.c_str(), b.wavelength_nm);
+            cell_text(b.id + format_number(" (%.0f nm)", b.wavelength_nm));
             if (!b.at_target.reached) {
                 ImGui::TableNextColumn();
                 ImGui::TextUnformatted("misses");
@@ -125,14 +139,21 @@ void draw_report_panel(const RendezvousReport& r, const Layout& layout, std::opt
             const Finding& f = r.findings[k];
             const std::string line = finding_line(f);
             ImGui::PushID(static_cast<int>(k));
-            ImGui::PushTextWrapPos(0);
-            if (ImGui::Selectable(("[" + std::string(finding_code(f.kind)) + "] " + line).c_str(), false) && select &&
-                !f.element.empty())
-                for (size_t i = 0; i < layout.elements.size(); ++i)
-                    if (layout.elements[i].id == f.element) *select = i;
-            if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", line.c_str());
+            // A selectable row as tall as the finding's text wrapped to the panel (a Selectable's
+            // own label does not wrap), with the text drawn over it.
+            const std::string text = "[" + std::string(finding_code(f.kind)) + "] " + line;
+            const float wrap_px = ImGui::GetContentRegionAvail().x;
+            const ImVec2 row = ImGui::CalcTextSize(text.c_str(), nullptr, false, wrap_px);
+            const ImVec2 top = ImGui::GetCursorScreenPos();
+            const bool clicked = ImGui::Selectable("##finding", false, ImGuiSelectableFlags_None, ImVec2(0, row.y));
+            if (clicked && select) {
+                if (const Element* e = layout.find(f.element)) *select = static_cast<size_t>(e - layout.elements.data());
+            }
             if (finding_rects) finding_rects->emplace_back(ImGui::GetItemRectMin(), ImGui::GetItemRectMax());
-            ImGui::PopTextWrapPos();
+            const ImVec2 after = ImGui::GetCursorScreenPos();
+            ImGui::GetWindowDrawList()->AddText(ImGui::GetFont(), ImGui::GetFontSize(), top, ImGui::GetColorU32(ImGuiCol_Text),
+                                                text.c_str(), nullptr, wrap_px);
+            ImGui::SetCursorScreenPos(after);
             ImGui::PopID();
         }
     }

@@ -1,5 +1,7 @@
 #include "ui/tools_panel.hpp"
 
+#include <algorithm>
+
 #include <imgui.h>
 
 #include "analysis/balance.hpp"
@@ -109,25 +111,23 @@ void sweep_section(edit::Document& doc, ToolsState& st) {
     if (ImGui::Button("Sweep 41 values")) {
         const std::string spec = st.sweep_field;
         const size_t dot = spec.find('.');
-        st.sweep_overlap.clear();
-        st.sweep_phase.clear();
+        st.sweep = SweepCurves{spec, {}, {}, {}};
         if (dot == std::string::npos) {
             st.message = "expected ID.FIELD, such as S1.position_mm";
         } else {
             const SweepResult r = sweep_field(doc.layout(), spec.substr(0, dot), spec.substr(dot + 1), st.sweep_from, st.sweep_to, 41);
             if (!r.diagnostics.empty()) st.message = format_diagnostic(r.diagnostics.front(), "sweep");
             for (const SweepPoint& p : r.points) {
-                st.sweep_overlap.push_back(p.report.overlap ? static_cast<float>(p.report.overlap->combined) : 0.0f);
-                st.sweep_phase.push_back(p.report.phase_matching.empty() ? 0.0f
-                                                                         : static_cast<float>(p.report.phase_matching.front().sinc2_now));
+                st.sweep.values.push_back(p.value);
+                st.sweep.overlap.push_back(p.report.overlap ? p.report.overlap->combined : 0.0);
+                st.sweep.sinc2.push_back(p.report.phase_matching.empty() ? 0.0 : p.report.phase_matching.front().sinc2_now);
             }
         }
     }
-    if (!st.sweep_overlap.empty()) {
-        ImGui::PlotLines("overlap", st.sweep_overlap.data(), static_cast<int>(st.sweep_overlap.size()), 0, nullptr, 0, 1,
-                         ImVec2(0, 60));
-        ImGui::PlotLines("sinc²", st.sweep_phase.data(), static_cast<int>(st.sweep_phase.size()), 0, nullptr, 0, 1,
-                         ImVec2(0, 60));
+    if (!st.sweep.values.empty()) {
+        const ImVec2 size(std::max(ImGui::GetContentRegionAvail().x, 240.0f), 170);
+        draw_sweep_plot(ImGui::GetWindowDrawList(), ImGui::GetCursorScreenPos(), size, st.sweep);
+        ImGui::Dummy(size);
     }
 }
 

@@ -11,6 +11,7 @@
 #include "solve/solve_outcome.hpp"
 #include "solve/telescope.hpp"
 #include "solve/tolerance.hpp"
+#include "ui/plots.hpp"
 
 namespace rv::ui {
 
@@ -30,7 +31,7 @@ struct ToolsState {
     std::optional<ToleranceReport> tolerance;
     char sweep_field[64] = "S1.position_mm";
     double sweep_from = 0, sweep_to = 40;
-    std::vector<float> sweep_overlap, sweep_phase;
+    SweepCurves sweep;  // the last sweep's figures (empty before one)
     std::string message;
 };
 
