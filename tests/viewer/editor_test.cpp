@@ -19,6 +19,7 @@
 #include "ui/frame.hpp"
 #include "ui/help_window.hpp"
 #include "ui/input_queue.hpp"
+#include "ui/file_dialog.hpp"
 #include "ui/keys.hpp"
 #include "ui/shortcuts.hpp"
 #include "viewer/viewer_session.hpp"
@@ -401,7 +402,9 @@ TEST_CASE("a click and a key press shorter than a frame both take effect through
     q.push(rv::ui::InputEvent::button(0, false));
     q.push(rv::ui::InputEvent::key(rv::ui::keys::kDelete, true));
     q.push(rv::ui::InputEvent::key(rv::ui::keys::kDelete, false));
-    CHECK(q.apply_frame(ImGui::GetIO()) == 2);  // the release waits: one transition per frame
+    CHECK(q.apply_frame(ImGui::GetIO()) == 1);  // the press waits for the frame after the move
+    s.frame();
+    CHECK(q.apply_frame(ImGui::GetIO()) == 1);  // the release waits: one transition per frame
     s.frame();
     for (int k = 0; k < 5 && !q.empty(); ++k) {
         q.apply_frame(ImGui::GetIO());
@@ -410,6 +413,76 @@ TEST_CASE("a click and a key press shorter than a frame both take effect through
     CHECK(q.empty());
     CHECK(doc.layout().elements.size() == n - 1);
     CHECK(s.state.last_action == rv::ui::Action::Delete);
+}
+
+TEST_CASE("a drag quicker than a frame is seen moving with the button down", "[viewer][input]") {
+    // A flick: the press, the moves and the release all queued between two frames. Applied as
+    // the press in one frame and the moves with the release in the next, the frame saw the
+    // button already up and the lens stayed where the drag began (checked by removing the rule).
+    // Now a button after a move waits a frame, and the lens lands where the slow drag puts it.
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    const size_t l2 = index_of(doc.layout(), "L2_S");
+    const ImVec2 from = s.screen_of("L2_S");
+    const float dx = static_cast<float>(63 * s.state.last_view.px_per_mm);
+    rv::ui::InputQueue q;
+    q.push(rv::ui::InputEvent::cursor(from.x, from.y));
+    q.apply_frame(ImGui::GetIO());
+    s.frame();
+    q.push(rv::ui::InputEvent::button(0, true));
+    for (int k = 1; k <= 8; ++k) q.push(rv::ui::InputEvent::cursor(from.x + dx * k / 8, from.y));
+    q.push(rv::ui::InputEvent::button(0, false));
+    for (int k = 0; k < 6 && !q.empty(); ++k) {
+        q.apply_frame(ImGui::GetIO());
+        s.frame();
+    }
+    CHECK(q.empty());
+    CHECK(doc.layout().elements[l2].at_mm.x() == 362.5);  // as the slow drag of the test above
+    CHECK(doc.layout().elements[l2].at_mm.y() == 512.5);
+}
+
+TEST_CASE("a modifier released in the same frame as its key still modifies it", "[viewer][input]") {
+    // Found by the scripted window run (tests/viewer/scripted_run.py): xdotool's quick Ctrl+A
+    // arrived as Ctrl down | A down, Ctrl up, A up, and the frame that applied "A down" and
+    // "Ctrl up" together saw a plain A; in the file dialog's path field that typed nothing
+    // instead of selecting the folder already there. Now Ctrl's release waits for the frame after.
+    rv::ui::InputQueue q;
+    ImGuiIO io;
+    const int a = rv::ui::keys::kA, ctrl = rv::ui::keys::kLeftControl;
+    q.push(rv::ui::InputEvent::key(ctrl, true));
+    CHECK(q.apply_frame(io) == 1);
+    q.push(rv::ui::InputEvent::key(a, true));
+    q.push(rv::ui::InputEvent::key(ctrl, false));
+    q.push(rv::ui::InputEvent::key(a, false));
+    CHECK(q.apply_frame(io) == 1);  // A down, with Ctrl still down
+    CHECK(io.KeysDown[a]);
+    CHECK(io.KeyCtrl);
+    q.apply_frame(io);
+    CHECK_FALSE(io.KeyCtrl);
+    // A modifier pressed after a key in one frame waits too: A stays a plain A.
+    rv::ui::InputQueue plain;
+    ImGuiIO io2;
+    plain.push(rv::ui::InputEvent::key(a, true));
+    plain.push(rv::ui::InputEvent::key(ctrl, true));
+    CHECK(plain.apply_frame(io2) == 1);
+    CHECK_FALSE(io2.KeyCtrl);
+    // Through the window's frame: a quick Ctrl+A in the dialog's path field selects what is
+    // there, so the path typed next replaces it.
+    rv::edit::Document doc(demo());
+    Session s(doc);
+    rv::ui::show_file_dialog(s.state.file_dialog, rv::ui::FileDialogState::Mode::Open, "/some/folder");
+    s.settle();
+    REQUIRE(ImGui::GetIO().WantTextInput);
+    rv::ui::InputQueue typed;
+    for (const rv::ui::InputEvent& e : {rv::ui::InputEvent::key(ctrl, true), rv::ui::InputEvent::key(a, true),
+                                        rv::ui::InputEvent::key(ctrl, false), rv::ui::InputEvent::key(a, false),
+                                        rv::ui::InputEvent::character('x')})
+        typed.push(e);
+    for (int k = 0; k < 6; ++k) {
+        typed.apply_frame(ImGui::GetIO());
+        s.frame();
+    }
+    CHECK(std::string(s.state.file_dialog.path) == "x");
 }
 
 TEST_CASE("every shortcut of the table is dispatched and listed in the help", "[viewer][help]") {

@@ -12,6 +12,11 @@
 #include <filesystem>
 #include <fstream>
 #include <memory>
+#include <set>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
 #include <sstream>
 
 #include "analysis/breadboard_holes.hpp"
@@ -25,6 +30,7 @@
 #include "materials/material_library.hpp"
 #include "ui/actions.hpp"
 #include "ui/add_menu.hpp"
+#include "ui/editor.hpp"
 #include "ui/file_dialog.hpp"
 #include "ui/keys.hpp"
 #include "ui/status_bar.hpp"
@@ -528,6 +534,92 @@ TEST_CASE("Shift+A opens the Add menu at the cursor and Ctrl+O the Open dialog",
     s.key(rv::ui::keys::kO, true);
     CHECK(s.state.file_dialog.visible);
     CHECK(s.state.file_dialog.mode == rv::ui::FileDialogState::Mode::Open);
+}
+
+namespace {
+// One line of tests/viewer/add_by_keys.txt: what it adds and the keys that add it.
+struct KeyedChoice {
+    std::string type, must_hold, line;
+    std::vector<std::string> keys;  // Down, Up, Right, Space, repeats spelt out
+};
+std::vector<KeyedChoice> keyed_choices() {
+    std::ifstream in(RV_SOURCE_DIR "/tests/viewer/add_by_keys.txt");
+    std::vector<KeyedChoice> out;
+    for (std::string line; std::getline(in, line);) {
+        if (line.empty() || line[0] == '#') continue;
+        const size_t colon = line.find(':');
+        REQUIRE(colon != std::string::npos);
+        KeyedChoice c;
+        c.line = line;
+        std::istringstream what(line.substr(0, colon)), keys(line.substr(colon + 1));
+        what >> c.type >> c.must_hold;
+        for (std::string k; keys >> k;) {
+            const size_t star = k.find('*');
+            const int times = star == std::string::npos ? 1 : std::stoi(k.substr(star + 1));
+            for (int t = 0; t < times; ++t) c.keys.push_back(k.substr(0, star));
+        }
+        out.push_back(c);
+    }
+    return out;
+}
+int key_index(const std::string& name) {
+    if (name == "Down") return ImGui::GetKeyIndex(ImGuiKey_DownArrow);
+    if (name == "Up") return ImGui::GetKeyIndex(ImGuiKey_UpArrow);
+    if (name == "Right") return ImGui::GetKeyIndex(ImGuiKey_RightArrow);
+    if (name == "Space") return ImGui::GetKeyIndex(ImGuiKey_Space);
+    FAIL("unknown key " << name);
+    return 0;
+}
+}  // namespace
+
+TEST_CASE("the Add menu is worked by the keyboard: each line of add_by_keys.txt adds its kind", "[viewer][files][nav]") {
+    const rv::Layout start = *rv::read_layout_file(RV_SOURCE_DIR "/layouts/shg-single.json").layout;
+    rv::edit::Document doc(start);
+    Session s(doc);
+    std::ifstream catalog(RV_SOURCE_DIR "/layouts/lenses.json");
+    s.state.tools.catalog = rv::parse_lens_catalog(std::string(std::istreambuf_iterator<char>(catalog), {}),
+                                                   rv::material_library_for(start)).lenses;
+    REQUIRE_FALSE(s.state.tools.catalog.empty());
+    const std::vector<KeyedChoice> choices = keyed_choices();
+    REQUIRE(choices.size() == 16);
+    std::set<std::string> types;
+    for (const KeyedChoice& c : choices) {
+        CAPTURE(c.line);
+        const size_t elements = doc.layout().elements.size(), beams = doc.layout().beams.size();
+        s.mouse(s.state.last_view.to_screen(rv::Vec2(450, 60)), false);  // an empty corner of the table
+        s.key(rv::ui::keys::kA, false, true);
+        s.settle();
+        for (const std::string& k : c.keys) s.key(key_index(k));
+        s.settle();
+        CHECK_FALSE(s.state.add_here_mm.has_value());  // the menu closed
+        if (c.type == "beam") {
+            CHECK(doc.layout().beams.size() == beams + 1);
+            continue;
+        }
+        REQUIRE(doc.layout().elements.size() == elements + 1);
+        // At the cursor, which has not moved since the first line (keys alone worked the menu).
+        if (c.type != "stage")
+            CHECK((doc.layout().elements.back().at_mm - rv::ui::snapped_to_hole(start.table, rv::Vec2(450, 60))).norm() < 1e-9);
+        const nlohmann::json added = nlohmann::json::parse(rv::write_layout(doc.layout()))["elements"].back();
+        CHECK(added["type"] == c.type);
+        types.insert(c.type);
+        if (c.must_hold.empty()) continue;
+        const size_t eq = c.must_hold.find('=');
+        if (c.must_hold[0] == '-') CHECK_FALSE(added.contains(c.must_hold.substr(1)));
+        else if (eq == std::string::npos) CHECK(added.contains(c.must_hold));
+        else CHECK(added.value(c.must_hold.substr(0, eq), std::string()) == c.must_hold.substr(eq + 1));
+    }
+    // Every element kind the reader knows is among them.
+    for (const std::string& type : rv::element_type_names()) CHECK(types.count(type) == 1);
+    // And the mouse works the table again: a drag from there moves one optic onto a hole.
+    const rv::Layout before_drag = doc.layout();
+    const ImVec2 at = s.state.last_view.to_screen(rv::Vec2(450, 60));
+    s.mouse(ImVec2(at.x + 40, at.y + 30), false);
+    s.drag(at, ImVec2(at.x - 72, at.y - 56));
+    s.settle();
+    size_t moved = 0;
+    for (size_t i = 0; i < before_drag.elements.size(); ++i) moved += doc.layout().elements[i].at_mm != before_drag.elements[i].at_mm;
+    CHECK(moved == 1);
 }
 
 TEST_CASE("Save of a new layout without a file asks for one", "[viewer][files]") {

@@ -18,6 +18,7 @@
 #include "scene/svg_writer.hpp"
 #include "scene/wavelength_colour.hpp"
 #include "ui/plot_axes.hpp"
+#include "ui/plots.hpp"
 
 using Catch::Matchers::WithinAbs;
 
@@ -268,6 +269,28 @@ TEST_CASE("a segment is clipped to a box in doubles", "[scene][hardening]") {
     CHECK_FALSE(rv::scene::clip_segment(Vec2(20, 20), Vec2(30, 40), box));
     CHECK_FALSE(rv::scene::clip_segment(Vec2(5, 5), Vec2(std::nan(""), 5), box));
     CHECK_FALSE(rv::scene::clip_segment(Vec2(-1.7e308, 5), Vec2(1.7e308, 5), box));  // length overflows
+}
+
+TEST_CASE("a sweep's x axis takes its unit from the key's suffix", "[scene][plots]") {
+    CHECK(rv::ui::unit_of_key("position_mm") == "mm");
+    CHECK(rv::ui::unit_of_key("at_mm[1]") == "mm");
+    CHECK(rv::ui::unit_of_key("waist_um[0]") == "µm");
+    CHECK(rv::ui::unit_of_key("normal_deg") == "°");
+    CHECK(rv::ui::unit_of_key("temperature_c") == "°C");
+    CHECK(rv::ui::unit_of_key("pulse_fwhm_fs") == "fs");
+    CHECK(rv::ui::unit_of_key("m2").empty());
+    CHECK(rv::ui::unit_of_key("_mm").empty());  // a suffix alone names no field
+    // Drawn in a headless frame, it fills the draw list.
+    const rv::render::HeadlessContext context(400, 300);
+    ImGui::NewFrame();
+    ImGui::Begin("sweep");
+    rv::ui::SweepCurves curves{"S1.position_mm", {0, 10, 20}, {0.1, 0.9, 0.2}, {1, 1, 1}};
+    ImDrawList* draw = ImGui::GetWindowDrawList();
+    const int before = draw->VtxBuffer.Size;
+    rv::ui::draw_sweep_plot(draw, ImVec2(10, 10), ImVec2(300, 170), curves);
+    CHECK(draw->VtxBuffer.Size > before);
+    ImGui::End();
+    ImGui::Render();
 }
 
 TEST_CASE("plot ticks are counted before they are placed", "[scene][hardening]") {

@@ -20,6 +20,8 @@ void configure_context(Texture& font) {
     ImGuiIO& io = ImGui::GetIO();
     io.IniFilename = nullptr;
     io.BackendFlags |= ImGuiBackendFlags_RendererHasVtxOffset;
+    // Menus, popups and dialogs answer the arrow keys, Space and Enter as well as the mouse.
+    io.ConfigFlags |= ImGuiConfigFlags_NavEnableKeyboard;
     ImGui::StyleColorsLight();
     ImGui::GetStyle().AntiAliasedLinesUseTex = false;  // lines as polygons: no bilinear sampling needed
     // GLFW's key codes as key indices, as the GLFW backend sets them (ui/keys.hpp), so that a

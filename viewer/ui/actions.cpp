@@ -54,7 +54,10 @@ void perform(Action action, ViewerState& st) {
     case Action::SaveAs:
         show_file_dialog(st.file_dialog, FileDialogState::Mode::SaveAs, doc.path() ? doc.path()->string() : "");
         break;
-    case Action::AddHere: st.add_here_mm = st.cursor_mm.value_or(st.last_view.centre_mm); break;
+    case Action::AddHere:
+        st.add_here_mm = st.cursor_mm.value_or(st.last_view.centre_mm);
+        st.add_here_shown = false;  // (again) at the cursor
+        break;
     case Action::Quit: request_quit(st); break;
     case Action::RotateForward: rotate_selected(doc, ed, 15.0); break;
     case Action::RotateBack: rotate_selected(doc, ed, -15.0); break;

@@ -15,18 +15,20 @@ bool is_singlet(const CatalogLens& c) {
                       c.lens.model);
 }
 
-// The choices, each adding at `at` (a stage carries; it has no place of its own).
-void draw_add_items(ViewerState& st, const Vec2& at) {
+// The choices, each adding at `at` (a stage carries; it has no place of its own); true once one
+// is chosen.
+bool draw_add_items(ViewerState& st, const Vec2& at) {
+    bool chosen = false;
     edit::Document& doc = *st.doc;
     std::string kind_before;
     for (edit::NewElementChoice& c : edit::new_element_choices(doc.layout())) {
         if (!kind_before.empty() && c.type != kind_before) ImGui::Separator();
         kind_before = c.type;
-        if (ImGui::MenuItem(c.label.c_str())) add_new_element(doc, st.editor, std::move(c.element), at);
+        if (ImGui::MenuItem(c.label.c_str())) chosen = true, add_new_element(doc, st.editor, std::move(c.element), at);
         if (c.type == "lens" && ImGui::BeginMenu("lens (thick singlet from the catalog)", !st.tools.catalog.empty())) {
             for (const CatalogLens& lens : st.tools.catalog)
                 if (is_singlet(lens) && ImGui::MenuItem(lens.id.c_str()))
-                    add_new_element(doc, st.editor, edit::new_catalog_lens(lens), at);
+                    chosen = true, add_new_element(doc, st.editor, edit::new_catalog_lens(lens), at);
             ImGui::EndMenu();
         }
     }
@@ -34,12 +36,13 @@ void draw_add_items(ViewerState& st, const Vec2& at) {
     const std::vector<std::string> free = edit::carriable_ids(doc.layout());
     if (ImGui::BeginMenu("stage carrying", !free.empty())) {
         for (const std::string& id : free)
-            if (ImGui::MenuItem(id.c_str())) add_stage(doc, st.editor, {id});
+            if (ImGui::MenuItem(id.c_str())) chosen = true, add_stage(doc, st.editor, {id});
         ImGui::EndMenu();
     }
     ImGui::Separator();
     // A layout has one or two beams (the reader's rule).
-    if (ImGui::MenuItem("beam", nullptr, false, doc.layout().beams.size() < 2)) add_beam(doc, st.editor, at);
+    if (ImGui::MenuItem("beam", nullptr, false, doc.layout().beams.size() < 2)) chosen = true, add_beam(doc, st.editor, at);
+    return chosen;
 }
 
 }  // namespace
@@ -53,16 +56,21 @@ void draw_add_menu(ViewerState& st, bool enabled) {
 void draw_add_here_popup(ViewerState& st) {
     constexpr const char* kId = "add here";
     if (!st.add_here_mm) return;
-    if (!ImGui::IsPopupOpen(kId)) ImGui::OpenPopup(kId);
-    if (!ImGui::BeginPopup(kId)) {  // closed (a choice, Esc or a click outside)
+    if (!st.add_here_shown) {  // opened once: a menu ImGui closed (a click outside) stays closed
+        ImGui::OpenPopup(kId);
+        st.add_here_shown = true;
+    }
+    if (!ImGui::BeginPopup(kId)) {  // closed by a click outside
         st.add_here_mm.reset();
+        st.add_here_shown = false;
         return;
     }
     ImGui::TextDisabled("add at x %.1f mm, y %.1f mm", st.add_here_mm->x(), st.add_here_mm->y());
-    draw_add_items(st, *st.add_here_mm);
-    if (ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Escape), false)) {  // Esc: nothing added
+    // A choice made or Esc: the menu closes and is not opened again next frame.
+    if (draw_add_items(st, *st.add_here_mm) || ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Escape), false)) {
         ImGui::CloseCurrentPopup();
         st.add_here_mm.reset();
+        st.add_here_shown = false;
     }
     ImGui::EndPopup();
 }

@@ -50,7 +50,11 @@ View interact(const View& fitted, ViewerState& state) {
         v = fitted;
     }
     // The status bar's readout: the table point under the cursor (the view as it is now).
-    if (ImGui::IsItemHovered() || ImGui::IsItemActive()) state.cursor_mm = v.to_table(io.MousePos);
+    // After keys have worked a menu, ImGui reports no item hovered until the mouse moves; the
+    // cursor still stands over the table, and Shift+A adds there.
+    const bool over_table = ImGui::IsItemHovered() || ImGui::IsItemActive() ||
+                            (ImGui::IsWindowHovered() && ImGui::IsMouseHoveringRect(ImGui::GetItemRectMin(), ImGui::GetItemRectMax()));
+    if (over_table) state.cursor_mm = v.to_table(io.MousePos);
     else state.cursor_mm.reset();
     return v;
 }

@@ -47,6 +47,7 @@ struct ViewerState {
     std::optional<size_t> template_request;
     GoalsState goals;                // the Goals panel (ui/goals_panel.hpp)
     std::optional<Vec2> add_here_mm;  // Shift+A: the Add menu opens at the cursor, adding there
+    bool add_here_shown = false;      // that menu has been opened (ui/add_menu.cpp)
     // A recovery file found at start: offered once (restore or discard).
     std::optional<std::string> recovery_offer;
     // The window asked to close with unsaved changes: ask; quit once answered.

@@ -7,7 +7,10 @@
 // the events due into ImGuiIO, in the order they happened, and stops at the first event that
 // would be a second transition of a key or mouse button already changed in this frame (that
 // event and every later one wait for the next frame, so nothing is reordered). A cursor move
-// after a button transition also waits, so a press is seen where it happened. No GLFW here: the
+// after a button transition also waits, so a press is seen where it happened; a button after a
+// cursor move waits, so a drag's moves are seen with the button down; and a modifier
+// (Ctrl, Shift, Alt, Super) changing after another key waits, so that key is seen with the
+// modifiers it was pressed with. No GLFW here: the
 // interface tests feed the same queue the window does.
 #include <cstddef>
 #include <deque>

@@ -33,6 +33,7 @@ void reset_panels(ViewerState& st) {
     st.template_request.reset();
     st.goals = {};
     st.add_here_mm.reset();
+    st.add_here_shown = false;
     st.export_request.reset();
     st.open_request.reset();
     st.recovery_offer.reset();
