@@ -18,11 +18,8 @@ import json
 
 import measured_run
 import os
-import signal
-import subprocess
 import sys
 import tempfile
-import time
 
 ELEMENTS = 100_000
 MAX_CPU_S = 2.0

@@ -19,11 +19,8 @@ import json
 import measured_run
 import os
 import re
-import signal
-import subprocess
 import sys
 import tempfile
-import time
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 from check_cli_random import walk, reject_constant  # noqa: E402
